@@ -1,0 +1,90 @@
+/**
+ * Sample autocorrelation function (Box & Jenkins 1970) and partial autocorrelation function by
+ * the Durbin–Levinson recursion (Levinson 1947; Durbin 1960).
+ *
+ * Missing values are handled pairwise: each lag sums the products of the pairs where both
+ * values exist and divides by (pairs + lag), which is n when nothing is missing; this is the
+ * convention of R's `acf(..., na.action = na.pass)`, so Ljung–Box matches R's `Box.test`.
+ */
+import { meanFinite } from './series';
+
+/** Autocovariances γ(0..maxLag) with the mean of the finite values removed. */
+export function autocovariance(x: ArrayLike<number>, maxLag: number): Float64Array {
+  const n = x.length;
+  const m = meanFinite(x);
+  const d = new Float64Array(n);
+  for (let i = 0; i < n; i++) d[i] = x[i] - m;
+  const out = new Float64Array(maxLag + 1);
+  for (let lag = 0; lag <= maxLag; lag++) {
+    let s = 0;
+    let pairs = 0;
+    for (let i = 0; i + lag < n; i++) {
+      const p = d[i] * d[i + lag];
+      if (p === p) {
+        s += p;
+        pairs++;
+      }
+    }
+    out[lag] = pairs > 0 ? s / (pairs + lag) : NaN;
+  }
+  return out;
+}
+
+/** Autocorrelations ρ(0..maxLag); ρ(0) = 1. */
+export function acf(x: ArrayLike<number>, maxLag: number): Float64Array {
+  const g = autocovariance(x, maxLag);
+  const out = new Float64Array(maxLag + 1);
+  for (let k = 0; k <= maxLag; k++) out[k] = g[k] / g[0];
+  return out;
+}
+
+/**
+ * Partial autocorrelations φ_kk for k = 1..maxLag (index 0 of the result is lag 1), by the
+ * Durbin–Levinson recursion on the sample autocorrelations.
+ */
+export function pacfFromAcf(rho: ArrayLike<number>, maxLag: number): Float64Array {
+  const out = new Float64Array(maxLag);
+  let phi = new Float64Array(0);
+  let v = 1;
+  for (let k = 1; k <= maxLag; k++) {
+    let num = rho[k];
+    for (let j = 1; j < k; j++) num -= phi[j - 1] * rho[k - j];
+    const a = v > 0 ? num / v : 0;
+    const next = new Float64Array(k);
+    for (let j = 1; j < k; j++) next[j - 1] = phi[j - 1] - a * phi[k - j - 1];
+    next[k - 1] = a;
+    phi = next;
+    v *= 1 - a * a;
+    out[k - 1] = a;
+  }
+  return out;
+}
+
+export function pacf(x: ArrayLike<number>, maxLag: number): Float64Array {
+  return pacfFromAcf(acf(x, maxLag), maxLag);
+}
+
+/**
+ * Yule–Walker AR(m) coefficients from the autocorrelations (the Durbin–Levinson recursion run
+ * to order m), with the innovation variance ratio v = σ²/γ(0).
+ */
+export function yuleWalker(rho: ArrayLike<number>, m: number): { phi: Float64Array; v: number } {
+  let phi = new Float64Array(0);
+  let v = 1;
+  for (let k = 1; k <= m; k++) {
+    let num = rho[k];
+    for (let j = 1; j < k; j++) num -= phi[j - 1] * rho[k - j];
+    const a = v > 0 ? num / v : 0;
+    const next = new Float64Array(k);
+    for (let j = 1; j < k; j++) next[j - 1] = phi[j - 1] - a * phi[k - j - 1];
+    next[k - 1] = a;
+    phi = next;
+    v *= 1 - a * a;
+  }
+  return { phi, v };
+}
+
+/** The ±1.96/√n band for a white-noise ACF, n counting the finite values. */
+export function acfBand(nFinite: number, z = 1.96): number {
+  return z / Math.sqrt(nFinite);
+}

@@ -1,0 +1,169 @@
+/**
+ * Quasi-Newton minimisation by BFGS (Broyden 1970; Fletcher 1970; Goldfarb 1970; Shanno 1970;
+ * Nocedal & Wright 2006, Algorithm 6.1) with a backtracking line search under the Armijo
+ * condition and finite-difference gradients. Small dense problems only (a handful of ARMA
+ * parameters), so plain arrays are used.
+ */
+
+export interface BfgsOptions {
+  maxIter?: number;
+  /** stop when the largest gradient component is below this */
+  gradTol?: number;
+  /** stop when the relative decrease of f is below this */
+  fTol?: number;
+  /** finite-difference step */
+  step?: number;
+  /** use central differences (twice the cost, more accurate) */
+  central?: boolean;
+}
+
+export interface BfgsResult {
+  x: Float64Array;
+  f: number;
+  iterations: number;
+  evaluations: number;
+  converged: boolean;
+  gradNorm: number;
+}
+
+export function minimizeBfgs(fn: (x: Float64Array) => number, x0: ArrayLike<number>, opts: BfgsOptions = {}): BfgsResult {
+  const k = x0.length;
+  const maxIter = opts.maxIter ?? 200;
+  const gradTol = opts.gradTol ?? 1e-6;
+  const fTol = opts.fTol ?? 1e-12;
+  const h = opts.step ?? 1e-6;
+  const central = opts.central ?? false;
+  let evaluations = 0;
+  const f = (x: Float64Array): number => {
+    evaluations++;
+    const v = fn(x);
+    return Number.isFinite(v) ? v : Infinity;
+  };
+  let x = Float64Array.from(x0);
+  let fx = f(x);
+  if (k === 0) return { x, f: fx, iterations: 0, evaluations, converged: true, gradNorm: 0 };
+  const grad = (xv: Float64Array, fv: number): Float64Array => {
+    const g = new Float64Array(k);
+    const xt = Float64Array.from(xv);
+    for (let i = 0; i < k; i++) {
+      const hi = h * Math.max(1, Math.abs(xv[i]));
+      xt[i] = xv[i] + hi;
+      const fp = f(xt);
+      if (central) {
+        xt[i] = xv[i] - hi;
+        const fm = f(xt);
+        g[i] = (fp - fm) / (2 * hi);
+      } else {
+        g[i] = (fp - fv) / hi;
+      }
+      xt[i] = xv[i];
+    }
+    return g;
+  };
+  // inverse Hessian approximation, row-major
+  const H = new Float64Array(k * k);
+  for (let i = 0; i < k; i++) H[i * k + i] = 1;
+  let g = grad(x, fx);
+  let converged = false;
+  let iter = 0;
+  let gnorm = maxAbs(g);
+  let smallSteps = 0;
+  for (; iter < maxIter; iter++) {
+    if (gnorm < gradTol) {
+      converged = true;
+      break;
+    }
+    const d = new Float64Array(k);
+    for (let i = 0; i < k; i++) {
+      let s = 0;
+      for (let j = 0; j < k; j++) s -= H[i * k + j] * g[j];
+      d[i] = s;
+    }
+    let slope = 0;
+    for (let i = 0; i < k; i++) slope += d[i] * g[i];
+    if (!(slope < 0)) {
+      // not a descent direction: reset to steepest descent
+      H.fill(0);
+      for (let i = 0; i < k; i++) {
+        H[i * k + i] = 1;
+        d[i] = -g[i];
+      }
+      slope = -dot(g, g);
+    }
+    // cap the step so that one iteration never moves a parameter by more than 2 units
+    let alpha = 1;
+    const dmax = maxAbs(d);
+    if (dmax > 2) alpha = 2 / dmax;
+    let xn = new Float64Array(k);
+    let fn1 = Infinity;
+    let accepted = false;
+    for (let ls = 0; ls < 40; ls++) {
+      for (let i = 0; i < k; i++) xn[i] = x[i] + alpha * d[i];
+      fn1 = f(xn);
+      if (fn1 <= fx + 1e-4 * alpha * slope) {
+        accepted = true;
+        break;
+      }
+      alpha *= 0.5;
+    }
+    if (!accepted) {
+      // no progress along d: restart once from steepest descent, otherwise stop
+      if (smallSteps++ > 1) break;
+      H.fill(0);
+      for (let i = 0; i < k; i++) H[i * k + i] = 1;
+      continue;
+    }
+    const gn = grad(xn, fn1);
+    const s = new Float64Array(k);
+    const y = new Float64Array(k);
+    for (let i = 0; i < k; i++) {
+      s[i] = xn[i] - x[i];
+      y[i] = gn[i] - g[i];
+    }
+    const sy = dot(s, y);
+    if (iter === 0 && sy > 0) {
+      // scale the first inverse Hessian guess (Nocedal & Wright 2006, eq. 6.20)
+      const scale = sy / dot(y, y);
+      for (let i = 0; i < k; i++) H[i * k + i] = scale;
+    }
+    if (sy > 1e-12 * Math.sqrt(dot(s, s) * dot(y, y))) {
+      const rho = 1 / sy;
+      const Hy = new Float64Array(k);
+      for (let i = 0; i < k; i++) {
+        let t = 0;
+        for (let j = 0; j < k; j++) t += H[i * k + j] * y[j];
+        Hy[i] = t;
+      }
+      const yHy = dot(y, Hy);
+      for (let i = 0; i < k; i++) {
+        for (let j = 0; j < k; j++) {
+          H[i * k + j] += (1 + rho * yHy) * rho * s[i] * s[j] - rho * (Hy[i] * s[j] + s[i] * Hy[j]);
+        }
+      }
+    }
+    const rel = Math.abs(fx - fn1) / (Math.abs(fx) + 1e-10);
+    x = xn;
+    xn = new Float64Array(k);
+    fx = fn1;
+    g = gn;
+    gnorm = maxAbs(g);
+    if (rel < fTol) {
+      converged = true;
+      iter++;
+      break;
+    }
+  }
+  return { x, f: fx, iterations: iter, evaluations, converged, gradNorm: gnorm };
+}
+
+function dot(a: Float64Array, b: Float64Array): number {
+  let s = 0;
+  for (let i = 0; i < a.length; i++) s += a[i] * b[i];
+  return s;
+}
+
+function maxAbs(a: Float64Array): number {
+  let m = 0;
+  for (let i = 0; i < a.length; i++) m = Math.max(m, Math.abs(a[i]));
+  return m;
+}

@@ -1,0 +1,51 @@
+/**
+ * Lag polynomials of ARMA models (Box & Jenkins 1970): the multiplicative seasonal model
+ * φ(B)Φ(B^s) w_t = θ(B)Θ(B^s) ε_t is expanded into one AR polynomial 1 − Σ a_k B^k and one MA
+ * polynomial 1 + Σ b_k B^k, and ψ-weights of the MA(∞) form are computed from them.
+ */
+
+/** Expand φ(B)Φ(B^s) with AR sign convention (1 − Σφ_i B^i)(1 − ΣΦ_j B^{js}); returns a_1..a_K. */
+export function expandAr(phi: ArrayLike<number>, sphi: ArrayLike<number>, s: number): Float64Array {
+  const p = phi.length;
+  const P = sphi.length;
+  const K = p + P * s;
+  const out = new Float64Array(K);
+  for (let i = 0; i < p; i++) out[i] += phi[i];
+  for (let j = 0; j < P; j++) {
+    out[(j + 1) * s - 1] += sphi[j];
+    for (let i = 0; i < p; i++) out[(j + 1) * s + i] -= phi[i] * sphi[j];
+  }
+  return out;
+}
+
+/** Expand θ(B)Θ(B^s) with MA sign convention (1 + Σθ_i B^i)(1 + ΣΘ_j B^{js}); returns b_1..b_K. */
+export function expandMa(theta: ArrayLike<number>, stheta: ArrayLike<number>, s: number): Float64Array {
+  const q = theta.length;
+  const Q = stheta.length;
+  const K = q + Q * s;
+  const out = new Float64Array(K);
+  for (let i = 0; i < q; i++) out[i] += theta[i];
+  for (let j = 0; j < Q; j++) {
+    out[(j + 1) * s - 1] += stheta[j];
+    for (let i = 0; i < q; i++) out[(j + 1) * s + i] += theta[i] * stheta[j];
+  }
+  return out;
+}
+
+/** ψ_0..ψ_{h−1} of the ARMA with AR coefficients a (1 − Σ a B) and MA coefficients b (1 + Σ b B). */
+export function psiWeights(a: ArrayLike<number>, b: ArrayLike<number>, h: number): Float64Array {
+  const psi = new Float64Array(h);
+  for (let j = 0; j < h; j++) {
+    let s = j === 0 ? 1 : j - 1 < b.length ? b[j - 1] : 0;
+    for (let k = 1; k <= Math.min(j, a.length); k++) s += a[k - 1] * psi[j - k];
+    psi[j] = s;
+  }
+  return psi;
+}
+
+/** Product of two polynomials given by full coefficient vectors (index = power). */
+export function multiply(x: ArrayLike<number>, y: ArrayLike<number>): Float64Array {
+  const out = new Float64Array(x.length + y.length - 1);
+  for (let i = 0; i < x.length; i++) for (let j = 0; j < y.length; j++) out[i + j] += x[i] * y[j];
+  return out;
+}
