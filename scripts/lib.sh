@@ -1,0 +1,32 @@
+# Shared helpers for the shell entry points. Source it; it defines functions only.
+# shellcheck shell=bash
+
+ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
+
+log() { printf '\033[1;34m[morrowline]\033[0m %s\n' "$*" >&2; }
+die() { printf '\033[1;31m[morrowline]\033[0m %s\n' "$*" >&2; exit 1; }
+
+# apt_install PKG... — install Debian packages that are missing (we run as root on CI).
+apt_install() {
+  local missing=()
+  for pkg in "$@"; do
+    dpkg-query -W -f='${Status}' "$pkg" 2>/dev/null | grep -q 'install ok installed' || missing+=("$pkg")
+  done
+  [ ${#missing[@]} -eq 0 ] && return 0
+  log "installing Debian packages: ${missing[*]}"
+  local sudo=""
+  [ "$(id -u)" -ne 0 ] && sudo="sudo"
+  $sudo apt-get update -qq >/dev/null
+  DEBIAN_FRONTEND=noninteractive $sudo apt-get install -y -qq --no-install-recommends "${missing[@]}" >/dev/null \
+    || die "apt-get install ${missing[*]} failed"
+}
+
+# npm_deps — install npm dependencies when node_modules is missing or older than the lockfile.
+npm_deps() {
+  cd "$ROOT" || exit 1
+  if [ ! -d node_modules ] || [ ! -f node_modules/.package-lock.json ] \
+     || [ package-lock.json -nt node_modules/.package-lock.json ]; then
+    log "installing npm dependencies (npm ci)"
+    npm ci --no-audit --no-fund >/dev/null || die "npm ci failed"
+  fi
+}

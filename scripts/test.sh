@@ -1,0 +1,84 @@
+#!/usr/bin/env bash
+# npm test: every suite, with what they need started here and stopped afterwards.
+#   server unit (jest) · server integration (jest, real MariaDB on 127.0.0.1:3308, fresh schema)
+#   simulator (jest) · client (vitest) · browser (vitest + playwright-core + Debian Chromium)
+# Ends with one line "N passed, N failed" and a non-zero exit if anything failed.
+# Run one suite alone: scripts/test.sh unit|integration|client|e2e
+set -uo pipefail
+source "$(dirname "$0")/lib.sh"
+cd "$ROOT"
+
+only="${1:-all}"
+reports="$ROOT/.data/test-reports"
+rm -rf "$reports"; mkdir -p "$reports"
+export TEST_DB_PORT="${TEST_DB_PORT:-3308}"
+export TEST_APP_PORT="${TEST_APP_PORT:-3100}"
+failures=()
+pids=()
+
+cleanup() {
+  for pid in "${pids[@]}"; do kill "$pid" 2>/dev/null; done
+  wait 2>/dev/null
+  bash scripts/db.sh stop test >/dev/null 2>&1 || true
+}
+trap cleanup EXIT
+trap 'exit 130' INT TERM
+
+want() { [ "$only" = all ] || [ "$only" = "$1" ]; }
+# suite NAME COMMAND... — run one suite; a suite that fails (or crashes) is remembered.
+suite() {
+  local name="$1"; shift
+  log "suite: $name"
+  if ! "$@"; then failures+=("$name"); fi
+  [ -f "$reports/$name.json" ] || echo '{"numPassedTests":0,"numFailedTests":1,"crashed":true}' >"$reports/$name.json"
+}
+
+npm_deps
+apt_install mariadb-server mariadb-client
+want e2e && apt_install chromium
+npm run -s build -w shared || die "shared build failed"
+
+# Environment for everything that talks to the test database.
+export NODE_ENV=test DB_PORT="$TEST_DB_PORT" DB_NAME=morrowline_test DB_USER=morrowline DB_PASSWORD=morrowline-test
+export LOGIN_ATTEMPTS_PER_MINUTE=10
+
+if want unit; then
+  suite unit npx --workspace server jest --selectProjects unit --json --outputFile="$reports/unit.json"
+fi
+
+if want integration || want e2e; then
+  bash scripts/db.sh start test "$TEST_DB_PORT" || die "test MariaDB did not start"
+  bash scripts/db.sh reset test "$TEST_DB_PORT" || die "could not reset the test database"
+fi
+
+if want integration; then
+  # Fresh schema from the migrations, then the demo users and zones the tests sign in with.
+  (cd server && npx tsx src/database/manage.ts migrate >/dev/null && npx tsx src/database/manage.ts seed >/dev/null) \
+    || die "could not migrate the test database"
+  suite integration npx --workspace server jest --selectProjects integration --runInBand --json --outputFile="$reports/integration.json"
+fi
+
+if want client; then
+  suite client npx --workspace client vitest run --reporter=default --reporter=json --outputFile.json="$reports/client.json"
+fi
+
+if want e2e; then
+  bash scripts/db.sh reset test "$TEST_DB_PORT" >/dev/null
+  log "building server and client for the browser tests"
+  if npm run -s build -w server && npm run -s build -w client; then
+    (cd server && node dist/database/manage.js migrate >/dev/null && node dist/database/manage.js seed >/dev/null) || die "test database set-up failed"
+    PORT="$TEST_APP_PORT" node server/dist/main.js >"$reports/e2e-server.log" 2>&1 &
+    pids+=($!)
+    for _ in $(seq 1 60); do curl -fs "http://127.0.0.1:$TEST_APP_PORT/api/health" >/dev/null && break; sleep 0.5; done
+    MORROWLINE_URL="http://127.0.0.1:$TEST_APP_PORT" suite e2e npx --workspace client vitest run --config vitest.e2e.config.ts \
+      --reporter=default --reporter=json --outputFile.json="$reports/e2e.json"
+  else
+    failures+=(build)
+  fi
+fi
+
+summary=$(node scripts/summarize-tests.mjs "$reports")
+echo
+[ ${#failures[@]} -gt 0 ] && log "failed suites: ${failures[*]}"
+echo "$summary"
+[ ${#failures[@]} -eq 0 ]

@@ -1,0 +1,33 @@
+/** Server tests: unit specs beside the code, integration tests in test/ against a real MariaDB. */
+const swc = [
+  '@swc/jest',
+  {
+    jsc: {
+      parser: { syntax: 'typescript', decorators: true },
+      transform: { legacyDecorator: true, decoratorMetadata: true },
+      target: 'es2022',
+    },
+    module: { type: 'commonjs' },
+  },
+];
+
+/** @type {import('jest').Config} */
+module.exports = {
+  projects: [
+    {
+      displayName: 'unit',
+      testEnvironment: 'node',
+      rootDir: __dirname,
+      testMatch: ['<rootDir>/src/**/*.spec.ts'],
+      transform: { '^.+\\.ts$': swc },
+    },
+    {
+      displayName: 'integration',
+      testEnvironment: 'node',
+      rootDir: __dirname,
+      testMatch: ['<rootDir>/test/**/*.e2e-spec.ts'],
+      transform: { '^.+\\.ts$': swc },
+      testTimeout: 60000,
+    },
+  ],
+};

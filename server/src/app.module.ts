@@ -1,0 +1,32 @@
+import { MariaDbDriver } from '@mikro-orm/mariadb';
+import { MikroOrmModule } from '@mikro-orm/nestjs';
+import { Module } from '@nestjs/common';
+import { ConfigModule, ConfigService } from '@nestjs/config';
+import { ScheduleModule } from '@nestjs/schedule';
+import { AuditModule } from './audit/audit.module';
+import { AuthModule } from './auth/auth.module';
+import { configFactory, type AppConfig } from './config/configuration';
+import { ormConfig } from './database/mikro-orm.config';
+import { DeskModule } from './desk/desk.module';
+import { HealthModule } from './health/health.module';
+import { UsersModule } from './users/users.module';
+import { ZonesModule } from './zones/zones.module';
+
+@Module({
+  imports: [
+    ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, load: [configFactory] }),
+    MikroOrmModule.forRootAsync({
+      inject: [ConfigService],
+      driver: MariaDbDriver,
+      useFactory: (config: ConfigService) => ormConfig(config.getOrThrow<AppConfig>('app')),
+    }),
+    ScheduleModule.forRoot(),
+    AuditModule,
+    AuthModule,
+    UsersModule,
+    ZonesModule,
+    HealthModule,
+    DeskModule,
+  ],
+})
+export class AppModule {}

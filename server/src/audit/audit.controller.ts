@@ -1,0 +1,19 @@
+import { Controller, Get, Query } from '@nestjs/common';
+import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import type { AuditEntryDto, Page } from '@morrowline/shared';
+import { Roles } from '../auth/roles.decorator';
+import { AuditService } from './audit.service';
+import { AuditQueryDto } from './dto/audit-query.dto';
+
+@ApiTags('audit')
+@ApiBearerAuth()
+@Controller('audit')
+export class AuditController {
+  constructor(private readonly audit: AuditService) {}
+
+  @Get()
+  @Roles('supervisor', 'admin')
+  list(@Query() query: AuditQueryDto): Promise<Page<AuditEntryDto>> {
+    return this.audit.list(query);
+  }
+}

@@ -1,0 +1,8 @@
+import { Global, Module } from '@nestjs/common';
+import { AuditController } from './audit.controller';
+import { AuditService } from './audit.service';
+
+/** Global: every feature writes to the trail. */
+@Global()
+@Module({ controllers: [AuditController], providers: [AuditService], exports: [AuditService] })
+export class AuditModule {}

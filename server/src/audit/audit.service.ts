@@ -1,0 +1,95 @@
+import { EntityManager } from '@mikro-orm/mariadb';
+import { Injectable } from '@nestjs/common';
+import type { AuditEntryDto, Page } from '@morrowline/shared';
+import { AuditEntry } from './entities/audit-entry.entity';
+
+/** Who did it; null for the system itself (schedules, start-up). */
+export interface Actor {
+  id: number;
+  email: string;
+}
+
+export interface AuditRecord {
+  action: string;
+  subjectType: string;
+  subjectId?: string | number | null;
+  before?: unknown;
+  after?: unknown;
+  reason?: string | null;
+}
+
+export interface AuditQuery {
+  limit: number;
+  offset: number;
+  action?: string;
+  subjectType?: string;
+  subjectId?: string;
+  actorId?: number;
+  from?: Date;
+  to?: Date;
+}
+
+/**
+ * Writes and reads the append-only audit trail. Callers pass their own EntityManager when the
+ * entry must commit or roll back with the change it describes.
+ */
+@Injectable()
+export class AuditService {
+  constructor(private readonly em: EntityManager) {}
+
+  /** Adds an entry to the unit of work of `em` (flushed by the caller's transaction). */
+  stage(em: EntityManager, actor: Actor | null, record: AuditRecord): AuditEntry {
+    const entry = em.create(AuditEntry, {
+      at: new Date(),
+      actorId: actor?.id ?? null,
+      actorEmail: actor?.email ?? null,
+      action: record.action,
+      subjectType: record.subjectType,
+      subjectId: record.subjectId == null ? null : String(record.subjectId),
+      before: record.before ?? null,
+      after: record.after ?? null,
+      reason: record.reason ?? null,
+    });
+    em.persist(entry);
+    return entry;
+  }
+
+  /** Writes one entry on its own. */
+  async record(actor: Actor | null, record: AuditRecord): Promise<void> {
+    const em = this.em.fork();
+    this.stage(em, actor, record);
+    await em.flush();
+  }
+
+  async list(query: AuditQuery): Promise<Page<AuditEntryDto>> {
+    const where: Record<string, unknown> = {};
+    if (query.action) where.action = query.action;
+    if (query.subjectType) where.subjectType = query.subjectType;
+    if (query.subjectId) where.subjectId = query.subjectId;
+    if (query.actorId) where.actorId = query.actorId;
+    if (query.from || query.to) {
+      where.at = { ...(query.from ? { $gte: query.from } : {}), ...(query.to ? { $lt: query.to } : {}) };
+    }
+    const [items, total] = await this.em.fork().findAndCount(AuditEntry, where, {
+      orderBy: { at: 'desc', id: 'desc' },
+      limit: query.limit,
+      offset: query.offset,
+    });
+    return { items: items.map(toAuditEntryDto), total };
+  }
+}
+
+export function toAuditEntryDto(entry: AuditEntry): AuditEntryDto {
+  return {
+    id: Number(entry.id),
+    at: entry.at.toISOString(),
+    actorId: entry.actorId,
+    actorEmail: entry.actorEmail,
+    action: entry.action,
+    subjectType: entry.subjectType,
+    subjectId: entry.subjectId,
+    before: entry.before,
+    after: entry.after,
+    reason: entry.reason,
+  };
+}

@@ -1,0 +1,45 @@
+import { Body, Controller, Get, HttpCode, Ip, Post, UseGuards } from '@nestjs/common';
+import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import { Throttle } from '@nestjs/throttler';
+import type { LoginResponse, UserDto } from '@morrowline/shared';
+import { UsersService, toUserDto } from '../users/users.service';
+import type { AuthUser } from './auth-user';
+import { AuthService } from './auth.service';
+import { CurrentUser } from './current-user.decorator';
+import { LoginDto } from './dto/login.dto';
+import { LoginThrottlerGuard } from './guards/login-throttler.guard';
+import { Public, SignedIn } from './roles.decorator';
+
+@ApiTags('auth')
+@Controller('auth')
+export class AuthController {
+  constructor(
+    private readonly auth: AuthService,
+    private readonly users: UsersService,
+  ) {}
+
+  @Post('login')
+  @Public()
+  @HttpCode(200)
+  @UseGuards(LoginThrottlerGuard)
+  @Throttle({ login: {} })
+  login(@Body() body: LoginDto, @Ip() address: string): Promise<LoginResponse> {
+    return this.auth.login(body.email, body.password, address);
+  }
+
+  @Get('me')
+  @SignedIn()
+  @ApiBearerAuth()
+  async me(@CurrentUser() user: AuthUser): Promise<UserDto> {
+    return toUserDto(await this.users.getById(user.id));
+  }
+
+  /** Tokens are stateless; sign-out is the client dropping its token. Recorded for the shift log. */
+  @Post('logout')
+  @SignedIn()
+  @HttpCode(204)
+  @ApiBearerAuth()
+  logout(@CurrentUser() user: AuthUser): Promise<void> {
+    return this.auth.logout(user);
+  }
+}

@@ -1,0 +1,64 @@
+/**
+ * Configuration, read from the environment once at start-up and validated. Every variable has a
+ * safe default for development; outside development a secret that is still its default value is
+ * refused, so a forgotten setting cannot reach a control room.
+ */
+export const DEFAULT_JWT_SECRET = 'morrowline-development-secret-do-not-use';
+
+export interface AppConfig {
+  env: 'development' | 'test' | 'production';
+  host: string;
+  port: number;
+  /** Origins allowed by CORS; empty means closed (the client is served from the same origin). */
+  corsOrigins: string[];
+  /** Folder of the built client, served at /. */
+  clientDist: string;
+  db: { host: string; port: number; name: string; user: string; password: string; debug: boolean };
+  jwt: { secret: string; expiresInSeconds: number };
+  /** Sign-in attempts allowed per e-mail and address per minute before 429. */
+  loginAttemptsPerMinute: number;
+}
+
+function int(env: NodeJS.ProcessEnv, key: string, fallback: number): number {
+  const raw = env[key];
+  if (raw === undefined || raw === '') return fallback;
+  const value = Number(raw);
+  if (!Number.isInteger(value) || value < 0) {
+    throw new Error(`Configuration: ${key} must be a non-negative whole number, got "${raw}"`);
+  }
+  return value;
+}
+
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
+  const nodeEnv = env.NODE_ENV ?? 'development';
+  if (!['development', 'test', 'production'].includes(nodeEnv)) {
+    throw new Error(`Configuration: NODE_ENV must be development, test or production, got "${nodeEnv}"`);
+  }
+  const secret = env.JWT_SECRET ?? DEFAULT_JWT_SECRET;
+  if (nodeEnv === 'production' && secret === DEFAULT_JWT_SECRET) {
+    throw new Error('Configuration: JWT_SECRET is still the development default; set a secret of your own');
+  }
+  if (nodeEnv === 'production' && secret.length < 32) {
+    throw new Error('Configuration: JWT_SECRET must be at least 32 characters in production');
+  }
+  return {
+    env: nodeEnv as AppConfig['env'],
+    host: env.HOST ?? '127.0.0.1',
+    port: int(env, 'PORT', 3000),
+    corsOrigins: (env.CORS_ORIGINS ?? '').split(',').map((s) => s.trim()).filter(Boolean),
+    clientDist: env.CLIENT_DIST ?? `${__dirname}/../../../client/dist`,
+    db: {
+      host: env.DB_HOST ?? '127.0.0.1',
+      port: int(env, 'DB_PORT', 3307),
+      name: env.DB_NAME ?? 'morrowline',
+      user: env.DB_USER ?? 'morrowline',
+      password: env.DB_PASSWORD ?? 'morrowline-local',
+      debug: env.DB_DEBUG === 'true',
+    },
+    jwt: { secret, expiresInSeconds: int(env, 'JWT_EXPIRES_IN', 8 * 3600) },
+    loginAttemptsPerMinute: int(env, 'LOGIN_ATTEMPTS_PER_MINUTE', 10),
+  };
+}
+
+/** For @nestjs/config: `ConfigModule.forRoot({ load: [configFactory] })`, read as `config.get('app')`. */
+export const configFactory = () => ({ app: loadConfig() });

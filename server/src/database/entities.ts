@@ -1,0 +1,6 @@
+/** Every entity the ORM knows, in one list (explicit, so tsc builds and tests discover the same). */
+import { AuditEntry } from '../audit/entities/audit-entry.entity';
+import { User } from '../users/entities/user.entity';
+import { Zone } from '../zones/entities/zone.entity';
+
+export const ENTITIES = [User, AuditEntry, Zone];

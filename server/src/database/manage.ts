@@ -1,0 +1,38 @@
+/**
+ * Database chores for the start and test scripts:
+ *   node dist/database/manage.js migrate   apply pending migrations
+ *   node dist/database/manage.js seed      load the demo scenario into an empty database
+ */
+import 'reflect-metadata';
+import { MikroORM } from '@mikro-orm/mariadb';
+import { ormConfig } from './mikro-orm.config';
+import { DatabaseSeeder } from './seeders/DatabaseSeeder';
+
+export async function migrate(orm: MikroORM): Promise<string[]> {
+  const applied = await orm.getMigrator().up();
+  return applied.map((m) => m.name);
+}
+
+async function main(command: string | undefined): Promise<void> {
+  const orm = await MikroORM.init(ormConfig());
+  try {
+    if (command === 'migrate') {
+      const applied = await migrate(orm);
+      console.log(applied.length ? `applied migrations: ${applied.join(', ')}` : 'schema is up to date');
+    } else if (command === 'seed') {
+      await orm.getSeeder().seed(DatabaseSeeder);
+      console.log('demo scenario in place');
+    } else {
+      throw new Error('usage: manage migrate|seed');
+    }
+  } finally {
+    await orm.close(true);
+  }
+}
+
+if (require.main === module) {
+  main(process.argv[2]).catch((error: unknown) => {
+    console.error(error instanceof Error ? error.message : error);
+    process.exit(1);
+  });
+}

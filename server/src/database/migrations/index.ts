@@ -1,0 +1,4 @@
+/** The schema's history, in order. Add each new migration here as well. */
+import { Migration20261201192005 } from './Migration20261201192005';
+
+export const MIGRATIONS = [{ name: 'Migration20261201192005', class: Migration20261201192005 }];

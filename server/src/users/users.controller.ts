@@ -1,0 +1,32 @@
+import { Body, Controller, Get, Param, ParseIntPipe, Patch, Post } from '@nestjs/common';
+import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import type { UserDto } from '@morrowline/shared';
+import type { AuthUser } from '../auth/auth-user';
+import { CurrentUser } from '../auth/current-user.decorator';
+import { Roles } from '../auth/roles.decorator';
+import { CreateUserDto } from './dto/create-user.dto';
+import { UpdateUserDto } from './dto/update-user.dto';
+import { UsersService } from './users.service';
+
+@ApiTags('users')
+@ApiBearerAuth()
+@Controller('users')
+@Roles('admin')
+export class UsersController {
+  constructor(private readonly users: UsersService) {}
+
+  @Get()
+  list(): Promise<UserDto[]> {
+    return this.users.list();
+  }
+
+  @Post()
+  create(@CurrentUser() actor: AuthUser, @Body() body: CreateUserDto): Promise<UserDto> {
+    return this.users.create(actor, body);
+  }
+
+  @Patch(':id')
+  update(@CurrentUser() actor: AuthUser, @Param('id', ParseIntPipe) id: number, @Body() body: UpdateUserDto): Promise<UserDto> {
+    return this.users.update(actor, id, body);
+  }
+}

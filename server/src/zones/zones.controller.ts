@@ -1,0 +1,33 @@
+import { Body, Controller, Get, Param, ParseIntPipe, Patch, Post } from '@nestjs/common';
+import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import type { ZoneDto } from '@morrowline/shared';
+import type { AuthUser } from '../auth/auth-user';
+import { CurrentUser } from '../auth/current-user.decorator';
+import { Roles, SignedIn } from '../auth/roles.decorator';
+import { CreateZoneDto, UpdateZoneDto } from './dto/zone.dto';
+import { ZonesService } from './zones.service';
+
+@ApiTags('zones')
+@ApiBearerAuth()
+@Controller('zones')
+export class ZonesController {
+  constructor(private readonly zones: ZonesService) {}
+
+  @Get()
+  @SignedIn()
+  list(): Promise<ZoneDto[]> {
+    return this.zones.list();
+  }
+
+  @Post()
+  @Roles('admin')
+  create(@CurrentUser() actor: AuthUser, @Body() body: CreateZoneDto): Promise<ZoneDto> {
+    return this.zones.create(actor, body);
+  }
+
+  @Patch(':id')
+  @Roles('admin')
+  update(@CurrentUser() actor: AuthUser, @Param('id', ParseIntPipe) id: number, @Body() body: UpdateZoneDto): Promise<ZoneDto> {
+    return this.zones.update(actor, id, body);
+  }
+}

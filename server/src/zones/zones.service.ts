@@ -1,0 +1,74 @@
+import { EntityManager, UniqueConstraintViolationException } from '@mikro-orm/mariadb';
+import { BadRequestException, ConflictException, Injectable, NotFoundException } from '@nestjs/common';
+import type { CreateZoneRequest, UpdateZoneRequest, ZoneDto } from '@morrowline/shared';
+import { AuditService, type Actor } from '../audit/audit.service';
+import { Zone } from './entities/zone.entity';
+
+export function toZoneDto(zone: Zone): ZoneDto {
+  return {
+    id: zone.id,
+    code: zone.code,
+    name: zone.name,
+    timeZone: zone.timeZone,
+    alertThresholdPct: zone.alertThresholdPct,
+    alertConsecutiveHours: zone.alertConsecutiveHours,
+    gateClosure: zone.gateClosure,
+    minPlausibleMw: zone.minPlausibleMw,
+    maxPlausibleMw: zone.maxPlausibleMw,
+    active: zone.active,
+  };
+}
+
+function checkRange(min: number, max: number): void {
+  if (!(min < max)) throw new BadRequestException(`The plausible range is empty: minimum ${min} MW is not below maximum ${max} MW`);
+}
+
+@Injectable()
+export class ZonesService {
+  constructor(
+    private readonly em: EntityManager,
+    private readonly audit: AuditService,
+  ) {}
+
+  async list(): Promise<ZoneDto[]> {
+    const zones = await this.em.fork().find(Zone, {}, { orderBy: { code: 'asc' } });
+    return zones.map(toZoneDto);
+  }
+
+  async getByCode(code: string): Promise<Zone> {
+    const zone = await this.em.fork().findOne(Zone, { code });
+    if (!zone) throw new NotFoundException(`No zone with code ${code}`);
+    return zone;
+  }
+
+  async create(actor: Actor, request: CreateZoneRequest): Promise<ZoneDto> {
+    checkRange(request.minPlausibleMw, request.maxPlausibleMw);
+    const em = this.em.fork();
+    const zone = em.create(Zone, { ...request, active: request.active ?? true, createdAt: new Date(), updatedAt: new Date() });
+    try {
+      await em.transactional(async (tx) => {
+        tx.persist(zone);
+        await tx.flush();
+        this.audit.stage(tx, actor, { action: 'zone.create', subjectType: 'zone', subjectId: zone.code, after: toZoneDto(zone) });
+      });
+    } catch (error) {
+      if (error instanceof UniqueConstraintViolationException) throw new ConflictException(`A zone with code ${request.code} already exists`);
+      throw error;
+    }
+    return toZoneDto(zone);
+  }
+
+  async update(actor: Actor, id: number, request: UpdateZoneRequest): Promise<ZoneDto> {
+    return this.em.fork().transactional(async (tx) => {
+      const zone = await tx.findOne(Zone, { id });
+      if (!zone) throw new NotFoundException(`No zone with id ${id}`);
+      const before = toZoneDto(zone);
+      const { reason, ...changes } = request;
+      checkRange(changes.minPlausibleMw ?? zone.minPlausibleMw, changes.maxPlausibleMw ?? zone.maxPlausibleMw);
+      tx.assign(zone, changes);
+      const after = toZoneDto(zone);
+      this.audit.stage(tx, actor, { action: 'zone.update', subjectType: 'zone', subjectId: zone.code, before, after, reason: reason ?? null });
+      return after;
+    });
+  }
+}

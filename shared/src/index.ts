@@ -1,0 +1,5 @@
+export * from './roles';
+export * from './api';
+export * from './feed';
+export * from './demo-scenario';
+export * from './desk';
