@@ -15,7 +15,7 @@ export class HealthController {
   @Get()
   @Public()
   async health(): Promise<HealthDto> {
-    let database: HealthDto['database'] = 'down';
+    let database: HealthDto['database'];
     try {
       await this.em.getConnection().execute('select 1');
       database = 'up';

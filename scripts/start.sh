@@ -1,0 +1,68 @@
+#!/usr/bin/env bash
+# npm start: everything from a fresh machine to a running desk.
+#   npm dependencies · MariaDB (Debian package, private data directory .data/dev, 127.0.0.1:3307)
+#   migrations · demo scenario (once) · build · server on http://127.0.0.1:3000 · meter-feed simulator
+# Ctrl-C (or SIGTERM) stops the simulator, the server and MariaDB.
+set -uo pipefail
+source "$(dirname "$0")/lib.sh"
+cd "$ROOT"
+
+export PORT="${PORT:-3000}" DB_PORT="${DB_PORT:-3307}"
+export NODE_ENV=production
+pids=()
+
+stop_all() {
+  trap - INT TERM EXIT
+  log "stopping"
+  for pid in "${pids[@]}"; do kill "$pid" 2>/dev/null; done
+  for pid in "${pids[@]}"; do wait "$pid" 2>/dev/null; done
+  bash scripts/db.sh stop dev
+  exit 0
+}
+trap stop_all INT TERM EXIT
+
+npm_deps
+bash scripts/db.sh start dev "$DB_PORT" || die "MariaDB did not start"
+
+# A signing secret of this installation's own, made once and kept out of git.
+secret_file="$ROOT/.data/jwt-secret"
+[ -s "$secret_file" ] || { node -e "console.log(require('crypto').randomBytes(48).toString('base64url'))" >"$secret_file"; chmod 600 "$secret_file"; }
+JWT_SECRET="$(cat "$secret_file")"
+export JWT_SECRET
+
+log "building (shared, server, client)"
+npm run -s build >/dev/null || die "build failed; run 'npm run build' to see why"
+
+(cd server && node dist/database/manage.js migrate && node dist/database/manage.js seed) || die "database set-up failed"
+
+node server/dist/main.js >"$ROOT/.data/server.log" 2>&1 &
+pids+=($!)
+for _ in $(seq 1 60); do curl -fs "http://127.0.0.1:$PORT/api/health" >/dev/null && break; sleep 0.5; done
+curl -fs "http://127.0.0.1:$PORT/api/health" >/dev/null || { tail -30 "$ROOT/.data/server.log" >&2; die "the server did not start"; }
+
+if [ -f simulators/src/main.ts ] && grep -q "feed-key" server/dist/database/manage.js 2>/dev/null; then
+  key="$(cd server && node dist/database/manage.js feed-key demo-simulator)"
+  MORROWLINE_FEED_KEY="$key" npx --workspace simulators tsx src/main.ts --url "http://127.0.0.1:$PORT" \
+    --backfill-weeks 8 --speed "${SIM_SPEED:-60}" >"$ROOT/.data/simulator.log" 2>&1 &
+  pids+=($!)
+  sim="running (log .data/simulator.log)"
+else
+  sim="not available yet"
+fi
+
+cat <<MSG
+
+  Morrowline is running:  http://127.0.0.1:$PORT
+  API documentation:      http://127.0.0.1:$PORT/api/docs
+  Meter-feed simulator:   $sim
+  Server log:             .data/server.log
+
+  Demo logins (Tallowmere Valley Electric Cooperative, invented):
+$(node -e "for (const u of require('./shared/dist/demo-scenario').DEMO_USERS) console.log('    ' + u.role.padEnd(11) + u.email.padEnd(36) + u.password)")
+
+  Press Ctrl-C to stop.
+
+MSG
+wait -n "${pids[@]}"
+log "a process ended on its own; see .data/server.log"
+stop_all
