@@ -1,0 +1,41 @@
+import { AppShell, Burger, Group } from '@mantine/core';
+import { useDisclosure } from '@mantine/hooks';
+import { Outlet } from 'react-router-dom';
+import { Wordmark } from '../../components/Wordmark';
+import { SignOutButton, useSignedInUser } from '../../features/auth';
+import { ColorSchemeToggle } from './ColorSchemeToggle';
+import { SectionNavigation } from './SectionNavigation';
+import { SignedInUser } from './SignedInUser';
+
+export function AppLayout() {
+  const user = useSignedInUser();
+  const [navigationOpen, { toggle, close }] = useDisclosure(false);
+
+  return (
+    <AppShell
+      header={{ height: 56 }}
+      navbar={{ width: 232, breakpoint: 'sm', collapsed: { mobile: !navigationOpen } }}
+      padding="lg"
+    >
+      <AppShell.Header>
+        <Group h="100%" px="md" justify="space-between" wrap="nowrap">
+          <Group gap="sm" wrap="nowrap">
+            <Burger opened={navigationOpen} onClick={toggle} hiddenFrom="sm" size="sm" aria-label="Show sections" />
+            <Wordmark size={26} />
+          </Group>
+          <Group gap="md" wrap="nowrap">
+            <SignedInUser user={user} />
+            <ColorSchemeToggle />
+            <SignOutButton />
+          </Group>
+        </Group>
+      </AppShell.Header>
+      <AppShell.Navbar p="sm">
+        <SectionNavigation role={user.role} onNavigate={close} />
+      </AppShell.Navbar>
+      <AppShell.Main>
+        <Outlet />
+      </AppShell.Main>
+    </AppShell>
+  );
+}

@@ -1,0 +1,65 @@
+import type { Role } from '@morrowline/shared';
+
+export type SectionId =
+  | 'live'
+  | 'workbench'
+  | 'refits'
+  | 'schedules'
+  | 'accuracy'
+  | 'shift-log'
+  | 'history'
+  | 'users'
+  | 'zones'
+  | 'audit';
+
+export interface Section {
+  id: SectionId;
+  path: string;
+  label: string;
+  /** "desk" for forecasting work, "admin" for the administration group. */
+  group: 'desk' | 'admin';
+  /** The roles that may open it. The server enforces the same rule on its routes. */
+  roles: readonly Role[];
+}
+
+const EVERY_DESK_ROLE: readonly Role[] = ['viewer', 'operator', 'supervisor'];
+const FORECASTERS: readonly Role[] = ['operator', 'supervisor'];
+
+/**
+ * Every screen of the desk, in navigation order.
+ *
+ * Admin is IT, not a senior forecaster: it sees live load (to check that meter feeds arrive)
+ * and the administration screens, but none of the forecasting work. The audit trail is also
+ * open to supervisors, who answer for what was published.
+ */
+export const SECTIONS: readonly Section[] = [
+  { id: 'live', path: '/live', label: 'Live load', group: 'desk', roles: [...EVERY_DESK_ROLE, 'admin'] },
+  { id: 'workbench', path: '/workbench', label: 'Model workbench', group: 'desk', roles: FORECASTERS },
+  { id: 'refits', path: '/refits', label: 'Refits', group: 'desk', roles: FORECASTERS },
+  { id: 'schedules', path: '/schedules', label: 'Day-ahead schedule', group: 'desk', roles: EVERY_DESK_ROLE },
+  { id: 'accuracy', path: '/accuracy', label: 'Accuracy', group: 'desk', roles: EVERY_DESK_ROLE },
+  { id: 'shift-log', path: '/shift-log', label: 'Shift log', group: 'desk', roles: FORECASTERS },
+  { id: 'history', path: '/history', label: 'History', group: 'desk', roles: EVERY_DESK_ROLE },
+  { id: 'users', path: '/admin/users', label: 'Users', group: 'admin', roles: ['admin'] },
+  { id: 'zones', path: '/admin/zones', label: 'Zones', group: 'admin', roles: ['admin'] },
+  { id: 'audit', path: '/admin/audit', label: 'Audit trail', group: 'admin', roles: ['supervisor', 'admin'] },
+];
+
+export function sectionById(id: SectionId): Section {
+  const section = SECTIONS.find((candidate) => candidate.id === id);
+  if (!section) throw new Error(`Unknown section ${id}`);
+  return section;
+}
+
+export function canOpen(role: Role, section: Section): boolean {
+  return section.roles.includes(role);
+}
+
+export function sectionsFor(role: Role): Section[] {
+  return SECTIONS.filter((section) => canOpen(role, section));
+}
+
+/** Where a role lands after sign-in when it did not ask for a particular page. */
+export function homePathFor(role: Role): string {
+  return sectionsFor(role)[0]?.path ?? '/live';
+}

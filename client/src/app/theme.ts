@@ -1,0 +1,49 @@
+import { createTheme, type MantineColorsTuple } from '@mantine/core';
+
+/**
+ * Morrowline's palette. "tide" is the working colour (calm blue-green that keeps its contrast on
+ * both a bright day screen and a dimmed night desk); "ember" is kept for things needing a look
+ * (alerts, deadlines); "dusk" and "slate" tell roles and states apart; "night" replaces the dark
+ * greys with a deep blue that is easier on the eyes over a long night shift.
+ */
+const tide: MantineColorsTuple = [
+  '#e6f5f6', '#cde8eb', '#9fd1d7', '#6db9c2', '#45a5b0',
+  '#2d98a4', '#1d8c99', '#0f7683', '#046874', '#005a65',
+];
+
+const ember: MantineColorsTuple = [
+  '#fff3e4', '#fde5cc', '#f8c998', '#f3ab61', '#ef9235',
+  '#ec8219', '#eb790a', '#d16700', '#ba5b00', '#a24d00',
+];
+
+const dusk: MantineColorsTuple = [
+  '#f0f0fb', '#dedef0', '#b9b9e0', '#9292cf', '#7171c1',
+  '#5c5cb8', '#5151b5', '#42429f', '#3a3a8f', '#2f2f80',
+];
+
+const slate: MantineColorsTuple = [
+  '#f1f4f8', '#e3e7ed', '#c3ccd8', '#a1b0c3', '#8498b1',
+  '#7189a7', '#6682a3', '#55708e', '#4a6380', '#3c5672',
+];
+
+const night: MantineColorsTuple = [
+  '#d3d9e3', '#b4bdcb', '#8c98ab', '#64718a', '#434f66',
+  '#2f394d', '#232b3c', '#1a2130', '#131926', '#0d121c',
+];
+
+export const theme = createTheme({
+  colors: { tide, ember, dusk, slate, dark: night },
+  primaryColor: 'tide',
+  primaryShade: { light: 7, dark: 4 },
+  white: '#fbfcfd',
+  black: '#141a24',
+  fontFamily: 'Inter, system-ui, -apple-system, "Segoe UI", Roboto, sans-serif',
+  fontFamilyMonospace: '"JetBrains Mono", ui-monospace, SFMono-Regular, Menlo, monospace',
+  headings: { fontFamily: 'Inter, system-ui, sans-serif', fontWeight: '600' },
+  defaultRadius: 'sm',
+  cursorType: 'pointer',
+  components: {
+    Table: { defaultProps: { verticalSpacing: 'xs', highlightOnHover: true } },
+    Badge: { defaultProps: { variant: 'light', radius: 'sm' } },
+  },
+});

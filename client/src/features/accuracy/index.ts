@@ -1,0 +1,1 @@
+export { AccuracyPage } from './routes/AccuracyPage';

@@ -1,0 +1,1 @@
+export { ShiftLogPage } from './routes/ShiftLogPage';

@@ -1,0 +1,1 @@
+export { LiveLoadPage } from './routes/LiveLoadPage';

@@ -1,0 +1,1 @@
+export { RefitsPage } from './routes/RefitsPage';

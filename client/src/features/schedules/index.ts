@@ -1,0 +1,1 @@
+export { SchedulesPage } from './routes/SchedulesPage';

@@ -1,0 +1,1 @@
+export const usersKey = ['users'] as const;

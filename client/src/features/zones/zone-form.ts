@@ -1,0 +1,105 @@
+import type { CreateZoneRequest, UpdateZoneRequest, ZoneDto } from '@morrowline/shared';
+
+/** What the zone form edits; numbers may be '' while a field is being typed. */
+export interface ZoneFormValues {
+  code: string;
+  name: string;
+  timeZone: string;
+  alertThresholdPct: number | string;
+  alertConsecutiveHours: number | string;
+  gateClosure: string;
+  minPlausibleMw: number | string;
+  maxPlausibleMw: number | string;
+  active: boolean;
+  reason: string;
+}
+
+export const EMPTY_ZONE_FORM: ZoneFormValues = {
+  code: '',
+  name: '',
+  timeZone: '',
+  alertThresholdPct: 5,
+  alertConsecutiveHours: 2,
+  gateClosure: '10:00',
+  minPlausibleMw: 0,
+  maxPlausibleMw: 500,
+  active: true,
+  reason: '',
+};
+
+export function zoneToForm(zone: ZoneDto): ZoneFormValues {
+  return { ...zone, reason: '' };
+}
+
+const CODE_PATTERN = /^[A-Z][A-Z0-9_-]{1,19}$/;
+const GATE_PATTERN = /^([01]\d|2[0-3]):[0-5]\d$/;
+
+function isNumber(value: number | string): value is number {
+  return typeof value === 'number' && Number.isFinite(value);
+}
+
+export function validateZoneForm(values: ZoneFormValues, timeZones: readonly string[], creating: boolean) {
+  const errors: Partial<Record<keyof ZoneFormValues, string>> = {};
+  if (creating && !CODE_PATTERN.test(values.code.trim().toUpperCase())) {
+    errors.code = 'Capital letters, digits, - or _, 2 to 20 characters, starting with a letter';
+  }
+  if (!values.name.trim()) errors.name = 'Enter a name';
+  if (!timeZones.includes(values.timeZone)) errors.timeZone = 'Choose an IANA time zone';
+  if (!isNumber(values.alertThresholdPct) || values.alertThresholdPct <= 0 || values.alertThresholdPct > 100) {
+    errors.alertThresholdPct = 'Between 0 and 100 %';
+  }
+  if (
+    !isNumber(values.alertConsecutiveHours) ||
+    !Number.isInteger(values.alertConsecutiveHours) ||
+    values.alertConsecutiveHours < 1 ||
+    values.alertConsecutiveHours > 48
+  ) {
+    errors.alertConsecutiveHours = 'A whole number of hours, 1 to 48';
+  }
+  if (!GATE_PATTERN.test(values.gateClosure)) errors.gateClosure = 'A time as HH:mm';
+  if (!isNumber(values.minPlausibleMw) || values.minPlausibleMw < 0) errors.minPlausibleMw = 'Zero or more MW';
+  if (!isNumber(values.maxPlausibleMw)) errors.maxPlausibleMw = 'Enter a value in MW';
+  else if (isNumber(values.minPlausibleMw) && values.maxPlausibleMw <= values.minPlausibleMw) {
+    errors.maxPlausibleMw = 'Must be above the lowest plausible load';
+  }
+  return errors;
+}
+
+/** Only call after validateZoneForm found nothing: the numbers are then numbers. */
+export function formToCreateRequest(values: ZoneFormValues): CreateZoneRequest {
+  return {
+    code: values.code,
+    name: values.name.trim(),
+    timeZone: values.timeZone,
+    alertThresholdPct: Number(values.alertThresholdPct),
+    alertConsecutiveHours: Number(values.alertConsecutiveHours),
+    gateClosure: values.gateClosure,
+    minPlausibleMw: Number(values.minPlausibleMw),
+    maxPlausibleMw: Number(values.maxPlausibleMw),
+    active: values.active,
+  };
+}
+
+export function formToUpdateRequest(values: ZoneFormValues): UpdateZoneRequest {
+  const update: UpdateZoneRequest = {
+    name: values.name.trim(),
+    timeZone: values.timeZone,
+    alertThresholdPct: Number(values.alertThresholdPct),
+    alertConsecutiveHours: Number(values.alertConsecutiveHours),
+    gateClosure: values.gateClosure,
+    minPlausibleMw: Number(values.minPlausibleMw),
+    maxPlausibleMw: Number(values.maxPlausibleMw),
+    active: values.active,
+  };
+  const reason = values.reason.trim();
+  return reason ? { ...update, reason } : update;
+}
+
+/** Every IANA zone the browser knows, for the time-zone picker. */
+export function supportedTimeZones(): string[] {
+  try {
+    return Intl.supportedValuesOf('timeZone');
+  } catch {
+    return ['UTC'];
+  }
+}

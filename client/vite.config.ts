@@ -1,0 +1,29 @@
+import { fileURLToPath } from 'node:url';
+import react from '@vitejs/plugin-react';
+import { defineConfig } from 'vite';
+
+const sharedSource = fileURLToPath(new URL('../shared/src/index.ts', import.meta.url));
+const server = 'http://127.0.0.1:3000';
+
+export default defineConfig({
+  plugins: [react()],
+  resolve: {
+    // The client bundles the shared TypeScript source directly, so a change in shared/ needs no
+    // separate build step during development.
+    alias: { '@morrowline/shared': sharedSource },
+  },
+  server: {
+    host: '127.0.0.1',
+    port: 5173,
+    proxy: {
+      '/api': { target: server, changeOrigin: false },
+      '/socket.io': { target: server, ws: true, changeOrigin: false },
+    },
+  },
+  preview: { host: '127.0.0.1' },
+  build: {
+    outDir: 'dist',
+    emptyOutDir: true,
+    sourcemap: true,
+  },
+});
