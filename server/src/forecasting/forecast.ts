@@ -11,7 +11,7 @@
  * load), so an outage dip never comes back through the seasonal lags.
  */
 import { difference, differencePolynomial, extendForecast, integratedVariance } from './differencing';
-import { ArmaFit, ArmaSpec, fitArma, FitOptions } from './arma/fit';
+import { applyArma, ArmaFit, ArmaSpec, fitArma, FitOptions } from './arma/fit';
 import { normalQuantile } from './distributions';
 import { meanFinite } from './series';
 
@@ -48,6 +48,14 @@ export function fitArima(y: ArrayLike<number>, spec: ArimaSpec, opts: FitOptions
   const arma = fitArma(w, { ...spec, includeMean: spec.includeMean ?? diff.length === 0 }, opts);
   const { filled, count } = fillHistory(y, diff, arma.predictions);
   return { diff, arma, filled, filledCount: count };
+}
+
+/** Run an estimated model over a (longer) load history without re-estimating it. */
+export function applyArima(fit: ArimaFit, y: ArrayLike<number>): ArimaFit {
+  const w = difference(y, fit.diff);
+  const arma = applyArma(fit.arma, w);
+  const { filled, count } = fillHistory(y, fit.diff, arma.predictions);
+  return { diff: fit.diff, arma, filled, filledCount: count };
 }
 
 /** Replace missing load values by the model's one-step predictions (see header). */

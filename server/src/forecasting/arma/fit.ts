@@ -226,6 +226,24 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   return fit;
 }
 
+/**
+ * The same model (coefficients, mean, σ²) run over another series — typically the history
+ * extended by new hours — without re-estimating: only the Kalman filter runs, so residuals,
+ * predictions and the forecast state follow the new data. Used for the hourly forecast update
+ * with fixed coefficients and inside backtests.
+ */
+export function applyArma(fit: ArmaFit, series: ArrayLike<number>, tol = 1e-10): ArmaFit {
+  const x = Float64Array.from(series, (v) => (Number.isFinite(v) ? v : NaN));
+  const ss = stateSpaceOf({ ar: fit.ar, ma: fit.ma, sar: fit.sar, sma: fit.sma }, fit.spec.period);
+  const residuals = new Float64Array(x.length);
+  const predictions = new Float64Array(x.length);
+  const f = kalmanFilter(x, ss, { mean: fit.mean, tol, residuals, predictions, keepState: true });
+  const aEnd = f.aPred as Float64Array;
+  const PEnd = f.PPred as Float64Array;
+  const sigma2 = fit.sigma2;
+  return { ...fit, residuals, predictions, forecast: (h: number) => forecastState(ss, aEnd, PEnd, sigma2, fit.mean, h) };
+}
+
 /** −log L in the natural parameters (mean explicit), for the Hessian. */
 function negLogLik(x: Float64Array, o: Required<ArmaSpec>, v: ArrayLike<number>, tol: number): number {
   const nat = splitNatural(v, o);

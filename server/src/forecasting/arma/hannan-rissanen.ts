@@ -24,12 +24,16 @@ export interface HrStart {
   ma: Float64Array;
   sar: Float64Array;
   sma: Float64Array;
+  /** residual variance of the second-stage regression (NaN when it was not run) */
+  sigma2: number;
+  /** rows used in the second-stage regression */
+  rows: number;
 }
 
 export function hannanRissanen(x: ArrayLike<number>, o: HrOrders): HrStart {
   const n = x.length;
   const { p, q, P, Q, period: s } = o;
-  const zero = (): HrStart => ({ ar: new Float64Array(p), ma: new Float64Array(q), sar: new Float64Array(P), sma: new Float64Array(Q) });
+  const zero = (): HrStart => ({ ar: new Float64Array(p), ma: new Float64Array(q), sar: new Float64Array(P), sma: new Float64Array(Q), sigma2: NaN, rows: 0 });
   if (p + q + P + Q === 0) return zero();
   const needResid = q + Q > 0;
   let e: Float64Array | null = null;
@@ -60,6 +64,7 @@ export function hannanRissanen(x: ArrayLike<number>, o: HrOrders): HrStart {
   const Xty = new Float64Array(k);
   const row = new Float64Array(k);
   let rows = 0;
+  let yy = 0;
   for (let t = maxLag; t < n; t++) {
     const yt = x[t];
     if (!(yt === yt)) continue;
@@ -77,6 +82,7 @@ export function hannanRissanen(x: ArrayLike<number>, o: HrOrders): HrStart {
     }
     if (!ok) continue;
     rows++;
+    yy += yt * yt;
     for (let i = 0; i < k; i++) {
       Xty[i] += row[i] * yt;
       for (let j = 0; j <= i; j++) XtX[i * k + j] += row[i] * row[j];
@@ -98,7 +104,11 @@ export function hannanRissanen(x: ArrayLike<number>, o: HrOrders): HrStart {
     return zero();
   }
   if (!beta.every(Number.isFinite)) return zero();
+  let rss = yy;
+  for (let i = 0; i < k; i++) rss -= beta[i] * Xty[i];
   const start: HrStart = {
+    sigma2: Math.max(rss, 0) / rows,
+    rows,
     ar: Float64Array.from(beta.slice(0, p)),
     sar: Float64Array.from(beta.slice(p, p + P)),
     ma: Float64Array.from(beta.slice(p + P, p + P + q)),

@@ -1,0 +1,99 @@
+/**
+ * ARMA order selection by an information criterion over a grid p ≤ maxP, q ≤ maxQ:
+ * AICc (Hurvich & Tsai 1989) or BIC (Schwarz 1978), each model fitted by exact ML (./arma/fit).
+ * Candidates are fitted without standard errors; only the winner gets its Hessian.
+ */
+import { ArmaFit, fitArma } from './arma/fit';
+import { hannanRissanen } from './arma/hannan-rissanen';
+
+export type Criterion = 'aicc' | 'bic' | 'aic';
+
+export interface SelectOptions {
+  maxP?: number;
+  maxQ?: number;
+  criterion?: Criterion;
+  includeMean?: boolean;
+  /** optional seasonal block carried by every candidate */
+  P?: number;
+  Q?: number;
+  period?: number;
+  computeSe?: boolean;
+  /**
+   * Fit by exact ML only the best `screen` orders by the criterion computed from the
+   * Hannan–Rissanen regression (the order selection Hannan & Rissanen 1982 proposed); 0 = fit
+   * every order. Default 0.
+   */
+  screen?: number;
+  maxIter?: number;
+}
+
+export interface CandidateScore {
+  p: number;
+  q: number;
+  loglik: number;
+  aic: number;
+  aicc: number;
+  bic: number;
+  ok: boolean;
+  error?: string;
+}
+
+export interface Selection {
+  best: ArmaFit;
+  candidates: CandidateScore[];
+  criterion: Criterion;
+}
+
+export function selectOrder(x: ArrayLike<number>, opts: SelectOptions = {}): Selection {
+  const maxP = opts.maxP ?? 3;
+  const maxQ = opts.maxQ ?? 3;
+  if (maxP > 5 || maxQ > 5) throw new Error('orders above 5 are not supported');
+  const criterion = opts.criterion ?? 'aicc';
+  const candidates: CandidateScore[] = [];
+  let best: ArmaFit | null = null;
+  let orders: Array<[number, number]> = [];
+  for (let p = 0; p <= maxP; p++) for (let q = 0; q <= maxQ; q++) orders.push([p, q]);
+  const screen = opts.screen ?? 0;
+  if (screen > 0 && screen < orders.length) {
+    const P = opts.P ?? 0;
+    const Q = opts.Q ?? 0;
+    const scored = orders.map(([p, q]) => {
+      let n: number;
+      let s2: number;
+      if (p + q + P + Q === 0) {
+        // white noise: the "regression" has no regressors, σ² is the mean square
+        let ss = 0;
+        n = 0;
+        for (let i = 0; i < x.length; i++) if (Number.isFinite(x[i])) (ss += x[i] * x[i]), n++;
+        s2 = ss / n;
+      } else {
+        const hr = hannanRissanen(x, { p, q, P, Q, period: opts.period ?? 1 });
+        n = hr.rows;
+        s2 = hr.sigma2;
+      }
+      const k = p + q + P + Q + 1;
+      const base = n * Math.log(s2);
+      const pen = criterion === 'bic' ? k * Math.log(n) : 2 * k + (criterion === 'aicc' ? (2 * k * (k + 1)) / Math.max(n - k - 1, 1) : 0);
+      return { p, q, score: Number.isFinite(base) ? base + pen : Infinity };
+    });
+    scored.sort((a, b) => a.score - b.score);
+    orders = scored.slice(0, screen).map((s) => [s.p, s.q]);
+  }
+  for (const [p, q] of orders) {
+    {
+      try {
+        const f = fitArma(x, { p, q, P: opts.P, Q: opts.Q, period: opts.period, includeMean: opts.includeMean ?? false }, { computeSe: false, maxIter: opts.maxIter });
+        const ok = Number.isFinite(f.loglik);
+        candidates.push({ p, q, loglik: f.loglik, aic: f.aic, aicc: f.aicc, bic: f.bic, ok });
+        if (ok && (!best || f[criterion] < best[criterion])) best = f;
+      } catch (e) {
+        candidates.push({ p, q, loglik: NaN, aic: NaN, aicc: NaN, bic: NaN, ok: false, error: (e as Error).message });
+      }
+    }
+  }
+  if (!best) throw new Error('no ARMA candidate could be fitted');
+  if (opts.computeSe ?? true) {
+    best = fitArma(x, best.spec, { start: { ar: best.ar, ma: best.ma, sar: best.sar, sma: best.sma } });
+  }
+  return { best, candidates, criterion };
+}
