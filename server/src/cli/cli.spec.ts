@@ -1,0 +1,46 @@
+/**
+ * The fit and backtest commands on the real demand fixture (forecasting/fixtures/taylor-hourly.csv:
+ * R package forecast, dataset taylor, hourly means) and on a small file with a fault.
+ */
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { runFit } from './fit';
+import { runBacktest } from './backtest';
+
+const taylor = join(__dirname, '../forecasting/fixtures/taylor-hourly.csv');
+
+describe('command line', () => {
+  it('fit --json has the documented keys', () => {
+    const r = runFit(['--input', taylor, '--diff', '168', '--order', '2,1', '--json']).json;
+    for (const k of ['coefficients', 'sigma2', 'loglik', 'aic', 'aicc', 'bic', 'ljungBox', 'n', 'fitMs']) expect(r).toHaveProperty(k);
+    expect((r.coefficients as Array<{ name: string; se: number }>).map((c) => c.name)).toEqual(['ar1', 'ar2', 'ma1']);
+    expect(r.n).toBe(2016 - 168);
+    expect(r.aicc as number).toBeGreaterThan(r.aic as number);
+  });
+  it('fit without differencing includes a mean by default, and --no-mean removes it', () => {
+    const a = runFit(['--input', taylor, '--diff', 'none', '--order', '1,0', '--json']).json;
+    expect((a.coefficients as Array<{ name: string }>).map((c) => c.name)).toEqual(['ar1', 'intercept']);
+    const b = runFit(['--input', taylor, '--diff', 'none', '--order', '1,0', '--no-mean', '--json']).json;
+    expect((b.coefficients as Array<{ name: string }>).map((c) => c.name)).toEqual(['ar1']);
+  });
+  it('backtest --json has mape and baseline.mape and a row per day', () => {
+    const r = runBacktest(['--input', taylor, '--days', '3', '--method', 'fixed', '--diff', '24,168', '--order', '1,1', '--json']).json;
+    expect(typeof r.mape).toBe('number');
+    expect(typeof (r.baseline as { mape: number }).mape).toBe('number');
+    const days = r.days as Array<{ date: string; hours: number; model: string }>;
+    expect(days.map((d) => d.date)).toEqual(['2000-08-25', '2000-08-26', '2000-08-27']);
+    expect(days.every((d) => d.hours === 24 && d.model.includes('ARMA(1,1)'))).toBe(true);
+  });
+  it('backtest with an issue hour forecasts from the day before', () => {
+    const r = runBacktest(['--input', taylor, '--days', '2', '--issue-hour', '9', '--method', 'seasonal-naive', '--json']).json;
+    const days = r.days as Array<{ issuedAtIndex: number }>;
+    expect(days[1].issuedAtIndex).toBe(2016 - 48 + 9);
+  });
+  it('a bad file names the line and the fault', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'mw-'));
+    const f = join(dir, 'bad.csv');
+    writeFileSync(f, 'timestamp,load_mw\n2024-01-01T00:00:00Z,1\n2024-01-01T01:00:00Z,x\n');
+    expect(() => runFit(['--input', f, '--diff', 'none', '--order', '0,0'])).toThrow('line 3: load "x" is not a number');
+  });
+});

@@ -1,0 +1,85 @@
+/**
+ * The automatic pipeline and the backtest. Data: the real demand fixture (fixtures/taylor-hourly.json,
+ * R package forecast's `taylor`, England & Wales, hourly means) and simulated load with
+ * stochastic daily and weekly patterns.
+ */
+import taylor from './fixtures/taylor-hourly.json';
+import { runPipeline } from './pipeline';
+import { backtest } from './backtest';
+import { seasonalNaive } from './seasonal-naive';
+
+const load = taylor.load as number[];
+const eight = load.slice(load.length - 8 * 168 - 24, load.length - 24);
+
+describe('automatic pipeline', () => {
+  it('chooses a model on eight weeks, forecasts 40 hours, never NaN or negative', () => {
+    const r = runPipeline({ history: eight, horizon: 40 });
+    expect(r.forecast.mean).toHaveLength(40);
+    for (const k of ['mean', 'lower80', 'upper80', 'lower95', 'upper95'] as const) {
+      expect(r.forecast[k].every((v) => Number.isFinite(v) && v >= 0)).toBe(true);
+    }
+    expect(r.candidates.map((c) => c.label)).toEqual(['(1−B^24)', '(1−B^168)', '(1−B^24)(1−B^168)']);
+    expect(r.model).toBeDefined();
+    expect(r.model!.ljungBox.map((l) => l.lag)).toEqual([24, 48]);
+    for (let i = 0; i < 40; i++) {
+      expect(r.forecast.lower95[i]).toBeLessThanOrEqual(r.forecast.lower80[i]);
+      expect(r.forecast.upper80[i]).toBeLessThanOrEqual(r.forecast.upper95[i]);
+    }
+    // the 24 hours after the history lie mostly inside the 95 % band
+    const actual = load.slice(load.length - 24);
+    const inside = actual.filter((a, i) => a >= r.forecast.lower95[i] && a <= r.forecast.upper95[i]).length;
+    expect(inside).toBeGreaterThanOrEqual(18);
+  });
+
+  it('an outage in the last week does not come back through the weekly lag', () => {
+    const hist = eight.slice();
+    const n = hist.length;
+    const excluded: number[] = [];
+    // a 6-hour outage one week before the hours being forecast
+    for (let i = n - 168; i < n - 162; i++) {
+      hist[i] = 0.2 * hist[i];
+      excluded.push(i);
+    }
+    const withExcl = runPipeline({ history: hist, horizon: 24, excluded, options: { fixed: { diff: [168], p: 2, q: 1 } } });
+    const naiveRaw = seasonalNaive(hist, 24).mean;
+    for (let j = 0; j < 6; j++) {
+      expect(naiveRaw[j]).toBeLessThan(0.3 * eight[n - 168 + j]); // the dip would leak into naive
+      expect(withExcl.forecast.mean[j]).toBeGreaterThan(0.8 * eight[n - 168 + j]);
+    }
+    expect(withExcl.model!.filledHours).toBe(6);
+  });
+
+  it('falls back to seasonal naive with a reason when history is too short', () => {
+    const r = runPipeline({ history: load.slice(0, 200), horizon: 24 });
+    expect(r.method).toBe('seasonal-naive');
+    expect(r.fallbackReason).toMatch(/hours of usable history/);
+    expect(r.forecast.mean).toEqual(load.slice(200 - 168, 200 - 144));
+  });
+
+  it('all-missing history still gives finite, non-negative numbers', () => {
+    const r = runPipeline({ history: new Array(2000).fill(NaN), horizon: 24 });
+    expect(r.method).toBe('seasonal-naive');
+    expect(r.forecast.mean.every((v) => v === 0)).toBe(true);
+  });
+});
+
+describe('backtest', () => {
+  it('seasonal naive scored against itself as baseline gives zero improvement', () => {
+    const r = backtest(load, { days: 5, method: 'seasonal-naive' });
+    expect(r.days).toHaveLength(5);
+    expect(r.mape).toBeCloseTo(r.baseline.mape, 12);
+    expect(r.improvement).toBeCloseTo(0, 12);
+  });
+  it('a fixed model on the real demand data beats weekly seasonal naive by 15 % or more', () => {
+    const r = backtest(load, { days: 14, method: { diff: [24, 168], p: 1, q: 1 } });
+    expect(r.days).toHaveLength(14);
+    expect(r.improvement).toBeGreaterThan(0.15);
+    expect(r.coverage95).toBeGreaterThan(0.8);
+    expect(r.days.every((d) => d.hours === 24 && d.forecast.mean.length === 24)).toBe(true);
+  });
+  it('issue hour 9 the day before gives horizons 16..39', () => {
+    const r = backtest(load, { days: 2, method: 'seasonal-naive', issueHour: 9 });
+    const d = r.days[1];
+    expect(d.dayStart - d.origin).toBe(15);
+  });
+});
