@@ -1,3 +1,4 @@
+import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
 
 /**
@@ -5,6 +6,9 @@ import { defineConfig } from 'vitest/config';
  * and share the server's sign-in rate limit, so files run one after another.
  */
 export default defineConfig({
+  resolve: {
+    alias: { '@morrowline/shared': fileURLToPath(new URL('../shared/src/index.ts', import.meta.url)) },
+  },
   test: {
     environment: 'node',
     include: ['e2e/**/*.e2e.ts'],

@@ -34,7 +34,7 @@ const night: MantineColorsTuple = [
 export const theme = createTheme({
   colors: { tide, ember, dusk, slate, dark: night },
   primaryColor: 'tide',
-  primaryShade: { light: 7, dark: 4 },
+  primaryShade: { light: 7, dark: 6 },
   white: '#fbfcfd',
   black: '#141a24',
   fontFamily: 'Inter, system-ui, -apple-system, "Segoe UI", Roboto, sans-serif',
