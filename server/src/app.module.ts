@@ -8,6 +8,7 @@ import { AuthModule } from './auth/auth.module';
 import { configFactory, type AppConfig } from './config/configuration';
 import { ormConfig } from './database/mikro-orm.config';
 import { DeskModule } from './desk/desk.module';
+import { HandoverModule } from './handover/handover.module';
 import { HealthModule } from './health/health.module';
 import { UsersModule } from './users/users.module';
 import { ZonesModule } from './zones/zones.module';
@@ -27,6 +28,7 @@ import { ZonesModule } from './zones/zones.module';
     ZonesModule,
     HealthModule,
     DeskModule,
+    HandoverModule,
   ],
 })
 export class AppModule {}

@@ -1,4 +1,5 @@
 import { BadRequestException, type INestApplication, ValidationPipe } from '@nestjs/common';
+import type { ValidationError } from 'class-validator';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
 import type { NextFunction, Request, Response } from 'express';
@@ -20,8 +21,7 @@ export function configureApp(app: NestExpressApplication, config: AppConfig): vo
       whitelist: true,
       forbidNonWhitelisted: true,
       transform: true,
-      exceptionFactory: (errors) =>
-        new BadRequestException(errors.flatMap((e) => Object.values(e.constraints ?? { [e.property]: `${e.property} is not valid` }))),
+      exceptionFactory: (errors) => new BadRequestException(validationMessages(errors)),
     }),
   );
   app.useGlobalFilters(new ApiExceptionFilter());
@@ -50,6 +50,15 @@ export function configureApp(app: NestExpressApplication, config: AppConfig): vo
   SwaggerModule.setup('api/docs', app as unknown as INestApplication, document);
 
   serveClient(app, resolve(config.clientDist));
+}
+
+/** Every constraint message, nested ones included (items[2].text → "each item needs a line of text"). */
+export function validationMessages(errors: ValidationError[]): string[] {
+  return errors.flatMap((error) => [
+    ...Object.values(error.constraints ?? {}),
+    ...validationMessages(error.children ?? []),
+    ...(!error.constraints && !error.children?.length ? [`${error.property} is not valid`] : []),
+  ]);
 }
 
 /** The built client at /, with every non-API path answered by index.html (client-side routes). */

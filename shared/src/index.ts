@@ -3,3 +3,4 @@ export * from './api';
 export * from './feed';
 export * from './demo-scenario';
 export * from './desk';
+export * from './handover';

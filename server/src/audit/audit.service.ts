@@ -61,6 +61,16 @@ export class AuditService {
     await em.flush();
   }
 
+  /** Entries in [from, to) whose action starts with one of the prefixes (e.g. "alert."), oldest first. */
+  async between(from: Date, to: Date, actionPrefixes: readonly string[]): Promise<AuditEntryDto[]> {
+    const entries = await this.em.fork().find(
+      AuditEntry,
+      { at: { $gte: from, $lt: to }, $or: actionPrefixes.map((prefix) => ({ action: { $like: `${prefix}%` } })) },
+      { orderBy: { at: 'asc', id: 'asc' }, limit: 2000 },
+    );
+    return entries.map(toAuditEntryDto);
+  }
+
   async list(query: AuditQuery): Promise<Page<AuditEntryDto>> {
     const where: Record<string, unknown> = {};
     if (query.action) where.action = query.action;

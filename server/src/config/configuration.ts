@@ -1,3 +1,6 @@
+import { IANAZone } from 'luxon';
+import { parseShiftStarts } from '../handover/shifts';
+
 /**
  * Configuration, read from the environment once at start-up and validated. Every variable has a
  * safe default for development; outside development a secret that is still its default value is
@@ -17,6 +20,8 @@ export interface AppConfig {
   jwt: { secret: string; expiresInSeconds: number };
   /** Sign-in attempts allowed per e-mail and address per minute before 429. */
   loginAttemptsPerMinute: number;
+  /** The shift pattern: local start times in the desk's time zone. */
+  shifts: { starts: string[]; timeZone: string };
 }
 
 function int(env: NodeJS.ProcessEnv, key: string, fallback: number): number {
@@ -26,6 +31,12 @@ function int(env: NodeJS.ProcessEnv, key: string, fallback: number): number {
   if (!Number.isInteger(value) || value < 0) {
     throw new Error(`Configuration: ${key} must be a non-negative whole number, got "${raw}"`);
   }
+  return value;
+}
+
+function timeZone(env: NodeJS.ProcessEnv, key: string, fallback: string): string {
+  const value = env[key] ?? fallback;
+  if (!IANAZone.isValidZone(value)) throw new Error(`Configuration: ${key} must be an IANA time zone, got "${value}"`);
   return value;
 }
 
@@ -57,6 +68,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     },
     jwt: { secret, expiresInSeconds: int(env, 'JWT_EXPIRES_IN', 8 * 3600) },
     loginAttemptsPerMinute: int(env, 'LOGIN_ATTEMPTS_PER_MINUTE', 10),
+    shifts: { starts: parseShiftStarts(env.SHIFT_STARTS ?? '06:00,14:00,22:00'), timeZone: timeZone(env, 'DESK_TIME_ZONE', 'America/Denver') },
   };
 }
 

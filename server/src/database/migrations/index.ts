@@ -1,4 +1,8 @@
 /** The schema's history, in order. Add each new migration here as well. */
 import { Migration20261201192005 } from './Migration20261201192005';
+import { Migration20261201200000 } from './Migration20261201200000';
 
-export const MIGRATIONS = [{ name: 'Migration20261201192005', class: Migration20261201192005 }];
+export const MIGRATIONS = [
+  { name: 'Migration20261201192005', class: Migration20261201192005 },
+  { name: 'Migration20261201200000', class: Migration20261201200000 },
+];

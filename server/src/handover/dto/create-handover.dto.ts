@@ -1,0 +1,54 @@
+import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
+import { Type } from 'class-transformer';
+import { ArrayMaxSize, IsArray, IsDate, IsIn, IsInt, Max, Min, IsOptional, IsString, Matches, MaxLength, MinLength, ValidateNested } from 'class-validator';
+import {
+  HANDOVER_ITEM_KINDS,
+  HANDOVER_ITEM_STATUSES,
+  type AcknowledgeHandoverRequest,
+  type CreateHandoverRequest,
+  type HandoverItemInput,
+  type HandoverItemKind,
+  type HandoverItemStatus,
+} from '@morrowline/shared';
+
+export class HandoverItemDto implements HandoverItemInput {
+  @ApiProperty({ enum: HANDOVER_ITEM_KINDS })
+  @IsIn([...HANDOVER_ITEM_KINDS], { message: `kind must be one of ${HANDOVER_ITEM_KINDS.join(', ')}` })
+  kind!: HandoverItemKind;
+
+  @ApiPropertyOptional() @IsOptional() @Matches(/^[A-Z][A-Z0-9_-]{1,31}$/, { message: 'zoneCode must be a zone code' })
+  zoneCode?: string | null;
+
+  @ApiProperty() @IsString() @MinLength(1, { message: 'each item needs a line of text' }) @MaxLength(2000)
+  text!: string;
+
+  @ApiProperty({ enum: HANDOVER_ITEM_STATUSES })
+  @IsIn([...HANDOVER_ITEM_STATUSES], { message: 'status must be open or closed' })
+  status!: HandoverItemStatus;
+
+  @ApiPropertyOptional() @IsOptional() @IsInt()
+  carriedFromItemId?: number | null;
+}
+
+export class CreateHandoverDto implements CreateHandoverRequest {
+  @ApiProperty() @IsString() @MaxLength(20000)
+  body!: string;
+
+  @ApiProperty({ type: [HandoverItemDto] })
+  @IsArray() @ArrayMaxSize(100) @ValidateNested({ each: true }) @Type(() => HandoverItemDto)
+  items!: HandoverItemDto[];
+}
+
+export class AcknowledgeHandoverDto implements AcknowledgeHandoverRequest {
+  @ApiPropertyOptional() @IsOptional() @IsString() @MaxLength(5000)
+  reply?: string;
+}
+
+export class HandoverSearchDto {
+  @IsOptional() @IsString() @MaxLength(200) q?: string;
+  @IsOptional() @Matches(/^[A-Z][A-Z0-9_-]{1,31}$/, { message: 'zone must be a zone code' }) zone?: string;
+  @IsOptional() @Type(() => Date) @IsDate() from?: Date;
+  @IsOptional() @Type(() => Date) @IsDate() to?: Date;
+  @IsOptional() @Type(() => Number) @IsInt() @Min(1) @Max(100) limit: number = 20;
+  @IsOptional() @Type(() => Number) @IsInt() @Min(0) offset: number = 0;
+}

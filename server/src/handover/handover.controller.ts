@@ -1,0 +1,57 @@
+import { Body, Controller, Get, Param, ParseIntPipe, Post, Query } from '@nestjs/common';
+import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import type { CurrentShiftDto, HandoverDraftDto, HandoverNoteDto, HandoverNoteWithEventsDto, Page } from '@morrowline/shared';
+import type { AuthUser } from '../auth/auth-user';
+import { CurrentUser } from '../auth/current-user.decorator';
+import { Roles, SignedIn } from '../auth/roles.decorator';
+import { AcknowledgeHandoverDto, CreateHandoverDto, HandoverSearchDto } from './dto/create-handover.dto';
+import { HandoverService } from './handover.service';
+
+@ApiTags('handover')
+@ApiBearerAuth()
+@Controller('handover')
+export class HandoverController {
+  constructor(private readonly handover: HandoverService) {}
+
+  @Get('shift')
+  @SignedIn()
+  shift(): Promise<CurrentShiftDto> {
+    return this.handover.currentShift();
+  }
+
+  @Get('draft')
+  @Roles('operator', 'supervisor')
+  draft(): Promise<HandoverDraftDto> {
+    return this.handover.draft();
+  }
+
+  @Get('pending')
+  @SignedIn()
+  pending(): Promise<HandoverNoteDto[]> {
+    return this.handover.pending();
+  }
+
+  @Get()
+  @SignedIn()
+  search(@Query() query: HandoverSearchDto): Promise<Page<HandoverNoteDto>> {
+    return this.handover.search(query);
+  }
+
+  @Get(':id')
+  @SignedIn()
+  get(@Param('id', ParseIntPipe) id: number): Promise<HandoverNoteWithEventsDto> {
+    return this.handover.get(id);
+  }
+
+  @Post()
+  @Roles('operator', 'supervisor')
+  create(@CurrentUser() user: AuthUser, @Body() body: CreateHandoverDto): Promise<HandoverNoteDto> {
+    return this.handover.create(user, body);
+  }
+
+  @Post(':id/acknowledge')
+  @Roles('operator', 'supervisor')
+  acknowledge(@CurrentUser() user: AuthUser, @Param('id', ParseIntPipe) id: number, @Body() body: AcknowledgeHandoverDto): Promise<HandoverNoteDto> {
+    return this.handover.acknowledge(user, id, body.reply);
+  }
+}
