@@ -1,4 +1,5 @@
 import { Group, Stack, Text, Title } from '@mantine/core';
+import { useDocumentTitle } from '@mantine/hooks';
 import type { ReactNode } from 'react';
 
 interface PageHeaderProps {
@@ -9,6 +10,7 @@ interface PageHeaderProps {
 }
 
 export function PageHeader({ title, description, actions }: PageHeaderProps) {
+  useDocumentTitle(`${title} · Morrowline`);
   return (
     <Group justify="space-between" align="flex-end" mb="md" wrap="wrap">
       <Stack gap={2}>

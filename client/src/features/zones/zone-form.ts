@@ -31,7 +31,8 @@ export function zoneToForm(zone: ZoneDto): ZoneFormValues {
   return { ...zone, reason: '' };
 }
 
-const CODE_PATTERN = /^[A-Z][A-Z0-9_-]{1,19}$/;
+const CODE_PATTERN = /^[A-Z][A-Z0-9_-]{1,31}$/;
+const HIGHEST_PLAUSIBLE_MW = 100_000;
 const GATE_PATTERN = /^([01]\d|2[0-3]):[0-5]\d$/;
 
 function isNumber(value: number | string): value is number {
@@ -41,7 +42,7 @@ function isNumber(value: number | string): value is number {
 export function validateZoneForm(values: ZoneFormValues, timeZones: readonly string[], creating: boolean) {
   const errors: Partial<Record<keyof ZoneFormValues, string>> = {};
   if (creating && !CODE_PATTERN.test(values.code.trim().toUpperCase())) {
-    errors.code = 'Capital letters, digits, - or _, 2 to 20 characters, starting with a letter';
+    errors.code = 'Capital letters, digits, - or _, 2 to 32 characters, starting with a letter';
   }
   if (!values.name.trim()) errors.name = 'Enter a name';
   if (!timeZones.includes(values.timeZone)) errors.timeZone = 'Choose an IANA time zone';
@@ -59,6 +60,7 @@ export function validateZoneForm(values: ZoneFormValues, timeZones: readonly str
   if (!GATE_PATTERN.test(values.gateClosure)) errors.gateClosure = 'A time as HH:mm';
   if (!isNumber(values.minPlausibleMw) || values.minPlausibleMw < 0) errors.minPlausibleMw = 'Zero or more MW';
   if (!isNumber(values.maxPlausibleMw)) errors.maxPlausibleMw = 'Enter a value in MW';
+  else if (values.maxPlausibleMw > HIGHEST_PLAUSIBLE_MW) errors.maxPlausibleMw = 'At most 100,000 MW';
   else if (isNumber(values.minPlausibleMw) && values.maxPlausibleMw <= values.minPlausibleMw) {
     errors.maxPlausibleMw = 'Must be above the lowest plausible load';
   }

@@ -5,7 +5,7 @@ import { api } from '../../../lib/api-client';
 export interface AuditQuery {
   limit: number;
   offset: number;
-  /** Exact action name, e.g. "user.role-changed"; empty for all. */
+  /** Exact action name, e.g. "user.role"; empty for all. */
   action: string;
   /** Exact subject type, e.g. "user", "zone"; empty for all. */
   subjectType: string;

@@ -30,6 +30,7 @@ export function AuditTable({ entries }: { entries: AuditEntryDto[] }) {
         <Table.Tbody>
           {entries.map((entry) => {
             const open = expanded.has(entry.id);
+            const hasChange = entry.before != null || entry.after != null;
             return (
               <Fragment key={entry.id}>
                 <Table.Tr>
@@ -44,12 +45,14 @@ export function AuditTable({ entries }: { entries: AuditEntryDto[] }) {
                   </Table.Td>
                   <Table.Td>{entry.reason ?? <Text span c="dimmed" size="sm">—</Text>}</Table.Td>
                   <Table.Td ta="right">
-                    <Button size="compact-xs" variant="subtle" aria-expanded={open} onClick={() => toggle(entry.id)}>
-                      {open ? 'Hide change' : 'Show change'}
-                    </Button>
+                    {hasChange && (
+                      <Button size="compact-xs" variant="subtle" aria-expanded={open} onClick={() => toggle(entry.id)}>
+                        {open ? 'Hide change' : 'Show change'}
+                      </Button>
+                    )}
                   </Table.Td>
                 </Table.Tr>
-                {open && (
+                {open && hasChange && (
                   <Table.Tr>
                     <Table.Td colSpan={6}>
                       <AuditChange entry={entry} />

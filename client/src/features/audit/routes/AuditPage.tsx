@@ -31,7 +31,7 @@ export function AuditPage() {
       <Group mb="sm" gap="sm" align="flex-end">
         <TextInput
           label="Action"
-          placeholder="e.g. user.role-changed"
+          placeholder="e.g. user.role, zone.update"
           value={action}
           onChange={(event) => {
             setAction(event.currentTarget.value);
