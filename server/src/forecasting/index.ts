@@ -11,3 +11,8 @@ export * from './pipeline';
 export * from './backtest';
 export { fitArma, applyArma, normalizeSpec } from './arma/fit';
 export type { ArmaFit, ArmaSpec, Coefficient, ArmaForecast, FitOptions } from './arma/fit';
+export * from './rolling';
+export * from './adf';
+export * from './kpss';
+export * from './mackinnon';
+export * from './stationarity';
