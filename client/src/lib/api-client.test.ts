@@ -49,6 +49,22 @@ describe('api client', () => {
     expect(sessionStore.getSnapshot().endReason).toBeNull();
   });
 
+  it('does not end a newer session over a 401 to a request sent with an older token', async () => {
+    let answer: (reply: { status: number; body: unknown }) => void = () => {};
+    mockApi({ 'GET /api/zones': () => new Promise((resolve) => (answer = resolve)) });
+    sessionStore.start('old', 600);
+    const api = createApiClient({ sessionStore });
+
+    const pending = api.get('/zones');
+    await vi.waitFor(() => expect(fetch).toHaveBeenCalled());
+    sessionStore.end('signed-out');
+    sessionStore.start('new', 600);
+    answer({ status: 401, body: apiError(401, 'Unauthorized', 'Token revoked') });
+
+    await expect(pending).rejects.toMatchObject({ status: 401 });
+    expect(sessionStore.token()).toBe('new');
+  });
+
   it('keeps the session on a 403: the token is fine, the role is not', async () => {
     mockApi({ 'GET /api/users': () => ({ status: 403, body: apiError(403, 'Forbidden', 'Admins only') }) });
     sessionStore.start('viewer-token', 600);

@@ -48,8 +48,11 @@ export function createApiClient({
     if (response.ok) return payload as T;
 
     // A 401 on a request that carried a token means the server no longer accepts it (expired,
-    // revoked, user deactivated): the session is over, whatever the local clock says.
-    if (response.status === 401 && token) sessionStore.end('expired');
+    // revoked, user deactivated): the session is over, whatever the local clock says. Only if
+    // that token is still the current one: a newer session must not end over an old request.
+    if (response.status === 401 && token && sessionStore.getSnapshot().session?.token === token) {
+      sessionStore.end('expired');
+    }
     throw new ApiRequestError(
       response.status,
       isApiError(payload) ? payload : null,

@@ -85,6 +85,14 @@ describe('session store', () => {
     expect(store.getSnapshot().endReason).toBe('signed-out');
   });
 
+  it('keeps "signed out" as the reason when an expiry arrives afterwards', () => {
+    const store = createSessionStore({ storage });
+    store.start('token-6', 60);
+    store.end('signed-out');
+    store.end('expired');
+    expect(store.getSnapshot().endReason).toBe('signed-out');
+  });
+
   it('clears the reason once a new session starts', () => {
     const store = createSessionStore({ storage });
     store.start('a', 1);

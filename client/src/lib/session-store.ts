@@ -69,7 +69,9 @@ export function createSessionStore({ storage = window.sessionStorage, now = () =
   function end(reason: SessionEndReason) {
     disarm();
     storage.removeItem(STORAGE_KEY);
-    if (snapshot.session === null && snapshot.endReason === reason) return;
+    // A session already over keeps the reason it ended with: a late 401 from a request sent
+    // before signing out must not turn "signed out" into "expired".
+    if (snapshot.session === null) return;
     emit({ session: null, endReason: reason });
   }
 

@@ -1,5 +1,6 @@
 import { Alert, Center, Paper, Stack, Text, Title } from '@mantine/core';
 import type { UserDto } from '@morrowline/shared';
+import { useDocumentTitle } from '@mantine/hooks';
 import { Navigate, useLocation, useNavigate } from 'react-router-dom';
 import { Wordmark } from '../../../components/Wordmark';
 import { useSession } from '../hooks/use-session';
@@ -13,6 +14,7 @@ interface SignInPageProps {
 }
 
 export function SignInPage({ homePathFor }: SignInPageProps) {
+  useDocumentTitle('Sign in · Morrowline');
   const location = useLocation();
   const navigate = useNavigate();
   const { session, endReason } = useSession();
