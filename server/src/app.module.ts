@@ -3,13 +3,16 @@ import { MikroOrmModule } from '@mikro-orm/nestjs';
 import { Module } from '@nestjs/common';
 import { ConfigModule, ConfigService } from '@nestjs/config';
 import { ScheduleModule } from '@nestjs/schedule';
+import { AlertsModule } from './alerts/alerts.module';
 import { AuditModule } from './audit/audit.module';
 import { AuthModule } from './auth/auth.module';
 import { configFactory, type AppConfig } from './config/configuration';
 import { ormConfig } from './database/mikro-orm.config';
 import { DeskModule } from './desk/desk.module';
+import { FeedsModule } from './feeds/feeds.module';
 import { HandoverModule } from './handover/handover.module';
 import { HealthModule } from './health/health.module';
+import { ReadingsModule } from './readings/readings.module';
 import { UsersModule } from './users/users.module';
 import { ZonesModule } from './zones/zones.module';
 
@@ -29,6 +32,9 @@ import { ZonesModule } from './zones/zones.module';
     HealthModule,
     DeskModule,
     HandoverModule,
+    ReadingsModule,
+    FeedsModule,
+    AlertsModule,
   ],
 })
 export class AppModule {}

@@ -8,7 +8,19 @@ export const DESK_NAMESPACE = '/desk';
 
 export const DESK_EVENTS = {
   hello: 'desk:hello',
+  /** Readings just stored, one event per stored batch (DeskReadings). */
+  readings: 'desk:readings',
+  /** A deviation alert raised or extended (AlertDto). */
+  alertRaised: 'desk:alert-raised',
+  /** A deviation alert acknowledged (AlertDto). */
+  alertAcknowledged: 'desk:alert-acknowledged',
 } as const;
+
+/** Stored readings, compact: per zone, parallel arrays of UTC hour starts and MW. */
+export interface DeskReadings {
+  zones: { zone: string; hours: string[]; mw: number[] }[];
+  receivedAt: string;
+}
 
 export interface DeskHello {
   user: { id: number; name: string; role: Role };

@@ -30,10 +30,61 @@ export type RejectionReason =
   | 'negative'
   | 'implausible'
   | 'too-far-in-future'
-  | 'malformed';
+  | 'malformed'
+  /** The feed's key is limited to one zone and the reading is for another. */
+  | 'zone-not-allowed';
+
+export const REJECTION_REASONS: readonly RejectionReason[] = [
+  'unknown-zone',
+  'not-on-the-hour',
+  'not-a-number',
+  'negative',
+  'implausible',
+  'too-far-in-future',
+  'malformed',
+  'zone-not-allowed',
+];
+
+/** Most readings one batch may carry; a larger batch is refused whole (every reading 'malformed'). */
+export const MAX_READINGS_PER_BATCH = 5000;
+
+export interface ReadingRejection {
+  /** Position of the reading in the batch (or, for a CSV upload, see CsvRowRejection). */
+  index: number;
+  reason: RejectionReason;
+  message: string;
+}
 
 export interface ReadingBatchAck {
   batchId: string;
+  /** Readings accepted and committed (a repeat of a stored value counts as stored). */
   stored: number;
-  rejected: { index: number; reason: RejectionReason; message: string }[];
+  rejected: ReadingRejection[];
+  /** Set when the whole batch failed (server trouble); resend it later. Nothing was stored. */
+  error?: string;
+}
+
+/** A meter-feed API key as admins see it; the key itself is shown once, at creation. */
+export interface FeedKeyDto {
+  id: number;
+  name: string;
+  /** First characters of the key, to tell keys apart. */
+  prefix: string;
+  /** Zone code the key may send for; null for any zone. */
+  zone: string | null;
+  createdAt: string;
+  createdBy: string | null;
+  lastUsedAt: string | null;
+  revokedAt: string | null;
+}
+
+export interface CreateFeedKeyRequest {
+  name: string;
+  zone?: string | null;
+}
+
+export interface CreatedFeedKey {
+  feedKey: FeedKeyDto;
+  /** The secret; shown this once, stored only as a hash. */
+  apiKey: string;
 }

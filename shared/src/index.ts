@@ -4,3 +4,5 @@ export * from './feed';
 export * from './demo-scenario';
 export * from './desk';
 export * from './handover';
+export * from './readings';
+export * from './alerts';

@@ -1,8 +1,12 @@
 /** Every entity the ORM knows, in one list (explicit, so tsc builds and tests discover the same). */
+import { DeviationAlert } from '../alerts/entities/deviation-alert.entity';
 import { AuditEntry } from '../audit/entities/audit-entry.entity';
+import { FeedKey } from '../feeds/entities/feed-key.entity';
 import { HandoverItem } from '../handover/entities/handover-item.entity';
 import { HandoverNote } from '../handover/entities/handover-note.entity';
+import { ReadingRevision } from '../readings/entities/reading-revision.entity';
+import { Reading } from '../readings/entities/reading.entity';
 import { User } from '../users/entities/user.entity';
 import { Zone } from '../zones/entities/zone.entity';
 
-export const ENTITIES = [User, AuditEntry, Zone, HandoverNote, HandoverItem];
+export const ENTITIES = [User, AuditEntry, Zone, Reading, ReadingRevision, FeedKey, DeviationAlert, HandoverNote, HandoverItem];

@@ -2,9 +2,13 @@
  * Database chores for the start and test scripts:
  *   node dist/database/manage.js migrate   apply pending migrations
  *   node dist/database/manage.js seed      load the demo scenario into an empty database
+ *   node dist/database/manage.js feed-key NAME
+ *                                          create (or rotate) the meter-feed key NAME; prints only the key
  */
 import 'reflect-metadata';
 import { MikroORM } from '@mikro-orm/mariadb';
+import { AuditService } from '../audit/audit.service';
+import { FeedKeysService } from '../feeds/feed-keys.service';
 import { ormConfig } from './mikro-orm.config';
 import { DatabaseSeeder } from './seeders/DatabaseSeeder';
 
@@ -22,8 +26,13 @@ async function main(command: string | undefined): Promise<void> {
     } else if (command === 'seed') {
       await orm.getSeeder().seed(DatabaseSeeder);
       console.log('demo scenario in place');
+    } else if (command === 'feed-key') {
+      const name = process.argv[3];
+      if (!name) throw new Error('usage: manage feed-key NAME');
+      const em = orm.em.fork();
+      console.log(await new FeedKeysService(em, new AuditService(em)).rotate(name));
     } else {
-      throw new Error('usage: manage migrate|seed');
+      throw new Error('usage: manage migrate|seed|feed-key NAME');
     }
   } finally {
     await orm.close(true);

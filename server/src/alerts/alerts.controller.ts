@@ -1,0 +1,28 @@
+import { Body, Controller, Get, HttpCode, Param, ParseIntPipe, Post, Query } from '@nestjs/common';
+import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import type { AlertDto } from '@morrowline/shared';
+import type { AuthUser } from '../auth/auth-user';
+import { CurrentUser } from '../auth/current-user.decorator';
+import { Roles, SignedIn } from '../auth/roles.decorator';
+import { AlertsService } from './alerts.service';
+import { AcknowledgeAlertDto, AlertsQueryDto } from './dto/alerts.dto';
+
+@ApiTags('alerts')
+@ApiBearerAuth()
+@Controller('alerts')
+export class AlertsController {
+  constructor(private readonly alerts: AlertsService) {}
+
+  @Get()
+  @SignedIn()
+  list(@Query() query: AlertsQueryDto): Promise<AlertDto[]> {
+    return this.alerts.list(query.state, query.zone, query.limit);
+  }
+
+  @Post(':id/acknowledge')
+  @HttpCode(200)
+  @Roles('operator', 'supervisor')
+  acknowledge(@CurrentUser() actor: AuthUser, @Param('id', ParseIntPipe) id: number, @Body() body: AcknowledgeAlertDto): Promise<AlertDto> {
+    return this.alerts.acknowledge(actor, id, body.comment);
+  }
+}

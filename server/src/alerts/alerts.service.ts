@@ -1,0 +1,168 @@
+import { EntityManager } from '@mikro-orm/mariadb';
+import { ConflictException, Inject, Injectable, Logger, NotFoundException, type OnModuleInit } from '@nestjs/common';
+import { DESK_EVENTS, type AlertDto, type AlertState } from '@morrowline/shared';
+import { AuditService, type Actor } from '../audit/audit.service';
+import { DeskGateway } from '../desk/desk.gateway';
+import type { StoredRow } from '../readings/readings.repository';
+import { ReadingsService } from '../readings/readings.service';
+import { Zone } from '../zones/entities/zone.entity';
+import { deviationRuns } from './deviation';
+import { DeviationAlert } from './entities/deviation-alert.entity';
+import { FORECAST_LOOKUP, type ForecastLookup } from './forecast-lookup';
+
+const HOUR_MS = 3_600_000;
+/**
+ * Only hours this recent raise alerts: an alert is for the desk on shift, not for a backfill of
+ * last month's history (which would bury today's alerts under old ones).
+ */
+export const ALERT_LOOKBACK_HOURS = 48;
+
+export function toAlertDto(alert: DeviationAlert): AlertDto {
+  return {
+    id: alert.id,
+    zone: alert.zone.code,
+    start: alert.start.toISOString(),
+    end: alert.end.toISOString(),
+    peakDeviationPct: Math.round(alert.peakDeviationPct * 100) / 100,
+    thresholdPct: alert.thresholdPct,
+    consecutiveHours: alert.consecutiveHours,
+    state: alert.state,
+    raisedAt: alert.raisedAt.toISOString(),
+    acknowledgedAt: alert.acknowledgedAt ? alert.acknowledgedAt.toISOString() : null,
+    acknowledgedBy: alert.acknowledgedByEmail,
+    comment: alert.comment,
+  };
+}
+
+/**
+ * Deviation alerts. After each stored batch the hours it touched are compared with the current
+ * forecast (ForecastLookup); a run of the zone's N consecutive hours beyond its threshold raises
+ * an alert, pushed to desks at once. Evaluations run one at a time, off the ingest path.
+ */
+@Injectable()
+export class AlertsService implements OnModuleInit {
+  private readonly logger = new Logger(AlertsService.name);
+  private readonly pending = new Map<number, Set<number>>();
+  private running: Promise<void> | null = null;
+
+  constructor(
+    private readonly em: EntityManager,
+    private readonly readings: ReadingsService,
+    private readonly audit: AuditService,
+    private readonly desks: DeskGateway,
+    @Inject(FORECAST_LOOKUP) private readonly forecasts: ForecastLookup,
+  ) {}
+
+  onModuleInit(): void {
+    this.readings.onStored((rows) => this.enqueue(rows));
+  }
+
+  /** Notes the hours to look at; the evaluation follows as soon as the previous one is done. */
+  enqueue(rows: readonly StoredRow[]): void {
+    const since = Math.floor(Date.now() / HOUR_MS) * HOUR_MS - ALERT_LOOKBACK_HOURS * HOUR_MS;
+    for (const row of rows) {
+      if (row.hourStart < since) continue;
+      let hours = this.pending.get(row.zoneId);
+      if (!hours) this.pending.set(row.zoneId, (hours = new Set()));
+      hours.add(row.hourStart);
+    }
+    if (this.pending.size > 0 && !this.running) this.running = this.drain();
+  }
+
+  /** Resolves when every evaluation asked for so far has finished (tests, shutdown). */
+  async settled(): Promise<void> {
+    while (this.running) await this.running;
+  }
+
+  private async drain(): Promise<void> {
+    try {
+      while (this.pending.size > 0) {
+        const [zoneId, hours] = this.pending.entries().next().value as [number, Set<number>];
+        this.pending.delete(zoneId);
+        try {
+          await this.evaluate(zoneId, [...hours]);
+        } catch (error) {
+          this.logger.error(`alert evaluation for zone ${zoneId} failed: ${(error as Error).message}`);
+        }
+      }
+    } finally {
+      this.running = null;
+    }
+  }
+
+  private async evaluate(zoneId: number, hours: number[]): Promise<void> {
+    const em = this.em.fork();
+    const zone = await em.findOne(Zone, { id: zoneId });
+    if (!zone || !zone.active) return;
+    const n = zone.alertConsecutiveHours;
+    const from = Math.min(...hours) - (n - 1) * HOUR_MS;
+    const to = Math.max(...hours) + n * HOUR_MS;
+    const count = (to - from) / HOUR_MS;
+    const actual = new Array<number | null>(count).fill(null);
+    for (const row of await this.readings.rows(zoneId, from, to)) actual[(row.hourStart - from) / HOUR_MS] = row.mw;
+    const forecast = await this.forecasts.forecast(zoneId, from, to);
+    for (const run of deviationRuns(actual, forecast, zone.alertThresholdPct, n)) {
+      await this.raise(zone, new Date(from + run.start * HOUR_MS), new Date(from + run.end * HOUR_MS), run.peakPct);
+    }
+  }
+
+  /** Opens an alert for the window, or widens the one it touches. */
+  private async raise(zone: Zone, start: Date, end: Date, peakPct: number): Promise<void> {
+    const alert = await this.em.fork().transactional(async (tx) => {
+      const existing = await tx.findOne(DeviationAlert, { zone: zone.id, start: { $lte: end }, end: { $gte: start } }, { populate: ['zone'], orderBy: { start: 'desc' } });
+      if (existing) {
+        const wider = start < existing.start || end > existing.end || Math.abs(peakPct) > Math.abs(existing.peakDeviationPct);
+        if (!wider) return null;
+        if (start < existing.start) existing.start = start;
+        if (end > existing.end) existing.end = end;
+        if (Math.abs(peakPct) > Math.abs(existing.peakDeviationPct)) existing.peakDeviationPct = peakPct;
+        return existing;
+      }
+      const created = tx.create(DeviationAlert, {
+        zone,
+        start,
+        end,
+        peakDeviationPct: peakPct,
+        thresholdPct: zone.alertThresholdPct,
+        consecutiveHours: zone.alertConsecutiveHours,
+        state: 'open',
+        raisedAt: new Date(),
+        acknowledgedAt: null,
+        acknowledgedById: null,
+        acknowledgedByEmail: null,
+        comment: null,
+      });
+      await tx.flush();
+      this.audit.stage(tx, null, { action: 'alert.raise', subjectType: 'alert', subjectId: created.id, after: toAlertDto(created) });
+      return created;
+    });
+    if (alert) this.desks.broadcast(DESK_EVENTS.alertRaised, toAlertDto(alert));
+  }
+
+  async list(state?: AlertState, zone?: string, limit = 200): Promise<AlertDto[]> {
+    const where: Record<string, unknown> = {};
+    if (state) where.state = state;
+    if (zone) where.zone = { code: zone };
+    const alerts = await this.em.fork().find(DeviationAlert, where, { populate: ['zone'], orderBy: { start: 'desc', id: 'desc' }, limit });
+    return alerts.map(toAlertDto);
+  }
+
+  async acknowledge(actor: Actor, id: number, comment?: string): Promise<AlertDto> {
+    const dto = await this.em.fork().transactional(async (tx) => {
+      const alert = await tx.findOne(DeviationAlert, { id }, { populate: ['zone'] });
+      if (!alert) throw new NotFoundException(`No alert with id ${id}`);
+      if (alert.state === 'acknowledged') throw new ConflictException(`Alert ${id} was already acknowledged by ${alert.acknowledgedByEmail ?? 'someone'}`);
+      const before = toAlertDto(alert);
+      alert.state = 'acknowledged';
+      alert.acknowledgedAt = new Date();
+      alert.acknowledgedById = actor.id;
+      alert.acknowledgedByEmail = actor.email;
+      alert.comment = comment?.trim() || null;
+      const after = toAlertDto(alert);
+      this.audit.stage(tx, actor, { action: 'alert.acknowledge', subjectType: 'alert', subjectId: alert.id, before, after, reason: alert.comment });
+      return after;
+    });
+    this.desks.broadcast(DESK_EVENTS.alertAcknowledged, dto);
+    return dto;
+  }
+}

@@ -1,0 +1,23 @@
+import { ApiPropertyOptional } from '@nestjs/swagger';
+import { Type } from 'class-transformer';
+import { IsIn, IsInt, IsOptional, IsString, Matches, Max, MaxLength, Min } from 'class-validator';
+import type { AcknowledgeAlertRequest, AlertState } from '@morrowline/shared';
+
+export class AlertsQueryDto {
+  @ApiPropertyOptional({ enum: ['open', 'acknowledged'] })
+  @IsOptional() @IsIn(['open', 'acknowledged'], { message: 'state must be open or acknowledged' })
+  state?: AlertState;
+
+  @ApiPropertyOptional({ example: 'MILLRACE' })
+  @IsOptional() @Matches(/^[A-Z][A-Z0-9_-]{1,31}$/, { message: 'zone must be a zone code such as MILLRACE' })
+  zone?: string;
+
+  @IsOptional() @Type(() => Number) @IsInt() @Min(1) @Max(1000)
+  limit: number = 200;
+}
+
+export class AcknowledgeAlertDto implements AcknowledgeAlertRequest {
+  @ApiPropertyOptional({ example: 'Smelter line 2 tripped; restoring' })
+  @IsOptional() @IsString() @MaxLength(1000)
+  comment?: string;
+}

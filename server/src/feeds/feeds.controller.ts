@@ -1,0 +1,33 @@
+import { Body, Controller, Get, HttpCode, Param, ParseIntPipe, Post } from '@nestjs/common';
+import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import type { CreatedFeedKey, FeedKeyDto } from '@morrowline/shared';
+import type { AuthUser } from '../auth/auth-user';
+import { CurrentUser } from '../auth/current-user.decorator';
+import { Roles } from '../auth/roles.decorator';
+import { CreateFeedKeyDto, RevokeFeedKeyDto } from './dto/feed-key.dto';
+import { FeedKeysService } from './feed-keys.service';
+
+@ApiTags('feeds')
+@ApiBearerAuth()
+@Controller('feeds/keys')
+@Roles('admin')
+export class FeedsController {
+  constructor(private readonly keys: FeedKeysService) {}
+
+  @Get()
+  list(): Promise<FeedKeyDto[]> {
+    return this.keys.list();
+  }
+
+  /** Answers the key itself once; only its hash is kept. */
+  @Post()
+  create(@CurrentUser() actor: AuthUser, @Body() body: CreateFeedKeyDto): Promise<CreatedFeedKey> {
+    return this.keys.create(actor, body);
+  }
+
+  @Post(':id/revoke')
+  @HttpCode(200)
+  revoke(@CurrentUser() actor: AuthUser, @Param('id', ParseIntPipe) id: number, @Body() body: RevokeFeedKeyDto): Promise<FeedKeyDto> {
+    return this.keys.revoke(actor, id, body.reason);
+  }
+}

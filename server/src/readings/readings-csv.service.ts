@@ -1,0 +1,125 @@
+import { BadRequestException, Injectable } from '@nestjs/common';
+import { parse } from 'csv-parse';
+import type { CsvRowRejection, CsvUploadReport } from '@morrowline/shared';
+import { AuditService, type Actor } from '../audit/audit.service';
+import { ReadingsService } from './readings.service';
+
+/** How many rejected rows a report lists in full (the count is always complete). */
+const REPORT_LIMIT = 1000;
+
+interface CsvRow {
+  line: number;
+  reading: { zone: unknown; hour: unknown; mw: unknown };
+}
+
+interface ParsedFile {
+  rows: CsvRow[];
+  /** Rows refused before validation (wrong number of columns, no zone). */
+  refused: CsvRowRejection[];
+}
+
+const HEADER_NAMES: Record<string, 'hour' | 'mw' | 'zone'> = { timestamp: 'hour', load_mw: 'mw', zone: 'zone' };
+
+/** "12.5" → 12.5; "", "n/a" → NaN (rejected as not a number, with its line). */
+function toNumber(cell: string | undefined): number | string {
+  if (cell === undefined || cell.trim() === '') return Number.NaN;
+  const value = Number(cell);
+  return Number.isFinite(value) ? value : cell;
+}
+
+/**
+ * History upload and download as CSV: `timestamp,load_mw[,zone]`, timestamp the UTC start of the
+ * hour (ISO 8601 with offset). The whole file is read first; a file that cannot be read at all
+ * stores nothing. Then each row is checked like a feed reading and the good ones are stored.
+ */
+@Injectable()
+export class ReadingsCsvService {
+  constructor(
+    private readonly readings: ReadingsService,
+    private readonly audit: AuditService,
+  ) {}
+
+  async upload(actor: Actor, fileName: string, content: Buffer, defaultZone: string | undefined): Promise<CsvUploadReport> {
+    const { rows, refused } = await this.parse(content, defaultZone);
+    const report: CsvUploadReport = { fileName, rows: rows.length + refused.length, accepted: 0, revised: 0, rejected: [], rejectedCount: 0 };
+    const rejections: CsvRowRejection[] = [...refused];
+    // In slices, so that a large file does not hold the event loop.
+    for (let i = 0; i < rows.length; i += 5000) {
+      const slice = rows.slice(i, i + 5000);
+      const result = await this.readings.ingest(
+        slice.map((r) => r.reading),
+        { source: `csv:${actor.email}` },
+      );
+      report.accepted += result.stored;
+      report.revised += result.revised;
+      for (const r of result.rejected) rejections.push({ line: slice[r.index].line, reason: r.reason, message: r.message });
+    }
+    rejections.sort((a, b) => a.line - b.line);
+    report.rejectedCount = rejections.length;
+    report.rejected = rejections.slice(0, REPORT_LIMIT);
+    await this.audit.record(actor, {
+      action: 'readings.upload',
+      subjectType: 'readings',
+      subjectId: defaultZone ?? null,
+      after: { fileName, rows: report.rows, accepted: report.accepted, revised: report.revised, rejected: report.rejectedCount },
+    });
+    return report;
+  }
+
+  private async parse(content: Buffer, defaultZone: string | undefined): Promise<ParsedFile> {
+    if (content.length === 0) throw new BadRequestException('The file is empty');
+    if (content.includes(0)) throw new BadRequestException('The file is not a text CSV file (it contains binary data); nothing was stored');
+    const text = content.toString('utf8');
+    if (text.includes('\uFFFD')) throw new BadRequestException('The file is not UTF-8 text; nothing was stored');
+    const parser = parse(text, { relax_column_count: true, skip_empty_lines: true, trim: true, bom: true, info: true, comment: '#' });
+    const rows: CsvRow[] = [];
+    const refused: CsvRowRejection[] = [];
+    let columns: { hour: number; mw: number; zone: number } | null = null;
+    try {
+      for await (const item of parser as AsyncIterable<{ record: string[]; info: { lines: number } }>) {
+        const { record, info } = item;
+        if (columns === null) {
+          const first = record.map((c) => c.toLowerCase());
+          if (first.includes('timestamp') || first.includes('load_mw')) {
+            const hour = first.indexOf('timestamp');
+            const mw = first.indexOf('load_mw');
+            const unknown = first.filter((c) => !(c in HEADER_NAMES));
+            if (hour < 0 || mw < 0 || unknown.length > 0) {
+              throw new BadRequestException(`The header must be timestamp,load_mw[,zone]; found ${record.join(',')}. Nothing was stored`);
+            }
+            columns = { hour, mw, zone: first.indexOf('zone') };
+            continue;
+          }
+          columns = { hour: 0, mw: 1, zone: 2 };
+        }
+        const zoneCell = columns.zone >= 0 ? record[columns.zone] : undefined;
+        const zone = zoneCell && zoneCell.length > 0 ? zoneCell.toUpperCase() : defaultZone;
+        if (record.length < 2 || record.length > 3) {
+          refused.push({ line: info.lines, reason: 'malformed', message: `expected timestamp,load_mw[,zone]; found ${record.length} columns` });
+          continue;
+        }
+        if (!zone) {
+          refused.push({ line: info.lines, reason: 'unknown-zone', message: 'no zone: add a zone column or pass ?zone=CODE' });
+          continue;
+        }
+        rows.push({ line: info.lines, reading: { zone, hour: record[columns.hour], mw: toNumber(record[columns.mw]) } });
+        if (rows.length % 10000 === 0) await new Promise((resolve) => setImmediate(resolve));
+      }
+    } catch (error) {
+      if (error instanceof BadRequestException) throw error;
+      throw new BadRequestException(`The file could not be read as CSV (${(error as Error).message}); nothing was stored`);
+    }
+    if (rows.length + refused.length === 0) throw new BadRequestException('The file holds no readings; nothing was stored');
+    return { rows, refused };
+  }
+
+  /** A zone's stored readings in a range as CSV, in the upload's own columns (plus quality). */
+  async download(zone: string, from?: Date, to?: Date): Promise<string> {
+    const [limits] = await this.readings.resolveZones([zone]);
+    const range = ReadingsService.hourRange(from, to, 24 * 31, 24 * 800);
+    const rows = await this.readings.rows(limits.id, range.from, range.to);
+    const lines = ['timestamp,load_mw,zone,quality'];
+    for (const row of rows) lines.push(`${new Date(row.hourStart).toISOString()},${row.mw},${limits.code},${row.quality}`);
+    return `${lines.join('\n')}\n`;
+  }
+}

@@ -1,0 +1,12 @@
+import { Module } from '@nestjs/common';
+import { ReadingsCsvService } from './readings-csv.service';
+import { ReadingsController } from './readings.controller';
+import { ReadingsRepository } from './readings.repository';
+import { ReadingsService } from './readings.service';
+
+@Module({
+  controllers: [ReadingsController],
+  providers: [ReadingsService, ReadingsRepository, ReadingsCsvService],
+  exports: [ReadingsService, ReadingsRepository],
+})
+export class ReadingsModule {}

@@ -1,0 +1,180 @@
+import { EntityManager } from '@mikro-orm/mariadb';
+import { BadRequestException, Injectable, Logger } from '@nestjs/common';
+import {
+  DESK_EVENTS,
+  STALE_AFTER_HOURS,
+  type DeskReadings,
+  type FeedStatusDto,
+  type ReadingRejection,
+  type ReadingSeriesDto,
+} from '@morrowline/shared';
+import { DeskGateway } from '../desk/desk.gateway';
+import { Zone } from '../zones/entities/zone.entity';
+import { validateBatch, type ZoneLimits } from './reading-validation';
+import { ReadingsRepository, type StoredRow } from './readings.repository';
+
+export const HOUR_MS = 3_600_000;
+/** Longest range one series request may ask for. */
+export const MAX_SERIES_HOURS = 24 * 92;
+/** Zone settings are re-read at most this often (a change reaches validation within seconds). */
+const ZONE_CACHE_MS = 5_000;
+
+export interface IngestOptions {
+  /** "feed:<name>" or "csv:<e-mail>", stored with each reading. */
+  source: string;
+  /** Only this zone's readings are accepted (a scoped feed key). */
+  allowedZone?: string | null;
+}
+
+export interface IngestResult {
+  stored: number;
+  revised: number;
+  rejected: ReadingRejection[];
+}
+
+/** Told of every stored batch: rows whose stored value is new or changed. */
+export type StoredListener = (rows: StoredRow[]) => void;
+
+/**
+ * Readings: validation against the zones' settings, the idempotent keyed store, the live
+ * broadcast to desks, and the series the live view reads.
+ */
+@Injectable()
+export class ReadingsService {
+  private readonly logger = new Logger(ReadingsService.name);
+  private zoneCache: { at: number; byCode: Map<string, ZoneLimits>; byId: Map<number, ZoneLimits> } | null = null;
+  private readonly listeners: StoredListener[] = [];
+
+  constructor(
+    private readonly em: EntityManager,
+    private readonly repository: ReadingsRepository,
+    private readonly desks: DeskGateway,
+  ) {}
+
+  onStored(listener: StoredListener): void {
+    this.listeners.push(listener);
+  }
+
+  async zones(refresh = false): Promise<{ byCode: Map<string, ZoneLimits>; byId: Map<number, ZoneLimits> }> {
+    if (!refresh && this.zoneCache && Date.now() - this.zoneCache.at < ZONE_CACHE_MS) return this.zoneCache;
+    const zones = await this.em.fork().find(Zone, { active: true }, { orderBy: { code: 'asc' } });
+    const limits = zones.map((z) => ({ id: z.id, code: z.code, minPlausibleMw: z.minPlausibleMw, maxPlausibleMw: z.maxPlausibleMw }));
+    this.zoneCache = { at: Date.now(), byCode: new Map(limits.map((z) => [z.code, z])), byId: new Map(limits.map((z) => [z.id, z])) };
+    return this.zoneCache;
+  }
+
+  /** Validates and stores a batch; answers what was stored and why the rest was refused. */
+  async ingest(raws: readonly unknown[], options: IngestOptions): Promise<IngestResult> {
+    let zones = await this.zones();
+    // A zone created a moment ago should not be refused because of the cache.
+    if (raws.some((r) => typeof r === 'object' && r !== null && typeof (r as { zone?: unknown }).zone === 'string' && !zones.byCode.has((r as { zone: string }).zone))) {
+      zones = await this.zones(true);
+    }
+    const { valid, rejected } = validateBatch(raws, { zones: zones.byCode, now: Date.now(), allowedZone: options.allowedZone });
+    if (valid.length === 0) return { stored: 0, revised: 0, rejected };
+    const outcome = await this.repository.store(valid, options.source);
+    if (outcome.changed.length > 0) this.announce(outcome.changed, zones.byId);
+    return { stored: outcome.stored, revised: outcome.revised, rejected };
+  }
+
+  private announce(rows: StoredRow[], byId: Map<number, ZoneLimits>): void {
+    const perZone = new Map<number, { zone: string; hours: string[]; mw: number[] }>();
+    for (const row of rows) {
+      let entry = perZone.get(row.zoneId);
+      if (!entry) perZone.set(row.zoneId, (entry = { zone: byId.get(row.zoneId)?.code ?? String(row.zoneId), hours: [], mw: [] }));
+      entry.hours.push(new Date(row.hourStart).toISOString());
+      entry.mw.push(row.mw);
+    }
+    const event: DeskReadings = { zones: [...perZone.values()], receivedAt: new Date().toISOString() };
+    this.desks.broadcast(DESK_EVENTS.readings, event);
+    for (const listener of this.listeners) {
+      try {
+        listener(rows);
+      } catch (error) {
+        this.logger.error(`a stored-readings listener failed: ${(error as Error).message}`);
+      }
+    }
+  }
+
+  /** Resolves zone codes (all active zones when none given); unknown codes are a 400. */
+  async resolveZones(codes: readonly string[] | undefined): Promise<ZoneLimits[]> {
+    const zones = await this.zones();
+    if (!codes || codes.length === 0) return [...zones.byCode.values()];
+    return codes.map((code) => {
+      const zone = zones.byCode.get(code) ?? null;
+      if (!zone) throw new BadRequestException(`No active zone with code ${code}`);
+      return zone;
+    });
+  }
+
+  /** Checks a requested [from, to) and rounds it out to whole hours. */
+  static hourRange(from: Date | undefined, to: Date | undefined, defaultHours: number, maxHours = MAX_SERIES_HOURS): { from: number; to: number } {
+    const end = Math.ceil((to ?? new Date(Date.now() + HOUR_MS)).getTime() / HOUR_MS) * HOUR_MS;
+    const start = Math.floor((from?.getTime() ?? end - defaultHours * HOUR_MS) / HOUR_MS) * HOUR_MS;
+    if (!(start < end)) throw new BadRequestException('from must be before to');
+    if ((end - start) / HOUR_MS > maxHours) throw new BadRequestException(`The range may span at most ${maxHours} hours`);
+    return { from: start, to: end };
+  }
+
+  async series(codes: readonly string[] | undefined, from?: Date, to?: Date): Promise<ReadingSeriesDto> {
+    const zones = await this.resolveZones(codes);
+    const range = ReadingsService.hourRange(from, to, 24 * 7);
+    const count = (range.to - range.from) / HOUR_MS;
+    const hours = Array.from({ length: count }, (_, i) => new Date(range.from + i * HOUR_MS).toISOString());
+    const [rows, latest] = await Promise.all([
+      this.repository.range(
+        zones.map((z) => z.id),
+        range.from,
+        range.to,
+      ),
+      this.repository.latest(),
+    ]);
+    const byZone = new Map(zones.map((z) => [z.id, { mw: new Array<number | null>(count).fill(null), quality: new Array<StoredRow['quality'] | null>(count).fill(null) }]));
+    for (const row of rows) {
+      const slot = byZone.get(row.zoneId);
+      if (!slot) continue;
+      const i = (row.hourStart - range.from) / HOUR_MS;
+      slot.mw[i] = row.mw;
+      slot.quality[i] = row.quality;
+    }
+    return {
+      from: new Date(range.from).toISOString(),
+      to: new Date(range.to).toISOString(),
+      hours,
+      zones: zones.map((z) => {
+        const last = latest.get(z.id);
+        const slot = byZone.get(z.id)!;
+        return {
+          zone: z.code,
+          mw: slot.mw,
+          quality: slot.quality,
+          lastHour: last ? new Date(last.hourStart).toISOString() : null,
+          lastReceivedAt: last ? new Date(last.receivedAt).toISOString() : null,
+        };
+      }),
+    };
+  }
+
+  /** Per zone: the latest hour stored, and whether the feed has fallen silent. */
+  async status(now = Date.now()): Promise<FeedStatusDto[]> {
+    const zones = await this.resolveZones(undefined);
+    const latest = await this.repository.latest();
+    return zones.map((z) => {
+      const last = latest.get(z.id);
+      if (!last) return { zone: z.code, lastHour: null, lastReceivedAt: null, hoursBehind: null, stale: true };
+      const behind = Math.max(0, Math.floor((now - (last.hourStart + HOUR_MS)) / HOUR_MS));
+      return {
+        zone: z.code,
+        lastHour: new Date(last.hourStart).toISOString(),
+        lastReceivedAt: new Date(last.receivedAt).toISOString(),
+        hoursBehind: behind,
+        stale: now - (last.hourStart + HOUR_MS) > STALE_AFTER_HOURS * HOUR_MS,
+      };
+    });
+  }
+
+  /** Stored readings of a zone in a range (CSV download and the alerts' look-ups). */
+  async rows(zoneId: number, from: number, to: number): Promise<StoredRow[]> {
+    return this.repository.range([zoneId], from, to);
+  }
+}

@@ -1,0 +1,107 @@
+import type { NestExpressApplication } from '@nestjs/platform-express';
+import { io } from 'socket.io-client';
+import request from 'supertest';
+import { DESK_EVENTS, DESK_NAMESPACE, type AlertDto, type AuditEntryDto, type Page } from '@morrowline/shared';
+import { AlertsService } from '../src/alerts/alerts.service';
+import { connectFeed, connected, createFeedKey, createZone, hourIso, send } from './support/feeds';
+import { baseUrl, startTestApp, tokenFor } from './support/test-app';
+
+jest.setTimeout(120_000);
+
+const HOUR = 3_600_000;
+const WEEK = 168 * HOUR;
+
+describe('deviation alerts (real MariaDB)', () => {
+  let app: NestExpressApplication;
+  let admin: string;
+  let operator: string;
+  let viewer: string;
+  let supervisor: string;
+  beforeAll(async () => {
+    app = await startTestApp();
+    admin = await tokenFor(app, 'admin');
+    operator = await tokenFor(app, 'operator');
+    viewer = await tokenFor(app, 'viewer');
+    supervisor = await tokenFor(app, 'supervisor');
+  });
+  afterAll(async () => {
+    await app.close();
+  });
+  const api = () => request(app.getHttpServer());
+
+  it('raises an alert after N consecutive deviating hours, pushes it to desks, and records its acknowledgement', async () => {
+    const zone = await createZone(app, admin, { alertThresholdPct: 5, alertConsecutiveHours: 3 });
+    const { apiKey } = await createFeedKey(app, admin);
+    const base = Math.floor(Date.now() / HOUR) * HOUR - 12 * HOUR;
+    const feed = connectFeed(app, apiKey);
+    await connected(feed);
+    // Last week: a flat 100 MW, the seasonal-naive forecast for this week's hours.
+    await send(feed, Array.from({ length: 10 }, (_, i) => ({ zone, hour: hourIso(base - WEEK + i * HOUR), mw: 100 })));
+
+    const desk = io(`${baseUrl(app)}${DESK_NAMESPACE}`, { auth: { token: viewer }, transports: ['websocket'], reconnection: false });
+    await new Promise((resolve) => desk.once(DESK_EVENTS.hello, resolve));
+    const pushed = new Promise<AlertDto>((resolve) => desk.on(DESK_EVENTS.alertRaised, (a: AlertDto) => a.zone === zone && resolve(a)));
+
+    // Two hours beyond 5 % (not enough for 3), back to normal, then three in a row (with one within 5 %).
+    const actual = [101, 108, 109, 100, 112, 94, 120, 104, 100, 100];
+    await send(feed, actual.slice(0, 4).map((mw, i) => ({ zone, hour: hourIso(base + i * HOUR), mw })));
+    await app.get(AlertsService).settled();
+    let open = await api().get(`/api/alerts?state=open&zone=${zone}`).set('Authorization', `Bearer ${viewer}`).expect(200);
+    expect(open.body).toEqual([]);
+
+    await send(feed, actual.slice(4).map((mw, i) => ({ zone, hour: hourIso(base + (i + 4) * HOUR), mw })));
+    feed.close();
+    await app.get(AlertsService).settled();
+    open = await api().get(`/api/alerts?state=open&zone=${zone}`).set('Authorization', `Bearer ${viewer}`).expect(200);
+    const alerts = open.body as AlertDto[];
+    expect(alerts).toHaveLength(1);
+    expect(alerts[0]).toMatchObject({
+      zone,
+      start: hourIso(base + 4 * HOUR),
+      end: hourIso(base + 7 * HOUR),
+      peakDeviationPct: 20,
+      thresholdPct: 5,
+      consecutiveHours: 3,
+      state: 'open',
+    });
+    const heard = await pushed;
+    expect(heard.id).toBe(alerts[0].id);
+    desk.close();
+
+    await api().post(`/api/alerts/${alerts[0].id}/acknowledge`).set('Authorization', `Bearer ${viewer}`).send({}).expect(403);
+    const acked = await api()
+      .post(`/api/alerts/${alerts[0].id}/acknowledge`)
+      .set('Authorization', `Bearer ${operator}`)
+      .send({ comment: 'Irrigation pumps started early' })
+      .expect(200);
+    expect(acked.body).toMatchObject({ state: 'acknowledged', comment: 'Irrigation pumps started early', acknowledgedBy: 'ines.marlow@tallowmere.example' });
+    await api().post(`/api/alerts/${alerts[0].id}/acknowledge`).set('Authorization', `Bearer ${supervisor}`).send({}).expect(409);
+    expect((await api().get(`/api/alerts?state=open&zone=${zone}`).set('Authorization', `Bearer ${viewer}`).expect(200)).body).toEqual([]);
+
+    const audit = await api().get(`/api/audit?subjectType=alert&subjectId=${alerts[0].id}`).set('Authorization', `Bearer ${supervisor}`).expect(200);
+    const entries = (audit.body as Page<AuditEntryDto>).items;
+    expect(entries.map((e) => e.action).sort()).toEqual(['alert.acknowledge', 'alert.raise']);
+    expect(entries.find((e) => e.action === 'alert.acknowledge')).toMatchObject({ actorEmail: 'ines.marlow@tallowmere.example', reason: 'Irrigation pumps started early' });
+  });
+
+  it('widens an open alert when the next hour deviates too, rather than raising another', async () => {
+    const zone = await createZone(app, admin, { alertThresholdPct: 5, alertConsecutiveHours: 2 });
+    const { apiKey } = await createFeedKey(app, admin);
+    const base = Math.floor(Date.now() / HOUR) * HOUR - 10 * HOUR;
+    const feed = connectFeed(app, apiKey);
+    await connected(feed);
+    await send(feed, Array.from({ length: 6 }, (_, i) => ({ zone, hour: hourIso(base - WEEK + i * HOUR), mw: 200 })));
+    await send(feed, [0, 1].map((i) => ({ zone, hour: hourIso(base + i * HOUR), mw: 180 })));
+    await app.get(AlertsService).settled();
+    await send(feed, [{ zone, hour: hourIso(base + 2 * HOUR), mw: 170 }]);
+    feed.close();
+    await app.get(AlertsService).settled();
+    const open = await api().get(`/api/alerts?zone=${zone}`).set('Authorization', `Bearer ${viewer}`).expect(200);
+    expect(open.body).toEqual([expect.objectContaining({ start: hourIso(base), end: hourIso(base + 3 * HOUR), peakDeviationPct: -15 })]);
+  });
+
+  it('validates the alerts query', async () => {
+    const bad = await api().get('/api/alerts?state=closed').set('Authorization', `Bearer ${viewer}`).expect(400);
+    expect(bad.body.details).toEqual(['state must be open or acknowledged']);
+  });
+});
