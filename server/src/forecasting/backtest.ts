@@ -41,6 +41,8 @@ export interface BacktestDay {
   hours: number;
   origin: number;
   model: string;
+  /** differencing and orders used (absent for seasonal naive without a fitted model) */
+  choice?: ModelChoice;
   fallbackReason?: string;
   fitMs: number;
   accuracy: Accuracy;
@@ -105,6 +107,7 @@ export function backtest(values: ArrayLike<number>, o: BacktestOptions): Backtes
     let model: string;
     let reason: string | undefined;
     let fitMs = 0;
+    let choice: ModelChoice | undefined;
     if (method === 'seasonal-naive') {
       fc = base;
       model = 'seasonal naive';
@@ -119,11 +122,12 @@ export function backtest(values: ArrayLike<number>, o: BacktestOptions): Backtes
       fc = r.forecast;
       fitMs = r.timings.totalMs;
       reason = r.fallbackReason;
+      choice = r.model ? { diff: r.model.diff, p: r.model.p, q: r.model.q } : undefined;
       model = r.method === 'arima' && r.model ? `${r.model.label} ARMA(${r.model.p},${r.model.q})` : 'seasonal naive';
     }
     const f = cut(fc);
     const b = cut(base);
-    out.push({ dayStart: ds, hours: de - ds, origin, model, fallbackReason: reason, fitMs, accuracy: accuracy(actual, f), baseline: accuracy(actual, b), forecast: f });
+    out.push({ dayStart: ds, hours: de - ds, origin, model, choice, fallbackReason: reason, fitMs, accuracy: accuracy(actual, f), baseline: accuracy(actual, b), forecast: f });
   }
   const summary = (pick: (d: BacktestDay) => Accuracy): BacktestSummary => {
     const list = out.map(pick).filter((a) => a.n > 0);

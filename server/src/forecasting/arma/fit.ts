@@ -263,7 +263,7 @@ function hessianStandardErrors(x: Float64Array, o: Required<ArmaSpec>, values: n
   const m = values.length;
   if (m === 0) return [];
   const hs = values.map((v, i) => (o.includeMean && i === m - 1 ? 1e-3 * sdx : 1e-4));
-  const f = (vv: number[]): number => negLogLik(x, o, vv, Math.min(tol, 1e-12));
+  const f = (vv: number[]): number => negLogLik(x, o, vv, tol);
   const f0 = f(values);
   const H = new Matrix(m, m);
   const at = (d: Array<[number, number]>): number => {
