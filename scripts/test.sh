@@ -3,7 +3,7 @@
 #   server unit (jest) · server integration (jest, real MariaDB on 127.0.0.1:3308, fresh schema)
 #   simulator (jest) · client (vitest) · browser (vitest + playwright-core + Debian Chromium)
 # Ends with one line "N passed, N failed" and a non-zero exit if anything failed.
-# Run one suite alone: scripts/test.sh unit|integration|client|e2e
+# Run one suite alone: scripts/test.sh unit|integration|simulators|client|e2e
 set -uo pipefail
 source "$(dirname "$0")/lib.sh"
 cd "$ROOT"
@@ -44,6 +44,10 @@ export LOGIN_ATTEMPTS_PER_MINUTE=10
 
 if want unit; then
   suite unit npx --workspace server jest --selectProjects unit --json --outputFile="$reports/unit.json"
+fi
+
+if want simulators; then
+  suite simulators npx --workspace simulators jest --json --outputFile="$reports/simulators.json"
 fi
 
 if want integration || want e2e; then

@@ -1,0 +1,95 @@
+/**
+ * The meter-feed simulator's command line (`npm run simulate -- --help`).
+ */
+import { DEMO_TIME_ZONE, DEMO_ZONES } from '@morrowline/shared';
+import { FeedGenerator, HOUR_MS, type SimReading } from './generator';
+import { HELP, parseOptions, type SimOptions } from './options';
+import { FeedSender } from './sender';
+
+const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
+
+export async function run(options: SimOptions, log: (line: string) => void): Promise<void> {
+  if (!options.key) throw new Error('A feed key is needed: --key KEY or MORROWLINE_FEED_KEY (an admin creates one under feed keys)');
+  const zones = DEMO_ZONES.filter((z) => options.zones.includes(z.code)).map((z) => ({ code: z.code, peakMw: z.peakMw }));
+  const currentHour = Math.floor(Date.now() / HOUR_MS) * HOUR_MS;
+  const liveStart = currentHour - options.lagHours * HOUR_MS;
+  const start = liveStart - options.backfillWeeks * 168 * HOUR_MS;
+  const generator = new FeedGenerator(zones, start, options.seed, DEMO_TIME_ZONE);
+  const sender = new FeedSender(options.url, options.key, `sim${options.seed}-${Date.now().toString(36)}`, log);
+  const info = (line: string) => options.quiet || log(line);
+  let stopping = false;
+  const stop = () => {
+    stopping = true;
+  };
+  process.once('SIGINT', stop);
+  process.once('SIGTERM', stop);
+
+  try {
+    if (generator.hour < liveStart) {
+      info(`backfilling ${options.backfillWeeks} week(s) for ${zones.map((z) => z.code).join(', ')} from ${new Date(start).toISOString()}`);
+      const buffer: SimReading[] = [];
+      let lastReport = Date.now();
+      while (generator.hour < liveStart && !stopping) {
+        buffer.push(...generator.step());
+        while (buffer.length >= options.batch) await sender.send(buffer.splice(0, options.batch));
+        if (Date.now() - lastReport > 2000) {
+          info(`  … ${new Date(generator.hour).toISOString()} (${sender.stats.stored} stored)`);
+          lastReport = Date.now();
+        }
+      }
+      if (options.once) buffer.push(...generator.flush());
+      await sender.send(buffer.splice(0));
+      await sender.drain();
+      info(`backfill done: ${sender.stats.stored} stored, ${sender.stats.rejected} rejected`);
+    }
+
+    info(options.once ? 'catching up to now' : `live from ${new Date(generator.hour).toISOString()} at ${options.speed}x`);
+    const wall0 = Date.now();
+    while (!stopping) {
+      const now = Date.now();
+      const simulated = options.once ? now : Math.min(now, liveStart + (now - wall0) * options.speed);
+      let sent = false;
+      while (generator.hour + HOUR_MS <= simulated && !stopping) {
+        const hour = generator.hour;
+        const readings = generator.step();
+        await sender.send(readings);
+        sent = true;
+        if (!options.once) info(`${new Date(hour).toISOString()}  ${readings.map((r) => `${r.zone} ${r.mw.toFixed(1)}`).join('  ')}`);
+      }
+      if (options.once) {
+        await sender.send(generator.flush());
+        break;
+      }
+      if (!sent) {
+        // Wake when the simulated clock (and the wall clock) reach the end of the next hour.
+        const end = generator.hour + HOUR_MS;
+        const wakeAt = Math.max(wall0 + (end - liveStart) / options.speed, end);
+        await sleep(Math.min(1000, Math.max(20, wakeAt - Date.now())));
+      }
+    }
+    await sender.drain();
+  } finally {
+    sender.close();
+    log(`simulator: sent ${sender.stats.sent}, stored ${sender.stats.stored}, rejected ${sender.stats.rejected}, batches resent ${sender.stats.resent}`);
+  }
+}
+
+if (require.main === module) {
+  let options: SimOptions;
+  try {
+    options = parseOptions(process.argv.slice(2));
+  } catch (error) {
+    console.error(`${(error as Error).message}\n\n${HELP}`);
+    process.exit(2);
+  }
+  if (options.help) {
+    console.log(HELP);
+    process.exit(0);
+  }
+  run(options, (line) => console.log(line))
+    .then(() => process.exit(0))
+    .catch((error: unknown) => {
+      console.error(error instanceof Error ? error.message : error);
+      process.exit(1);
+    });
+}
