@@ -45,8 +45,8 @@ export function kalmanFilter(x: ArrayLike<number>, ss: ArmaStateSpace, opts: Fil
   const tol = opts.tol ?? 1e-10;
   const profile = opts.mean === undefined && !!opts.profileMean;
   const mu0 = opts.mean ?? 0;
-  let P = stationaryCovariance(ss);
-  let Pn = new Float64Array(r * r);
+  let P: Float64Array = stationaryCovariance(ss);
+  let Pn: Float64Array = new Float64Array(r * r);
   const Pf = new Float64Array(r * r);
   const a = new Float64Array(r);
   const af = new Float64Array(r);
