@@ -9,6 +9,12 @@ import { ReadingsExportQueryDto, ReadingsQueryDto, ReadingsUploadQueryDto } from
 import { ReadingsCsvService } from './readings-csv.service';
 import { ReadingsService } from './readings.service';
 
+/** What multer hands over for an in-memory upload (the part used here). */
+interface UploadedCsv {
+  originalname: string;
+  buffer: Buffer;
+}
+
 @ApiTags('readings')
 @ApiBearerAuth()
 @Controller('readings')
@@ -45,7 +51,7 @@ export class ReadingsController {
   @Roles('operator', 'supervisor')
   @ApiConsumes('multipart/form-data')
   @UseInterceptors(FileInterceptor('file', { limits: { fileSize: CSV_MAX_BYTES, files: 1 } }))
-  upload(@CurrentUser() actor: AuthUser, @Query() query: ReadingsUploadQueryDto, @UploadedFile() file: Express.Multer.File | undefined): Promise<CsvUploadReport> {
+  upload(@CurrentUser() actor: AuthUser, @Query() query: ReadingsUploadQueryDto, @UploadedFile() file: UploadedCsv | undefined): Promise<CsvUploadReport> {
     if (!file) throw new BadRequestException('Attach the CSV file as the multipart field "file"');
     return this.csv.upload(actor, file.originalname, file.buffer, query.zone);
   }

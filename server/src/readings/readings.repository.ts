@@ -123,7 +123,7 @@ export class ReadingsRepository {
       // 2. Walk the chunk in order: each value that replaces a different one leaves a revision.
       const current = new Map(existing);
       const finals = new Map<string, ValidReading>();
-      const revisions: unknown[] = [];
+      const revisions: (string | number)[] = [];
       let revised = 0;
       for (const r of chunk) {
         const key = `${r.zoneId}|${r.hourStart}`;
@@ -147,7 +147,7 @@ export class ReadingsRepository {
       const changed = [...finals.values()];
       if (changed.length > 0) {
         const received = sqlDateTime3(now);
-        const values: unknown[] = [];
+        const values: (string | number)[] = [];
         for (const r of changed) values.push(r.zoneId, sqlDateTime(r.hourStart), r.mw, r.quality, source, received);
         await trx.raw(
           `insert into readings (zone_id, hour_start, mw, quality, source, received_at) values ${new Array(changed.length).fill('(?,?,?,?,?,?)').join(',')}

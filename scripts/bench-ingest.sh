@@ -1,0 +1,42 @@
+#!/usr/bin/env bash
+# npm run bench:ingest — readings per second from a socket.io feed client through the server to
+# committed rows, against the raw batched-upsert rate of the same MariaDB, in one run.
+# Uses its own MariaDB ("bench", 127.0.0.1:3309, fresh database) and server (127.0.0.1:3110).
+# Last line: "ingest: N readings/s, raw M rows/s, ratio R".
+set -euo pipefail
+source "$(dirname "$0")/lib.sh"
+cd "$ROOT"
+
+db_port="${BENCH_DB_PORT:-3309}"
+app_port="${BENCH_APP_PORT:-3110}"
+out="$ROOT/.data/bench"
+mkdir -p "$out"
+export NODE_ENV=test DB_PORT="$db_port" DB_NAME=morrowline_bench DB_USER=morrowline DB_PASSWORD=morrowline-bench
+server_pid=""
+
+cleanup() {
+  [ -n "$server_pid" ] && kill "$server_pid" 2>/dev/null && wait "$server_pid" 2>/dev/null
+  bash scripts/db.sh stop bench >/dev/null 2>&1 || true
+}
+trap cleanup EXIT
+trap 'exit 130' INT TERM
+
+npm_deps
+apt_install mariadb-server mariadb-client
+bash scripts/db.sh start bench "$db_port" >/dev/null || die "bench MariaDB did not start"
+bash scripts/db.sh reset bench "$db_port" >/dev/null || die "could not reset the bench database"
+log "building shared and server"
+npm run -s build -w shared || die "shared build failed"
+npm run -s build -w server || die "server build failed"
+(cd server && node dist/database/manage.js migrate >/dev/null && node dist/database/manage.js seed >/dev/null) || die "could not set up the bench database"
+key="$(cd server && node dist/database/manage.js feed-key bench-feed)"
+
+log "starting the server on 127.0.0.1:$app_port"
+PORT="$app_port" node server/dist/main.js >"$out/server.log" 2>&1 &
+server_pid=$!
+for _ in $(seq 1 120); do curl -fs "http://127.0.0.1:$app_port/api/health" >/dev/null && break; sleep 0.5; done
+curl -fs "http://127.0.0.1:$app_port/api/health" >/dev/null || { tail -20 "$out/server.log" >&2; die "server did not start"; }
+
+log "measuring (raw upsert first, then the feed path)"
+cd server
+BENCH_URL="http://127.0.0.1:$app_port" MORROWLINE_FEED_KEY="$key" npx tsx src/cli/bench-ingest.ts
