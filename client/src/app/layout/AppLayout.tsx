@@ -3,6 +3,7 @@ import { useDisclosure } from '@mantine/hooks';
 import { Outlet } from 'react-router-dom';
 import { Wordmark } from '../../components/Wordmark';
 import { SignOutButton, useSignedInUser } from '../../features/auth';
+import { PendingHandoverBanner } from '../../features/handover';
 import { ColorSchemeToggle } from './ColorSchemeToggle';
 import { SectionNavigation } from './SectionNavigation';
 import { SignedInUser } from './SignedInUser';
@@ -34,6 +35,7 @@ export function AppLayout() {
         <SectionNavigation role={user.role} onNavigate={close} />
       </AppShell.Navbar>
       <AppShell.Main>
+        <PendingHandoverBanner />
         <Outlet />
       </AppShell.Main>
     </AppShell>
