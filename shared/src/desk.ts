@@ -14,6 +14,10 @@ export const DESK_EVENTS = {
   alertRaised: 'desk:alert-raised',
   /** A deviation alert acknowledged (AlertDto). */
   alertAcknowledged: 'desk:alert-acknowledged',
+  /** A new forecast run for a zone (ForecastRunDto). */
+  forecast: 'desk:forecast',
+  /** Progress of a refit job (RefitJobDto, see the refit work). */
+  refitProgress: 'desk:refit-progress',
 } as const;
 
 /** Stored readings, compact: per zone, parallel arrays of UTC hour starts and MW. */

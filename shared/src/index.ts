@@ -6,3 +6,4 @@ export * from './desk';
 export * from './handover';
 export * from './readings';
 export * from './alerts';
+export * from './forecasts';
