@@ -40,15 +40,13 @@ pids+=($!)
 for _ in $(seq 1 60); do curl -fs "http://127.0.0.1:$PORT/api/health" >/dev/null && break; sleep 0.5; done
 curl -fs "http://127.0.0.1:$PORT/api/health" >/dev/null || { tail -30 "$ROOT/.data/server.log" >&2; die "the server did not start"; }
 
-if [ -f simulators/src/main.ts ] && grep -q "feed-key" server/dist/database/manage.js 2>/dev/null; then
-  key="$(cd server && node dist/database/manage.js feed-key demo-simulator)"
-  MORROWLINE_FEED_KEY="$key" npx --workspace simulators tsx src/main.ts --url "http://127.0.0.1:$PORT" \
-    --backfill-weeks 8 --speed "${SIM_SPEED:-60}" >"$ROOT/.data/simulator.log" 2>&1 &
-  pids+=($!)
-  sim="running (log .data/simulator.log)"
-else
-  sim="not available yet"
-fi
+# The demo's meter feeds: a key of its own (rotated each start), six weeks of history backfilled,
+# then the last two days replayed quickly and real time after that.
+key="$(cd server && node dist/database/manage.js feed-key demo-simulator)" || die "could not create the simulator's feed key"
+MORROWLINE_FEED_KEY="$key" npm run -s simulate -- --url "http://127.0.0.1:$PORT" --backfill-weeks "${SIM_BACKFILL_WEEKS:-6}" \
+  --speed "${SIM_SPEED:-3600}" --quiet >"$ROOT/.data/simulator.log" 2>&1 &
+pids+=($!)
+sim="running (log .data/simulator.log)"
 
 cat <<MSG
 

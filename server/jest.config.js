@@ -13,6 +13,8 @@ const swc = [
 
 /** @type {import('jest').Config} */
 module.exports = {
+  // Read at the top level only; integration tests talk to a real database.
+  testTimeout: 60000,
   projects: [
     {
       displayName: 'unit',
@@ -27,7 +29,6 @@ module.exports = {
       rootDir: __dirname,
       testMatch: ['<rootDir>/test/**/*.e2e-spec.ts'],
       transform: { '^.+\\.ts$': swc },
-      testTimeout: 60000,
     },
   ],
 };
