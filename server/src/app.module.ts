@@ -14,6 +14,7 @@ import { HandoverModule } from './handover/handover.module';
 import { HealthModule } from './health/health.module';
 import { ReadingsModule } from './readings/readings.module';
 import { UsersModule } from './users/users.module';
+import { WorkbenchModule } from './workbench/workbench.module';
 import { ZonesModule } from './zones/zones.module';
 
 @Module({
@@ -35,6 +36,7 @@ import { ZonesModule } from './zones/zones.module';
     ReadingsModule,
     FeedsModule,
     AlertsModule,
+    WorkbenchModule,
   ],
 })
 export class AppModule {}

@@ -7,3 +7,4 @@ export * from './handover';
 export * from './readings';
 export * from './alerts';
 export * from './forecasts';
+export * from './workbench';

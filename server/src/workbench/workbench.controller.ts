@@ -1,0 +1,39 @@
+import { Body, Controller, Get, HttpCode, Param, Post, Query } from '@nestjs/common';
+import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import type { BacktestReportDto, ModelReportDto, StationarityReportDto } from '@morrowline/shared';
+import { Roles } from '../auth/roles.decorator';
+import { BacktestRequestDto, WorkbenchQueryDto } from './dto/workbench.dto';
+import { WorkbenchService } from './workbench.service';
+
+/**
+ * The analysis workbench. Viewers may read the analyses; only operators and supervisors may
+ * start a backtest (it occupies the compute pool for seconds).
+ */
+@ApiTags('workbench')
+@ApiBearerAuth()
+@Controller('workbench')
+export class WorkbenchController {
+  constructor(private readonly workbench: WorkbenchService) {}
+
+  /** Is the zone's load stationary, and which differencing makes it so? */
+  @Get(':zone/stationarity')
+  @Roles('viewer', 'operator', 'supervisor')
+  stationarity(@Param('zone') zone: string, @Query() query: WorkbenchQueryDto): Promise<StationarityReportDto> {
+    return this.workbench.stationarity(zone, query.weeks);
+  }
+
+  /** The model the automatic pipeline chooses on the zone's history, with its checks. */
+  @Get(':zone/model')
+  @Roles('viewer', 'operator', 'supervisor')
+  model(@Param('zone') zone: string, @Query() query: WorkbenchQueryDto): Promise<ModelReportDto> {
+    return this.workbench.model(zone, query.weeks);
+  }
+
+  /** Rolling day-ahead backtest over the last `days` operating days against seasonal naive. */
+  @Post(':zone/backtest')
+  @HttpCode(200)
+  @Roles('operator', 'supervisor')
+  backtest(@Param('zone') zone: string, @Body() body: BacktestRequestDto): Promise<BacktestReportDto> {
+    return this.workbench.backtest(zone, body.days);
+  }
+}

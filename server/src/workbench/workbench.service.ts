@@ -1,0 +1,175 @@
+import { BadRequestException, Injectable } from '@nestjs/common';
+import {
+  type BacktestReportDto,
+  type ModelReportDto,
+  type StationarityReportDto,
+  WORKBENCH_DEFAULT_WEEKS,
+  WORKBENCH_MAX_LAG,
+  WORKBENCH_MIN_HOURS,
+} from '@morrowline/shared';
+import { ComputeService } from '../compute/compute.service';
+import { ReadingsService } from '../readings/readings.service';
+import { ZonesService } from '../zones/zones.service';
+import { toWire } from './analysis/stationarity-analysis';
+import { ExclusionsLookup } from './exclusions.lookup';
+import { operatingDayStarts } from './operating-days';
+
+const HOUR_MS = 3_600_000;
+/** Results are kept this long for the same zone, range and latest reading. */
+export const WORKBENCH_CACHE_MS = 5 * 60_000;
+/** Hours of history each backtest fit may use (the engine's default window). */
+const BACKTEST_WINDOW_HOURS = 8 * 168;
+
+interface History {
+  zone: string;
+  timeZone: string;
+  firstHourMs: number;
+  lastHourMs: number;
+  times: string[];
+  /** MW with NaN for missing and excluded hours */
+  values: Float64Array;
+  excluded: number[];
+  usable: number;
+}
+
+/**
+ * The analysis workbench: a zone's history from the readings, hours marked as excluded taken
+ * out, and the engine's analyses run in the compute pool. Results are cached per zone, range
+ * and latest reading hour, so a new reading gives a fresh analysis.
+ */
+@Injectable()
+export class WorkbenchService {
+  private readonly cache = new Map<string, { at: number; result: Promise<unknown> }>();
+
+  constructor(
+    private readonly zones: ZonesService,
+    private readonly readings: ReadingsService,
+    private readonly compute: ComputeService,
+    private readonly exclusions: ExclusionsLookup,
+  ) {}
+
+  async stationarity(code: string, weeks = WORKBENCH_DEFAULT_WEEKS): Promise<StationarityReportDto> {
+    const latest = await this.latestHour(code);
+    return this.cached(`stationarity|${code}|${weeks}|${latest.lastHourMs}`, async () => {
+      const t0 = performance.now();
+      const h = await this.history(latest, weeks * 168, `${weeks} weeks`);
+      const out = await this.compute.run('workbench.stationarity', { values: h.values, maxLag: WORKBENCH_MAX_LAG });
+      return {
+        zone: h.zone,
+        timeZone: h.timeZone,
+        weeks,
+        from: h.times[0],
+        to: h.times[h.times.length - 1],
+        hours: h.values.length,
+        usableHours: h.usable,
+        excludedHours: h.excluded.length,
+        times: h.times,
+        load: toWire(h.values, 3),
+        ...out,
+        computedAt: new Date().toISOString(),
+        computeMs: Math.round(performance.now() - t0),
+      };
+    });
+  }
+
+  async model(code: string, weeks = WORKBENCH_DEFAULT_WEEKS): Promise<ModelReportDto> {
+    const latest = await this.latestHour(code);
+    return this.cached(`model|${code}|${weeks}|${latest.lastHourMs}`, async () => {
+      const t0 = performance.now();
+      const h = await this.history(latest, weeks * 168, `${weeks} weeks`);
+      const out = await this.compute.run('workbench.model', { values: h.values, excluded: h.excluded });
+      return {
+        zone: h.zone,
+        weeks,
+        from: h.times[0],
+        to: h.times[h.times.length - 1],
+        usableHours: h.usable,
+        ...out,
+        computedAt: new Date().toISOString(),
+        computeMs: Math.round(performance.now() - t0),
+      };
+    });
+  }
+
+  async backtest(code: string, days: number): Promise<BacktestReportDto> {
+    const latest = await this.latestHour(code);
+    return this.cached(`backtest|${code}|${days}|${latest.lastHourMs}`, async () => {
+      const t0 = performance.now();
+      // each scored day needs the fitting window before it, plus the partial day at the end
+      const h = await this.history(latest, BACKTEST_WINDOW_HOURS + (days + 1) * 24, `the ${days} days and the 8 weeks before them`, WORKBENCH_MIN_HOURS + days * 24);
+      const { starts, dates } = operatingDayStarts(h.firstHourMs, h.values.length, h.timeZone);
+      const out = await this.compute.run('workbench.backtest', {
+        values: h.values,
+        excluded: h.excluded,
+        days,
+        dayStarts: starts,
+        dayDates: dates,
+        firstHourMs: h.firstHourMs,
+      });
+      return {
+        zone: h.zone,
+        timeZone: h.timeZone,
+        days,
+        ...out,
+        computedAt: new Date().toISOString(),
+        computeMs: Math.round(performance.now() - t0),
+      };
+    });
+  }
+
+  /** The zone (404 if unknown) and its latest stored hour (400 if it has no readings). */
+  private async latestHour(code: string): Promise<{ zone: string; timeZone: string; lastHourMs: number }> {
+    const zone = await this.zones.getByCode(code);
+    const status = (await this.readings.status()).find((s) => s.zone === zone.code);
+    if (!status?.lastHour) {
+      throw new BadRequestException(
+        `Zone ${zone.code} has no readings yet; the workbench needs at least ${WORKBENCH_MIN_HOURS} hours (${WORKBENCH_MIN_HOURS / 168} weeks) of hourly load`,
+      );
+    }
+    return { zone: zone.code, timeZone: zone.timeZone, lastHourMs: Date.parse(status.lastHour) };
+  }
+
+  /** `hours` hourly values ending at the latest reading, excluded hours as NaN; 400 when too few are usable. */
+  private async history(latest: { zone: string; timeZone: string; lastHourMs: number }, hours: number, span: string, needed = WORKBENCH_MIN_HOURS): Promise<History> {
+    const firstHourMs = latest.lastHourMs - (hours - 1) * HOUR_MS;
+    const end = latest.lastHourMs + HOUR_MS;
+    const [series, excludedSet] = await Promise.all([
+      this.readings.series([latest.zone], new Date(firstHourMs), new Date(end)),
+      this.exclusions.excludedHours(latest.zone, firstHourMs, end),
+    ]);
+    const mw = series.zones[0]?.mw ?? [];
+    const values = new Float64Array(series.hours.length);
+    const excluded: number[] = [];
+    let usable = 0;
+    series.hours.forEach((iso, i) => {
+      const at = Date.parse(iso);
+      const v = mw[i];
+      if (excludedSet.has(at)) {
+        excluded.push(i);
+        values[i] = NaN;
+      } else if (v === null || v === undefined) values[i] = NaN;
+      else {
+        values[i] = v;
+        usable++;
+      }
+    });
+    if (usable < needed) {
+      throw new BadRequestException(
+        `Not enough history for zone ${latest.zone}: ${usable} hours with readings in ${span} up to ${new Date(latest.lastHourMs).toISOString().slice(0, 13)}:00Z; the analysis needs at least ${needed} (${(needed / 24).toFixed(0)} days)`,
+      );
+    }
+    return { zone: latest.zone, timeZone: latest.timeZone, firstHourMs, lastHourMs: latest.lastHourMs, times: series.hours, values, excluded, usable };
+  }
+
+  private cached<T>(key: string, compute: () => Promise<T>): Promise<T> {
+    const now = Date.now();
+    for (const [k, v] of this.cache) if (now - v.at > WORKBENCH_CACHE_MS) this.cache.delete(k);
+    const hit = this.cache.get(key);
+    if (hit) return hit.result as Promise<T>;
+    const result = compute();
+    this.cache.set(key, { at: now, result });
+    // a failure is not kept: the next request tries again
+    result.catch(() => this.cache.delete(key));
+    return result;
+  }
+}
