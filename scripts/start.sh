@@ -11,11 +11,18 @@ export PORT="${PORT:-3000}" DB_PORT="${DB_PORT:-3307}"
 export NODE_ENV=production
 pids=()
 
+# Each child runs in a session of its own (setsid), so stopping it stops everything it started.
 stop_all() {
   trap - INT TERM EXIT
   log "stopping"
-  for pid in "${pids[@]}"; do kill "$pid" 2>/dev/null; done
-  for pid in "${pids[@]}"; do wait "$pid" 2>/dev/null; done
+  for pid in "${pids[@]}"; do kill -TERM -- "-$pid" 2>/dev/null; done
+  for _ in $(seq 1 20); do
+    alive=0
+    for pid in "${pids[@]}"; do kill -0 -- "-$pid" 2>/dev/null && alive=1; done
+    [ "$alive" = 0 ] && break
+    sleep 0.5
+  done
+  for pid in "${pids[@]}"; do kill -KILL -- "-$pid" 2>/dev/null; done
   bash scripts/db.sh stop dev
   exit 0
 }
@@ -35,7 +42,7 @@ npm run -s build >/dev/null || die "build failed; run 'npm run build' to see why
 
 (cd server && node dist/database/manage.js migrate && node dist/database/manage.js seed) || die "database set-up failed"
 
-node server/dist/main.js >"$ROOT/.data/server.log" 2>&1 &
+setsid node server/dist/main.js >"$ROOT/.data/server.log" 2>&1 &
 pids+=($!)
 for _ in $(seq 1 60); do curl -fs "http://127.0.0.1:$PORT/api/health" >/dev/null && break; sleep 0.5; done
 curl -fs "http://127.0.0.1:$PORT/api/health" >/dev/null || { tail -30 "$ROOT/.data/server.log" >&2; die "the server did not start"; }
@@ -43,7 +50,7 @@ curl -fs "http://127.0.0.1:$PORT/api/health" >/dev/null || { tail -30 "$ROOT/.da
 # The demo's meter feeds: a key of its own (rotated each start), six weeks of history backfilled,
 # then the last two days replayed quickly and real time after that.
 key="$(cd server && node dist/database/manage.js feed-key demo-simulator)" || die "could not create the simulator's feed key"
-MORROWLINE_FEED_KEY="$key" npm run -s simulate -- --url "http://127.0.0.1:$PORT" --backfill-weeks "${SIM_BACKFILL_WEEKS:-6}" \
+MORROWLINE_FEED_KEY="$key" setsid npm run -s simulate -- --url "http://127.0.0.1:$PORT" --backfill-weeks "${SIM_BACKFILL_WEEKS:-6}" \
   --speed "${SIM_SPEED:-3600}" --quiet >"$ROOT/.data/simulator.log" 2>&1 &
 pids+=($!)
 sim="running (log .data/simulator.log)"
