@@ -1,0 +1,17 @@
+import type { AlertDto } from '@morrowline/shared';
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api } from '../../../lib/api-client';
+import { withoutAlert } from '../model/alert-list';
+import { openAlertsKey } from './live-keys';
+
+/** POST /api/alerts/:id/acknowledge (operator, supervisor). */
+export function useAcknowledgeAlert() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, comment }: { id: number; comment: string }) =>
+      api.post<AlertDto>(`/alerts/${id}/acknowledge`, comment.trim() ? { comment: comment.trim() } : {}),
+    onSuccess: (alert) => queryClient.setQueryData<AlertDto[]>(openAlertsKey, (list) => (list ? withoutAlert(list, alert.id) : list)),
+    // Someone else may have acknowledged it first (409): the list is re-read either way.
+    onError: () => queryClient.invalidateQueries({ queryKey: openAlertsKey }),
+  });
+}

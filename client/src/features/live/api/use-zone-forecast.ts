@@ -1,0 +1,78 @@
+import type { ForecastRunDto, LatestForecastsDto, ReadingSeriesDto } from '@morrowline/shared';
+import { useQuery } from '@tanstack/react-query';
+import { useMemo } from 'react';
+import { api } from '../../../lib/api-client';
+import { ApiRequestError } from '../../../lib/api-error';
+import { emptyForecastLine, type ForecastLine } from '../model/forecast-line';
+import { hourIndex } from '../model/hours';
+import { seasonalNaiveForecast } from '../model/seasonal-naive';
+import { latestForecastsKey } from './live-keys';
+
+export interface ZoneForecast {
+  line: ForecastLine;
+  /** What the line is, in words for the chart's caption. */
+  source: string;
+}
+
+function isNotThere(error: unknown): boolean {
+  return error instanceof ApiRequestError && (error.status === 404 || error.status === 501);
+}
+
+/** A server run laid out on the hours of the readings series. */
+export function runToLine(run: ForecastRunDto, series: ReadingSeriesDto): ForecastLine {
+  const length = series.hours.length;
+  const line = emptyForecastLine(length);
+  const fromMs = Date.parse(series.from);
+  run.hours.forEach((hour, k) => {
+    const i = hourIndex(hour, fromMs, length);
+    if (i < 0) return;
+    line.mean[i] = run.mean[k];
+    line.lower80[i] = run.lower80[k];
+    line.upper80[i] = run.upper80[k];
+    line.lower95[i] = run.lower95[k];
+    line.upper95[i] = run.upper95[k];
+  });
+  return line;
+}
+
+function describeRun(run: ForecastRunDto): string {
+  if (run.method === 'arima') return `Model forecast issued ${run.issuedAt.slice(0, 16).replace('T', ' ')} UTC`;
+  return run.fallbackReason ? `Seasonal-naive stand-in (${run.fallbackReason})` : 'Seasonal-naive stand-in: same hour one week earlier';
+}
+
+/**
+ * The current forecast per zone, on the hours of `series`. It asks GET /api/forecasts/latest; while
+ * the server does not offer it (404) the weekly seasonal-naive stand-in is computed here from the
+ * readings. This hook is the one place where that switch is made.
+ *
+ * `displayFrom` is where the chart starts; `originIndex` the first hour of `series` without a
+ * reading yet (where the stand-in's error history ends).
+ */
+export function useZoneForecast(series: ReadingSeriesDto | undefined, displayFrom: string, originIndex: number) {
+  const zones = series?.zones.map((z) => z.zone) ?? [];
+  const to = series?.to ?? '';
+  const latest = useQuery({
+    queryKey: latestForecastsKey(zones, displayFrom, to),
+    queryFn: ({ signal }) => api.get<LatestForecastsDto>('/forecasts/latest', { signal, query: { zone: zones.join(','), from: displayFrom, to } }),
+    enabled: zones.length > 0,
+    retry: (count, error) => !isNotThere(error) && count < 2,
+    staleTime: 10 * 60_000,
+  });
+  const useStandIn = latest.isError && isNotThere(latest.error);
+
+  const forecasts = useMemo(() => {
+    const out = new Map<string, ZoneForecast>();
+    if (!series) return out;
+    for (const zone of series.zones) {
+      if (useStandIn) {
+        out.set(zone.zone, { line: seasonalNaiveForecast(zone.mw, originIndex), source: 'Seasonal-naive stand-in: same hour one week earlier (no model forecast yet)' });
+        continue;
+      }
+      const run = latest.data?.zones.find((r) => r.zone === zone.zone);
+      out.set(zone.zone, run ? { line: runToLine(run, series), source: describeRun(run) } : { line: emptyForecastLine(series.hours.length), source: latest.isPending ? 'Loading the forecast…' : 'No forecast for this zone' });
+    }
+    return out;
+  }, [series, useStandIn, latest.data, latest.isPending, originIndex]);
+
+  return { forecasts, error: latest.isError && !useStandIn ? latest.error : null };
+}

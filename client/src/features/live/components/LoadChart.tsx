@@ -1,0 +1,125 @@
+import { Box, Group, Text } from '@mantine/core';
+import { useElementSize } from '@mantine/hooks';
+import { useMemo, useRef, useState } from 'react';
+import uPlot from 'uplot';
+import UplotReact from 'uplot-react';
+import 'uplot/dist/uPlot.min.css';
+import type { LoadView } from '../model/zone-view';
+import { hourEndingSplits, hourEndingTick } from './chart-axis';
+import { CHART_COLORS } from './chart-colors';
+import { ChartLegend } from './ChartLegend';
+import { HoverReadout } from './HoverReadout';
+
+const HOUR_S = 3600;
+const HEIGHT = 340;
+
+interface LoadChartProps {
+  view: LoadView;
+  /** UTC hour starts of the series, and the first one shown. */
+  hours: readonly string[];
+  displayFrom: number;
+  nowHour: number;
+}
+
+/**
+ * Actual load against the forecast with its 80 % and 95 % bands, on an hour-ending axis in the
+ * zone's time zone. Missing hours are gaps (null, never drawn across); incomplete system hours
+ * are shaded; a vertical line marks the current hour. The published schedule has its series
+ * already, empty until schedules are published.
+ */
+export function LoadChart({ view, hours, displayFrom, nowHour }: LoadChartProps) {
+  const { ref, width } = useElementSize();
+  const [hover, setHover] = useState<number | null>(null);
+  const first = Math.max(0, hours.findIndex((h) => Date.parse(h) >= displayFrom));
+  const incompleteRef = useRef<boolean[]>([]);
+  incompleteRef.current = view.incomplete.slice(first);
+
+  const data = useMemo<uPlot.AlignedData>(() => {
+    const cut = (values: readonly (number | null)[]) => values.slice(first) as (number | null)[];
+    const x = hours.slice(first).map((h) => Date.parse(h) / 1000 + HOUR_S);
+    const f = view.forecast;
+    return [x, cut(f.upper95), cut(f.lower95), cut(f.upper80), cut(f.lower80), cut(f.mean), cut(view.actual), x.map(() => null)];
+  }, [view, hours, first]);
+
+  const options = useMemo<uPlot.Options>(() => {
+    const tz = view.timeZone;
+    const nowX = nowHour / 1000 + HOUR_S;
+    const band = { show: true, points: { show: false }, stroke: 'transparent', width: 0 };
+    return {
+      width: Math.max(320, width),
+      height: HEIGHT,
+      legend: { show: false },
+      cursor: { points: { size: 6 }, drag: { x: false, y: false } },
+      scales: { x: { time: false } },
+      series: [
+        {},
+        { ...band, label: '95 % upper' },
+        { ...band, label: '95 % lower' },
+        { ...band, label: '80 % upper' },
+        { ...band, label: '80 % lower' },
+        { label: 'Forecast', stroke: CHART_COLORS.forecast, width: 1.5, dash: [6, 4], points: { show: false } },
+        { label: 'Actual load', stroke: CHART_COLORS.actual, width: 2, points: { show: false } },
+        { label: 'Published schedule', stroke: CHART_COLORS.schedule, width: 1.5, points: { show: false } },
+      ],
+      bands: [
+        { series: [1, 2], fill: CHART_COLORS.band95 },
+        { series: [3, 4], fill: CHART_COLORS.band80 },
+      ],
+      axes: [
+        {
+          stroke: CHART_COLORS.axis,
+          grid: { stroke: CHART_COLORS.grid },
+          ticks: { stroke: CHART_COLORS.grid },
+          size: 48,
+          splits: (u) => hourEndingSplits(u.scales.x.min ?? 0, u.scales.x.max ?? 0, tz, width < 700 ? 12 : 6),
+          values: (_u, splits) => splits.map((t) => hourEndingTick(t, tz)),
+        },
+        { stroke: CHART_COLORS.axis, grid: { stroke: CHART_COLORS.grid }, ticks: { stroke: CHART_COLORS.grid }, label: 'MW', size: 60 },
+      ],
+      hooks: {
+        setCursor: [(u) => setHover(u.cursor.idx ?? null)],
+        drawAxes: [
+          (u) => {
+            const { ctx, bbox } = u;
+            const xs = u.data[0];
+            ctx.save();
+            ctx.fillStyle = CHART_COLORS.incomplete;
+            incompleteRef.current.forEach((flag, i) => {
+              if (!flag) return;
+              const left = u.valToPos(xs[i] - HOUR_S, 'x', true);
+              const right = u.valToPos(xs[i], 'x', true);
+              ctx.fillRect(left, bbox.top, right - left, bbox.height);
+            });
+            const x = u.valToPos(nowX, 'x', true);
+            if (x >= bbox.left && x <= bbox.left + bbox.width) {
+              ctx.strokeStyle = CHART_COLORS.now;
+              ctx.lineWidth = 1.5 * devicePixelRatio;
+              ctx.setLineDash([4 * devicePixelRatio, 4 * devicePixelRatio]);
+              ctx.beginPath();
+              ctx.moveTo(x, bbox.top);
+              ctx.lineTo(x, bbox.top + bbox.height);
+              ctx.stroke();
+            }
+            ctx.restore();
+          },
+        ],
+      },
+    };
+  }, [width, view.timeZone, nowHour]);
+
+  const hoverIndex = hover === null ? null : first + hover;
+  return (
+    <Box>
+      <Group justify="space-between" align="flex-start" mb={4} wrap="wrap">
+        <ChartLegend showIncomplete={view.incomplete.some(Boolean)} />
+        <HoverReadout view={view} hours={hours} index={hoverIndex} />
+      </Group>
+      <Box ref={ref} data-testid="load-chart" aria-label={`Load chart: ${view.name}`} role="img">
+        {width > 0 && <UplotReact options={options} data={data} />}
+      </Box>
+      <Text size="xs" c="dimmed" mt={4}>
+        Forecast: {view.forecastSource}. Hour ending in {view.timeZone}; the dashed orange line is the current hour.
+      </Text>
+    </Box>
+  );
+}

@@ -1,0 +1,12 @@
+/** Chart colours, taken from the palette in app/theme.ts. */
+export const CHART_COLORS = {
+  actual: '#046874', // tide 8
+  forecast: '#5151b5', // dusk 6
+  band80: 'rgba(81, 81, 181, 0.22)',
+  band95: 'rgba(81, 81, 181, 0.10)',
+  schedule: '#d16700', // ember 7
+  now: '#eb790a', // ember 6
+  incomplete: 'rgba(236, 130, 25, 0.16)',
+  grid: 'rgba(113, 137, 167, 0.18)', // slate
+  axis: '#6682a3',
+} as const;

@@ -1,0 +1,45 @@
+import { DESK_EVENTS, type AlertDto, type FeedStatusDto, type LatestForecastsDto, type ReadingSeriesDto } from '@morrowline/shared';
+import { notifications } from '@mantine/notifications';
+import { useQueryClient } from '@tanstack/react-query';
+import { deskSocket, useDeskEvent, type DeskSocket } from '../../../lib/desk-socket';
+import { formatPercent } from '../../../lib/format';
+import { feedStatusKey, latestForecastsPrefix, openAlertsKey, readingsSeriesPrefix } from '../api/live-keys';
+import { withAlert, withoutAlert } from '../model/alert-list';
+import { applyDeskReadings, applyDeskReadingsToStatus } from '../model/apply-desk-readings';
+
+/**
+ * Writes what the live channel brings into the query cache: readings into every cached series and
+ * the feed status, alerts into the open list (with a notification when one is raised), new
+ * forecast runs into the latest forecasts. Nothing is refetched for it.
+ */
+export function useLiveUpdates(socket: DeskSocket = deskSocket): void {
+  const queryClient = useQueryClient();
+
+  useDeskEvent(DESK_EVENTS.readings, (event) => {
+    queryClient.setQueriesData<ReadingSeriesDto>({ queryKey: readingsSeriesPrefix }, (series) => (series ? applyDeskReadings(series, event) : series));
+    queryClient.setQueryData<FeedStatusDto[]>(feedStatusKey, (status) => (status ? applyDeskReadingsToStatus(status, event) : status));
+  }, socket);
+
+  useDeskEvent(DESK_EVENTS.alertRaised, (alert: AlertDto) => {
+    const known = queryClient.getQueryData<AlertDto[]>(openAlertsKey)?.some((a) => a.id === alert.id) ?? false;
+    queryClient.setQueryData<AlertDto[]>(openAlertsKey, (list) => withAlert(list ?? [], alert));
+    notifications.show({
+      id: `alert-${alert.id}`,
+      color: 'ember',
+      title: known ? `Deviation alert widened: ${alert.zone}` : `Deviation alert: ${alert.zone}`,
+      message: `Load ${alert.peakDeviationPct >= 0 ? 'above' : 'below'} forecast by up to ${formatPercent(Math.abs(alert.peakDeviationPct))} for ${Math.round((Date.parse(alert.end) - Date.parse(alert.start)) / 3_600_000)} h (threshold ${formatPercent(alert.thresholdPct, 0)}).`,
+      autoClose: false,
+    });
+  }, socket);
+
+  useDeskEvent(DESK_EVENTS.alertAcknowledged, (alert: AlertDto) => {
+    queryClient.setQueryData<AlertDto[]>(openAlertsKey, (list) => (list ? withoutAlert(list, alert.id) : list));
+    notifications.hide(`alert-${alert.id}`);
+  }, socket);
+
+  useDeskEvent(DESK_EVENTS.forecast, (run) => {
+    queryClient.setQueriesData<LatestForecastsDto>({ queryKey: latestForecastsPrefix }, (latest) =>
+      latest ? { zones: [...latest.zones.filter((z) => z.zone !== run.zone), run] } : latest,
+    );
+  }, socket);
+}
