@@ -75,13 +75,15 @@ export function WriteHandoverForm({ draft, onWritten }: WriteHandoverFormProps) 
                   : 'Outages in progress, refits pending, schedules not yet published, anything left open.'}
               </Text>
             </Stack>
-            <Button variant="light" onClick={() => form.insertListItem('items', newItem())}>
-              Add item
-            </Button>
           </Group>
           {values.items.map((item, index) => (
             <HandoverItemRow key={item.key} form={form} index={index} zoneOptions={zoneOptions} />
           ))}
+          <Group>
+            <Button variant="light" onClick={() => form.insertListItem('items', newItem())}>
+              Add item
+            </Button>
+          </Group>
         </Stack>
 
         {write.isError && <ErrorNotice title="The handover was not saved" error={write.error} />}
