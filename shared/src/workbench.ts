@@ -119,7 +119,7 @@ export interface CoefficientDto {
   se: number | null;
 }
 
-export interface LjungBoxDto {
+export interface LjungBoxResultDto {
   lag: number;
   statistic: number;
   df: number;
@@ -154,7 +154,7 @@ export interface ModelFitDto {
   aicc: number;
   bic: number;
   hoursUsed: number;
-  ljungBox: LjungBoxDto[];
+  ljungBox: LjungBoxResultDto[];
   residualAcf: Correlogram;
   /** Plain words on the residual checks. */
   residualVerdict: string;
