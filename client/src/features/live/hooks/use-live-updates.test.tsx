@@ -1,0 +1,59 @@
+import { DESK_EVENTS, type AlertDto, type ReadingSeriesDto } from '@morrowline/shared';
+import { MantineProvider } from '@mantine/core';
+import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
+import { act, renderHook } from '@testing-library/react';
+import type { ReactNode } from 'react';
+import { describe, expect, it } from 'vitest';
+import { createDeskSocket } from '../../../lib/desk-socket';
+import { fakeSocketFactory } from '../../../test/fake-socket';
+import { createSessionStore } from '../../../lib/session-store';
+import { openAlertsKey, readingsSeriesKey } from '../api/live-keys';
+import { useLiveUpdates } from './use-live-updates';
+
+const series: ReadingSeriesDto = {
+  from: '2026-05-01T00:00:00.000Z',
+  to: '2026-05-01T02:00:00.000Z',
+  hours: ['2026-05-01T00:00:00.000Z', '2026-05-01T01:00:00.000Z'],
+  zones: [{ zone: 'LANTERN', mw: [180, null], quality: ['good', null], lastHour: '2026-05-01T00:00:00.000Z', lastReceivedAt: null }],
+};
+
+const alert: AlertDto = {
+  id: 7, zone: 'LANTERN', start: '2026-05-01T00:00:00.000Z', end: '2026-05-01T02:00:00.000Z', peakDeviationPct: 9.5, thresholdPct: 5,
+  consecutiveHours: 2, state: 'open', raisedAt: '2026-05-01T02:00:03.000Z', acknowledgedAt: null, acknowledgedBy: null, comment: null,
+};
+
+function setup() {
+  const sessionStore = createSessionStore({ storage: window.sessionStorage });
+  sessionStore.start('token', 3600);
+  const { connect, opened } = fakeSocketFactory();
+  const socket = createDeskSocket({ sessionStore, connect: connect as never });
+  const queryClient = new QueryClient();
+  const wrapper = ({ children }: { children: ReactNode }) => (
+    <MantineProvider env="test">
+      <QueryClientProvider client={queryClient}>{children}</QueryClientProvider>
+    </MantineProvider>
+  );
+  renderHook(() => useLiveUpdates(socket), { wrapper });
+  return { queryClient, server: opened[0].socket };
+}
+
+describe('useLiveUpdates', () => {
+  it('writes a readings event into the cached series without refetching it', () => {
+    const { queryClient, server } = setup();
+    const key = readingsSeriesKey(['LANTERN'], series.from, series.to);
+    queryClient.setQueryData(key, series);
+    act(() => server.emitFromServer(DESK_EVENTS.readings, { zones: [{ zone: 'LANTERN', hours: ['2026-05-01T01:00:00Z'], mw: [191.2] }], receivedAt: '2026-05-01T02:00:01Z' }));
+    const next = queryClient.getQueryData<ReadingSeriesDto>(key);
+    expect(next?.zones[0].mw).toEqual([180, 191.2]);
+    expect(queryClient.getQueryState(key)?.isInvalidated).toBe(false);
+  });
+
+  it('adds a raised alert to the open list and drops it once acknowledged', () => {
+    const { queryClient, server } = setup();
+    queryClient.setQueryData<AlertDto[]>(openAlertsKey, []);
+    act(() => server.emitFromServer(DESK_EVENTS.alertRaised, alert));
+    expect(queryClient.getQueryData<AlertDto[]>(openAlertsKey)?.map((a) => a.id)).toEqual([7]);
+    act(() => server.emitFromServer(DESK_EVENTS.alertAcknowledged, { ...alert, state: 'acknowledged' }));
+    expect(queryClient.getQueryData<AlertDto[]>(openAlertsKey)).toEqual([]);
+  });
+});
