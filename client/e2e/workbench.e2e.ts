@@ -61,7 +61,7 @@ describe('model workbench', () => {
     await signInAs(page, demoUser('operator'));
     await page.getByRole('link', { name: 'Model workbench' }).click();
     await page.getByTestId('workbench-choose-zone').waitFor({ state: 'visible' });
-    await page.getByRole('textbox', { name: 'Zone' }).click();
+    await page.locator('input[aria-label="Zone"]').click();
     await page.getByRole('option', { name: /Millrace/ }).click();
 
     const verdict = page.getByTestId('stationarity-verdict');
@@ -73,6 +73,8 @@ describe('model workbench', () => {
     }
     expect(await page.getByRole('table', { name: 'Unit-root and level tests' }).innerText()).toContain('KPSS, level');
     await mkdir(SCREENSHOTS, { recursive: true });
+    // the fixed header would cover the top of each panel in its screenshot
+    await page.addStyleTag({ content: 'header { position: static !important; }' });
     await page.getByTestId('stationarity-panel').screenshot({ path: path.join(SCREENSHOTS, 'workbench-stationarity.png') });
 
     const orders = page.getByTestId('model-orders');
@@ -85,7 +87,7 @@ describe('model workbench', () => {
     await page.getByTestId('chart-residual-acf').locator('canvas').first().waitFor({ state: 'attached' });
     await page.getByTestId('model-panel').screenshot({ path: path.join(SCREENSHOTS, 'workbench-model.png') });
 
-    await page.getByRole('radio', { name: '7 days' }).check({ force: true });
+    await page.getByTestId('backtest-panel').getByText('7 days', { exact: true }).click();
     await page.getByRole('button', { name: 'Run backtest' }).click();
     const result = page.getByTestId('backtest-result');
     await result.waitFor({ state: 'visible', timeout: 120_000 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { correlogramData, dailyMapeData, fmtP, lagsOutsideBand, timeSeriesData } from './chart-data';
+import { correlogramData, correlogramRange, dailyMapeData, fmtNum, fmtP, lagsOutsideBand, timeSeriesData } from './chart-data';
 
 describe('workbench chart data', () => {
   it('puts hour starts on a seconds axis and keeps gaps as null', () => {
@@ -27,6 +27,17 @@ describe('workbench chart data', () => {
 
   it('puts daily MAPE of model and baseline side by side', () => {
     expect(dailyMapeData([{ date: '2026-03-01', mape: 2.5, baselineMape: 4 }, { date: '2026-03-02', mape: null, baselineMape: 3 }])).toEqual([[0, 1], [2.5, null], [4, 3]]);
+  });
+
+  it('zooms a correlogram to its largest bar, between ±0.2 and ±1', () => {
+    expect(correlogramRange([0.9, 0.5], 0.05)).toEqual([-1, 1]);
+    expect(correlogramRange([0.03, -0.31], 0.05)).toEqual([-0.4, 0.4]);
+    expect(correlogramRange([0.01], 0.05)).toEqual([-0.2, 0.2]);
+  });
+
+  it('drops the sign of a number that rounds to zero', () => {
+    expect(fmtNum(-0.004, 1)).toBe('0.0');
+    expect(fmtNum(-0.05, 1)).toBe('-0.1');
   });
 
   it('writes small p-values as a bound', () => {

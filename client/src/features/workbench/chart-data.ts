@@ -36,7 +36,16 @@ export function dailyMapeData(days: readonly { date: string; mape: number | null
 /** Format a number for the monospace columns; "—" for missing. */
 export function fmtNum(v: number | null | undefined, digits = 2): string {
   if (v === null || v === undefined || !Number.isFinite(v)) return '—';
-  return v.toFixed(digits);
+  const text = v.toFixed(digits);
+  // −0.00 reads as a sign that means nothing
+  return /^-0\.?0*$/.test(text) ? text.slice(1) : text;
+}
+
+/** y range of a correlogram: wide enough for the largest bar and the band, at least ±0.2, at most ±1. */
+export function correlogramRange(values: readonly (number | null)[], band: number): [number, number] {
+  const top = Math.max(band, ...values.map((v) => Math.abs(v ?? 0)));
+  const r = Math.min(1, Math.max(0.2, Math.ceil(top * 1.15 * 10) / 10));
+  return [-r, r];
 }
 
 export function fmtP(v: number | null | undefined): string {

@@ -1,7 +1,7 @@
 import { useMemo } from 'react';
 import uPlot from 'uplot';
 import type { Correlogram } from '@morrowline/shared';
-import { correlogramData } from '../chart-data';
+import { correlogramData, correlogramRange } from '../chart-data';
 import { axis, CHART_COLORS, UplotChart } from './UplotChart';
 
 interface CorrelogramChartProps {
@@ -19,7 +19,7 @@ export function CorrelogramChart({ title, correlogram, color = CHART_COLORS.load
     const bars = uPlot.paths.bars!({ size: [0.7, 6], align: 0 });
     const band = { stroke: CHART_COLORS.band, width: 1, dash: [4, 4], points: { show: false } };
     return {
-      scales: { x: { time: false }, y: { range: [-1, 1] } },
+      scales: { x: { time: false }, y: { range: correlogramRange(correlogram.values, correlogram.band) } },
       legend: { show: false },
       cursor: { points: { show: false } },
       series: [
@@ -30,7 +30,7 @@ export function CorrelogramChart({ title, correlogram, color = CHART_COLORS.load
       ],
       axes: [axis({ values: (_u: uPlot, splits: number[]) => splits.map((v) => `${v}`) }), axis({ size: 44, values: (_u: uPlot, splits: number[]) => splits.map((v) => v.toFixed(1)) })],
     };
-  }, [title, color]);
+  }, [title, color, correlogram]);
   return (
     <UplotChart
       title={title}

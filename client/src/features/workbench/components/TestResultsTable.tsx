@@ -36,10 +36,10 @@ export function TestResultsTable({ checks }: { checks: SeriesCheckDto[] }) {
                   {r.reading.replace(/^(ADF|KPSS): /, '')}
                 </Text>
               </Table.Td>
-              <Table.Td ta="right" ff="monospace">{fmtNum(r.stat, 3)}</Table.Td>
-              <Table.Td ta="right" ff="monospace">{fmtNum(r.crit, 3)}</Table.Td>
-              <Table.Td ta="right" ff="monospace">{r.key === 'kpss' && r.p !== null && r.p >= 0.1 ? '≥ 0.100' : r.key === 'kpss' && r.p !== null && r.p <= 0.01 ? '≤ 0.010' : fmtP(r.p)}</Table.Td>
-              <Table.Td ta="right" ff="monospace">{r.lags}</Table.Td>
+              <Table.Td ta="right" ff="monospace" style={{ whiteSpace: 'nowrap' }}>{fmtNum(r.stat, 3)}</Table.Td>
+              <Table.Td ta="right" ff="monospace" style={{ whiteSpace: 'nowrap' }}>{fmtNum(r.crit, 3)}</Table.Td>
+              <Table.Td ta="right" ff="monospace" style={{ whiteSpace: 'nowrap' }}>{r.key === 'kpss' && r.p !== null && r.p >= 0.1 ? '≥ 0.100' : r.key === 'kpss' && r.p !== null && r.p <= 0.01 ? '≤ 0.010' : fmtP(r.p)}</Table.Td>
+              <Table.Td ta="right" ff="monospace" style={{ whiteSpace: 'nowrap' }}>{r.lags}</Table.Td>
             </Table.Tr>
           ));
         })}
