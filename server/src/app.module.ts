@@ -11,7 +11,10 @@ import { ormConfig } from './database/mikro-orm.config';
 import { DeskModule } from './desk/desk.module';
 import { FeedsModule } from './feeds/feeds.module';
 import { HandoverModule } from './handover/handover.module';
+import { ForecastsModule } from './forecasts/forecasts.module';
 import { HealthModule } from './health/health.module';
+import { ModelsModule } from './models/models.module';
+import { OutagesModule } from './outages/outages.module';
 import { ReadingsModule } from './readings/readings.module';
 import { UsersModule } from './users/users.module';
 import { WorkbenchModule } from './workbench/workbench.module';
@@ -37,6 +40,9 @@ import { ZonesModule } from './zones/zones.module';
     FeedsModule,
     AlertsModule,
     WorkbenchModule,
+    OutagesModule,
+    ForecastsModule,
+    ModelsModule,
   ],
 })
 export class AppModule {}

@@ -8,3 +8,5 @@ export * from './readings';
 export * from './alerts';
 export * from './forecasts';
 export * from './workbench';
+export * from './outages';
+export * from './models';

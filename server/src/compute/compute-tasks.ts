@@ -10,6 +10,7 @@
  */
 import { threadId } from 'node:worker_threads';
 import { analyseModel } from '../workbench/analysis/model-analysis';
+import { compareChoices, forecastStored, refitZone } from '../models/analysis/refit';
 import { runWorkbenchBacktest } from '../workbench/analysis/backtest-analysis';
 import { analyseStationarity } from '../workbench/analysis/stationarity-analysis';
 
@@ -17,6 +18,9 @@ export const COMPUTE_TASKS = {
   'workbench.stationarity': analyseStationarity,
   'workbench.model': analyseModel,
   'workbench.backtest': runWorkbenchBacktest,
+  'models.refit': refitZone,
+  'models.forecast': forecastStored,
+  'models.compare': compareChoices,
   /** A trivial task for checking that the pool starts (tests, health). */
   'compute.echo': (payload: { value: number }) => ({ value: payload.value, threadId }),
 } as const;

@@ -6,7 +6,11 @@ import { HandoverItem } from '../handover/entities/handover-item.entity';
 import { HandoverNote } from '../handover/entities/handover-note.entity';
 import { ReadingRevision } from '../readings/entities/reading-revision.entity';
 import { Reading } from '../readings/entities/reading.entity';
+import { ForecastRun } from '../forecasts/entities/forecast-run.entity';
+import { ModelVersion } from '../models/entities/model-version.entity';
+import { RefitJob } from '../models/entities/refit-job.entity';
+import { Outage } from '../outages/entities/outage.entity';
 import { User } from '../users/entities/user.entity';
 import { Zone } from '../zones/entities/zone.entity';
 
-export const ENTITIES = [User, AuditEntry, Zone, Reading, ReadingRevision, FeedKey, DeviationAlert, HandoverNote, HandoverItem];
+export const ENTITIES = [User, AuditEntry, Zone, Reading, ReadingRevision, FeedKey, DeviationAlert, HandoverNote, HandoverItem, Outage, ModelVersion, RefitJob, ForecastRun];

@@ -1,0 +1,19 @@
+import { ApiPropertyOptional } from '@nestjs/swagger';
+import { Transform, Type } from 'class-transformer';
+import { ArrayMaxSize, IsArray, IsDate, IsOptional, Matches } from 'class-validator';
+
+export class LatestForecastsQueryDto {
+  @ApiPropertyOptional({ description: 'comma-separated zone codes; all active zones when omitted', example: 'MILLRACE,COPPERLINE' })
+  @IsOptional()
+  @Transform(({ value }) => (Array.isArray(value) ? value : String(value).split(',')).map((v: string) => v.trim()).filter(Boolean))
+  @IsArray()
+  @ArrayMaxSize(50)
+  @Matches(/^[A-Z][A-Z0-9_-]{1,31}$/, { each: true, message: 'zone must be a comma-separated list of zone codes' })
+  zone?: string[];
+
+  @IsOptional() @Type(() => Date) @IsDate({ message: 'from must be a time' })
+  from?: Date;
+
+  @IsOptional() @Type(() => Date) @IsDate({ message: 'to must be a time' })
+  to?: Date;
+}

@@ -1,0 +1,138 @@
+import { EntityManager } from '@mikro-orm/mariadb';
+import { Injectable } from '@nestjs/common';
+import { DESK_EVENTS, type ForecastRunDto, type LatestForecastsDto } from '@morrowline/shared';
+import { DeskGateway } from '../desk/desk.gateway';
+import { floorAtZero, seasonalNaive, type IntervalForecast } from '../forecasting';
+import { OutagesService } from '../outages/outages.service';
+import { ReadingsService } from '../readings/readings.service';
+import { Zone } from '../zones/entities/zone.entity';
+import { ForecastRun } from './entities/forecast-run.entity';
+import { forecastHorizon } from './forecast-horizon';
+
+const HOUR_MS = 3_600_000;
+/** History the seasonal-naive stand-in looks back over (it needs the same hour weeks earlier). */
+export const STAND_IN_HISTORY_HOURS = 4 * 168;
+
+export interface NewForecastRun {
+  zone: Zone;
+  basedOnHour: number | null;
+  method: ForecastRun['method'];
+  fallbackReason: string | null;
+  modelVersionId: number | null;
+  firstHour: number;
+  forecast: IntervalForecast;
+}
+
+/** A stored number must never be NaN or negative load. */
+const clean = (v: readonly number[]): number[] => v.map((x) => (Number.isFinite(x) ? Math.max(0, Math.round(x * 1000) / 1000) : 0));
+
+export function toForecastRunDto(run: ForecastRun, zone: string, from?: number, to?: number): ForecastRunDto {
+  const first = run.firstHour.getTime();
+  let a = 0;
+  let b = run.mean.length;
+  if (from !== undefined) a = Math.max(0, Math.ceil((from - first) / HOUR_MS));
+  if (to !== undefined) b = Math.min(b, Math.max(a, Math.ceil((to - first) / HOUR_MS)));
+  return {
+    id: run.id ?? null,
+    zone,
+    issuedAt: run.issuedAt.toISOString(),
+    basedOnHour: run.basedOnHour ? run.basedOnHour.toISOString() : null,
+    method: run.method,
+    fallbackReason: run.fallbackReason,
+    modelVersionId: run.modelVersionId,
+    hours: Array.from({ length: b - a }, (_, i) => new Date(first + (a + i) * HOUR_MS).toISOString()),
+    mean: run.mean.slice(a, b),
+    lower80: run.lower80.slice(a, b),
+    upper80: run.upper80.slice(a, b),
+    lower95: run.lower95.slice(a, b),
+    upper95: run.upper95.slice(a, b),
+  };
+}
+
+/**
+ * Forecast runs: stored by the refit jobs (inside their transaction), pushed to desks, and read
+ * as "the latest per zone". A zone without a run gets the weekly seasonal-naive stand-in from its
+ * readings, with outage hours left out.
+ */
+@Injectable()
+export class ForecastsService {
+  constructor(
+    private readonly em: EntityManager,
+    private readonly readings: ReadingsService,
+    private readonly outages: OutagesService,
+    private readonly desks: DeskGateway,
+  ) {}
+
+  /** Adds a run to a transaction's unit of work; the caller flushes and then calls `announce`. */
+  stage(tx: EntityManager, run: NewForecastRun): ForecastRun {
+    const f = floorAtZero(run.forecast);
+    const entity = tx.create(ForecastRun, {
+      zone: run.zone,
+      issuedAt: new Date(),
+      basedOnHour: run.basedOnHour === null ? null : new Date(run.basedOnHour),
+      method: run.method,
+      fallbackReason: run.fallbackReason,
+      modelVersionId: run.modelVersionId,
+      firstHour: new Date(run.firstHour),
+      mean: clean(f.mean),
+      lower80: clean(f.lower80),
+      upper80: clean(f.upper80),
+      lower95: clean(f.lower95),
+      upper95: clean(f.upper95),
+    });
+    tx.persist(entity);
+    return entity;
+  }
+
+  announce(run: ForecastRun, zone: string): void {
+    this.desks.broadcast(DESK_EVENTS.forecast, toForecastRunDto(run, zone));
+  }
+
+  async latestRun(zoneId: number): Promise<ForecastRun | null> {
+    return this.em.fork().findOne(ForecastRun, { zone: zoneId }, { orderBy: { issuedAt: 'desc', id: 'desc' } });
+  }
+
+  async latest(codes: readonly string[] | undefined, from?: Date, to?: Date): Promise<LatestForecastsDto> {
+    const zones = await this.readings.resolveZones(codes);
+    const out: ForecastRunDto[] = [];
+    for (const zone of zones) {
+      const run = await this.latestRun(zone.id);
+      if (run) out.push(toForecastRunDto(run, zone.code, from?.getTime(), to?.getTime()));
+      else out.push(await this.standIn(zone.id, zone.code, from?.getTime(), to?.getTime()));
+    }
+    return { zones: out };
+  }
+
+  /** The weekly seasonal-naive forecast from a zone's stored readings (never stored). */
+  async standIn(zoneId: number, code: string, from?: number, to?: number): Promise<ForecastRunDto> {
+    const em = this.em.fork();
+    const zone = await em.findOneOrFail(Zone, { id: zoneId });
+    const last = (await this.readings.status()).find((s) => s.zone === code)?.lastHour;
+    const reason = 'no model forecast stored for this zone yet: weekly seasonal naive from its readings';
+    if (!last) {
+      const run = Object.assign(new ForecastRun(), { id: null, method: 'seasonal-naive', fallbackReason: reason, modelVersionId: null, issuedAt: new Date(), basedOnHour: null, firstHour: new Date(Math.floor(Date.now() / HOUR_MS) * HOUR_MS), mean: [], lower80: [], upper80: [], lower95: [], upper95: [] });
+      return toForecastRunDto(run as ForecastRun, code);
+    }
+    const lastMs = Date.parse(last);
+    const start = lastMs - (STAND_IN_HISTORY_HOURS - 1) * HOUR_MS;
+    const [rows, excluded] = await Promise.all([this.readings.rows(zoneId, start, lastMs + HOUR_MS), this.outages.excludedHours(code, start, lastMs + HOUR_MS)]);
+    const history = new Float64Array(STAND_IN_HISTORY_HOURS).fill(NaN);
+    for (const row of rows) if (!excluded.has(row.hourStart)) history[(row.hourStart - start) / HOUR_MS] = row.mw;
+    const f = floorAtZero(seasonalNaive(history, forecastHorizon(lastMs, zone.timeZone)));
+    const run = Object.assign(new ForecastRun(), {
+      id: null,
+      method: 'seasonal-naive' as const,
+      fallbackReason: reason,
+      modelVersionId: null,
+      issuedAt: new Date(),
+      basedOnHour: new Date(lastMs),
+      firstHour: new Date(lastMs + HOUR_MS),
+      mean: clean(f.mean),
+      lower80: clean(f.lower80),
+      upper80: clean(f.upper80),
+      lower95: clean(f.lower95),
+      upper95: clean(f.upper95),
+    });
+    return toForecastRunDto(run as ForecastRun, code, from, to);
+  }
+}

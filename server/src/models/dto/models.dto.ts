@@ -1,0 +1,43 @@
+import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
+import { Type } from 'class-transformer';
+import { IsIn, IsInt, IsOptional, IsString, Matches, Max, MaxLength, Min, MinLength } from 'class-validator';
+import { REFIT_JOB_STATES, type PromoteModelRequest, type RefitJobState, type StartRefitRequest } from '@morrowline/shared';
+
+const ZONE = /^[A-Z][A-Z0-9_-]{1,31}$/;
+const ZONE_MESSAGE = 'zone must be a zone code such as MILLRACE';
+
+export class StartRefitDto implements StartRefitRequest {
+  @ApiPropertyOptional({ example: 'COPPERLINE', description: 'omit for all active zones' })
+  @IsOptional() @Matches(ZONE, { message: ZONE_MESSAGE })
+  zone?: string;
+
+  @ApiProperty({ example: 'Feeder 12 outage marked; refit without it' })
+  @IsString() @MinLength(1, { message: 'a reason is needed for the refit' }) @MaxLength(1000)
+  reason!: string;
+}
+
+export class RefitsQueryDto {
+  @ApiPropertyOptional({ enum: REFIT_JOB_STATES })
+  @IsOptional() @IsIn([...REFIT_JOB_STATES], { message: `state must be one of ${REFIT_JOB_STATES.join(', ')}` })
+  state?: RefitJobState;
+
+  @IsOptional() @Matches(ZONE, { message: ZONE_MESSAGE })
+  zone?: string;
+
+  @IsOptional() @Type(() => Number) @IsInt() @Min(1) @Max(500)
+  limit: number = 100;
+}
+
+export class ModelsQueryDto {
+  @IsOptional() @Matches(ZONE, { message: ZONE_MESSAGE })
+  zone?: string;
+
+  @IsOptional() @Type(() => Number) @IsInt() @Min(1) @Max(500)
+  limit: number = 100;
+}
+
+export class PromoteModelDto implements PromoteModelRequest {
+  @ApiProperty({ example: 'Lower backtest error and clean residuals after the outage' })
+  @IsString() @MinLength(1, { message: 'a reason is needed to change the model in service' }) @MaxLength(1000)
+  reason!: string;
+}

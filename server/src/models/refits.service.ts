@@ -1,0 +1,341 @@
+import { EntityManager, LockMode, UniqueConstraintViolationException } from '@mikro-orm/mariadb';
+import { BadRequestException, Injectable, Logger, NotFoundException, type OnApplicationBootstrap, type OnApplicationShutdown } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
+import { SchedulerRegistry } from '@nestjs/schedule';
+import { CronJob } from 'cron';
+import { DESK_EVENTS, type RefitJobDto, type RefitJobState, type RefitTrigger } from '@morrowline/shared';
+import { AuditService, type Actor } from '../audit/audit.service';
+import { ComputeService } from '../compute/compute.service';
+import type { AppConfig } from '../config/configuration';
+import { DeskGateway } from '../desk/desk.gateway';
+import { forecastHorizon } from '../forecasts/forecast-horizon';
+import { ForecastsService } from '../forecasts/forecasts.service';
+import { Zone } from '../zones/entities/zone.entity';
+import { REFIT_BACKTEST_DAYS, type RefitResult } from './analysis/refit';
+import { ModelVersion } from './entities/model-version.entity';
+import { RefitJob } from './entities/refit-job.entity';
+import { choiceOf, toRefitJobDto } from './model-dto';
+import { cronExpressions, loadRefitSchedule } from './refit-schedule';
+import { ZoneHistoryLoader, type ZoneHistory } from './zone-history';
+
+const HOUR_MS = 3_600_000;
+/** Jobs in flight at once: the pool's threads plus one reading or storing meanwhile. */
+const JOB_CONCURRENCY = 2;
+export const INTERRUPTED = 'interrupted by a server restart';
+
+type JobMode = RefitJob['mode'];
+
+/**
+ * Refit jobs: stored first (queued), then run one zone at a time per job in the compute pool
+ * (never on the event loop), their progress pushed to desks. A zone never has two jobs at once
+ * (a second request answers the job already there). The new model version, any promotion and
+ * the forecast run are written in one transaction after the fit succeeds, so a failure or a
+ * restart mid-job leaves the model in service as it was; on start, jobs left queued or running
+ * are marked failed.
+ *
+ * Promotion: the first model of a zone goes into service; the nightly refit promotes its
+ * candidate only when the candidate's backtest MAPE beats the model in service's on the same
+ * days; an operator's refit leaves a candidate for the operator to compare and promote; the
+ * hourly update (orders kept, coefficients re-estimated) replaces the model in service.
+ */
+@Injectable()
+export class RefitsService implements OnApplicationBootstrap, OnApplicationShutdown {
+  private readonly logger = new Logger(RefitsService.name);
+  private readonly queue: number[] = [];
+  private readonly inFlight = new Set<Promise<void>>();
+  private stopping = false;
+  private readonly deskTimeZone: string;
+
+  constructor(
+    private readonly em: EntityManager,
+    private readonly audit: AuditService,
+    private readonly compute: ComputeService,
+    private readonly desks: DeskGateway,
+    private readonly forecasts: ForecastsService,
+    private readonly history: ZoneHistoryLoader,
+    private readonly scheduler: SchedulerRegistry,
+    config: ConfigService,
+  ) {
+    this.deskTimeZone = config.getOrThrow<AppConfig>('app').shifts.timeZone;
+  }
+
+  async onApplicationBootstrap(): Promise<void> {
+    await this.recoverInterrupted();
+    const schedule = loadRefitSchedule();
+    if (!schedule.enabled) return;
+    const cron = cronExpressions(schedule);
+    const nightly = CronJob.from({ cronTime: cron.nightly, timeZone: this.deskTimeZone, start: true, onTick: () => void this.scheduled('full') });
+    const update = CronJob.from({ cronTime: cron.update, timeZone: this.deskTimeZone, start: true, onTick: () => void this.scheduled('update') });
+    this.scheduler.addCronJob('refit.nightly', nightly);
+    this.scheduler.addCronJob('refit.hourly-update', update);
+    this.logger.log(`nightly refit at ${cron.nightly}, forecast update at ${cron.update} (${this.deskTimeZone})`);
+  }
+
+  async onApplicationShutdown(): Promise<void> {
+    this.stopping = true;
+    this.queue.length = 0;
+    await Promise.allSettled([...this.inFlight]);
+  }
+
+  /** Jobs left queued or running by a server that stopped: marked failed, nothing applied. */
+  async recoverInterrupted(): Promise<number> {
+    const em = this.em.fork();
+    return em.transactional(async (tx) => {
+      const stale = await tx.find(RefitJob, { state: { $in: ['queued', 'running'] } }, { populate: ['zone'] });
+      for (const job of stale) {
+        job.state = 'failed';
+        job.message = INTERRUPTED;
+        job.activeZoneId = null;
+        job.finishedAt = new Date();
+        this.audit.stage(tx, null, { action: 'refit.fail', subjectType: 'refit', subjectId: job.id, after: { zone: job.zone.code, message: INTERRUPTED } });
+      }
+      await tx.flush();
+      if (stale.length) this.logger.warn(`${stale.length} refit job(s) ${INTERRUPTED}: marked failed`);
+      return stale.length;
+    });
+  }
+
+  /** Starts (or finds) a job per zone; all active zones when no code is given. */
+  async request(actor: Actor | null, zoneCode: string | undefined, reason: string | null, trigger: RefitTrigger = 'operator', mode: JobMode = 'full'): Promise<RefitJobDto[]> {
+    const em = this.em.fork();
+    let zones: Zone[];
+    if (zoneCode) {
+      const zone = await em.findOne(Zone, { code: zoneCode });
+      if (!zone) throw new NotFoundException(`No zone with code ${zoneCode}`);
+      if (!zone.active) throw new BadRequestException(`Zone ${zoneCode} is not active`);
+      zones = [zone];
+    } else zones = await em.find(Zone, { active: true }, { orderBy: { code: 'asc' } });
+    const out: RefitJobDto[] = [];
+    for (const zone of zones) out.push(toRefitJobDto(await this.enqueue(zone, actor, reason, trigger, mode)));
+    return out;
+  }
+
+  private async enqueue(zone: Zone, actor: Actor | null, reason: string | null, trigger: RefitTrigger, mode: JobMode): Promise<RefitJob> {
+    const existing = await this.em.fork().findOne(RefitJob, { activeZoneId: zone.id }, { populate: ['zone'] });
+    if (existing) return existing;
+    let job: RefitJob;
+    try {
+      job = await this.em.fork().transactional(async (tx) => {
+        const created = tx.create(RefitJob, {
+          zone: tx.getReference(Zone, zone.id),
+          activeZoneId: zone.id,
+          trigger,
+          mode,
+          reason: reason?.trim() || null,
+          requestedById: actor?.id ?? null,
+          requestedByEmail: actor?.email ?? null,
+          createdAt: new Date(),
+          state: 'queued',
+          progress: 0,
+          stage: 'waiting for a worker',
+          promoted: false,
+        });
+        await tx.flush();
+        this.audit.stage(tx, actor, { action: 'refit.start', subjectType: 'refit', subjectId: created.id, after: { zone: zone.code, trigger, mode }, reason: created.reason });
+        return created;
+      });
+    } catch (error) {
+      // another request for the zone won the race: answer its job
+      if (error instanceof UniqueConstraintViolationException) {
+        const winner = await this.em.fork().findOne(RefitJob, { activeZoneId: zone.id }, { populate: ['zone'] });
+        if (winner) return winner;
+      }
+      throw error;
+    }
+    job.zone = zone;
+    this.broadcast(job);
+    this.queue.push(job.id);
+    this.pump();
+    return job;
+  }
+
+  async list(state: RefitJobState | undefined, zone: string | undefined, limit = 100): Promise<RefitJobDto[]> {
+    const where: Record<string, unknown> = {};
+    if (state) where.state = state;
+    if (zone) where.zone = { code: zone };
+    const jobs = await this.em.fork().find(RefitJob, where, { populate: ['zone'], orderBy: { id: 'desc' }, limit });
+    return jobs.map(toRefitJobDto);
+  }
+
+  /** Resolves when no job is queued or running in this process (tests, shutdown). */
+  async settled(): Promise<void> {
+    while (this.inFlight.size > 0 || this.queue.length > 0) await Promise.allSettled([...this.inFlight]);
+  }
+
+  private async scheduled(mode: JobMode): Promise<void> {
+    try {
+      if (mode === 'full') {
+        await this.request(null, undefined, 'nightly refit', 'schedule', 'full');
+        return;
+      }
+      const inService = await this.em.fork().find(ModelVersion, { status: 'in-service', zone: { active: true } }, { populate: ['zone'] });
+      for (const v of inService) await this.enqueue(v.zone, null, 'hourly forecast update', 'update', 'update');
+    } catch (error) {
+      this.logger.error(`scheduled ${mode} refit could not start: ${(error as Error).message}`);
+    }
+  }
+
+  private pump(): void {
+    while (!this.stopping && this.inFlight.size < JOB_CONCURRENCY && this.queue.length > 0) {
+      const id = this.queue.shift()!;
+      const run: Promise<void> = this.run(id)
+        .catch((error: Error) => this.logger.error(`refit job ${id}: ${error.message}`))
+        .finally(() => {
+          this.inFlight.delete(run);
+          this.pump();
+        });
+      this.inFlight.add(run);
+    }
+  }
+
+  private broadcast(job: RefitJob): void {
+    this.desks.broadcast(DESK_EVENTS.refitProgress, toRefitJobDto(job));
+  }
+
+  private async step(job: RefitJob, progress: number, stage: string, state: RefitJobState = 'running'): Promise<void> {
+    const em = this.em.fork();
+    const fields: Partial<RefitJob> = { progress, stage, state };
+    if (state === 'running' && !job.startedAt) fields.startedAt = new Date();
+    await em.nativeUpdate(RefitJob, { id: job.id, state: { $in: ['queued', 'running'] } }, fields);
+    Object.assign(job, fields);
+    this.broadcast(job);
+  }
+
+  private async run(id: number): Promise<void> {
+    const job = await this.em.fork().findOne(RefitJob, { id }, { populate: ['zone'] });
+    if (!job || job.state !== 'queued') return;
+    const started = Date.now();
+    try {
+      await this.step(job, 5, 'reading the history');
+      const zone = job.zone;
+      const inService = await this.em.fork().findOne(ModelVersion, { zone: zone.id, status: 'in-service' });
+      if (job.mode === 'update' && !inService) throw new Error('no model in service to update; a full refit is needed first');
+      const history = await this.history.load(zone);
+      if (!history) throw new Error(`zone ${zone.code} has no readings yet`);
+      const horizon = forecastHorizon(history.lastHourMs, zone.timeZone);
+      await this.step(job, 20, job.mode === 'full' ? 'choosing the differencing and ARMA orders' : 'refitting with the orders kept');
+      const result = await this.compute.run('models.refit', {
+        values: history.values,
+        excluded: history.excluded,
+        horizon,
+        fixed: job.mode === 'update' && inService ? choiceOf(inService) : undefined,
+        inService: job.mode === 'full' && inService ? choiceOf(inService) : null,
+        backtestDays: REFIT_BACKTEST_DAYS,
+      });
+      await this.step(job, 85, 'storing the model version and forecast');
+      await this.finish(job, history, result, inService?.id ?? null, Date.now() - started);
+    } catch (error) {
+      await this.fail(job, (error as Error).message || String(error));
+    }
+  }
+
+  private async finish(job: RefitJob, history: ZoneHistory, result: RefitResult, scoredInServiceId: number | null, durationMs: number): Promise<void> {
+    const zone = job.zone;
+    const announced = await this.em.fork().transactional(async (tx) => {
+      const current = await tx.findOne(ModelVersion, { zone: zone.id, status: 'in-service' }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+      const row = await tx.findOneOrFail(RefitJob, { id: job.id }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+      if (row.state !== 'running') throw new Error(`job is ${row.state}, not running`);
+      const now = new Date();
+      let promoted = false;
+      let why = '';
+      let version: ModelVersion | null = null;
+      if (result.model && result.stored) {
+        const cand = result.score?.mape ?? null;
+        const served = current && current.id === scoredInServiceId ? (result.inServiceScore?.mape ?? null) : null;
+        if (!current) [promoted, why] = [true, 'the first model of the zone goes into service'];
+        else if (job.mode === 'update') [promoted, why] = [true, 'hourly update: same orders, coefficients re-estimated'];
+        else if (job.trigger === 'schedule' && cand !== null && served !== null && cand < served)
+          [promoted, why] = [true, `scheduled refit: backtest MAPE ${cand.toFixed(2)} % beat ${served.toFixed(2)} % of version ${current.id}`];
+        else if (job.trigger === 'schedule') why = `kept version ${current.id} in service: the candidate (MAPE ${cand?.toFixed(2) ?? '–'} %) did not beat it (${served?.toFixed(2) ?? '–'} %)`;
+        else why = 'candidate stored; compare it with the model in service and promote it if it serves better';
+        const m = result.model;
+        const racf = m.residualAcf.slice(0, 48).map((x) => (Number.isFinite(x) ? x : 0));
+        version = tx.create(ModelVersion, {
+          zone: tx.getReference(Zone, zone.id),
+          status: promoted ? 'in-service' : 'candidate',
+          trigger: job.trigger,
+          differencing: m.diff,
+          differencingLabel: m.label,
+          p: m.p,
+          q: m.q,
+          coefficients: m.coefficients.map((c) => ({ name: c.name, value: c.value, se: Number.isFinite(c.se) ? c.se : null })),
+          parameters: result.stored,
+          sigma2: m.sigma2,
+          loglik: m.loglik,
+          aic: m.aic,
+          aicc: Number.isFinite(m.aicc) ? m.aicc : m.aic,
+          bic: m.bic,
+          ljungBox: m.ljungBox.map((l) => ({ lag: l.lag, statistic: l.statistic, df: l.df, pValue: l.pValue })),
+          residualAcf: {
+            lags: racf,
+            band: m.residualAcfBand,
+            outside: racf.filter((x) => Math.abs(x) > m.residualAcfBand).length,
+            maxAbs: racf.reduce((a, x) => Math.max(a, Math.abs(x)), 0),
+          },
+          trainingFrom: new Date(history.firstHourMs),
+          trainingTo: new Date(history.lastHourMs + HOUR_MS),
+          trainingHours: history.values.length,
+          excludedHours: history.excluded.length,
+          backtestDays: result.score?.days ?? 0,
+          backtestMape: result.score?.mape ?? null,
+          baselineMape: result.score?.baselineMape ?? null,
+          warnings: result.warnings,
+          createdByEmail: job.requestedByEmail,
+          createdAt: now,
+          durationMs,
+          jobId: job.id,
+          promotedAt: promoted ? now : null,
+          retiredAt: null,
+        });
+        if (promoted && current) {
+          current.status = 'retired';
+          current.retiredAt = now;
+        }
+        await tx.flush();
+        if (promoted && current && job.mode === 'full') {
+          this.audit.stage(tx, null, { action: 'model.promote', subjectType: 'model', subjectId: version.id, before: { inService: current.id }, after: { inService: version.id }, reason: why });
+        }
+      } else why = `no model: ${result.fallbackReason ?? 'the fit failed'}; ${current ? `version ${current.id} stays in service` : 'seasonal naive stands in'}`;
+      // the forecast of what is in service after this job
+      let run = null;
+      if (promoted && version) {
+        run = this.forecasts.stage(tx, { zone, basedOnHour: history.lastHourMs, method: 'arima', fallbackReason: null, modelVersionId: version.id, firstHour: history.lastHourMs + HOUR_MS, forecast: result.forecast });
+      } else if (!version && !current) {
+        run = this.forecasts.stage(tx, { zone, basedOnHour: history.lastHourMs, method: 'seasonal-naive', fallbackReason: result.fallbackReason ?? 'the fit failed', modelVersionId: null, firstHour: history.lastHourMs + HOUR_MS, forecast: result.forecast });
+      }
+      await tx.flush();
+      Object.assign(row, { state: 'done', progress: 100, stage: 'done', message: why, finishedAt: now, activeZoneId: null, modelVersionId: version?.id ?? null, forecastRunId: run?.id ?? null, promoted });
+      this.audit.stage(tx, null, {
+        action: 'refit.finish',
+        subjectType: 'refit',
+        subjectId: job.id,
+        after: { zone: zone.code, modelVersionId: version?.id ?? null, promoted, backtestMape: result.score?.mape ?? null, baselineMape: result.score?.baselineMape ?? null, durationMs },
+        reason: why,
+      });
+      await tx.flush();
+      Object.assign(job, { state: row.state, progress: 100, stage: row.stage, message: why, finishedAt: now, activeZoneId: null, modelVersionId: row.modelVersionId, forecastRunId: row.forecastRunId, promoted });
+      return run;
+    });
+    this.broadcast(job);
+    if (announced) this.forecasts.announce(announced, zone.code);
+  }
+
+  private async fail(job: RefitJob, message: string): Promise<void> {
+    const now = new Date();
+    try {
+      await this.em.fork().transactional(async (tx) => {
+        const row = await tx.findOne(RefitJob, { id: job.id }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+        if (!row || row.state === 'done' || row.state === 'failed') return;
+        Object.assign(row, { state: 'failed', message, finishedAt: now, activeZoneId: null });
+        this.audit.stage(tx, null, { action: 'refit.fail', subjectType: 'refit', subjectId: job.id, after: { zone: job.zone.code, message } });
+        await tx.flush();
+      });
+    } catch (error) {
+      this.logger.error(`refit job ${job.id} failed (${message}) and could not be marked so: ${(error as Error).message}`);
+      return;
+    }
+    Object.assign(job, { state: 'failed', message, finishedAt: now, activeZoneId: null });
+    this.broadcast(job);
+    this.logger.warn(`refit job ${job.id} (${job.zone.code}) failed: ${message}`);
+  }
+}

@@ -1,0 +1,19 @@
+/** Hour arithmetic of outage windows (no framework: unit-tested alone). */
+export const HOUR_MS = 3_600_000;
+
+export const floorHour = (ms: number): number => Math.floor(ms / HOUR_MS) * HOUR_MS;
+export const ceilHour = (ms: number): number => Math.ceil(ms / HOUR_MS) * HOUR_MS;
+
+/**
+ * UTC hour starts in [from, to) covered by the windows. A window covers every hour it touches
+ * (start rounded down, end rounded up); an open window (end null) runs up to `openUntil`.
+ */
+export function excludedHourSet(windows: readonly { start: number; end: number | null }[], from: number, to: number, openUntil = Number.POSITIVE_INFINITY): Set<number> {
+  const out = new Set<number>();
+  for (const w of windows) {
+    const a = Math.max(floorHour(w.start), ceilHour(from));
+    const b = Math.min(w.end === null ? openUntil : ceilHour(w.end), to);
+    for (let h = a; h < b; h += HOUR_MS) out.add(h);
+  }
+  return out;
+}

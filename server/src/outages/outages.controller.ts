@@ -1,0 +1,40 @@
+import { Body, Controller, Get, HttpCode, Param, ParseIntPipe, Patch, Post, Query } from '@nestjs/common';
+import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import type { OutageDto } from '@morrowline/shared';
+import type { AuthUser } from '../auth/auth-user';
+import { CurrentUser } from '../auth/current-user.decorator';
+import { Roles, SignedIn } from '../auth/roles.decorator';
+import { CloseOutageDto, CreateOutageDto, OutagesQueryDto, UpdateOutageDto } from './dto/outage.dto';
+import { OutagesService } from './outages.service';
+
+@ApiTags('outages')
+@ApiBearerAuth()
+@Controller('outages')
+export class OutagesController {
+  constructor(private readonly outages: OutagesService) {}
+
+  @Get()
+  @SignedIn()
+  list(@Query() query: OutagesQueryDto): Promise<OutageDto[]> {
+    return this.outages.list(query.zone, query.from, query.to);
+  }
+
+  @Post()
+  @Roles('operator', 'supervisor')
+  create(@CurrentUser() actor: AuthUser, @Body() body: CreateOutageDto): Promise<OutageDto> {
+    return this.outages.create(actor, body);
+  }
+
+  @Patch(':id')
+  @Roles('operator', 'supervisor')
+  update(@CurrentUser() actor: AuthUser, @Param('id', ParseIntPipe) id: number, @Body() body: UpdateOutageDto): Promise<OutageDto> {
+    return this.outages.update(actor, id, body);
+  }
+
+  @Post(':id/close')
+  @HttpCode(200)
+  @Roles('operator', 'supervisor')
+  close(@CurrentUser() actor: AuthUser, @Param('id', ParseIntPipe) id: number, @Body() body: CloseOutageDto): Promise<OutageDto> {
+    return this.outages.close(actor, id, body.end, body.reason);
+  }
+}
