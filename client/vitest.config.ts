@@ -10,6 +10,7 @@ export default mergeConfig(
       setupFiles: ['src/test/setup.ts'],
       css: false,
       restoreMocks: true,
+      testTimeout: 20000,
     },
   }),
 );

@@ -31,7 +31,8 @@ describe('signing in and out', () => {
     await desk.page.waitForURL('**/sign-in');
     await desk.page.goto('/refits');
     await desk.page.waitForURL('**/sign-in');
-    expect(await desk.page.getByRole('button', { name: 'Sign in' }).isVisible()).toBe(true);
+    // Waits (up to the default timeout) rather than sampling once: the form renders after the redirect.
+    await desk.page.getByRole('button', { name: 'Sign in' }).waitFor({ state: 'visible' });
     expect(await desk.page.evaluate(() => window.sessionStorage.getItem('morrowline.session'))).toBeNull();
   });
 

@@ -1,6 +1,9 @@
 import '@testing-library/jest-dom/vitest';
-import { cleanup } from '@testing-library/react';
+import { cleanup, configure } from '@testing-library/react';
 import { afterEach } from 'vitest';
+
+// findBy* and waitFor wait up to 5 s: the suite shares two cores with the server's tests in CI.
+configure({ asyncUtilTimeout: 5000 });
 
 afterEach(() => {
   cleanup();
