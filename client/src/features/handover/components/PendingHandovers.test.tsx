@@ -2,6 +2,9 @@ import type { Role } from '@morrowline/shared';
 import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
+
+// Generous waits: the whole suite runs in parallel on a busy machine. Not a timing check.
+const SLOW = { timeout: 5000 };
 import { sessionStore } from '../../../lib/session-store';
 import { userFixture } from '../../../test/fixtures';
 import { apiError, mockApi } from '../../../test/mock-api';
@@ -46,7 +49,7 @@ describe('who is offered "Acknowledge"', () => {
 
   it('hides the button from the note’s author and says why', async () => {
     shiftLogAs(ines);
-    const card = await screen.findByTestId('handover-note-31');
+    const card = await screen.findByTestId('handover-note-31', {}, SLOW);
     expect(within(card).getByText(/Your handover: the next operator or supervisor/)).toBeInTheDocument();
     expect(within(card).queryByRole('button', { name: 'Acknowledge' })).not.toBeInTheDocument();
   });
@@ -54,21 +57,21 @@ describe('who is offered "Acknowledge"', () => {
   it('offers the incoming operator the button and sends the reply', async () => {
     const { calls } = shiftLogAs(tomas);
     const user = userEvent.setup();
-    const card = await screen.findByTestId('handover-note-31');
+    const card = await screen.findByTestId('handover-note-31', {}, SLOW);
     expect(card.querySelector('strong')).toHaveTextContent('Q-7');
     await user.click(within(card).getByLabelText(/Reply to the outgoing shift/));
     await user.paste('Got it, I have the desk.');
     await user.click(within(card).getByRole('button', { name: 'Acknowledge' }));
-    await waitFor(() => expect(calls.some((call) => call.method === 'POST')).toBe(true));
+    await waitFor(() => expect(calls.some((call) => call.method === 'POST')).toBe(true), SLOW);
     expect(calls.find((call) => call.method === 'POST')?.body).toEqual({ reply: 'Got it, I have the desk.' });
   });
 
   it('shows the server’s message when it refuses', async () => {
     shiftLogAs(tomas, () => ({ status: 400, body: apiError(400, 'Bad Request', 'Already acknowledged by Hal Brennick') }));
     const user = userEvent.setup();
-    const card = await screen.findByTestId('handover-note-31');
+    const card = await screen.findByTestId('handover-note-31', {}, SLOW);
     await user.click(within(card).getByRole('button', { name: 'Acknowledge' }));
-    expect(await within(card).findByText('Already acknowledged by Hal Brennick')).toBeInTheDocument();
+    expect(await within(card).findByText('Already acknowledged by Hal Brennick', {}, SLOW)).toBeInTheDocument();
   });
 });
 
@@ -80,7 +83,7 @@ describe('the banner on every desk screen', () => {
     });
     sessionStore.start('token', 3600);
     renderApp('/accuracy');
-    const banner = await screen.findByTestId('pending-handover-banner');
+    const banner = await screen.findByTestId('pending-handover-banner', {}, SLOW);
     expect(banner).toHaveTextContent('Handover from Ines Marlow');
     expect(within(banner).getByRole('link', { name: 'Read and acknowledge it' })).toHaveAttribute('href', '/shift-log');
   });
@@ -92,7 +95,7 @@ describe('the banner on every desk screen', () => {
     });
     sessionStore.start('token', 3600);
     renderApp('/accuracy');
-    await screen.findByRole('heading', { name: 'Accuracy' });
+    await screen.findByRole('heading', { name: 'Accuracy' }, SLOW);
     await waitFor(() => expect(screen.queryByTestId('pending-handover-banner')).not.toBeInTheDocument());
   });
 });

@@ -1,6 +1,9 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
+
+// Generous waits: the whole suite runs in parallel on a busy machine. Not a timing check.
+const SLOW = { timeout: 5000 };
 import { sessionStore } from '../../../lib/session-store';
 import { userFixture } from '../../../test/fixtures';
 import { apiError, mockApi } from '../../../test/mock-api';
@@ -34,7 +37,7 @@ function deskWith(openItems: (typeof carried)[], post?: () => { status?: number;
 describe('writing a handover', () => {
   it('pre-fills the items left open by earlier notes, and shows the shift events beside the form', async () => {
     deskWith([carried]);
-    const row = await screen.findByTestId('item-row-0');
+    const row = await screen.findByTestId('item-row-0', {}, SLOW);
     expect(row).toHaveAttribute('data-carried', 'true');
     expect(within(row).getByText('Carried on from an earlier note')).toBeInTheDocument();
     expect(within(row).getByLabelText('Text of item 1')).toHaveValue('Feeder Q-7 out since 09:40, crew on site');
@@ -50,12 +53,12 @@ describe('writing a handover', () => {
   it('refuses an empty note and an item without text, and sends nothing', async () => {
     const { calls } = deskWith([]);
     const user = userEvent.setup();
-    await user.click(await screen.findByRole('button', { name: 'Hand over' }));
-    expect(await screen.findByText(/Write a few words or add an item/)).toBeInTheDocument();
+    await user.click(await screen.findByRole('button', { name: 'Hand over' }, SLOW));
+    expect(await screen.findByText(/Write a few words or add an item/, {}, SLOW)).toBeInTheDocument();
 
     await user.click(screen.getByRole('button', { name: 'Add item' }));
     await user.click(screen.getByRole('button', { name: 'Hand over' }));
-    expect(await screen.findByText('Say what the item is about')).toBeInTheDocument();
+    expect(await screen.findByText('Say what the item is about', {}, SLOW)).toBeInTheDocument();
     expect(calls.some((call) => call.method === 'POST')).toBe(false);
   });
 
@@ -63,7 +66,7 @@ describe('writing a handover', () => {
   it('sends a carried item closed with the id it carries on, and a new item open', { timeout: 20_000 }, async () => {
     const { calls } = deskWith([carried]);
     const user = userEvent.setup();
-    const row = await screen.findByTestId('item-row-0');
+    const row = await screen.findByTestId('item-row-0', {}, SLOW);
     await user.click(within(row).getByText('Closed'));
     await user.click(screen.getByLabelText('Handover note'));
     await user.paste('Q-7 restored at 15:10.');
@@ -72,7 +75,7 @@ describe('writing a handover', () => {
     await user.paste('HE18 peak looks high for Harrow Flats');
     await user.click(screen.getByRole('button', { name: 'Hand over' }));
 
-    await waitFor(() => expect(calls.some((call) => call.method === 'POST')).toBe(true));
+    await waitFor(() => expect(calls.some((call) => call.method === 'POST')).toBe(true), SLOW);
     expect(calls.find((call) => call.method === 'POST')?.body).toEqual({
       body: 'Q-7 restored at 15:10.',
       items: [
@@ -80,14 +83,14 @@ describe('writing a handover', () => {
         { kind: 'open-issue', zoneCode: null, text: 'HE18 peak looks high for Harrow Flats', status: 'open' },
       ],
     });
-    expect(await screen.findByTestId('handed-over')).toBeInTheDocument();
+    expect(await screen.findByTestId('handed-over', {}, SLOW)).toBeInTheDocument();
   });
 
   it('shows the server message when it refuses the note', async () => {
     deskWith([], () => ({ status: 400, body: apiError(400, 'Bad Request', 'A handover needs some text or at least one item') }));
     const user = userEvent.setup();
-    await user.type(await screen.findByLabelText('Handover note'), 'x');
+    await user.type(await screen.findByLabelText('Handover note', {}, SLOW), 'x');
     await user.click(screen.getByRole('button', { name: 'Hand over' }));
-    expect(await screen.findByText('A handover needs some text or at least one item')).toBeInTheDocument();
+    expect(await screen.findByText('A handover needs some text or at least one item', {}, SLOW)).toBeInTheDocument();
   });
 });
