@@ -1,0 +1,82 @@
+/**
+ * Refit benchmark (`npm run bench:refit`): the nightly full refit (differencing and order
+ * selection, the 7-day scoring backtest, the forecast) through the server's own compute pool,
+ * engine only — no database: the histories are synthesised in memory with the daily and weekly
+ * cycles, noise and the odd missing hour of the demo zones.
+ *   1. the five demo zones of the Tallowmere Valley Electric Cooperative;
+ *   2. growth with history length: 20 zones at 4, 8 and 12 weeks;
+ *   3. the scaled case, 200 zones x 8 weeks, with the elapsed time as zones complete.
+ * Last line: "refit: Z zones x H hours in S s" for the scaled case.
+ */
+import { DEMO_ZONES } from '@morrowline/shared';
+import { ComputeService } from '../compute/compute.service';
+import { forecastHorizon } from '../forecasts/forecast-horizon';
+
+const HOUR_MS = 3_600_000;
+
+function synthesise(seed: number, peakMw: number, hours: number): Float64Array {
+  let s = seed * 7919 + 17;
+  const rnd = () => ((s = (s * 1103515245 + 12345) % 2 ** 31) / 2 ** 31 - 0.5);
+  const phase = (seed % 5) - 2;
+  const weekend = 0.08 + 0.04 * ((seed % 3) / 2);
+  return Float64Array.from({ length: hours }, (_, t) => {
+    if (rnd() > 0.497) return NaN; // an occasional meter dropout
+    const hod = (t + phase) % 24;
+    const dow = Math.floor(t / 24) % 7;
+    const daily = 0.72 + 0.18 * Math.sin((2 * Math.PI * (hod - 8)) / 24) + 0.06 * Math.sin((4 * Math.PI * hod) / 24);
+    const weekly = dow >= 5 ? 1 - weekend : 1;
+    const drift = 1 + 0.03 * Math.sin((2 * Math.PI * t) / (24 * 23));
+    return Math.max(0, peakMw * daily * weekly * drift * (1 + 0.025 * rnd()));
+  });
+}
+
+async function refitAll(compute: ComputeService, zones: { seed: number; peakMw: number }[], hours: number, onDone?: (done: number, ms: number) => void): Promise<number> {
+  const t0 = performance.now();
+  const last = Math.floor(Date.now() / HOUR_MS) * HOUR_MS - HOUR_MS;
+  const horizon = forecastHorizon(last, 'America/Denver');
+  let done = 0;
+  await Promise.all(
+    zones.map(async (z) => {
+      const r = await compute.run('models.refit', { values: synthesise(z.seed, z.peakMw, hours), excluded: [], horizon, inService: null, backtestDays: 7 });
+      if (!r.forecast.mean.every((v) => Number.isFinite(v) && v >= 0)) throw new Error(`zone ${z.seed}: a forecast value is not a load`);
+      done++;
+      onDone?.(done, performance.now() - t0);
+    }),
+  );
+  return (performance.now() - t0) / 1000;
+}
+
+async function main(): Promise<void> {
+  const compute = new ComputeService();
+  try {
+    console.log(`refit benchmark: compute pool of ${compute.size} worker thread(s), engine only (histories synthesised in memory, no database)\n`);
+    // warm the threads (module load, JIT) so the first case is not charged for it
+    await refitAll(compute, [{ seed: 999, peakMw: 200 }], 4 * 168);
+
+    const demo = DEMO_ZONES.map((z, i) => ({ seed: i + 1, peakMw: z.peakMw }));
+    const demoS = await refitAll(compute, demo, 8 * 168);
+    console.log(`demo zones (${DEMO_ZONES.map((z) => z.code).join(', ')}): ${demo.length} zones x ${8 * 168} hours in ${demoS.toFixed(1)} s (${((demoS / demo.length) * 1000).toFixed(0)} ms per zone)`);
+
+    console.log('\ngrowth with history length, 20 zones:');
+    const twenty = Array.from({ length: 20 }, (_, i) => ({ seed: 100 + i, peakMw: 100 + 10 * i }));
+    for (const weeks of [4, 8, 12]) {
+      const s = await refitAll(compute, twenty, weeks * 168);
+      console.log(`  ${String(weeks).padStart(2)} weeks (${weeks * 168} h): ${s.toFixed(1)} s, ${((s / 20) * 1000).toFixed(0)} ms per zone`);
+    }
+
+    console.log('\ngrowth with zones, 8 weeks each (elapsed as zones complete in the 200-zone run):');
+    const zones = Array.from({ length: 200 }, (_, i) => ({ seed: 1000 + i, peakMw: 80 + (i % 40) * 8 }));
+    const marks = new Set([25, 50, 100, 150, 200]);
+    const total = await refitAll(compute, zones, 8 * 168, (done, ms) => {
+      if (marks.has(done)) console.log(`  ${String(done).padStart(3)} zones: ${(ms / 1000).toFixed(1)} s`);
+    });
+    console.log(`refit: ${zones.length} zones x ${8 * 168} hours in ${total.toFixed(1)} s`);
+  } finally {
+    await compute.onModuleDestroy();
+  }
+}
+
+main().catch((error: unknown) => {
+  console.error(error);
+  process.exit(1);
+});
