@@ -23,7 +23,7 @@ async function send(path: string, init: RequestInit, { sessionStore = defaultSes
   if (response.ok) return response;
   if (response.status === 401 && token) sessionStore.end('expired');
   const text = await response.text();
-  let body: unknown = null;
+  let body: unknown;
   try {
     body = text ? JSON.parse(text) : null;
   } catch {

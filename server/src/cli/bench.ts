@@ -38,6 +38,7 @@ function hasR(): string | null {
   return r.status === 0 ? r.stdout.trim() : null;
 }
 
+// eslint-disable-next-line @typescript-eslint/no-explicit-any -- R's JSON answer; the callers read the fields they asked R for
 function runR(job: unknown): any {
   const dir = mkdtempSync(join(tmpdir(), 'bench-r-'));
   const f = join(dir, 'job.json');

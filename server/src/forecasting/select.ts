@@ -64,7 +64,12 @@ export function selectOrder(x: ArrayLike<number>, opts: SelectOptions = {}): Sel
         // white noise: the "regression" has no regressors, σ² is the mean square
         let ss = 0;
         n = 0;
-        for (let i = 0; i < x.length; i++) if (Number.isFinite(x[i])) (ss += x[i] * x[i]), n++;
+        for (let i = 0; i < x.length; i++) {
+          if (Number.isFinite(x[i])) {
+            ss += x[i] * x[i];
+            n++;
+          }
+        }
         s2 = ss / n;
       } else {
         const hr = hannanRissanen(x, { p, q, P, Q, period: opts.period ?? 1 });

@@ -94,7 +94,7 @@ export function minimizeBfgs(fn: (x: Float64Array) => number, x0: ArrayLike<numb
     let alpha = 1;
     const dmax = maxAbs(d);
     if (dmax > 2) alpha = 2 / dmax;
-    let xn = new Float64Array(k);
+    const xn = new Float64Array(k);
     let fn1 = Infinity;
     let accepted = false;
     for (let ls = 0; ls < 40; ls++) {
@@ -143,7 +143,6 @@ export function minimizeBfgs(fn: (x: Float64Array) => number, x0: ArrayLike<numb
     }
     const rel = Math.abs(fx - fn1) / (Math.abs(fx) + 1e-10);
     x = xn;
-    xn = new Float64Array(k);
     fx = fn1;
     g = gn;
     gnorm = maxAbs(g);
