@@ -1,6 +1,7 @@
 import type { AlertDto } from '@morrowline/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
+import { notifyFailure, notifySuccess } from '../../../lib/notify';
 import { withoutAlert } from '../model/alert-list';
 import { openAlertsKey } from './live-keys';
 
@@ -10,8 +11,15 @@ export function useAcknowledgeAlert() {
   return useMutation({
     mutationFn: ({ id, comment }: { id: number; comment: string }) =>
       api.post<AlertDto>(`/alerts/${id}/acknowledge`, comment.trim() ? { comment: comment.trim() } : {}),
-    onSuccess: (alert) => queryClient.setQueryData<AlertDto[]>(openAlertsKey, (list) => (list ? withoutAlert(list, alert.id) : list)),
+    // Said here, not at the call: the row (and its button) leaves the list the moment this succeeds.
+    onSuccess: (alert) => {
+      queryClient.setQueryData<AlertDto[]>(openAlertsKey, (list) => (list ? withoutAlert(list, alert.id) : list));
+      notifySuccess(`Alert for ${alert.zone} acknowledged.`);
+    },
     // Someone else may have acknowledged it first (409): the list is re-read either way.
-    onError: () => queryClient.invalidateQueries({ queryKey: openAlertsKey }),
+    onError: (error) => {
+      notifyFailure('The alert could not be acknowledged', error);
+      return queryClient.invalidateQueries({ queryKey: openAlertsKey });
+    },
   });
 }

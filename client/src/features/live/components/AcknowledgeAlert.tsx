@@ -1,7 +1,6 @@
 import { Button, Popover, Stack, Textarea } from '@mantine/core';
 import type { AlertDto } from '@morrowline/shared';
 import { useState } from 'react';
-import { notifyFailure, notifySuccess } from '../../../lib/notify';
 import { useAcknowledgeAlert } from '../api/use-acknowledge-alert';
 
 /** "Acknowledge" with an optional comment, for operators and supervisors. */
@@ -9,17 +8,7 @@ export function AcknowledgeAlert({ alert }: { alert: AlertDto }) {
   const [opened, setOpened] = useState(false);
   const [comment, setComment] = useState('');
   const acknowledge = useAcknowledgeAlert();
-  const submit = () =>
-    acknowledge.mutate(
-      { id: alert.id, comment },
-      {
-        onSuccess: () => {
-          setOpened(false);
-          notifySuccess(`Alert for ${alert.zone} acknowledged.`);
-        },
-        onError: (error) => notifyFailure('The alert could not be acknowledged', error),
-      },
-    );
+  const submit = () => acknowledge.mutate({ id: alert.id, comment }, { onSuccess: () => setOpened(false) });
   return (
     <Popover opened={opened} onChange={setOpened} position="bottom-end" withArrow trapFocus>
       <Popover.Target>

@@ -44,6 +44,7 @@ export function LoadChart({ view, hours, displayFrom, nowHour }: LoadChartProps)
   const options = useMemo<uPlot.Options>(() => {
     const tz = view.timeZone;
     const nowX = nowHour / 1000 + HOUR_S;
+    const step = width < 700 ? 12 : 6;
     const band = { show: true, points: { show: false }, stroke: 'transparent', width: 0 };
     return {
       width: Math.max(320, width),
@@ -71,8 +72,8 @@ export function LoadChart({ view, hours, displayFrom, nowHour }: LoadChartProps)
           grid: { stroke: CHART_COLORS.grid },
           ticks: { stroke: CHART_COLORS.grid },
           size: 48,
-          splits: (u) => hourEndingSplits(u.scales.x.min ?? 0, u.scales.x.max ?? 0, tz, width < 700 ? 12 : 6),
-          values: (_u, splits) => splits.map((t) => hourEndingTick(t, tz)),
+          splits: (u) => hourEndingSplits(u.scales.x.min ?? 0, u.scales.x.max ?? 0, tz, step),
+          values: (_u, splits) => splits.map((t) => hourEndingTick(t, tz, step)),
         },
         { stroke: CHART_COLORS.axis, grid: { stroke: CHART_COLORS.grid }, ticks: { stroke: CHART_COLORS.grid }, label: 'MW', size: 60 },
       ],

@@ -16,10 +16,14 @@ export function hourEndingSplits(min: number, max: number, timeZone: string, ste
   return splits;
 }
 
-/** "HE06" over "Tue 05-12" (the operating day the hour belongs to). */
-export function hourEndingTick(t: number, timeZone: string): string {
+/**
+ * "HE06", with the operating day ("Tue 05-12") under the first tick of each day only, so that
+ * the dates do not run into each other.
+ */
+export function hourEndingTick(t: number, timeZone: string, step: number): string {
   const start = (t - HOUR_S) * 1000;
   const n = hourEndingNumber(start, timeZone);
-  const day = DateTime.fromMillis(start, { zone: timeZone }).toFormat('ccc LL-dd');
-  return `HE${String(n).padStart(2, '0')}\n${day}`;
+  const label = `HE${String(n).padStart(2, '0')}`;
+  if (n > step) return label;
+  return `${label}\n${DateTime.fromMillis(start, { zone: timeZone }).toFormat('ccc LL-dd')}`;
 }

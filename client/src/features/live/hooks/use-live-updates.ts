@@ -29,6 +29,8 @@ export function useLiveUpdates(socket: DeskSocket = deskSocket): void {
       title: known ? `Deviation alert widened: ${alert.zone}` : `Deviation alert: ${alert.zone}`,
       message: `Load ${alert.peakDeviationPct >= 0 ? 'above' : 'below'} forecast by up to ${formatPercent(Math.abs(alert.peakDeviationPct))} for ${Math.round((Date.parse(alert.end) - Date.parse(alert.start)) / 3_600_000)} h (threshold ${formatPercent(alert.thresholdPct, 0)}).`,
       autoClose: false,
+      // Bottom right, clear of the header with the user's name and sign-out.
+      position: 'bottom-right',
     });
   }, socket);
 
