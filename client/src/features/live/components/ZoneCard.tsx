@@ -27,8 +27,8 @@ export function ZoneCard({ view, hours, selected, thresholdPct, onSelect }: Zone
         borderRadius: 'var(--mantine-radius-sm)',
         border: `1px solid ${selected ? 'var(--mantine-color-tide-6)' : 'var(--mantine-color-default-border)'}`,
         background: selected ? 'var(--mantine-color-tide-light)' : undefined,
-        minWidth: 190,
-        flex: '1 1 190px',
+        minWidth: 140,
+        flex: '1 1 140px',
       }}
     >
       <Stack gap={4}>

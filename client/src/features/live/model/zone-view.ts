@@ -24,7 +24,7 @@ export interface LoadView {
 
 export type FeedState =
   | { kind: 'live'; lastHour: string; lastReceivedAt: string | null }
-  | { kind: 'stale'; lastHour: string | null; hoursBehind: number | null }
+  | { kind: 'stale'; lastHour: string | null; hoursBehind: number | null; staleZones?: string[] }
   | { kind: 'unknown' };
 
 export function feedState(status: FeedStatusDto | undefined): FeedState {
@@ -97,7 +97,7 @@ export function systemView(views: readonly LoadView[], series: ReadingSeriesDto,
   const staleZones = views.filter((v) => v.feed.kind === 'stale');
   const lastHours = views.map((v) => (v.feed.kind === 'live' ? v.feed.lastHour : null));
   const allLive = views.length > 0 && lastHours.every((h) => h !== null);
-  const feed: FeedState = staleZones.length > 0 ? { kind: 'stale', lastHour: null, hoursBehind: null } : allLive ? { kind: 'live', lastHour: lastHours.sort()[0] as string, lastReceivedAt: null } : { kind: 'unknown' };
+  const feed: FeedState = staleZones.length > 0 ? { kind: 'stale', lastHour: null, hoursBehind: null, staleZones: staleZones.map((v) => v.name) } : allLive ? { kind: 'live', lastHour: lastHours.sort()[0] as string, lastReceivedAt: null } : { kind: 'unknown' };
   return withCurrent(
     {
       key: SYSTEM,

@@ -12,6 +12,7 @@ import { useReadingsSeries } from '../api/use-readings-series';
 import { useZoneForecast } from '../api/use-zone-forecast';
 import { AlertsPanel } from '../components/AlertsPanel';
 import { ConnectionBadge } from '../components/ConnectionBadge';
+import { IncompleteNote } from '../components/IncompleteNote';
 import { LoadChart } from '../components/LoadChart';
 import { ZoneStrip } from '../components/ZoneStrip';
 import { useCurrentHour } from '../hooks/use-current-hour';
@@ -67,6 +68,7 @@ export function LiveLoadPage() {
         {selected && series.data && (
           <Card withBorder padding="md">
             <Title order={4} mb="xs" data-testid="chart-title">{selected.name}</Title>
+            <IncompleteNote view={selected} />
             <LoadChart view={selected} hours={series.data.hours} displayFrom={Date.parse(window.displayFrom)} nowHour={nowHour} />
           </Card>
         )}

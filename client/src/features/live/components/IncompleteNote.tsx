@@ -1,0 +1,14 @@
+import { Text } from '@mantine/core';
+import type { LoadView } from '../model/zone-view';
+
+/** Says in words why the system total has gaps: how many hours, and which feeds are behind. */
+export function IncompleteNote({ view }: { view: LoadView }) {
+  const hours = view.incomplete.filter(Boolean).length;
+  if (hours === 0) return null;
+  const stale = view.feed.kind === 'stale' && view.feed.staleZones?.length ? ` Feeds behind now: ${view.feed.staleZones.join(', ')}.` : '';
+  return (
+    <Text size="sm" c="ember.8" mb="xs" data-testid="incomplete-note">
+      {hours} {hours === 1 ? 'hour is' : 'hours are'} not totalled because a zone did not report; the total is left empty there rather than added up from part of the system.{stale}
+    </Text>
+  );
+}
