@@ -9,7 +9,7 @@ export function FeedStateBadge({ feed }: { feed: FeedState }) {
     ? `${feed.staleZones.length} ${feed.staleZones.length === 1 ? 'feed' : 'feeds'} stale`
     : feed.lastHour === null
       ? 'No readings yet'
-      : `Feed stale: ${feed.hoursBehind ?? '?'} h behind`;
+      : `Feed ${feed.hoursBehind ?? '?'} h behind`;
   return (
     <Badge color="ember" variant="filled" data-testid="feed-state" title={feed.staleZones?.join(', ')}>
       {text}

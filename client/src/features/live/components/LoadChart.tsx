@@ -24,7 +24,7 @@ interface LoadChartProps {
 /**
  * Actual load against the forecast with its 80 % and 95 % bands, on an hour-ending axis in the
  * zone's time zone. Missing hours are gaps (null, never drawn across); incomplete system hours
- * are shaded; a vertical line marks the current hour. The published schedule has its series
+ * are shaded; a vertical line marks the start of the current hour. The published schedule has its series
  * already, empty until schedules are published.
  */
 export function LoadChart({ view, hours, displayFrom, nowHour }: LoadChartProps) {
@@ -43,7 +43,8 @@ export function LoadChart({ view, hours, displayFrom, nowHour }: LoadChartProps)
 
   const options = useMemo<uPlot.Options>(() => {
     const tz = view.timeZone;
-    const nowX = nowHour / 1000 + HOUR_S;
+    // Points sit at their hour's end: the line at the current hour's start has every ended hour to its left.
+    const nowX = nowHour / 1000;
     const step = width < 700 ? 12 : 6;
     const band = { show: true, points: { show: false }, stroke: 'transparent', width: 0 };
     return {
@@ -119,7 +120,7 @@ export function LoadChart({ view, hours, displayFrom, nowHour }: LoadChartProps)
         {width > 0 && <UplotReact options={options} data={data} />}
       </Box>
       <Text size="xs" c="dimmed" mt={4}>
-        Forecast: {view.forecastSource}. Hour ending in {view.timeZone}; the dashed orange line is the current hour.
+        Forecast: {view.forecastSource}. Hour ending in {view.timeZone}; hours left of the dashed grey line are over.
       </Text>
     </Box>
   );

@@ -5,7 +5,7 @@ export const CHART_COLORS = {
   band80: 'rgba(81, 81, 181, 0.22)',
   band95: 'rgba(81, 81, 181, 0.10)',
   schedule: '#d16700', // ember 7
-  now: '#eb790a', // ember 6
+  now: '#55708e', // slate 7
   incomplete: 'rgba(236, 130, 25, 0.16)',
   grid: 'rgba(113, 137, 167, 0.18)', // slate
   axis: '#6682a3',

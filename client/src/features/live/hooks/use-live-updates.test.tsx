@@ -7,6 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { createDeskSocket } from '../../../lib/desk-socket';
 import { fakeSocketFactory } from '../../../test/fake-socket';
 import { createSessionStore } from '../../../lib/session-store';
+import { mockApi } from '../../../test/mock-api';
 import { openAlertsKey, readingsSeriesKey } from '../api/live-keys';
 import { useLiveUpdates } from './use-live-updates';
 
@@ -23,6 +24,7 @@ const alert: AlertDto = {
 };
 
 function setup() {
+  const api = mockApi({ 'GET /api/zones': () => ({ body: [] }) });
   const sessionStore = createSessionStore({ storage: window.sessionStorage });
   sessionStore.start('token', 3600);
   const { connect, opened } = fakeSocketFactory();
@@ -34,18 +36,19 @@ function setup() {
     </MantineProvider>
   );
   renderHook(() => useLiveUpdates(socket), { wrapper });
-  return { queryClient, server: opened[0].socket };
+  return { queryClient, server: opened[0].socket, api };
 }
 
 describe('useLiveUpdates', () => {
   it('writes a readings event into the cached series without refetching it', () => {
-    const { queryClient, server } = setup();
+    const { queryClient, server, api } = setup();
     const key = readingsSeriesKey(['LANTERN'], series.from, series.to);
     queryClient.setQueryData(key, series);
     act(() => server.emitFromServer(DESK_EVENTS.readings, { zones: [{ zone: 'LANTERN', hours: ['2026-05-01T01:00:00Z'], mw: [191.2] }], receivedAt: '2026-05-01T02:00:01Z' }));
     const next = queryClient.getQueryData<ReadingSeriesDto>(key);
     expect(next?.zones[0].mw).toEqual([180, 191.2]);
     expect(queryClient.getQueryState(key)?.isInvalidated).toBe(false);
+    expect(api.calls.some((call) => call.path.startsWith('/api/readings'))).toBe(false);
   });
 
   it('adds a raised alert to the open list and drops it once acknowledged', () => {

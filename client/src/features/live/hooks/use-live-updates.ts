@@ -3,6 +3,7 @@ import { notifications } from '@mantine/notifications';
 import { useQueryClient } from '@tanstack/react-query';
 import { deskSocket, useDeskEvent, type DeskSocket } from '../../../lib/desk-socket';
 import { formatPercent } from '../../../lib/format';
+import { useZones } from '../../zones';
 import { feedStatusKey, latestForecastsPrefix, openAlertsKey, readingsSeriesPrefix } from '../api/live-keys';
 import { withAlert, withoutAlert } from '../model/alert-list';
 import { applyDeskReadings, applyDeskReadingsToStatus } from '../model/apply-desk-readings';
@@ -14,6 +15,8 @@ import { applyDeskReadings, applyDeskReadingsToStatus } from '../model/apply-des
  */
 export function useLiveUpdates(socket: DeskSocket = deskSocket): void {
   const queryClient = useQueryClient();
+  const zones = useZones();
+  const zoneName = (code: string) => zones.data?.find((z) => z.code === code)?.name ?? code;
 
   useDeskEvent(DESK_EVENTS.readings, (event) => {
     queryClient.setQueriesData<ReadingSeriesDto>({ queryKey: readingsSeriesPrefix }, (series) => (series ? applyDeskReadings(series, event) : series));
@@ -26,11 +29,12 @@ export function useLiveUpdates(socket: DeskSocket = deskSocket): void {
     notifications.show({
       id: `alert-${alert.id}`,
       color: 'ember',
-      title: known ? `Deviation alert widened: ${alert.zone}` : `Deviation alert: ${alert.zone}`,
+      title: known ? `Deviation alert widened: ${zoneName(alert.zone)}` : `Deviation alert: ${zoneName(alert.zone)}`,
       message: `Load ${alert.peakDeviationPct >= 0 ? 'above' : 'below'} forecast by up to ${formatPercent(Math.abs(alert.peakDeviationPct))} for ${Math.round((Date.parse(alert.end) - Date.parse(alert.start)) / 3_600_000)} h (threshold ${formatPercent(alert.thresholdPct, 0)}).`,
       autoClose: false,
-      // Bottom right, clear of the header with the user's name and sign-out.
-      position: 'bottom-right',
+      // Top centre: clear of the user's name and sign-out (top right) and of the alert list's
+      // Acknowledge form (lower down), which a notification in a corner would cover.
+      position: 'top-center',
     });
   }, socket);
 
