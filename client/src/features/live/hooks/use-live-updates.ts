@@ -1,5 +1,5 @@
 import { DESK_EVENTS, type AlertDto, type FeedStatusDto, type LatestForecastsDto, type ReadingSeriesDto } from '@morrowline/shared';
-import { notifications } from '@mantine/notifications';
+import { notifications, notificationsStore } from '@mantine/notifications';
 import { useQueryClient } from '@tanstack/react-query';
 import { deskSocket, useDeskEvent, type DeskSocket } from '../../../lib/desk-socket';
 import { formatPercent } from '../../../lib/format';
@@ -26,7 +26,7 @@ export function useLiveUpdates(socket: DeskSocket = deskSocket): void {
   useDeskEvent(DESK_EVENTS.alertRaised, (alert: AlertDto) => {
     const known = queryClient.getQueryData<AlertDto[]>(openAlertsKey)?.some((a) => a.id === alert.id) ?? false;
     queryClient.setQueryData<AlertDto[]>(openAlertsKey, (list) => withAlert(list ?? [], alert));
-    notifications.show({
+    const notice = {
       id: `alert-${alert.id}`,
       color: 'ember',
       title: known ? `Deviation alert widened: ${zoneName(alert.zone)}` : `Deviation alert: ${zoneName(alert.zone)}`,
@@ -34,8 +34,11 @@ export function useLiveUpdates(socket: DeskSocket = deskSocket): void {
       autoClose: false,
       // Top centre: clear of the user's name and sign-out (top right) and of the alert list's
       // Acknowledge form (lower down), which a notification in a corner would cover.
-      position: 'top-center',
-    });
+      position: 'top-center' as const,
+    };
+    // A widened alert updates its notice while that is still up; otherwise it shows a new one.
+    if (known && notificationsStore.getState().notifications.some((n) => n.id === notice.id)) notifications.update(notice);
+    else notifications.show(notice);
   }, socket);
 
   useDeskEvent(DESK_EVENTS.alertAcknowledged, (alert: AlertDto) => {

@@ -1,0 +1,48 @@
+import type { ForecastRunDto, ReadingSeriesDto } from '@morrowline/shared';
+import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
+import { renderHook, waitFor } from '@testing-library/react';
+import type { ReactNode } from 'react';
+import { describe, expect, it } from 'vitest';
+import { apiError, mockApi } from '../../../test/mock-api';
+import { useZoneForecast } from './use-zone-forecast';
+
+const HOUR_MS = 3_600_000;
+const from = Date.parse('2026-05-01T00:00:00Z');
+const length = 168 + 48;
+const hours = Array.from({ length }, (_, i) => new Date(from + i * HOUR_MS).toISOString());
+const mw = hours.map((_, i) => (i < 168 + 24 ? 100 + (i % 24) : null));
+const series: ReadingSeriesDto = {
+  from: hours[0],
+  to: new Date(from + length * HOUR_MS).toISOString(),
+  hours,
+  zones: [{ zone: 'MILLRACE', mw, quality: mw.map((v) => (v === null ? null : 'good')), lastHour: hours[168 + 23], lastReceivedAt: null }],
+};
+
+function wrapper({ children }: { children: ReactNode }) {
+  return <QueryClientProvider client={new QueryClient()}>{children}</QueryClientProvider>;
+}
+
+describe('useZoneForecast', () => {
+  it('computes the seasonal-naive stand-in while the server has no forecasts to give (404)', async () => {
+    mockApi({ 'GET /api/forecasts/latest': () => ({ status: 404, body: apiError(404, 'Not Found', 'Cannot GET /api/forecasts/latest') }) });
+    const { result } = renderHook(() => useZoneForecast(series, hours[168], 168 + 24), { wrapper });
+    await waitFor(() => expect(result.current.forecasts.get('MILLRACE')?.source).toMatch(/^Seasonal-naive stand-in/));
+    const line = result.current.forecasts.get('MILLRACE')!.line;
+    expect(line.mean[168 + 30]).toBe(mw[30]); // the same hour a week earlier
+    expect(result.current.error).toBeNull();
+  });
+
+  it('uses the server’s run once it answers, laid out on the series’ hours', async () => {
+    const run: ForecastRunDto = {
+      id: 3, zone: 'MILLRACE', issuedAt: '2026-05-08T23:10:00Z', basedOnHour: hours[168 + 23], method: 'arima', fallbackReason: null, modelVersionId: 9,
+      hours: [hours[168 + 24], hours[168 + 25]], mean: [111, 112], lower80: [105, 106], upper80: [117, 118], lower95: [101, 102], upper95: [121, 122],
+    };
+    mockApi({ 'GET /api/forecasts/latest': () => ({ body: { zones: [run] } }) });
+    const { result } = renderHook(() => useZoneForecast(series, hours[168], 168 + 24), { wrapper });
+    await waitFor(() => expect(result.current.forecasts.get('MILLRACE')?.source).toMatch(/^Model forecast/));
+    const line = result.current.forecasts.get('MILLRACE')!.line;
+    expect(line.mean[168 + 24]).toBe(111);
+    expect(line.upper95[168 + 25]).toBe(122);
+    expect(line.mean[168 + 30]).toBeNull();
+  });
+});
