@@ -43,6 +43,7 @@ describe('useZoneForecast', () => {
     const line = result.current.forecasts.get('MILLRACE')!.line;
     expect(line.mean[168 + 24]).toBe(111);
     expect(line.upper95[168 + 25]).toBe(122);
-    expect(line.mean[168 + 30]).toBeNull();
+    expect(line.mean[168 + 30]).toBeNull(); // after the run: nothing made up
+    expect(line.mean[168 + 5]).toBe(mw[5]); // before the run: the week-earlier value
   });
 });

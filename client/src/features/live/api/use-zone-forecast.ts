@@ -18,10 +18,24 @@ function isNotThere(error: unknown): boolean {
   return error instanceof ApiRequestError && (error.status === 404 || error.status === 501);
 }
 
-/** A server run laid out on the hours of the readings series. */
-export function runToLine(run: ForecastRunDto, series: ReadingSeriesDto): ForecastLine {
+/**
+ * A server run laid out on the hours of the readings series. A run starts after the last reading
+ * it used, so the hours before it (the past days on the chart) take `before`: the week-earlier
+ * value, which is also what the deviation alerts compare against.
+ */
+export function runToLine(run: ForecastRunDto, series: ReadingSeriesDto, before?: ForecastLine): ForecastLine {
   const length = series.hours.length;
   const line = emptyForecastLine(length);
+  const firstRunHour = run.hours.length > 0 ? Date.parse(run.hours[0]) : Infinity;
+  if (before) {
+    for (let i = 0; i < length && Date.parse(series.hours[i]) < firstRunHour; i++) {
+      line.mean[i] = before.mean[i];
+      line.lower80[i] = before.lower80[i];
+      line.upper80[i] = before.upper80[i];
+      line.lower95[i] = before.lower95[i];
+      line.upper95[i] = before.upper95[i];
+    }
+  }
   const fromMs = Date.parse(series.from);
   run.hours.forEach((hour, k) => {
     const i = hourIndex(hour, fromMs, length);
@@ -64,12 +78,18 @@ export function useZoneForecast(series: ReadingSeriesDto | undefined, displayFro
     const out = new Map<string, ZoneForecast>();
     if (!series) return out;
     for (const zone of series.zones) {
+      const standIn = seasonalNaiveForecast(zone.mw, originIndex);
       if (useStandIn) {
-        out.set(zone.zone, { line: seasonalNaiveForecast(zone.mw, originIndex), source: 'Seasonal-naive stand-in: same hour one week earlier (no model forecast yet)' });
+        out.set(zone.zone, { line: standIn, source: 'Seasonal-naive stand-in: same hour one week earlier (no model forecast yet)' });
         continue;
       }
       const run = latest.data?.zones.find((r) => r.zone === zone.zone);
-      out.set(zone.zone, run ? { line: runToLine(run, series), source: describeRun(run) } : { line: emptyForecastLine(series.hours.length), source: latest.isPending ? 'Loading the forecast…' : 'No forecast for this zone' });
+      out.set(
+        zone.zone,
+        run
+          ? { line: runToLine(run, series, standIn), source: `${describeRun(run)}; hours before it show the same hour one week earlier` }
+          : { line: emptyForecastLine(series.hours.length), source: latest.isPending ? 'Loading the forecast…' : 'No forecast for this zone' },
+      );
     }
     return out;
   }, [series, useStandIn, latest.data, latest.isPending, originIndex]);
