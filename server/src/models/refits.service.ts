@@ -237,7 +237,7 @@ export class RefitsService implements OnApplicationBootstrap, OnApplicationShutd
       if (row.state !== 'running') throw new Error(`job is ${row.state}, not running`);
       const now = new Date();
       let promoted = false;
-      let why = '';
+      let why: string;
       let version: ModelVersion | null = null;
       if (result.model && result.stored) {
         const cand = result.score?.mape ?? null;
