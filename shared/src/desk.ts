@@ -18,6 +18,8 @@ export const DESK_EVENTS = {
   forecast: 'desk:forecast',
   /** Progress of a refit job (RefitJobDto, see the refit work). */
   refitProgress: 'desk:refit-progress',
+  /** A day-ahead schedule revision changed: drafted, adjusted, submitted, returned, published (DeskScheduleEvent). */
+  schedule: 'desk:schedule',
 } as const;
 
 /** Stored readings, compact: per zone, parallel arrays of UTC hour starts and MW. */

@@ -10,3 +10,4 @@ export * from './forecasts';
 export * from './workbench';
 export * from './outages';
 export * from './models';
+export * from './schedules';
