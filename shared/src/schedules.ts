@@ -100,7 +100,12 @@ export interface ScheduleHourDto extends ScheduleHourSlot {
   upper80: number | null;
   lower95: number | null;
   upper95: number | null;
-  /** The model value after the active adjustments, in order; what gets published. */
+  /**
+   * What the adjustments start from: the model value on revision 1, the published revision's
+   * value on a correction (revision 2 and later).
+   */
+  startMw: number | null;
+  /** `startMw` after the active adjustments, in order; what gets published. */
   adjustedMw: number | null;
 }
 
@@ -282,12 +287,18 @@ export function roundMw(mw: number): number {
 }
 
 /**
- * The adjusted values: the model values with the adjustments applied in order (pure; the server
+ * The adjusted values: the start values (model, or published for a correction) with the adjustments applied in order (pure; the server
  * uses it and a desk may use it to preview). Refuses a range outside the day, an add or scale on
  * an hour without a value, and any result below 0 MW.
  */
-export function replayAdjustments(model: readonly (number | null)[], adjustments: readonly ScheduleAdjustmentInput[]): ReplayResult {
-  const values = model.map((v) => (v === null ? null : roundMw(v)));
+export function replayAdjustments(
+  start: readonly (number | null)[],
+  adjustments: readonly ScheduleAdjustmentInput[],
+  /** Hour-ending labels for the messages (else "hour <index>"). */
+  labels?: readonly string[],
+): ReplayResult {
+  const values = start.map((v) => (v === null ? null : roundMw(v)));
+  const name = (h: number) => labels?.[h] ?? `hour ${h}`;
   for (const a of adjustments) {
     if (!Number.isInteger(a.fromHour) || !Number.isInteger(a.toHour) || a.fromHour < 0 || a.toHour >= values.length || a.fromHour > a.toHour) {
       return { ok: false, hour: a.fromHour, message: `hours ${a.fromHour}..${a.toHour} are not within the day's ${values.length} hours` };
@@ -296,11 +307,11 @@ export function replayAdjustments(model: readonly (number | null)[], adjustments
       const current = values[h];
       let next: number;
       if (a.kind === 'set') next = a.value;
-      else if (current === null) return { ok: false, hour: h, message: `hour ${h} has no value to ${a.kind === 'add' ? 'add to' : 'scale'}; set it first` };
+      else if (current === null) return { ok: false, hour: h, message: `${name(h)} has no value to ${a.kind === 'add' ? 'add to' : 'scale'}; set it first` };
       else if (a.kind === 'add') next = current + a.value;
       else next = current * (1 + a.value / 100);
       next = roundMw(next);
-      if (!Number.isFinite(next) || next < 0) return { ok: false, hour: h, message: `hour ${h} would be ${next} MW; a schedule is never below 0 MW` };
+      if (!Number.isFinite(next) || next < 0) return { ok: false, hour: h, message: `${name(h)} would be ${next} MW; a schedule is never below 0 MW` };
       values[h] = next;
     }
   }
