@@ -1,0 +1,86 @@
+import { Alert, Badge, SimpleGrid, Stack, Table, Text, Title } from '@mantine/core';
+import type { ModelCompareDto, ModelVersionDto } from '@morrowline/shared';
+import { compareRows, compareVerdict, ordersOf, type Better } from '../model/compare-rows';
+
+function Mark({ side, better }: { side: Exclude<Better, null>; better: Better }) {
+  if (better === null) return null;
+  return better === side ? (
+    <Badge size="xs" variant="light" color="tide" ml={6}>better</Badge>
+  ) : (
+    <Badge size="xs" variant="light" color="ember" ml={6}>worse</Badge>
+  );
+}
+
+function Coefficients({ title, version }: { title: string; version: ModelVersionDto | null }) {
+  return (
+    <Stack gap={4}>
+      <Text size="sm" fw={600}>{title}{version ? `: ${ordersOf(version)}` : ''}</Text>
+      {!version && <Text size="sm" c="dimmed">None in service.</Text>}
+      {version && (
+        <Table aria-label={`Coefficients, ${title}`} withTableBorder verticalSpacing={4}>
+          <Table.Thead>
+            <Table.Tr><Table.Th>Term</Table.Th><Table.Th ta="right">Value</Table.Th><Table.Th ta="right">± s.e.</Table.Th></Table.Tr>
+          </Table.Thead>
+          <Table.Tbody>
+            {version.coefficients.length === 0 && <Table.Tr><Table.Td colSpan={3}><Text size="sm" c="dimmed">none: white noise after differencing</Text></Table.Td></Table.Tr>}
+            {version.coefficients.map((c) => (
+              <Table.Tr key={c.name}>
+                <Table.Td ff="monospace">{c.name}</Table.Td>
+                <Table.Td ff="monospace" ta="right">{c.value.toFixed(4)}</Table.Td>
+                <Table.Td ff="monospace" ta="right">{c.se === null ? '—' : c.se.toFixed(4)}</Table.Td>
+              </Table.Tr>
+            ))}
+          </Table.Tbody>
+        </Table>
+      )}
+    </Stack>
+  );
+}
+
+/** A version beside the model in service: the same-days backtest decides, the rest explains. */
+export function CompareView({ compare }: { compare: ModelCompareDto }) {
+  const rows = compareRows(compare);
+  const better = compare.candidateBetter;
+  return (
+    <Stack gap="md" data-testid="compare-view">
+      <Alert color={better === null ? 'slate' : better ? 'tide' : 'ember'} variant="light" data-testid="compare-verdict">
+        {compareVerdict(compare)}
+      </Alert>
+      <Table aria-label="Comparison" withTableBorder verticalSpacing="xs">
+        <Table.Thead>
+          <Table.Tr>
+            <Table.Th />
+            <Table.Th>Version {compare.candidate.id} ({compare.candidate.status})</Table.Th>
+            <Table.Th>{compare.inService ? `In service: version ${compare.inService.id}` : 'In service'}</Table.Th>
+            <Table.Th>Seasonal naive</Table.Th>
+          </Table.Tr>
+        </Table.Thead>
+        <Table.Tbody>
+          {rows.map((row) => (
+            <Table.Tr key={row.label}>
+              <Table.Td>
+                <Text size="sm">{row.label}</Text>
+                {row.note && <Text size="xs" c="dimmed">{row.note}</Text>}
+              </Table.Td>
+              <Table.Td ff="monospace" data-testid={`candidate-${row.label}`}>{row.candidate}<Mark side="candidate" better={row.better} /></Table.Td>
+              <Table.Td ff="monospace" data-testid={`in-service-${row.label}`}>{row.inService}<Mark side="in-service" better={row.better} /></Table.Td>
+              <Table.Td ff="monospace">{row.baseline ?? ''}</Table.Td>
+            </Table.Tr>
+          ))}
+        </Table.Tbody>
+      </Table>
+      <div>
+        <Title order={5} mb={4}>Coefficients</Title>
+        <SimpleGrid cols={{ base: 1, md: 2 }}>
+          <Coefficients title={`Version ${compare.candidate.id}`} version={compare.candidate} />
+          <Coefficients title="In service" version={compare.inService} />
+        </SimpleGrid>
+      </div>
+      {compare.candidate.warnings.length > 0 && (
+        <Stack gap={2}>
+          {compare.candidate.warnings.map((w) => <Text key={w} size="sm" c="ember.8">Note on version {compare.candidate.id}: {w}</Text>)}
+        </Stack>
+      )}
+    </Stack>
+  );
+}
