@@ -4,6 +4,7 @@ import {
   type AlertDto,
   type DeskHello,
   type DeskReadings,
+  type DeskScheduleEvent,
   type ForecastRunDto,
 } from '@morrowline/shared';
 import { useEffect, useRef, useSyncExternalStore } from 'react';
@@ -18,6 +19,7 @@ export interface DeskEventPayloads {
   [DESK_EVENTS.alertAcknowledged]: AlertDto;
   [DESK_EVENTS.forecast]: ForecastRunDto;
   [DESK_EVENTS.refitProgress]: unknown;
+  [DESK_EVENTS.schedule]: DeskScheduleEvent;
 }
 
 export type DeskEventName = keyof DeskEventPayloads;

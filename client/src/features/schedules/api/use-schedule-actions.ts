@@ -1,0 +1,49 @@
+import type {
+  AdjustmentResultDto,
+  CreateScheduleAdjustmentRequest,
+  ScheduleRevisionDto,
+} from '@morrowline/shared';
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api } from '../../../lib/api-client';
+import { schedulesKey } from './schedule-keys';
+
+/** Every change refreshes the whole screen: state, values, history and other zones' rows all move together. */
+function useScheduleMutation<V, R>(send: (variables: V) => Promise<R>) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: send,
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: schedulesKey }),
+  });
+}
+
+/** POST /:day/:zone/draft — idempotent: answers the working revision if there is one. */
+export const useStartDraft = (day: string) =>
+  useScheduleMutation((zone: string) => api.post<ScheduleRevisionDto>(`/schedules/${day}/${zone}/draft`));
+
+/** POST /:day/adjustments — one adjustment on one zone or several; all or none. */
+export const useAddAdjustment = (day: string) =>
+  useScheduleMutation((request: CreateScheduleAdjustmentRequest) => api.post<AdjustmentResultDto>(`/schedules/${day}/adjustments`, request));
+
+/** DELETE /adjustments/:id — undo, until the revision is submitted. */
+export const useUndoAdjustment = () =>
+  useScheduleMutation((id: number) => api.delete<ScheduleRevisionDto>(`/schedules/adjustments/${id}`));
+
+export const useSubmitRevision = () =>
+  useScheduleMutation(({ id, comment }: { id: number; comment?: string }) =>
+    api.post<ScheduleRevisionDto>(`/schedules/revisions/${id}/submit`, comment ? { comment } : {}),
+  );
+
+/** Approval and publication are one step (supervisor, not the submitter). */
+export const useApproveRevision = () =>
+  useScheduleMutation((id: number) => api.post<ScheduleRevisionDto>(`/schedules/revisions/${id}/approve`));
+
+export const useReturnRevision = () =>
+  useScheduleMutation(({ id, comment }: { id: number; comment: string }) =>
+    api.post<ScheduleRevisionDto>(`/schedules/revisions/${id}/return`, { comment }),
+  );
+
+/** POST /:day/:zone/corrections — a new draft revision from the published values, with a reason. */
+export const useStartCorrection = (day: string) =>
+  useScheduleMutation(({ zone, reason }: { zone: string; reason: string }) =>
+    api.post<ScheduleRevisionDto>(`/schedules/${day}/${zone}/corrections`, { reason }),
+  );

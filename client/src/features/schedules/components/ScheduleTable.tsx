@@ -1,0 +1,45 @@
+import { Table, Text } from '@mantine/core';
+import { formatMw } from '../../../lib/format';
+import type { ScheduleRow } from '../model/rows';
+
+function signed(mw: number | null): string {
+  if (mw === null) return '—';
+  if (mw === 0) return '0.0';
+  return `${mw > 0 ? '+' : '−'}${Math.abs(mw).toFixed(1)}`;
+}
+
+function band(row: ScheduleRow): string {
+  if (row.lower80 === null || row.upper80 === null) return '—';
+  return `${row.lower80.toFixed(1)} – ${row.upper80.toFixed(1)}`;
+}
+
+/** One row per hour ending: model MW, its 80 % band, the adjusted MW and the difference. */
+export function ScheduleTable({ rows, label, showBand = true }: { rows: readonly ScheduleRow[]; label: string; showBand?: boolean }) {
+  return (
+    <Table aria-label={label} striped withTableBorder stickyHeader ff="monospace" fz="sm" data-testid="schedule-table">
+      <Table.Thead>
+        <Table.Tr>
+          <Table.Th>Hour</Table.Th>
+          <Table.Th ta="right">Model</Table.Th>
+          {showBand && <Table.Th ta="right">80 % band (MW)</Table.Th>}
+          <Table.Th ta="right">Adjusted</Table.Th>
+          <Table.Th ta="right">Difference (MW)</Table.Th>
+        </Table.Tr>
+      </Table.Thead>
+      <Table.Tbody>
+        {rows.map((row) => {
+          const changed = row.differenceMw !== null && row.differenceMw !== 0;
+          return (
+            <Table.Tr key={row.index} data-testid={`hour-${row.hourEnding}`}>
+              <Table.Td>{row.hourEnding}</Table.Td>
+              <Table.Td ta="right">{formatMw(row.modelMw)}</Table.Td>
+              {showBand && <Table.Td ta="right"><Text span inherit c="dimmed">{band(row)}</Text></Table.Td>}
+              <Table.Td ta="right" fw={changed ? 700 : undefined}>{formatMw(row.adjustedMw)}</Table.Td>
+              <Table.Td ta="right" c={changed ? 'ember.8' : 'dimmed'}>{signed(row.differenceMw)}</Table.Td>
+            </Table.Tr>
+          );
+        })}
+      </Table.Tbody>
+    </Table>
+  );
+}

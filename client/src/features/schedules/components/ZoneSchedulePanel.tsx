@@ -1,0 +1,64 @@
+import { Accordion, Group, Stack, Text, Title } from '@mantine/core';
+import type { UserDto, ZoneScheduleDto } from '@morrowline/shared';
+import { useMemo } from 'react';
+import { formatMw } from '../../../lib/format';
+import { isEditable, isForecaster } from '../model/permissions';
+import { shownRevision, zoneRows } from '../model/rows';
+import { AdjustmentList } from './AdjustmentList';
+import { GateCountdownBadge } from './GateCountdownBadge';
+import { RevisionHistory } from './RevisionHistory';
+import { ScheduleChart } from './ScheduleChart';
+import { ScheduleTable } from './ScheduleTable';
+import { WorkflowPanel } from './WorkflowPanel';
+
+interface ZoneSchedulePanelProps {
+  day: string;
+  zone: ZoneScheduleDto;
+  user: Pick<UserDto, 'id' | 'role'>;
+  caution: string;
+  clockOffsetMs: number;
+}
+
+/** One zone's day: where the schedule stands, the chart, the hours, the adjustments and the revisions. */
+export function ZoneSchedulePanel({ day, zone, user, caution, clockOffsetMs }: ZoneSchedulePanelProps) {
+  const rows = useMemo(() => zoneRows(zone), [zone]);
+  const revision = shownRevision(zone);
+  const total = rows.reduce((sum, row) => sum + (row.adjustedMw ?? 0), 0);
+  const mayUndo = isForecaster(user) && isEditable(zone.working);
+  return (
+    <Stack gap="md" data-testid={`zone-schedule-${zone.zone}`}>
+      <Group justify="space-between" align="center" wrap="wrap">
+        <Stack gap={0}>
+          <Title order={3}>{zone.zoneName}</Title>
+          <Text size="sm" c="dimmed">
+            {rows.length} hours · {Math.round(total).toLocaleString('en-US')} MWh adjusted · peak {formatMw(Math.max(0, ...rows.map((r) => r.adjustedMw ?? 0)))} · {zone.timeZone}
+            {zone.forecast && ` · forecast issued ${zone.forecast.issuedAt.slice(0, 16).replace('T', ' ')} UTC`}
+          </Text>
+        </Stack>
+        <GateCountdownBadge gateClosureAt={zone.gateClosureAt} timeZone={zone.timeZone} clockOffsetMs={clockOffsetMs} />
+      </Group>
+      <WorkflowPanel day={day} zone={zone} user={user} caution={caution} />
+      <ScheduleChart rows={rows} title={zone.zoneName} />
+      <Accordion multiple defaultValue={['hours', 'adjustments']} variant="separated">
+        <Accordion.Item value="hours">
+          <Accordion.Control>Hours ({rows.length})</Accordion.Control>
+          <Accordion.Panel>
+            <ScheduleTable rows={rows} label={`Hours of ${zone.zoneName}`} />
+          </Accordion.Panel>
+        </Accordion.Item>
+        <Accordion.Item value="adjustments">
+          <Accordion.Control>Adjustments ({revision?.adjustments.filter((a) => a.undoneAt === null).length ?? 0})</Accordion.Control>
+          <Accordion.Panel>
+            <AdjustmentList adjustments={revision?.adjustments ?? []} slots={zone.slots} timeZone={zone.timeZone} mayUndo={mayUndo} />
+          </Accordion.Panel>
+        </Accordion.Item>
+        <Accordion.Item value="revisions">
+          <Accordion.Control>Revision history</Accordion.Control>
+          <Accordion.Panel>
+            <RevisionHistory day={day} zone={zone.zone} timeZone={zone.timeZone} />
+          </Accordion.Panel>
+        </Accordion.Item>
+      </Accordion>
+    </Stack>
+  );
+}
