@@ -13,11 +13,12 @@ interface RefitPanelProps {
   zone: string;
   zoneName: string;
   zoneNames: ReadonlyMap<string, string>;
+  timeZone: string;
   canRefit: boolean;
 }
 
 /** Starting a refit (this zone or all), and the latest jobs with their progress. */
-export function RefitPanel({ zone, zoneName, zoneNames, canRefit }: RefitPanelProps) {
+export function RefitPanel({ zone, zoneName, zoneNames, timeZone, canRefit }: RefitPanelProps) {
   const jobs = useRefitJobs();
   const start = useStartRefit();
   const [scope, setScope] = useState<'zone' | 'all' | null>(null);
@@ -76,7 +77,7 @@ export function RefitPanel({ zone, zoneName, zoneNames, canRefit }: RefitPanelPr
             </Table.Thead>
             <Table.Tbody>
               {jobs.data.map((job) => (
-                <JobRow key={job.id} job={job} zoneName={zoneNames.get(job.zone) ?? job.zone} current={job.zone === zone} />
+                <JobRow key={job.id} job={job} zoneName={zoneNames.get(job.zone) ?? job.zone} current={job.zone === zone} timeZone={timeZone} />
               ))}
             </Table.Tbody>
           </Table>
@@ -107,11 +108,11 @@ export function RefitPanel({ zone, zoneName, zoneNames, canRefit }: RefitPanelPr
   );
 }
 
-function JobRow({ job, zoneName, current }: { job: RefitJobDto; zoneName: string; current: boolean }) {
+function JobRow({ job, zoneName, current, timeZone }: { job: RefitJobDto; zoneName: string; current: boolean; timeZone: string }) {
   return (
     <Table.Tr data-testid={`refit-job-${job.id}`} data-state={job.state} bg={current ? 'var(--mantine-color-tide-light)' : undefined}>
       <Table.Td fw={current ? 600 : 400}>{zoneName}</Table.Td>
-      <Table.Td ff="monospace">{formatDateTime(job.startedAt ?? job.createdAt)}</Table.Td>
+      <Table.Td ff="monospace">{formatDateTime(job.startedAt ?? job.createdAt, timeZone)}</Table.Td>
       <Table.Td>
         <Text size="sm">{TRIGGER_LABELS[job.trigger]}</Text>
         {job.requestedBy && <Text size="xs" c="dimmed">{job.requestedBy}</Text>}
@@ -123,7 +124,7 @@ function JobRow({ job, zoneName, current }: { job: RefitJobDto; zoneName: string
         <Progress value={job.progress} color={job.state === 'failed' ? 'ember' : 'tide'} animated={job.state === 'running'} aria-label={`Progress of the ${zoneName} refit`} />
         <Text size="xs" mt={2} c={job.state === 'failed' ? 'ember.8' : 'dimmed'} data-testid="refit-stage">
           {job.progress} % · {job.state === 'failed' || job.state === 'done' ? job.message ?? job.state : job.stage}
-          {job.state === 'done' && job.modelVersionId !== null && (job.promoted ? ' · the new version is in service' : ' · the new version waits as a candidate')}
+          {job.state === 'done' && job.message === null && job.modelVersionId !== null && (job.promoted ? ' · the new version is in service' : ' · the new version waits as a candidate')}
         </Text>
       </Table.Td>
       <Table.Td>

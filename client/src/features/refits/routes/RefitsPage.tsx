@@ -52,7 +52,7 @@ export function RefitsPage() {
       )}
       <Stack gap="lg">
         {zone && <OutageWindowsPanel zone={zone.code} zoneName={zone.name} timeZone={zone.timeZone ?? DEMO_TIME_ZONE} canEdit={canAct} />}
-        {zone && <RefitPanel zone={zone.code} zoneName={zone.name} zoneNames={names} canRefit={canAct} />}
+        {zone && <RefitPanel zone={zone.code} zoneName={zone.name} zoneNames={names} timeZone={zone.timeZone ?? DEMO_TIME_ZONE} canRefit={canAct} />}
         {zone && <ModelVersionsPanel zone={zone.code} zoneName={zone.name} timeZone={zone.timeZone ?? DEMO_TIME_ZONE} canPromote={canAct} />}
       </Stack>
     </>
