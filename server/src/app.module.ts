@@ -3,6 +3,7 @@ import { MikroOrmModule } from '@mikro-orm/nestjs';
 import { Module } from '@nestjs/common';
 import { ConfigModule, ConfigService } from '@nestjs/config';
 import { ScheduleModule } from '@nestjs/schedule';
+import { AccuracyModule } from './accuracy/accuracy.module';
 import { AlertsModule } from './alerts/alerts.module';
 import { AuditModule } from './audit/audit.module';
 import { AuthModule } from './auth/auth.module';
@@ -43,6 +44,7 @@ import { ZonesModule } from './zones/zones.module';
     OutagesModule,
     ForecastsModule,
     ModelsModule,
+    AccuracyModule,
   ],
 })
 export class AppModule {}

@@ -11,3 +11,4 @@ export * from './workbench';
 export * from './outages';
 export * from './models';
 export * from './schedules';
+export * from './accuracy';

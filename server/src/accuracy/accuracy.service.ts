@@ -1,0 +1,141 @@
+import { EntityManager } from '@mikro-orm/mariadb';
+import { BadRequestException, Injectable } from '@nestjs/common';
+import { ACCURACY_MAX_DAYS, type AccuracyReportDto } from '@morrowline/shared';
+import { ForecastRun } from '../forecasts/entities/forecast-run.entity';
+import { MAX_HORIZON_HOURS } from '../forecasts/forecast-horizon';
+import { OutagesService } from '../outages/outages.service';
+import { ReadingsRepository } from '../readings/readings.repository';
+import { Zone } from '../zones/entities/zone.entity';
+import { systemInput, zoneAccuracy, type DaySource, type ZoneInput } from './accuracy-report';
+import { dayCount, gateClosureAt, operatingDays, parseDay, type OperatingDay } from './operating-days';
+import { ScheduleInForce } from './schedule-in-force';
+
+const HOUR_MS = 3_600_000;
+
+type RunValues = Pick<ForecastRun, 'id' | 'issuedAt' | 'firstHour' | 'mean'>;
+/** Reports kept; a changed key (new reading hour, run or publication) makes a new entry. */
+const CACHE_ENTRIES = 64;
+/** A revised older reading does not move the latest hour, so entries also age out. */
+const CACHE_MS = 5 * 60_000;
+
+/**
+ * Accuracy after the fact, computed from stored readings, forecast runs and published schedule
+ * revisions (no tables of its own; see shared/src/accuracy.ts for the definitions). The work is a
+ * few thousand additions per zone, so it runs in the request; reports are cached per zones, range
+ * and the latest stored reading hour (and the latest run and publication).
+ */
+@Injectable()
+export class AccuracyService {
+  private readonly cache = new Map<string, { at: number; report: AccuracyReportDto }>();
+
+  constructor(
+    private readonly em: EntityManager,
+    private readonly readings: ReadingsRepository,
+    private readonly outages: OutagesService,
+    private readonly schedules: ScheduleInForce,
+  ) {}
+
+  async report(codes: readonly string[] | undefined, from: string, to: string, now = Date.now()): Promise<AccuracyReportDto> {
+    if (!parseDay(from, 'UTC')) throw new BadRequestException('from must be an operating day, yyyy-MM-dd');
+    if (!parseDay(to, 'UTC')) throw new BadRequestException('to must be an operating day, yyyy-MM-dd');
+    if (to < from) throw new BadRequestException(`from (${from}) must not be after to (${to})`);
+    const span = dayCount(from, to);
+    if (span > ACCURACY_MAX_DAYS) throw new BadRequestException(`The range may span at most ${ACCURACY_MAX_DAYS} days; ${from} to ${to} is ${span}`);
+    const zones = await this.resolveZones(codes);
+
+    const ids = zones.map((z) => z.id);
+    const latest = await this.readings.latest();
+    const latestHour = Math.max(-1, ...ids.map((id) => latest.get(id)?.hourStart ?? -1));
+    const stamp = await this.changeStamp(ids);
+    const key = JSON.stringify([ids, from, to, latestHour, ...ids.map((id) => latest.get(id)?.receivedAt ?? 0), stamp]);
+    const hit = this.cache.get(key);
+    if (hit && now - hit.at < CACHE_MS) return hit.report;
+
+    const inputs: ZoneInput[] = [];
+    for (const zone of zones) inputs.push(await this.zoneInput(zone, from, to));
+    const systemDays = operatingDays(from, to, zones[0].timeZone);
+    const report: AccuracyReportDto = {
+      from,
+      to,
+      latestReadingHour: latestHour >= 0 ? new Date(latestHour).toISOString() : null,
+      computedAt: new Date(now).toISOString(),
+      zones: inputs.map((input) => zoneAccuracy(input, now)),
+      system: zoneAccuracy(systemInput(inputs, systemDays), now),
+    };
+    if (this.cache.size >= CACHE_ENTRIES) this.cache.delete(this.cache.keys().next().value!);
+    this.cache.set(key, { at: now, report });
+    return report;
+  }
+
+  private async resolveZones(codes: readonly string[] | undefined): Promise<Zone[]> {
+    const em = this.em.fork();
+    if (!codes || codes.length === 0) {
+      const all = await em.find(Zone, { active: true }, { orderBy: { code: 'asc' } });
+      if (all.length === 0) throw new BadRequestException('There are no active zones');
+      return all;
+    }
+    const found = await em.find(Zone, { code: { $in: [...new Set(codes)] }, active: true });
+    const byCode = new Map(found.map((z) => [z.code, z]));
+    return [...new Set(codes)].map((code) => {
+      const zone = byCode.get(code);
+      if (!zone) throw new BadRequestException(`No active zone with code ${code}`);
+      return zone;
+    });
+  }
+
+  /** Newest forecast run and schedule publication of the zones: part of the cache key. */
+  private async changeStamp(zoneIds: number[]): Promise<string> {
+    const run = await this.em.fork().findOne(ForecastRun, { zone: { $in: zoneIds } }, { orderBy: { id: 'desc' }, fields: ['id'] });
+    return `${run?.id ?? 0}/${await this.schedules.stamp(zoneIds)}`;
+  }
+
+  private async zoneInput(zone: Zone, from: string, to: string): Promise<ZoneInput> {
+    const days = operatingDays(from, to, zone.timeZone);
+    const start = days[0].start;
+    const end = days[days.length - 1].end;
+    const [rows, excluded, runs, schedules] = await Promise.all([
+      this.readings.range([zone.id], start, end),
+      this.outages.excludedHours(zone.code, start, end),
+      this.runs(zone, days),
+      this.schedules.forDays(zone.id, days),
+    ]);
+    const actualAt = new Map<number, number>();
+    for (const row of rows) if (!excluded.has(row.hourStart)) actualAt.set(row.hourStart, row.mw);
+    return {
+      code: zone.code,
+      name: zone.name,
+      timeZone: zone.timeZone,
+      days,
+      actual: days.map((day) => day.labels.map((_, h) => actualAt.get(day.start + h * HOUR_MS) ?? null)),
+      model: days.map((day) => modelFor(day, runs, gateClosureAt(day.date, zone.timeZone, zone.gateClosure))),
+      schedule: days.map((day) => schedules.get(day.date) ?? null),
+    };
+  }
+
+  /** Runs that may cover some day of the range, issued before the last day's gate closure; newest first. */
+  private async runs(zone: Zone, days: OperatingDay[]): Promise<RunValues[]> {
+    const first = days[0];
+    const last = days[days.length - 1];
+    return this.em.fork().find(
+      ForecastRun,
+      {
+        zone: zone.id,
+        issuedAt: { $lt: new Date(gateClosureAt(last.date, zone.timeZone, zone.gateClosure)) },
+        firstHour: { $lte: new Date(last.start), $gte: new Date(first.start - MAX_HORIZON_HOURS * HOUR_MS) },
+      },
+      { fields: ['id', 'issuedAt', 'firstHour', 'mean'], orderBy: { issuedAt: 'desc', id: 'desc' } },
+    );
+  }
+}
+
+/** The latest run issued before the day's gate closure whose hours cover the whole day. */
+export function modelFor(day: OperatingDay, runsNewestFirst: readonly RunValues[], gate: number): DaySource | null {
+  for (const run of runsNewestFirst) {
+    if (run.issuedAt.getTime() >= gate) continue;
+    const first = run.firstHour.getTime();
+    const offset = (day.start - first) / HOUR_MS;
+    if (offset < 0 || offset + day.labels.length > run.mean.length) continue;
+    return { id: run.id, at: run.issuedAt.getTime(), revision: null, values: run.mean.slice(offset, offset + day.labels.length).map((v) => (Number.isFinite(v) ? v : null)) };
+  }
+  return null;
+}
