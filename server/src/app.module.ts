@@ -17,6 +17,7 @@ import { HealthModule } from './health/health.module';
 import { ModelsModule } from './models/models.module';
 import { OutagesModule } from './outages/outages.module';
 import { ReadingsModule } from './readings/readings.module';
+import { SchedulesModule } from './schedules/schedules.module';
 import { UsersModule } from './users/users.module';
 import { WorkbenchModule } from './workbench/workbench.module';
 import { ZonesModule } from './zones/zones.module';
@@ -45,6 +46,7 @@ import { ZonesModule } from './zones/zones.module';
     ForecastsModule,
     ModelsModule,
     AccuracyModule,
+    SchedulesModule,
   ],
 })
 export class AppModule {}

@@ -10,7 +10,10 @@ import { ForecastRun } from '../forecasts/entities/forecast-run.entity';
 import { ModelVersion } from '../models/entities/model-version.entity';
 import { RefitJob } from '../models/entities/refit-job.entity';
 import { Outage } from '../outages/entities/outage.entity';
+import { ScheduleAdjustment } from '../schedules/entities/schedule-adjustment.entity';
+import { ScheduleRevision } from '../schedules/entities/schedule-revision.entity';
+import { ScheduleSubscriber } from '../schedules/entities/schedule-subscriber.entity';
 import { User } from '../users/entities/user.entity';
 import { Zone } from '../zones/entities/zone.entity';
 
-export const ENTITIES = [User, AuditEntry, Zone, Reading, ReadingRevision, FeedKey, DeviationAlert, HandoverNote, HandoverItem, Outage, ModelVersion, RefitJob, ForecastRun];
+export const ENTITIES = [User, AuditEntry, Zone, Reading, ReadingRevision, FeedKey, DeviationAlert, HandoverNote, HandoverItem, Outage, ModelVersion, RefitJob, ForecastRun, ScheduleRevision, ScheduleAdjustment, ScheduleSubscriber];

@@ -3,10 +3,12 @@ import { Migration20261201192005 } from './Migration20261201192005';
 import { Migration20261201192644 } from './Migration20261201192644';
 import { Migration20261201200000 } from './Migration20261201200000';
 import { Migration20261201201000 } from './Migration20261201201000';
+import { Migration20261201203510 } from './Migration20261201203510';
 
 export const MIGRATIONS = [
   { name: 'Migration20261201192005', class: Migration20261201192005 },
   { name: 'Migration20261201192644', class: Migration20261201192644 },
   { name: 'Migration20261201200000', class: Migration20261201200000 },
   { name: 'Migration20261201201000', class: Migration20261201201000 },
+  { name: 'Migration20261201203510', class: Migration20261201203510 },
 ];

@@ -1,0 +1,46 @@
+import { Entity, Enum, ManyToOne, PrimaryKey, Property } from '@mikro-orm/core';
+import { SCHEDULE_ADJUSTMENT_KINDS, type ScheduleAdjustmentKind } from '@morrowline/shared';
+import { User } from '../../users/entities/user.entity';
+import { ScheduleRevision } from './schedule-revision.entity';
+
+/** One adjustment of a revision, kept when undone (undoneAt set) so the history stays readable. */
+@Entity({ tableName: 'schedule_adjustments' })
+export class ScheduleAdjustment {
+  @PrimaryKey({ type: 'integer', autoincrement: true })
+  id!: number;
+
+  @ManyToOne(() => ScheduleRevision, { deleteRule: 'restrict' })
+  revision!: ScheduleRevision;
+
+  @Property({ type: 'string', length: 32 })
+  zoneCode!: string;
+
+  @Enum({ items: [...SCHEDULE_ADJUSTMENT_KINDS], type: 'string', length: 8 })
+  kind!: ScheduleAdjustmentKind;
+
+  /** Hour positions in the operating day, 0-based, inclusive. */
+  @Property({ type: 'integer' })
+  fromHour!: number;
+
+  @Property({ type: 'integer' })
+  toHour!: number;
+
+  /** MW for set and add, percent for scale. */
+  @Property({ type: 'double' })
+  value!: number;
+
+  @Property({ type: 'text' })
+  reason!: string;
+
+  @ManyToOne(() => User)
+  by!: User;
+
+  @Property({ type: 'datetime', length: 3 })
+  at: Date = new Date();
+
+  @Property({ type: 'datetime', length: 3, nullable: true })
+  undoneAt: Date | null = null;
+
+  @ManyToOne(() => User, { nullable: true })
+  undoneBy: User | null = null;
+}

@@ -1,0 +1,118 @@
+import { Body, Controller, Delete, Get, Header, Param, ParseIntPipe, Post, Query, Res } from '@nestjs/common';
+import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import type { Response } from 'express';
+import type { AdjustmentResultDto, DayScheduleDto, ScheduleRevisionDto, ScheduleSubscriberDto } from '@morrowline/shared';
+import type { AuthUser } from '../auth/auth-user';
+import { CurrentUser } from '../auth/current-user.decorator';
+import { Roles } from '../auth/roles.decorator';
+import { CreateAdjustmentDto, CreateCorrectionDto, CreateSubscriberDto, DayQueryDto, ExportQueryDto, ReturnScheduleDto, SubmitScheduleDto } from './dto/schedules.dto';
+import { exportCsv, exportJson } from './schedule-export';
+import { ScheduleSubscribersService } from './schedule-subscribers.service';
+import { SchedulesService } from './schedules.service';
+
+const READERS = ['viewer', 'operator', 'supervisor'] as const;
+
+/** Day-ahead schedules; the contract is shared/src/schedules.ts. Admin takes no part (IT, not forecasting). */
+@ApiTags('schedules')
+@ApiBearerAuth()
+@Controller('schedules')
+export class SchedulesController {
+  constructor(
+    private readonly schedules: SchedulesService,
+    private readonly subscribers: ScheduleSubscribersService,
+  ) {}
+
+  // Fixed paths first, so "subscribers" and "revisions" are never read as an operating day.
+  @Get('subscribers')
+  @Roles('supervisor')
+  listSubscribers(): Promise<ScheduleSubscriberDto[]> {
+    return this.subscribers.list();
+  }
+
+  @Post('subscribers')
+  @Roles('supervisor')
+  addSubscriber(@CurrentUser() user: AuthUser, @Body() body: CreateSubscriberDto): Promise<ScheduleSubscriberDto> {
+    return this.subscribers.add(user, body);
+  }
+
+  @Delete('subscribers/:id')
+  @Roles('supervisor')
+  removeSubscriber(@CurrentUser() user: AuthUser, @Param('id', ParseIntPipe) id: number): Promise<ScheduleSubscriberDto> {
+    return this.subscribers.remove(user, id);
+  }
+
+  @Delete('adjustments/:id')
+  @Roles('operator', 'supervisor')
+  undo(@CurrentUser() user: AuthUser, @Param('id', ParseIntPipe) id: number): Promise<ScheduleRevisionDto> {
+    return this.schedules.undo(user, id);
+  }
+
+  @Get('revisions/:id')
+  @Roles(...READERS)
+  revision(@Param('id', ParseIntPipe) id: number): Promise<ScheduleRevisionDto> {
+    return this.schedules.revision(id);
+  }
+
+  @Get('revisions/:id/export')
+  @Roles(...READERS)
+  @Header('Cache-Control', 'no-store')
+  async export(@Param('id', ParseIntPipe) id: number, @Query() query: ExportQueryDto, @Res({ passthrough: true }) res: Response): Promise<string> {
+    const { revision, publishedByEmail } = await this.schedules.forExport(id);
+    const name = `schedule-${revision.zone}-${revision.operatingDay}-r${revision.revision}.${query.format}`;
+    res.setHeader('Content-Disposition', `attachment; filename="${name}"`);
+    if (query.format === 'json') {
+      res.setHeader('Content-Type', 'application/json; charset=utf-8');
+      return JSON.stringify(exportJson(revision, publishedByEmail), null, 2);
+    }
+    res.setHeader('Content-Type', 'text/csv; charset=utf-8');
+    return exportCsv(revision, publishedByEmail);
+  }
+
+  @Post('revisions/:id/submit')
+  @Roles('operator', 'supervisor')
+  submit(@CurrentUser() user: AuthUser, @Param('id', ParseIntPipe) id: number, @Body() body: SubmitScheduleDto): Promise<ScheduleRevisionDto> {
+    return this.schedules.submit(user, id, body.comment);
+  }
+
+  @Post('revisions/:id/approve')
+  @Roles('supervisor')
+  approve(@CurrentUser() user: AuthUser, @Param('id', ParseIntPipe) id: number): Promise<ScheduleRevisionDto> {
+    return this.schedules.approve(user, id);
+  }
+
+  @Post('revisions/:id/return')
+  @Roles('supervisor')
+  returnToOperators(@CurrentUser() user: AuthUser, @Param('id', ParseIntPipe) id: number, @Body() body: ReturnScheduleDto): Promise<ScheduleRevisionDto> {
+    return this.schedules.returnToOperators(user, id, body.comment);
+  }
+
+  @Get(':day')
+  @Roles(...READERS)
+  day(@Param('day') day: string, @Query() query: DayQueryDto): Promise<DayScheduleDto> {
+    return this.schedules.day(day, query.zone);
+  }
+
+  @Post(':day/adjustments')
+  @Roles('operator', 'supervisor')
+  adjust(@CurrentUser() user: AuthUser, @Param('day') day: string, @Body() body: CreateAdjustmentDto): Promise<AdjustmentResultDto> {
+    return this.schedules.adjust(user, day, body);
+  }
+
+  @Post(':day/:zone/draft')
+  @Roles('operator', 'supervisor')
+  draft(@CurrentUser() user: AuthUser, @Param('day') day: string, @Param('zone') zone: string): Promise<ScheduleRevisionDto> {
+    return this.schedules.createDraft(user, day, zone);
+  }
+
+  @Post(':day/:zone/corrections')
+  @Roles('operator', 'supervisor')
+  correction(@CurrentUser() user: AuthUser, @Param('day') day: string, @Param('zone') zone: string, @Body() body: CreateCorrectionDto): Promise<ScheduleRevisionDto> {
+    return this.schedules.correction(user, day, zone, body.reason);
+  }
+
+  @Get(':day/:zone/revisions')
+  @Roles(...READERS)
+  revisions(@Param('day') day: string, @Param('zone') zone: string): Promise<ScheduleRevisionDto[]> {
+    return this.schedules.revisions(day, zone);
+  }
+}
