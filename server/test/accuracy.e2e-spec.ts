@@ -4,9 +4,11 @@ import request from 'supertest';
 import type { AccuracyReportDto } from '@morrowline/shared';
 import { ForecastRun } from '../src/forecasts/entities/forecast-run.entity';
 import { ReadingsRepository } from '../src/readings/readings.repository';
+import { ScheduleRevision } from '../src/schedules/entities/schedule-revision.entity';
+import { User } from '../src/users/entities/user.entity';
 import { Zone } from '../src/zones/entities/zone.entity';
 import { createZone } from './support/feeds';
-import { startTestApp, tokenFor } from './support/test-app';
+import { demoUser, startTestApp, tokenFor } from './support/test-app';
 
 jest.setTimeout(120_000);
 
@@ -50,6 +52,28 @@ describe('accuracy (real MariaDB)', () => {
     // Gate closure 10:00 local the day before: 7 March's is 6 March 17:00Z, 8 March's is 7 March 17:00Z.
     run('2026-03-06T12:00:00Z', DAY_START['2026-03-07'], DAY_START['2026-03-10'], 1.1); // covers 7, 8, 9
     run('2026-03-06T18:00:00Z', DAY_START['2026-03-07'], DAY_START['2026-03-09'], 0.8); // too late for the 7th
+    // Published schedules: the 7th at actual × 1.02; the 8th has a superseded revision 1 (× 1.0)
+    // and the revision in force, 2, at × 0.9. The 10th has a schedule but no forecast.
+    const supervisor = await em.findOneOrFail(User, { email: demoUser('supervisor').email });
+    const revision = (day: string, n: number, factor: number, state: 'published' | 'superseded') => {
+      const hours = hoursOf(DAY_START[day], Object.values(DAY_START).find((t) => t > DAY_START[day])!).map((t, index) => ({
+        index,
+        intervalStartUtc: new Date(t).toISOString(),
+        hourEnding: '',
+        modelMw: null,
+        lower80: null,
+        upper80: null,
+        lower95: null,
+        upper95: null,
+        adjustedMw: Math.round(load(t) * factor * 10) / 10,
+      }));
+      const at = new Date(DAY_START[day] - 12 * HOUR + n * 60_000);
+      return em.create(ScheduleRevision, { zone: z, operatingDay: day, revision: n, state, publishedKey: state === 'published' ? `${z.id}:${day}` : null, hours, createdBy: supervisor, createdAt: at, late: false, publishedBy: supervisor, publishedAt: at, supersededAt: state === 'superseded' ? at : null });
+    };
+    revision('2026-03-07', 1, 1.02, 'published');
+    revision('2026-03-08', 1, 1.0, 'superseded');
+    revision('2026-03-08', 2, 0.9, 'published');
+    revision('2026-03-10', 1, 1.05, 'published');
     await em.flush();
   });
   afterAll(async () => {
@@ -84,7 +108,7 @@ describe('accuracy (real MariaDB)', () => {
     // No actuals: listed, a forecast is known, nothing scored. No forecast: listed as such.
     expect(d9.model).toMatchObject({ score: null });
     expect(d10.model).toBeNull();
-    expect(d10.schedule).toBeNull();
+    expect(d10.adjustmentEffect).toBeNull();
     expect(z).toMatchObject({ daysScored: 2, daysWithoutActuals: 1, daysWithoutForecast: 1 });
     // Pooled over the scored days: 24 hours at 10 % and 23 at 20 %.
     expect(z.model.hours).toBe(47);
@@ -97,6 +121,27 @@ describe('accuracy (real MariaDB)', () => {
     // One zone: the system total is the same.
     expect(body.system.days[0].model?.score?.mape).toBe(10);
     expect(body.system.zone).toBe('SYSTEM');
+  });
+
+  it('scores the published revision in force and says whether the adjustments helped', async () => {
+    const z = (await report(`zone=${zone}&from=2026-03-07&to=2026-03-10`)).zones[0];
+    const [d7, d8, d9, d10] = z.days;
+    expect(d7.schedule).toMatchObject({ revision: 1, score: { hours: 24 } });
+    expect(d7.schedule?.score?.mape).toBeCloseTo(2, 1);
+    expect(d7.adjustmentEffect).toBeCloseTo(-8, 1);
+    // Revision 2 is in force on the 8th, not the superseded revision 1.
+    expect(d8.schedule).toMatchObject({ revision: 2, score: { hours: 23 } });
+    expect(d8.schedule?.score?.mape).toBeCloseTo(10, 1);
+    expect(d8.adjustmentEffect).toBeCloseTo(-10, 1);
+    expect(d9.schedule).toBeNull();
+    // The 10th: a schedule scored on its own, but nothing to compare it with.
+    expect(d10.schedule?.score?.mape).toBeCloseTo(5, 1);
+    expect(d10.adjustmentEffect).toBeNull();
+    expect(z.comparison).toMatchObject({ days: 2, daysHelped: 2 });
+    expect(z.comparison.difference).toBeLessThan(-8);
+    expect(z.schedule.hours).toBe(71);
+    expect(z.daysWithoutSchedule).toBe(1);
+    expect(z.byHour.find((h) => h.hourEnding === 'HE02')?.schedule.hours).toBe(2);
   });
 
   it('answers clear 400s and keeps admins out', async () => {

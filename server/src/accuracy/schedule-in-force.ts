@@ -1,23 +1,46 @@
+import { EntityManager } from '@mikro-orm/mariadb';
 import { Injectable } from '@nestjs/common';
+import { ScheduleRevision } from '../schedules/entities/schedule-revision.entity';
 import type { DaySource } from './accuracy-report';
 import type { OperatingDay } from './operating-days';
 
+const HOUR_MS = 3_600_000;
+
 /**
- * The published schedule in force for a zone and operating day: the latest published revision.
- * Until the schedule revisions are stored there is none, and every day says "no schedule".
+ * The published schedule in force for a zone and operating day: its latest published revision
+ * (state published; a superseded one only counts if no later revision was published). Its
+ * adjusted MW are matched to the day's hours by UTC hour start.
  */
 @Injectable()
 export class ScheduleInForce {
+  constructor(private readonly em: EntityManager) {}
+
   /** Per operating day (yyyy-MM-dd), the revision's adjusted MW aligned with the day's hours. */
-  forDays(zoneId: number, days: readonly OperatingDay[]): Promise<Map<string, DaySource>> {
-    void zoneId;
-    void days;
-    return Promise.resolve(new Map());
+  async forDays(zoneId: number, days: readonly OperatingDay[]): Promise<Map<string, DaySource>> {
+    const out = new Map<string, DaySource>();
+    if (days.length === 0) return out;
+    const revisions = await this.em.fork().find(
+      ScheduleRevision,
+      { zone: zoneId, operatingDay: { $gte: days[0].date, $lte: days[days.length - 1].date }, state: { $in: ['published', 'superseded'] }, publishedAt: { $ne: null } },
+      { fields: ['id', 'operatingDay', 'revision', 'publishedAt', 'hours'], orderBy: { operatingDay: 'asc', revision: 'desc' } },
+    );
+    const byDay = new Map(days.map((d) => [d.date, d]));
+    for (const r of revisions) {
+      const day = byDay.get(r.operatingDay);
+      if (!day || out.has(r.operatingDay)) continue; // newest revision first
+      const values = day.labels.map(() => null as number | null);
+      for (const hour of r.hours) {
+        const i = (Date.parse(hour.intervalStartUtc) - day.start) / HOUR_MS;
+        if (Number.isInteger(i) && i >= 0 && i < values.length && hour.adjustedMw !== null && Number.isFinite(hour.adjustedMw)) values[i] = hour.adjustedMw;
+      }
+      out.set(r.operatingDay, { id: r.id, at: r.publishedAt!.getTime(), revision: r.revision, values });
+    }
+    return out;
   }
 
-  /** Changes whenever a revision of these zones is published (cache key). */
-  stamp(zoneIds: readonly number[]): Promise<string> {
-    void zoneIds;
-    return Promise.resolve('0');
+  /** Changes whenever a revision of these zones is published (part of the report cache key). */
+  async stamp(zoneIds: readonly number[]): Promise<string> {
+    const last = await this.em.fork().findOne(ScheduleRevision, { zone: { $in: [...zoneIds] }, publishedAt: { $ne: null } }, { orderBy: { publishedAt: 'desc', id: 'desc' }, fields: ['id', 'publishedAt'] });
+    return last ? `${last.id}@${last.publishedAt!.getTime()}` : '0';
   }
 }
