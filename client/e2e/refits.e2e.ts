@@ -68,8 +68,8 @@ describe('refits', () => {
     await page.getByRole('option', { name: /Quarry Hill/ }).click();
     await page.waitForURL('**/refits?zone=QUARRY');
 
-    // An outage ten days ago, 09:00 to 13:00 Quarry Hill time.
-    const day = DateTime.now().setZone(TIME_ZONE).minus({ days: 10 }).toFormat('yyyy-LL-dd');
+    // An outage two days ago (inside the live view's chart), 09:00 to 13:00 Quarry Hill time.
+    const day = DateTime.now().setZone(TIME_ZONE).minus({ days: 2 }).toFormat('yyyy-LL-dd');
     const windows = page.getByTestId('outage-windows');
     await windows.getByText('No windows marked on Quarry Hill.').waitFor();
     await windows.getByRole('button', { name: 'Mark a window' }).click();
@@ -146,6 +146,7 @@ describe('refits', () => {
     const caption = page.getByText(/^Forecast: /);
     await page.getByText(/^Forecast: Model forecast issued/).waitFor({ timeout: 30_000 });
     expect(await caption.innerText()).not.toMatch(/Seasonal-naive stand-in/);
+    await page.getByTestId('chart-legend').getByText('Outage or bad-data window: not normal load').waitFor();
     await page.getByTestId('load-chart').locator('canvas').first().waitFor({ state: 'attached' });
     await page.screenshot({ path: path.join(SCREENSHOTS, 'refits-live-forecast.png'), fullPage: true });
   }, 480_000);

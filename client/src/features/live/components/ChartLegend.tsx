@@ -26,7 +26,7 @@ function Entry({ label, children }: { label: string; children: React.ReactNode }
 }
 
 /** The chart's key, ours rather than uPlot's, so that the empty schedule slot can say so. */
-export function ChartLegend({ showIncomplete }: { showIncomplete: boolean }) {
+export function ChartLegend({ showIncomplete, showExcluded = false }: { showIncomplete: boolean; showExcluded?: boolean }) {
   return (
     <Group gap="md" data-testid="chart-legend" wrap="wrap">
       <Entry label="Actual load"><Swatch color={CHART_COLORS.actual} /></Entry>
@@ -34,6 +34,7 @@ export function ChartLegend({ showIncomplete }: { showIncomplete: boolean }) {
       <Entry label="80 % band"><Swatch color="rgba(81, 81, 181, 0.35)" block /></Entry>
       <Entry label="95 % band"><Swatch color="rgba(81, 81, 181, 0.15)" block /></Entry>
       <Entry label="Published schedule — none yet"><Swatch color={CHART_COLORS.schedule} /></Entry>
+      {showExcluded && <Entry label="Outage or bad-data window: not normal load"><Swatch color="rgba(85, 112, 142, 0.4)" block /></Entry>}
       {showIncomplete && <Entry label="Incomplete: a zone did not report"><Swatch color="rgba(236, 130, 25, 0.35)" block /></Entry>}
     </Group>
   );

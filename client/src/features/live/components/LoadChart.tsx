@@ -19,6 +19,8 @@ interface LoadChartProps {
   hours: readonly string[];
   displayFrom: number;
   nowHour: number;
+  /** Hours inside an outage or bad-data window, on the series' hours; shaded grey. */
+  excluded?: readonly boolean[];
 }
 
 /**
@@ -27,7 +29,7 @@ interface LoadChartProps {
  * are shaded; a vertical line marks the start of the current hour. The published schedule has its series
  * already, empty until schedules are published.
  */
-export function LoadChart({ view, hours, displayFrom, nowHour }: LoadChartProps) {
+export function LoadChart({ view, hours, displayFrom, nowHour, excluded }: LoadChartProps) {
   const { ref, width } = useElementSize();
   const [hover, setHover] = useState<number | null>(null);
   const first = Math.max(0, hours.findIndex((h) => Date.parse(h) >= displayFrom));
@@ -45,6 +47,8 @@ export function LoadChart({ view, hours, displayFrom, nowHour }: LoadChartProps)
     const tz = view.timeZone;
     // Points sit at their hour's end: the line at the current hour's start has every ended hour to its left.
     const nowX = nowHour / 1000;
+    // Windows change rarely; a change makes a new chart with the new shading.
+    const excludedFlags = excluded?.slice(first) ?? [];
     const step = width < 700 ? 12 : 6;
     const band = { show: true, points: { show: false }, stroke: 'transparent', width: 0 };
     return {
@@ -85,13 +89,17 @@ export function LoadChart({ view, hours, displayFrom, nowHour }: LoadChartProps)
             const { ctx, bbox } = u;
             const xs = u.data[0];
             ctx.save();
-            ctx.fillStyle = CHART_COLORS.incomplete;
-            incompleteRef.current.forEach((flag, i) => {
-              if (!flag) return;
-              const left = u.valToPos(xs[i] - HOUR_S, 'x', true);
-              const right = u.valToPos(xs[i], 'x', true);
-              ctx.fillRect(left, bbox.top, right - left, bbox.height);
-            });
+            const shade = (flags: readonly boolean[], color: string) => {
+              ctx.fillStyle = color;
+              flags.forEach((flag, i) => {
+                if (!flag || i >= xs.length) return;
+                const left = u.valToPos(xs[i] - HOUR_S, 'x', true);
+                const right = u.valToPos(xs[i], 'x', true);
+                ctx.fillRect(left, bbox.top, right - left, bbox.height);
+              });
+            };
+            shade(excludedFlags, CHART_COLORS.excluded);
+            shade(incompleteRef.current, CHART_COLORS.incomplete);
             const x = u.valToPos(nowX, 'x', true);
             if (x >= bbox.left && x <= bbox.left + bbox.width) {
               ctx.strokeStyle = CHART_COLORS.now;
@@ -107,13 +115,13 @@ export function LoadChart({ view, hours, displayFrom, nowHour }: LoadChartProps)
         ],
       },
     };
-  }, [width, view.timeZone, nowHour]);
+  }, [width, view.timeZone, nowHour, excluded, first]);
 
   const hoverIndex = hover === null ? null : first + hover;
   return (
     <Box>
       <Group justify="space-between" align="flex-start" mb={4} wrap="wrap">
-        <ChartLegend showIncomplete={view.incomplete.some(Boolean)} />
+        <ChartLegend showIncomplete={view.incomplete.some(Boolean)} showExcluded={excluded?.slice(first).some(Boolean) ?? false} />
         <HoverReadout view={view} hours={hours} index={hoverIndex} />
       </Group>
       <Box ref={ref} data-testid="load-chart" aria-label={`Load chart: ${view.name}`} role="img">

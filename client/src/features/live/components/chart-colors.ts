@@ -7,6 +7,7 @@ export const CHART_COLORS = {
   schedule: '#d16700', // ember 7
   now: '#55708e', // slate 7
   incomplete: 'rgba(236, 130, 25, 0.16)',
+  excluded: 'rgba(85, 112, 142, 0.18)', // slate: outage or bad-data hours
   grid: 'rgba(113, 137, 167, 0.18)', // slate
   axis: '#6682a3',
 } as const;

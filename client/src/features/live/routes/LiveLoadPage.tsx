@@ -6,6 +6,7 @@ import { ErrorNotice } from '../../../components/ErrorNotice';
 import { PageHeader } from '../../../components/PageHeader';
 import { operatingDayOf, operatingDayStart } from '../../../lib/hour-ending';
 import { useSignedInUser } from '../../auth';
+import { outageHoursOf, useOutages } from '../../outages';
 import { useZones } from '../../zones';
 import { useFeedStatus } from '../api/use-feed-status';
 import { useReadingsSeries } from '../api/use-readings-series';
@@ -52,6 +53,9 @@ export function LiveLoadPage() {
 
   const requested = params.get('zone') ?? SYSTEM;
   const selected = views.find((v) => v.key === requested) ?? views[0];
+  // The chosen zone's outage and bad-data windows, shaded on its chart (none for the system total).
+  const outages = useOutages(selected && selected.key !== SYSTEM ? selected.key : null);
+  const excluded = useMemo(() => (series.data && outages.data ? outageHoursOf(series.data.hours, outages.data) : undefined), [series.data, outages.data]);
   const mayAcknowledge = user.role === 'operator' || user.role === 'supervisor';
 
   return (
@@ -69,7 +73,7 @@ export function LiveLoadPage() {
           <Card withBorder padding="md">
             <Title order={4} mb="xs" data-testid="chart-title">{selected.name}</Title>
             <IncompleteNote view={selected} />
-            <LoadChart view={selected} hours={series.data.hours} displayFrom={Date.parse(window.displayFrom)} nowHour={nowHour} />
+            <LoadChart view={selected} hours={series.data.hours} displayFrom={Date.parse(window.displayFrom)} nowHour={nowHour} excluded={selected.key === SYSTEM ? undefined : excluded} />
           </Card>
         )}
         {zones.data && <AlertsPanel zones={activeZones} mayAcknowledge={mayAcknowledge} />}

@@ -41,9 +41,9 @@ export function OutageWindowsPanel({ zone, zoneName, timeZone, canEdit }: Outage
           <Table aria-label="Windows" verticalSpacing="xs" striped>
             <Table.Thead>
               <Table.Tr>
-                <Table.Th>Kind</Table.Th>
-                <Table.Th>Start</Table.Th>
-                <Table.Th>End</Table.Th>
+                <Table.Th w={120}>Kind</Table.Th>
+                <Table.Th w={170}>Start</Table.Th>
+                <Table.Th w={170}>End</Table.Th>
                 <Table.Th>Note</Table.Th>
                 <Table.Th>Marked by</Table.Th>
                 {canEdit && <Table.Th />}
@@ -53,10 +53,10 @@ export function OutageWindowsPanel({ zone, zoneName, timeZone, canEdit }: Outage
               {list.map((outage) => (
                 <Table.Tr key={outage.id} data-testid={`outage-${outage.id}`}>
                   <Table.Td>
-                    <Badge variant="light" color={outage.kind === 'outage' ? 'ember' : 'slate'}>{KIND_LABELS[outage.kind]}</Badge>
+                    <Badge variant="light" color={outage.kind === 'outage' ? 'ember' : 'slate'} style={{ overflow: 'visible' }}>{KIND_LABELS[outage.kind]}</Badge>
                   </Table.Td>
-                  <Table.Td ff="monospace">{formatDateTime(outage.start, timeZone)}</Table.Td>
-                  <Table.Td ff="monospace">{outage.end ? formatDateTime(outage.end, timeZone) : <Text span c="ember.7" fw={600}>still open</Text>}</Table.Td>
+                  <Table.Td ff="monospace" style={{ whiteSpace: 'nowrap' }}>{formatDateTime(outage.start, timeZone)}</Table.Td>
+                  <Table.Td ff="monospace" style={{ whiteSpace: 'nowrap' }}>{outage.end ? formatDateTime(outage.end, timeZone) : <Text span c="ember.7" fw={600}>still open</Text>}</Table.Td>
                   <Table.Td>{outage.note}</Table.Td>
                   <Table.Td>
                     <Text size="sm">{outage.createdBy ?? '—'}</Text>
