@@ -6,6 +6,7 @@ import {
   type DeskReadings,
   type DeskScheduleEvent,
   type ForecastRunDto,
+  type RefitJobDto,
 } from '@morrowline/shared';
 import { useEffect, useRef, useSyncExternalStore } from 'react';
 import { io, type ManagerOptions, type Socket, type SocketOptions } from 'socket.io-client';
@@ -18,7 +19,7 @@ export interface DeskEventPayloads {
   [DESK_EVENTS.alertRaised]: AlertDto;
   [DESK_EVENTS.alertAcknowledged]: AlertDto;
   [DESK_EVENTS.forecast]: ForecastRunDto;
-  [DESK_EVENTS.refitProgress]: unknown;
+  [DESK_EVENTS.refitProgress]: RefitJobDto;
   [DESK_EVENTS.schedule]: DeskScheduleEvent;
 }
 

@@ -10,9 +10,7 @@ import { mergeJobs } from '../model/refit-jobs';
  */
 export function useRefitProgress(socket: DeskSocket = deskSocket): void {
   const queryClient = useQueryClient();
-  useDeskEvent(DESK_EVENTS.refitProgress, (payload) => {
-    // lib/desk-socket.ts still types this event as unknown; the server sends a RefitJobDto.
-    const job = payload as RefitJobDto;
+  useDeskEvent(DESK_EVENTS.refitProgress, (job) => {
     const before = queryClient.getQueryData<RefitJobDto[]>(refitJobsKey)?.find((j) => j.id === job.id);
     queryClient.setQueryData<RefitJobDto[]>(refitJobsKey, (list) => mergeJobs(list ?? [], job));
     if (job.state === 'done' && before?.state !== 'done') void queryClient.invalidateQueries({ queryKey: modelVersionsKey(job.zone) });
