@@ -1,4 +1,5 @@
 import { Badge, Tooltip } from '@mantine/core';
+import { DateTime } from 'luxon';
 import { useEffect, useState } from 'react';
 import { formatDateTime } from '../../../lib/format';
 import { gateCountdown } from '../model/countdown';
@@ -23,8 +24,8 @@ export function GateCountdownBadge({ gateClosureAt, timeZone, clockOffsetMs }: {
   const color = countdown.closed ? 'slate' : countdown.urgent ? 'ember' : 'tide';
   return (
     <Tooltip label={`Gate closure ${formatDateTime(gateClosureAt, timeZone)} (${timeZone})`}>
-      <Badge color={color} variant={countdown.urgent ? 'filled' : 'light'} size="lg" data-testid="gate-countdown" data-urgent={countdown.urgent}>
-        {countdown.text} · {formatDateTime(gateClosureAt, timeZone).slice(11)} local
+      <Badge color={color} variant={countdown.urgent ? 'filled' : 'light'} size="lg" tt="none" data-testid="gate-countdown" data-urgent={countdown.urgent}>
+        {countdown.text} · gate {DateTime.fromISO(gateClosureAt, { zone: timeZone }).toFormat('ccc dd LLL HH:mm')} local
       </Badge>
     </Tooltip>
   );
