@@ -42,6 +42,11 @@ npm run -s build >/dev/null || die "build failed; run 'npm run build' to see why
 
 (cd server && node dist/database/manage.js migrate && node dist/database/manage.js seed) || die "database set-up failed"
 
+# The local SMTP fake: publication e-mails land as JSON files in .data/mail/dev.
+export SMTP_PORT="${SMTP_PORT:-2525}"
+setsid node scripts/smtp-fake.mjs --port "$SMTP_PORT" --dir "$ROOT/.data/mail/dev" >"$ROOT/.data/smtp-fake.log" 2>&1 &
+pids+=($!)
+
 setsid node server/dist/main.js >"$ROOT/.data/server.log" 2>&1 &
 pids+=($!)
 for _ in $(seq 1 60); do curl -fs "http://127.0.0.1:$PORT/api/health" >/dev/null && break; sleep 0.5; done
@@ -61,6 +66,7 @@ cat <<MSG
   API documentation:      http://127.0.0.1:$PORT/api/docs
   Meter-feed simulator:   $sim
   Server log:             .data/server.log
+  Publication e-mails:    .data/mail/dev (local SMTP fake on 127.0.0.1:$SMTP_PORT)
 
   Demo logins (Tallowmere Valley Electric Cooperative, invented):
 $(node -e "for (const u of require('./shared/dist/demo-scenario').DEMO_USERS) console.log('    ' + u.role.padEnd(11) + u.email.padEnd(36) + u.password)")

@@ -51,6 +51,10 @@ if want simulators; then
 fi
 
 if want integration || want e2e; then
+  # The SMTP fake the schedule publication tests read their e-mails from.
+  export SMTP_PORT="${TEST_SMTP_PORT:-2526}" MAIL_FAKE_DIR="$ROOT/.data/mail/test"
+  node scripts/smtp-fake.mjs --port "$SMTP_PORT" --dir "$MAIL_FAKE_DIR" >"$reports/smtp-fake.log" 2>&1 &
+  pids+=($!)
   bash scripts/db.sh start test "$TEST_DB_PORT" || die "test MariaDB did not start"
   bash scripts/db.sh reset test "$TEST_DB_PORT" || die "could not reset the test database"
 fi

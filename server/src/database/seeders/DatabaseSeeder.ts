@@ -3,6 +3,7 @@ import { Seeder } from '@mikro-orm/seeder';
 import { DEMO_TIME_ZONE, DEMO_USERS, DEMO_ZONES } from '@morrowline/shared';
 import { AuditEntry } from '../../audit/entities/audit-entry.entity';
 import { hashPassword } from '../../auth/password';
+import { seedDemoSubscribers } from '../../schedules/demo-subscribers';
 import { User } from '../../users/entities/user.entity';
 import { Zone } from '../../zones/entities/zone.entity';
 
@@ -12,6 +13,8 @@ import { Zone } from '../../zones/entities/zone.entity';
  */
 export class DatabaseSeeder extends Seeder {
   async run(em: EntityManager): Promise<void> {
+    // Its own idempotent step, so databases seeded before schedules existed get the subscribers too.
+    await seedDemoSubscribers(em);
     if ((await em.count(User, {})) > 0) return;
     for (const demo of DEMO_USERS) {
       em.create(User, {
