@@ -1,0 +1,72 @@
+import { Box, Text } from '@mantine/core';
+import { useElementSize } from '@mantine/hooks';
+import { useMemo } from 'react';
+import uPlot from 'uplot';
+import UplotReact from 'uplot-react';
+import 'uplot/dist/uPlot.min.css';
+
+/** Literal colours (uPlot draws on canvas): model in teal, schedule in amber. */
+export const ACCURACY_COLORS = { model: '#0f7683', schedule: '#d16700', grid: 'rgba(132,152,177,0.25)', axis: '#6682a3' } as const;
+const MONO = '11px "JetBrains Mono", ui-monospace, monospace';
+
+interface BarChartProps {
+  title: string;
+  /** x values, then one array per series. */
+  data: [number[], ...(number | null)[][]];
+  series: { label: string; color: string }[];
+  /** Label of an x value on the axis and in the legend. */
+  xLabel: (x: number) => string;
+  unit: string;
+  height?: number;
+  testId?: string;
+  caption?: string;
+}
+
+/** Grouped bars, one group per x value (days or hours ending), sized to the container's width. */
+export function BarChart({ title, data, series, xLabel, unit, height = 240, testId, caption }: BarChartProps) {
+  const { ref, width } = useElementSize();
+  const options = useMemo<uPlot.Options>(() => {
+    const groups = series.length;
+    const axis = (extra: Partial<uPlot.Axis>): uPlot.Axis => ({ stroke: ACCURACY_COLORS.axis, grid: { stroke: ACCURACY_COLORS.grid, width: 1 }, ticks: { stroke: ACCURACY_COLORS.grid, width: 1 }, font: MONO, ...extra });
+    return {
+      width: Math.max(240, Math.floor(width)),
+      height,
+      scales: { x: { time: false, range: (_u, min, max) => [min - 0.6, max + 0.6] } },
+      legend: { show: true },
+      cursor: { drag: { x: false, y: false } },
+      series: [
+        { label: 'x', value: (_u, v) => (v == null ? '' : xLabel(v)) },
+        ...series.map((s, i) => ({
+          label: s.label,
+          stroke: s.color,
+          fill: `${s.color}cc`,
+          fillTo: 0,
+          width: 1,
+          points: { show: false },
+          // Side by side: each series' bars start at x − 0.4 + i × width (x-scale units).
+          paths: uPlot.paths.bars!({ disp: { x0: { unit: 1, values: (u: uPlot) => (u.data[0] as number[]).map((x) => x - 0.4 + (i * 0.8) / groups) }, size: { unit: 1, values: () => [0.8 / groups] } } as never }),
+          value: (_u: uPlot, v: number | null) => (v == null ? '—' : `${v.toFixed(2)} ${unit}`),
+        })),
+      ],
+      axes: [
+        axis({ values: (_u, splits) => splits.map((v) => (Number.isInteger(v) && v >= data[0][0] && v <= data[0][data[0].length - 1] ? xLabel(v) : '')), incrs: [1, 2, 3, 4, 6, 7, 14] }),
+        axis({ size: 64, label: unit, labelSize: 14, values: (_u, splits) => splits.map((v) => v.toFixed(1)) }),
+      ],
+    };
+  }, [width, height, series, xLabel, unit, data]);
+  return (
+    <Box data-testid={testId} role="figure" aria-label={title}>
+      <Text size="sm" fw={600} mb={4}>
+        {title}
+      </Text>
+      <Box ref={ref} style={{ minHeight: height }}>
+        {width > 0 && <UplotReact options={options} data={data as uPlot.AlignedData} />}
+      </Box>
+      {caption && (
+        <Text size="xs" c="dimmed" mt={2}>
+          {caption}
+        </Text>
+      )}
+    </Box>
+  );
+}

@@ -1,0 +1,41 @@
+import { Table } from '@mantine/core';
+import type { AccuracyZoneDto } from '@morrowline/shared';
+import { dayStatus, signedMw } from '../model/accuracy-data';
+
+const pct = (v: number | null | undefined) => (v === null || v === undefined ? '—' : `${v.toFixed(2)} %`);
+
+/** Every day of the range, scored or not, with why not. */
+export function DayTable({ subject }: { subject: AccuracyZoneDto }) {
+  return (
+    <Table.ScrollContainer minWidth={820}>
+      <Table striped withTableBorder fz="sm" data-testid="accuracy-days" aria-label="Accuracy per day">
+        <Table.Thead>
+          <Table.Tr>
+            <Table.Th>Operating day</Table.Th>
+            <Table.Th ta="right">Model MAPE</Table.Th>
+            <Table.Th ta="right">Schedule MAPE</Table.Th>
+            <Table.Th ta="right">Model bias</Table.Th>
+            <Table.Th ta="right">Model peak error</Table.Th>
+            <Table.Th>Peak hour</Table.Th>
+            <Table.Th ta="right">Schedule − model</Table.Th>
+            <Table.Th>Notes</Table.Th>
+          </Table.Tr>
+        </Table.Thead>
+        <Table.Tbody ff="monospace">
+          {subject.days.map((d) => (
+            <Table.Tr key={d.operatingDay}>
+              <Table.Td>{d.operatingDay}</Table.Td>
+              <Table.Td ta="right">{pct(d.model?.score?.mape)}</Table.Td>
+              <Table.Td ta="right">{pct(d.schedule?.score?.mape)}</Table.Td>
+              <Table.Td ta="right">{signedMw(d.model?.score?.bias)}</Table.Td>
+              <Table.Td ta="right">{signedMw(d.model?.score?.peakErrorMw)}</Table.Td>
+              <Table.Td>{d.model?.peakHourEnding ?? d.schedule?.peakHourEnding ?? '—'}</Table.Td>
+              <Table.Td ta="right">{d.adjustmentEffect === null ? '—' : `${d.adjustmentEffect > 0 ? '+' : d.adjustmentEffect < 0 ? '−' : ''}${Math.abs(d.adjustmentEffect).toFixed(2)} pts`}</Table.Td>
+              <Table.Td ff="text">{dayStatus(d)}</Table.Td>
+            </Table.Tr>
+          ))}
+        </Table.Tbody>
+      </Table>
+    </Table.ScrollContainer>
+  );
+}
