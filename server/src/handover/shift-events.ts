@@ -4,7 +4,7 @@ import type { AuditEntryDto, ShiftEventDto } from '@morrowline/shared';
  * Which audit actions belong in a shift's handover: what happened to the load, the models and
  * the schedules. Sign-ins and administration stay in the audit trail only.
  */
-export const SHIFT_EVENT_PREFIXES = ['alert.', 'outage.', 'exclusion.', 'refit.', 'model.', 'forecast.', 'schedule.', 'readings.', 'history.', 'feed.'] as const;
+export const SHIFT_EVENT_PREFIXES = ['alert.', 'outage.', 'exclusion.', 'refit.', 'model.', 'forecast.', 'schedule.', 'readings.', 'history.', 'feed-key.'] as const;
 
 const PHRASES: Record<string, string> = {
   'alert.raise': 'Deviation alert raised',
@@ -23,6 +23,11 @@ const PHRASES: Record<string, string> = {
   'schedule.approve': 'Schedule approved',
   'schedule.publish': 'Schedule published',
   'schedule.return': 'Schedule returned',
+  'schedule.draft': 'Schedule draft started',
+  'schedule.adjust': 'Schedule adjusted',
+  'schedule.adjust-undo': 'Schedule adjustment undone',
+  'schedule.correction': 'Schedule correction started',
+  'schedule.mail-failed': 'Publication e-mail failed',
   'readings.upload': 'History uploaded',
 };
 
