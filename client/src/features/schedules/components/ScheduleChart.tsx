@@ -68,7 +68,7 @@ export function ScheduleChart({ rows, title }: { rows: readonly ScheduleRow[]; t
           stroke: SCHEDULE_COLORS.axis,
           grid: { stroke: SCHEDULE_COLORS.grid },
           ticks: { stroke: SCHEDULE_COLORS.grid },
-          splits: () => labels.map((_, i) => i).filter((i) => (i + 1) % every === 0 || i === 0),
+          splits: () => labels.map((_, i) => i).filter((i) => (i + 1) % every === 0),
           values: (_u, splits) => splits.map((i) => labels[i] ?? ''),
         },
         { stroke: SCHEDULE_COLORS.axis, grid: { stroke: SCHEDULE_COLORS.grid }, ticks: { stroke: SCHEDULE_COLORS.grid }, label: 'MW', size: 60 },
