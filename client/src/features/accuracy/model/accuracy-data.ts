@@ -5,7 +5,7 @@ import { DateTime } from 'luxon';
 export type Range = [string | null, string | null];
 
 /** The last 14 complete operating days before today, in a zone's time zone. */
-export function defaultRange(timeZone: string, now = DateTime.now()): [string, string] {
+export function defaultRange(timeZone: string, now: DateTime = DateTime.now()): [string, string] {
   const today = now.setZone(timeZone).startOf('day');
   return [today.minus({ days: 14 }).toISODate()!, today.minus({ days: 1 }).toISODate()!];
 }
