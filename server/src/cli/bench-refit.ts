@@ -1,6 +1,7 @@
 /**
  * Refit benchmark (`npm run bench:refit`): the nightly full refit (differencing and order
- * selection, the 7-day scoring backtest, the forecast) through the server's own compute pool,
+ * selection, the 7-day scoring backtest, the forecast) through the server's own batch pool
+ * (`ComputeService.runBatch`, `COMPUTE_BATCH_THREADS`, default one thread per core),
  * engine only — no database: the histories are synthesised in memory with the daily and weekly
  * cycles, noise and the odd missing hour of the demo zones.
  *   1. the five demo zones of the Tallowmere Valley Electric Cooperative;
@@ -37,7 +38,7 @@ async function refitAll(compute: ComputeService, zones: { seed: number; peakMw: 
   let done = 0;
   await Promise.all(
     zones.map(async (z) => {
-      const r = await compute.run('models.refit', { values: synthesise(z.seed, z.peakMw, hours), excluded: [], horizon, inService: null, backtestDays: 7 });
+      const r = await compute.runBatch('models.refit', { values: synthesise(z.seed, z.peakMw, hours), excluded: [], horizon, inService: null, backtestDays: 7 });
       if (!r.forecast.mean.every((v) => Number.isFinite(v) && v >= 0)) throw new Error(`zone ${z.seed}: a forecast value is not a load`);
       done++;
       onDone?.(done, performance.now() - t0);
@@ -49,7 +50,7 @@ async function refitAll(compute: ComputeService, zones: { seed: number; peakMw: 
 async function main(): Promise<void> {
   const compute = new ComputeService();
   try {
-    console.log(`refit benchmark: compute pool of ${compute.size} worker thread(s), engine only (histories synthesised in memory, no database)\n`);
+    console.log(`refit benchmark: the nightly batch pool of ${compute.batchSize} worker thread(s) (interactive pool: ${compute.size}), engine only (histories synthesised in memory, no database)\n`);
     // warm the threads (module load, JIT) so the first case is not charged for it
     await refitAll(compute, [{ seed: 999, peakMw: 200 }], 4 * 168);
 

@@ -1,5 +1,5 @@
 import { threadId } from 'node:worker_threads';
-import { ComputeService, poolSize, workerFilename } from './compute.service';
+import { batchPoolSize, ComputeService, poolSize, workerFilename } from './compute.service';
 
 describe('compute pool', () => {
   const compute = new ComputeService();
@@ -9,6 +9,21 @@ describe('compute pool', () => {
     expect(poolSize(1)).toBe(1);
     expect(poolSize(2)).toBe(1);
     expect(poolSize(8)).toBe(7);
+  });
+
+  it('takes the thread counts from COMPUTE_THREADS and COMPUTE_BATCH_THREADS, the batch one per core by default', () => {
+    expect(poolSize(2, { COMPUTE_THREADS: '2' })).toBe(2);
+    expect(batchPoolSize(2, {})).toBe(2);
+    expect(batchPoolSize(1, {})).toBe(1);
+    expect(batchPoolSize(8, { COMPUTE_BATCH_THREADS: '3' })).toBe(3);
+    expect(() => poolSize(2, { COMPUTE_THREADS: '0' })).toThrow(/positive integer/);
+    expect(() => batchPoolSize(2, { COMPUTE_BATCH_THREADS: 'all' })).toThrow(/positive integer/);
+  });
+
+  it('runs a batch task in the batch pool, off the calling thread', async () => {
+    const result = await compute.runBatch('compute.echo', { value: 7 });
+    expect(result.value).toBe(7);
+    expect(result.threadId).not.toBe(threadId);
   });
 
   it('loads the TypeScript worker through the tsx bootstrap when run from source', () => {

@@ -13,7 +13,7 @@
  */
 import { accuracy, Accuracy } from './metrics';
 import { IntervalForecast } from './forecast';
-import { ModelChoice, PipelineOptions, runPipeline } from './pipeline';
+import { ModelChoice, ModelSummary, PipelineOptions, runPipeline } from './pipeline';
 import { seasonalNaive } from './seasonal-naive';
 import { withExcluded } from './series';
 
@@ -83,6 +83,7 @@ export function backtest(values: ArrayLike<number>, o: BacktestOptions): Backtes
   const out: BacktestDay[] = [];
   let fixed: ModelChoice | undefined = typeof method === 'object' ? method : undefined;
   let sinceSelect = Infinity;
+  let warm: ModelChoice['start'];
   const every = Math.max(1, o.reselectEveryDays ?? 7);
   for (const [ds, de] of target) {
     const prevIdx = days.findIndex((d) => d[0] === ds) - 1;
@@ -113,7 +114,12 @@ export function backtest(values: ArrayLike<number>, o: BacktestOptions): Backtes
       model = 'seasonal naive';
     } else {
       const useFixed = typeof method === 'object' || (fixed && sinceSelect < every);
-      const r = runPipeline({ history: hist, horizon: h, options: { ...o.pipeline, fixed: useFixed ? fixed : undefined } });
+      // with the orders fixed, each day's fit starts from the previous day's coefficients (one
+      // more day of data moves the optimum little, so BFGS needs a few iterations instead of a
+      // few dozen); the forecasts are scored only, so no standard errors are computed
+      const fixedNow = useFixed && fixed ? { ...fixed, start: fixed.start ?? warm } : undefined;
+      const r = runPipeline({ history: hist, horizon: h, options: { ...o.pipeline, computeSe: false, fixed: fixedNow } });
+      warm = useFixed && r.model && fixed && sameOrders(r.model, fixed) ? startOf(r.model) : undefined;
       if (method === 'auto' && !useFixed) {
         sinceSelect = 0;
         fixed = r.model ? { diff: r.model.diff, p: r.model.p, q: r.model.q } : undefined;
@@ -162,4 +168,14 @@ export function backtest(values: ArrayLike<number>, o: BacktestOptions): Backtes
       maxFitMs: fits.length ? Math.max(...fits) : 0,
     },
   };
+}
+
+function sameOrders(m: ModelSummary, c: ModelChoice): boolean {
+  return m.p === c.p && m.q === c.q && m.P === (c.P ?? 0) && m.Q === (c.Q ?? 0) && m.diff.length === c.diff.length && m.diff.every((d, i) => d === c.diff[i]);
+}
+
+/** The fitted coefficients of a model summary as starting values for the next fit. */
+function startOf(m: ModelSummary): ModelChoice['start'] {
+  const pick = (prefix: string, k: number): number[] => Array.from({ length: k }, (_, i) => m.coefficients.find((c) => c.name === `${prefix}${i + 1}`)?.value ?? 0);
+  return { ar: pick('ar', m.p), ma: pick('ma', m.q), sar: pick('sar', m.P), sma: pick('sma', m.Q) };
 }

@@ -52,6 +52,9 @@ export interface PipelineOptions {
   fixed?: ModelChoice;
   /** exact-ML fits per differencing after the Hannan–Rissanen screening (default 4; 0 = all) */
   screen?: number;
+  /** standard errors of the final fit (default true; a backtest that only scores forecasts
+   *  skips the Hessian) */
+  computeSe?: boolean;
   /** hide the model if it loses to seasonal naive on the selection days (default true) */
   requireBeatBaseline?: boolean;
 }
@@ -155,7 +158,7 @@ export function runPipeline(input: PipelineInput): PipelineResult {
   let fit: ArimaFit;
   try {
     const { start, ...spec } = choice;
-    fit = fitArima(y, { ...spec, includeMean: choice.includeMean ?? false }, { start });
+    fit = fitArima(y, { ...spec, includeMean: choice.includeMean ?? false }, { start, computeSe: o.computeSe ?? true });
   } catch (e) {
     return naive(`the ARMA fit failed: ${(e as Error).message}`);
   }
@@ -225,6 +228,7 @@ function chooseModel(
         computeSe: false,
         screen: o.screen ?? 4,
         maxIter: 80,
+        fTol: 1e-9,
       });
       const base: ArimaFit = { diff, arma: sel.best, filled: new Float64Array(0), filledCount: 0 };
       let sum = 0;

@@ -25,6 +25,8 @@ export interface SelectOptions {
    */
   screen?: number;
   maxIter?: number;
+  /** relative-decrease stopping rule of the candidates' BFGS (see FitOptions.fTol) */
+  fTol?: number;
 }
 
 export interface CandidateScore {
@@ -87,7 +89,7 @@ export function selectOrder(x: ArrayLike<number>, opts: SelectOptions = {}): Sel
   for (const [p, q] of orders) {
     {
       try {
-        const f = fitArma(x, { p, q, P: opts.P, Q: opts.Q, period: opts.period, includeMean: opts.includeMean ?? false }, { computeSe: false, maxIter: opts.maxIter });
+        const f = fitArma(x, { p, q, P: opts.P, Q: opts.Q, period: opts.period, includeMean: opts.includeMean ?? false }, { computeSe: false, maxIter: opts.maxIter, fTol: opts.fTol });
         const ok = Number.isFinite(f.loglik);
         candidates.push({ p, q, loglik: f.loglik, aic: f.aic, aicc: f.aicc, bic: f.bic, ok });
         if (ok && (!best || f[criterion] < best[criterion])) best = f;

@@ -11,7 +11,7 @@ import { DeskGateway } from '../desk/desk.gateway';
 import { forecastHorizon } from '../forecasts/forecast-horizon';
 import { ForecastsService } from '../forecasts/forecasts.service';
 import { Zone } from '../zones/entities/zone.entity';
-import { REFIT_BACKTEST_DAYS, type RefitResult } from './analysis/refit';
+import { REFIT_BACKTEST_DAYS, type RefitPayload, type RefitResult } from './analysis/refit';
 import { ModelVersion } from './entities/model-version.entity';
 import { RefitJob } from './entities/refit-job.entity';
 import { choiceOf, toRefitJobDto } from './model-dto';
@@ -214,14 +214,17 @@ export class RefitsService implements OnApplicationBootstrap, OnApplicationShutd
       if (!history) throw new Error(`zone ${zone.code} has no readings yet`);
       const horizon = forecastHorizon(history.lastHourMs, zone.timeZone);
       await this.step(job, 20, job.mode === 'full' ? 'choosing the differencing and ARMA orders' : 'refitting with the orders kept');
-      const result = await this.compute.run('models.refit', {
+      const payload: RefitPayload = {
         values: history.values,
         excluded: history.excluded,
         horizon,
         fixed: job.mode === 'update' && inService ? choiceOf(inService) : undefined,
         inService: job.mode === 'full' && inService ? choiceOf(inService) : null,
         backtestDays: REFIT_BACKTEST_DAYS,
-      });
+      };
+      // the nightly batch may use every core (the batch pool); a refit someone waits for runs in the ordinary pool
+      const nightly = job.trigger === 'schedule' && job.mode === 'full';
+      const result = nightly ? await this.compute.runBatch('models.refit', payload) : await this.compute.run('models.refit', payload);
       await this.step(job, 85, 'storing the model version and forecast');
       await this.finish(job, history, result, inService?.id ?? null, Date.now() - started);
     } catch (error) {

@@ -81,6 +81,13 @@ export interface FitOptions {
   start?: { ar?: ArrayLike<number>; ma?: ArrayLike<number>; sar?: ArrayLike<number>; sma?: ArrayLike<number> };
   /** steady-state tolerance of the filter */
   tol?: number;
+  /**
+   * BFGS stops when one step lowers the objective (−log L / n) by less than this relative
+   * amount (default 1e-13). Order selection uses a looser value: it compares log-likelihoods
+   * to about 0.01, and an overparameterised candidate on a flat ridge otherwise spends dozens of
+   * iterations on the last digits.
+   */
+  fTol?: number;
 }
 
 export function normalizeSpec(spec: ArmaSpec): Required<ArmaSpec> {
@@ -166,7 +173,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
     if (!(f.ssq > 0)) return Infinity;
     return 0.5 * Math.log(f.ssq / f.nUsed) + (0.5 * f.sumLogF) / f.nUsed;
   };
-  const opt = minimizeBfgs(objective, u0, { maxIter: opts.maxIter ?? 200, gradTol: 1e-7, fTol: 1e-13, step: 1e-6 });
+  const opt = minimizeBfgs(objective, u0, { maxIter: opts.maxIter ?? 200, gradTol: 1e-7, fTol: opts.fTol ?? 1e-13, step: 1e-6 });
   const nat = fromUnconstrained(opt.x, o);
   const ss = stateSpaceOf(nat, s);
   const prof = kalmanFilter(x, ss, { profileMean: o.includeMean, tol });

@@ -39,23 +39,35 @@ export interface FilterResult {
   PPred?: Float64Array;
 }
 
-export function kalmanFilter(x: ArrayLike<number>, ss: ArmaStateSpace, opts: FilterOptions = {}): FilterResult {
-  const { r, phi, R } = ss;
+export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts: FilterOptions = {}): FilterResult {
+  const { r, phi: phiIn, R } = ss;
+  // The loop below sees only Float64Arrays and booleans: an optional output that is sometimes
+  // undefined and sometimes an array makes V8 deoptimise the loop over and over, until it stops
+  // optimising it at all (that alone made the filter several times slower).
+  const x: Float64Array = series instanceof Float64Array ? series : Float64Array.from(series);
   const n = x.length;
   const tol = opts.tol ?? 1e-10;
   const profile = opts.mean === undefined && !!opts.profileMean;
   const mu0 = opts.mean ?? 0;
-  let P: Float64Array = stationaryCovariance(ss);
-  let Pn: Float64Array = new Float64Array(r * r);
-  const Pf = new Float64Array(r * r);
-  const a = new Float64Array(r);
-  const af = new Float64Array(r);
-  const c = new Float64Array(r); // state of the filtered column of ones (profile mean)
-  const cf = new Float64Array(r);
-  const M = new Float64Array(r);
-  const RR = new Float64Array(r * r);
-  for (let i = 0; i < r; i++) for (let j = 0; j < r; j++) RR[i * r + j] = R[i] * R[j];
-  const K = new Float64Array(r);
+  // Everything below is stored with one row and column of zero padding (stride s = r + 1), so
+  // the shift structure of T (ones on the superdiagonal) needs no bounds tests: element r of a
+  // vector and row / column r of a matrix are always zero. Only the upper triangle (j ≥ i) of
+  // the symmetric covariances is kept; P's first column is read from its first row.
+  const s = r + 1;
+  const phi = new Float64Array(s);
+  for (let i = 0; i < r; i++) phi[i] = phiIn[i];
+  let P = new Float64Array(s * s);
+  let Pn = new Float64Array(s * s);
+  {
+    const P0 = stationaryCovariance(ss);
+    for (let i = 0; i < r; i++) for (let j = i; j < r; j++) P[i * s + j] = P0[i * r + j];
+  }
+  const RR = new Float64Array(s * s);
+  for (let i = 0; i < r; i++) for (let j = i; j < r; j++) RR[i * s + j] = R[i] * R[j];
+  const a = new Float64Array(s); // a[r] stays 0
+  const c = new Float64Array(s); // state of the filtered column of ones (profile mean)
+  const K = new Float64Array(s); // gain P[·,0]/F; K[r] stays 0
+  const g = new Float64Array(s); // T P[·,0]
   let steady = false;
   let Fss = 0;
   let logFss = 0;
@@ -65,88 +77,123 @@ export function kalmanFilter(x: ArrayLike<number>, ss: ArmaStateSpace, opts: Fil
   let nUsed = 0;
   let sxy = 0;
   let sxx = 0;
-  const res = opts.residuals;
-  const pred = opts.predictions;
-  // innovations for the profile-mean case are stored temporarily to rebuild residuals later
+  const wantRes = opts.residuals !== undefined;
+  const wantPred = opts.predictions !== undefined;
+  const res: Float64Array = opts.residuals ?? new Float64Array(0);
+  const pred: Float64Array = opts.predictions ?? new Float64Array(0);
+  // likelihood only, small state: the steady-state stretches take the scalar loop below
+  const fast = r <= 4 && !profile && !wantRes && !wantPred;
+  const p0 = phi[0];
+  const p1 = r > 1 ? phi[1] : 0;
+  const p2 = r > 2 ? phi[2] : 0;
+  const p3 = r > 3 ? phi[3] : 0;
+  let k0 = 0;
+  let k1 = 0;
+  let k2 = 0;
+  let k3 = 0;
   for (let t = 0; t < n; t++) {
     const yt = x[t] - mu0;
     const observed = yt === yt;
-    if (pred) pred[t] = a[0] + mu0;
+    if (wantPred) pred[t] = a[0] + mu0;
+    if (steady && observed && fast) {
+      // the steady-state recursion with the state in local scalars, run until the next missing
+      // value (states beyond r stay zero because φ and K are zero-padded)
+      let a0 = a[0];
+      let a1 = a[1];
+      let a2 = r > 2 ? a[2] : 0;
+      let a3 = r > 3 ? a[3] : 0;
+      let sv = 0;
+      let m = 0;
+      let u = t;
+      for (; u < n; u++) {
+        const yu = x[u] - mu0;
+        if (!(yu === yu)) break;
+        const v = yu - a0;
+        sv += v * v;
+        m++;
+        const af0 = a0 + k0 * v;
+        a0 = p0 * af0 + a1 + k1 * v;
+        a1 = p1 * af0 + a2 + k2 * v;
+        a2 = p2 * af0 + a3 + k3 * v;
+        a3 = p3 * af0;
+      }
+      a[0] = a0;
+      if (r > 1) a[1] = a1;
+      if (r > 2) a[2] = a2;
+      if (r > 3) a[3] = a3;
+      ssq += sv / Fss;
+      sumLogF += m * logFss;
+      nUsed += m;
+      t = u - 1;
+      continue;
+    }
     if (steady && observed) {
       const v = yt - a[0];
-      ssq += (v * v) / Fss;
+      const vf = v / Fss;
+      ssq += v * vf;
       sumLogF += logFss;
       nUsed++;
-      if (res) res[t] = v / Math.sqrt(Fss);
-      for (let i = 0; i < r; i++) af[i] = a[i] + K[i] * v;
-      const a0 = af[0];
-      for (let i = 0; i < r - 1; i++) a[i] = phi[i] * a0 + af[i + 1];
-      a[r - 1] = phi[r - 1] * a0;
+      if (wantRes) res[t] = v / Math.sqrt(Fss);
+      // a ← T (a + K v), in place (a[i + 1] is read before it is overwritten)
+      const af0 = a[0] + K[0] * v;
+      for (let i = 0; i < r; i++) a[i] = phi[i] * af0 + a[i + 1] + K[i + 1] * v;
       if (profile) {
         const v1 = 1 - c[0];
-        sxy += (v * v1) / Fss;
+        sxy += v1 * vf;
         sxx += (v1 * v1) / Fss;
-        for (let i = 0; i < r; i++) cf[i] = c[i] + K[i] * v1;
-        const c0 = cf[0];
-        for (let i = 0; i < r - 1; i++) c[i] = phi[i] * c0 + cf[i + 1];
-        c[r - 1] = phi[r - 1] * c0;
+        const cf0 = c[0] + K[0] * v1;
+        for (let i = 0; i < r; i++) c[i] = phi[i] * cf0 + c[i + 1] + K[i + 1] * v1;
       }
       continue;
     }
+    let ginv = 0; // 1/F when observed (the update's rank-one term), 0 when missing
+    const p00 = P[0];
     if (observed) {
-      const F = P[0];
+      const F = p00;
+      ginv = 1 / F;
       const v = yt - a[0];
-      ssq += (v * v) / F;
+      const vf = v * ginv;
+      ssq += v * vf;
       sumLogF += Math.log(F);
       nUsed++;
-      if (res) res[t] = v / Math.sqrt(F);
-      for (let i = 0; i < r; i++) M[i] = P[i * r];
-      const vf = v / F;
-      for (let i = 0; i < r; i++) af[i] = a[i] + M[i] * vf;
-      for (let i = 0; i < r; i++) {
-        const mi = M[i] / F;
-        const row = i * r;
-        for (let j = 0; j < r; j++) Pf[row + j] = P[row + j] - mi * M[j];
-      }
+      if (wantRes) res[t] = v / Math.sqrt(F);
+      const af0 = a[0] + p00 * vf;
+      for (let i = 0; i < r; i++) a[i] = phi[i] * af0 + a[i + 1] + P[i + 1] * vf;
       if (profile) {
         const v1 = 1 - c[0];
-        sxy += (v * v1) / F;
-        sxx += (v1 * v1) / F;
-        const v1f = v1 / F;
-        for (let i = 0; i < r; i++) cf[i] = c[i] + M[i] * v1f;
+        sxy += v1 * vf;
+        sxx += v1 * v1 * ginv;
+        const v1f = v1 * ginv;
+        const cf0 = c[0] + p00 * v1f;
+        for (let i = 0; i < r; i++) c[i] = phi[i] * cf0 + c[i + 1] + P[i + 1] * v1f;
       }
     } else {
-      if (res) res[t] = NaN;
-      af.set(a);
-      Pf.set(P);
-      if (profile) cf.set(c);
+      if (wantRes) res[t] = NaN;
+      // a ← T a
+      const a0 = a[0];
+      for (let i = 0; i < r; i++) a[i] = phi[i] * a0 + a[i + 1];
+      if (profile) {
+        const c0 = c[0];
+        for (let i = 0; i < r; i++) c[i] = phi[i] * c0 + c[i + 1];
+      }
       steady = false;
     }
-    // prediction step: a = T af, P = T Pf T' + R R'
-    const a0 = af[0];
-    for (let i = 0; i < r - 1; i++) a[i] = phi[i] * a0 + af[i + 1];
-    a[r - 1] = phi[r - 1] * a0;
-    if (profile) {
-      const c0 = cf[0];
-      for (let i = 0; i < r - 1; i++) c[i] = phi[i] * c0 + cf[i + 1];
-      c[r - 1] = phi[r - 1] * c0;
-    }
-    const p00 = Pf[0];
+    // P ← T (P − P[·,0] P[0,·]/F) T' + R R' = T P T' − g g'/F + R R', g = T P[·,0]
+    for (let i = 0; i < r; i++) g[i] = phi[i] * p00 + P[i + 1];
     let change = 0;
     for (let i = 0; i < r; i++) {
       const phii = phi[i];
-      const hasI = i + 1 < r;
+      const p0i = P[i + 1];
+      const gi = g[i] * ginv;
+      const rowN = i * s;
+      const rowP = (i + 1) * s + 1;
       for (let j = i; j < r; j++) {
         const phij = phi[j];
-        const hasJ = j + 1 < r;
-        let s = phii * phij * p00 + RR[i * r + j];
-        if (hasJ) s += phii * Pf[j + 1];
-        if (hasI) s += phij * Pf[(i + 1) * r];
-        if (hasI && hasJ) s += Pf[(i + 1) * r + j + 1];
-        Pn[i * r + j] = s;
-        Pn[j * r + i] = s;
-        const d = Math.abs(s - P[i * r + j]);
+        const v = phii * (phij * p00 + P[j + 1]) + phij * p0i + P[rowP + j] + RR[rowN + j] - gi * g[j];
+        Pn[rowN + j] = v;
+        const d = v - P[rowN + j];
         if (d > change) change = d;
+        else if (-d > change) change = -d;
       }
     }
     const tmp = P;
@@ -157,7 +204,11 @@ export function kalmanFilter(x: ArrayLike<number>, ss: ArmaStateSpace, opts: Fil
       steadyAt = t;
       Fss = P[0];
       logFss = Math.log(Fss);
-      for (let i = 0; i < r; i++) K[i] = P[i * r] / Fss;
+      for (let i = 0; i < r; i++) K[i] = P[i] / Fss;
+      k0 = K[0];
+      k1 = K[1];
+      k2 = r > 2 ? K[2] : 0;
+      k3 = r > 3 ? K[3] : 0;
     }
   }
   let mean = mu0;
@@ -168,10 +219,17 @@ export function kalmanFilter(x: ArrayLike<number>, ss: ArmaStateSpace, opts: Fil
   }
   const out: FilterResult = { ssq, sumLogF, nUsed, mean, steadyAt };
   if (opts.keepState) {
-    const aOut = Float64Array.from(a);
-    if (profile) for (let i = 0; i < r; i++) aOut[i] -= mean * c[i];
+    const aOut = new Float64Array(r);
+    for (let i = 0; i < r; i++) aOut[i] = a[i] - (profile ? mean * c[i] : 0);
     out.aPred = aOut;
-    out.PPred = Float64Array.from(P);
+    const POut = new Float64Array(r * r);
+    for (let i = 0; i < r; i++) {
+      for (let j = i; j < r; j++) {
+        POut[i * r + j] = P[i * s + j];
+        POut[j * r + i] = P[i * s + j];
+      }
+    }
+    out.PPred = POut;
   }
   return out;
 }
