@@ -16,6 +16,8 @@ interface BarChartProps {
   series: { label: string; color: string }[];
   /** Label of an x value on the axis and in the legend. */
   xLabel: (x: number) => string;
+  /** What the x values are, in the legend ("Day", "Hour ending"). */
+  xName: string;
   unit: string;
   height?: number;
   testId?: string;
@@ -23,7 +25,7 @@ interface BarChartProps {
 }
 
 /** Grouped bars, one group per x value (days or hours ending), sized to the container's width. */
-export function BarChart({ title, data, series, xLabel, unit, height = 240, testId, caption }: BarChartProps) {
+export function BarChart({ title, data, series, xLabel, xName, unit, height = 240, testId, caption }: BarChartProps) {
   const { ref, width } = useElementSize();
   const options = useMemo<uPlot.Options>(() => {
     const groups = series.length;
@@ -31,11 +33,12 @@ export function BarChart({ title, data, series, xLabel, unit, height = 240, test
     return {
       width: Math.max(240, Math.floor(width)),
       height,
-      scales: { x: { time: false, range: (_u, min, max) => [min - 0.6, max + 0.6] } },
+      // Bars grow from zero, so the y range always includes it.
+      scales: { x: { time: false, range: (_u, min, max) => [min - 0.6, max + 0.6] }, y: { range: (_u, min, max) => [Math.min(0, min * 1.1), Math.max(0, max * 1.1) || 1] } },
       legend: { show: true },
       cursor: { drag: { x: false, y: false } },
       series: [
-        { label: 'x', value: (_u, v) => (v == null ? '' : xLabel(v)) },
+        { label: xName, value: (_u, v) => (v == null ? '' : xLabel(v)) },
         ...series.map((s, i) => ({
           label: s.label,
           stroke: s.color,
@@ -53,7 +56,7 @@ export function BarChart({ title, data, series, xLabel, unit, height = 240, test
         axis({ size: 64, label: unit, labelSize: 14, values: (_u, splits) => splits.map((v) => v.toFixed(1)) }),
       ],
     };
-  }, [width, height, series, xLabel, unit, data]);
+  }, [width, height, series, xLabel, xName, unit, data]);
   return (
     <Box data-testid={testId} role="figure" aria-label={title}>
       <Text size="sm" fw={600} mb={4}>

@@ -24,6 +24,11 @@ export function dailyMapeData(days: readonly AccuracyDayDto[]): [number[], (numb
   return [days.map((_, i) => i), days.map((d) => d.model?.score?.mape ?? null), days.map((d) => d.schedule?.score?.mape ?? null)];
 }
 
+/** Whether chart data has anything to draw besides its x values. */
+export function hasValues(data: readonly (readonly (number | null)[])[]): boolean {
+  return data.slice(1).some((values) => values.some((v) => v !== null && Number.isFinite(v)));
+}
+
 export type HourMetric = 'mae' | 'bias';
 
 /**

@@ -2,6 +2,7 @@ import { Card, Center, Group, Loader, MultiSelect, SegmentedControl, Select, Sim
 import { DatePickerInput } from '@mantine/dates';
 import type { AccuracyZoneDto } from '@morrowline/shared';
 import { useMemo, useState } from 'react';
+import { useSearchParams } from 'react-router-dom';
 import { ErrorNotice } from '../../../components/ErrorNotice';
 import { PageHeader } from '../../../components/PageHeader';
 import { useZones } from '../../zones';
@@ -10,7 +11,7 @@ import { AccuracySummary } from '../components/AccuracySummary';
 import { ACCURACY_COLORS, BarChart } from '../components/BarChart';
 import { DayTable } from '../components/DayTable';
 import { ZoneTable } from '../components/ZoneTable';
-import { chartChoices, dailyMapeData, defaultRange, hourlyData, rangeProblem, signedMw, type HourMetric, type Range } from '../model/accuracy-data';
+import { chartChoices, dailyMapeData, hasValues, defaultRange, hourlyData, rangeProblem, signedMw, type HourMetric, type Range } from '../model/accuracy-data';
 
 const SERIES = [
   { label: 'Model forecast', color: ACCURACY_COLORS.model },
@@ -24,10 +25,17 @@ function Charts({ subject }: { subject: AccuracyZoneDto }) {
   const dayLabel = useMemo(() => (x: number) => subject.days[x]?.operatingDay.slice(5) ?? '', [subject]);
   const heLabel = useMemo(() => (x: number) => `HE${String(x).padStart(2, '0')}`, []);
   const he25 = hourly.he25;
+  if (!hasValues(daily) && !hasValues(hourly.data)) {
+    return (
+      <Text size="sm" c="dimmed" data-testid="accuracy-no-charts">
+        No day in this range was scored, so there are no charts yet.
+      </Text>
+    );
+  }
   return (
     <SimpleGrid cols={{ base: 1, lg: 2 }} spacing="lg">
       <Card withBorder padding="md">
-        <BarChart title="MAPE per operating day" data={daily} series={SERIES} xLabel={dayLabel} unit="%" testId="accuracy-daily-chart" caption="A day without bars had no actuals, or no model forecast or published schedule for it (see the table below)." />
+        <BarChart title="MAPE per operating day" data={daily} series={SERIES} xLabel={dayLabel} xName="Day" unit="%" testId="accuracy-daily-chart" caption="A day without bars had no actuals, or no model forecast or published schedule for it (see the table below)." />
       </Card>
       <Card withBorder padding="md">
         <Group justify="space-between" mb={4}>
@@ -41,6 +49,7 @@ function Charts({ subject }: { subject: AccuracyZoneDto }) {
           data={hourly.data}
           series={SERIES}
           xLabel={heLabel}
+          xName="Hour ending"
           unit="MW"
           testId="accuracy-hourly-chart"
           caption={he25 ? `HE25 (the repeated hour of the autumn day, ${he25.days} day${he25.days === 1 ? '' : 's'}): model ${signedMw(he25.model[metric])}, schedule ${signedMw(he25.schedule[metric])}.` : 'HE25 occurs only on the autumn day the clocks go back; none in this range.'}
@@ -53,10 +62,26 @@ function Charts({ subject }: { subject: AccuracyZoneDto }) {
 export function AccuracyPage() {
   const zones = useZones();
   const active = useMemo(() => (zones.data ?? []).filter((z) => z.active), [zones.data]);
-  const [picked, setPicked] = useState<string[]>([]);
+  // Zones and days live in the address (?zone=A,B&from=&to=), so a view can be shared.
+  const [params, setParams] = useSearchParams();
+  const picked = useMemo(() => (params.get('zone') ?? '').split(',').filter(Boolean), [params]);
   const timeZone = active[0]?.timeZone ?? 'UTC';
-  const [range, setRange] = useState<Range | null>(null);
+  const [range, setRange] = useState<Range | null>(() => (params.get('from') && params.get('to') ? [params.get('from'), params.get('to')] : null));
   const shown: Range = range ?? defaultRange(timeZone);
+  const update = (zones: string[], r: Range) => {
+    const next = new URLSearchParams();
+    if (zones.length) next.set('zone', zones.join(','));
+    if (r[0] && r[1]) {
+      next.set('from', r[0]);
+      next.set('to', r[1]);
+    }
+    setParams(next, { replace: true });
+  };
+  const setPicked = (zones: string[]) => update(zones, shown);
+  const pickRange = (r: Range) => {
+    setRange(r);
+    if (r[0] && r[1]) update(picked, r);
+  };
   const problem = rangeProblem(shown);
   const report = useAccuracy(picked, problem ? null : shown[0], problem ? null : shown[1]);
   const [chartFor, setChartFor] = useState<string | null>(null);
@@ -85,7 +110,7 @@ export function AccuracyPage() {
               searchable
               data-testid="accuracy-zones-picker"
             />
-            <DatePickerInput type="range" label="Operating days" value={shown} onChange={(value) => setRange(value as Range)} w={260} valueFormat="YYYY-MM-DD" allowSingleDateInRange data-testid="accuracy-range" />
+            <DatePickerInput type="range" label="Operating days" value={shown} onChange={(value) => pickRange(value as Range)} w={260} valueFormat="YYYY-MM-DD" allowSingleDateInRange data-testid="accuracy-range" />
           </Group>
         }
       />

@@ -1,0 +1,94 @@
+import { DateTime } from 'luxon';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { BASE_URL, demoUser, openDesk, screenshot, signInAs, type Desk } from './support/browser';
+
+const HOUR = 3_600_000;
+const ZONE = 'COPPERLINE';
+const TIME_ZONE = 'America/Denver';
+
+/** Six weeks of Copperline load up to the last complete hour: two smelter shifts, lower Sundays. */
+function historyCsv(hours: number): string {
+  const last = Math.floor(Date.now() / HOUR) * HOUR - HOUR;
+  let seed = 77;
+  const noise = () => ((seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31 - 0.5) * 10;
+  const rows = ['timestamp,load_mw'];
+  for (let i = 0; i < hours; i++) {
+    const at = last - (hours - 1 - i) * HOUR;
+    const local = DateTime.fromMillis(at, { zone: TIME_ZONE });
+    const shift = local.hour >= 6 && local.hour < 22 ? 90 : 20;
+    const sunday = local.weekday === 7 ? -40 : 0;
+    rows.push(`${new Date(at).toISOString()},${(200 + shift + sunday + noise()).toFixed(1)}`);
+  }
+  return rows.join('\n') + '\n';
+}
+
+async function signInApi(role: 'operator' | 'viewer'): Promise<string> {
+  const user = demoUser(role);
+  const login = await fetch(`${BASE_URL}/api/auth/login`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ email: user.email, password: user.password }) });
+  expect(login.status).toBe(200);
+  return ((await login.json()) as { accessToken: string }).accessToken;
+}
+
+/** Uploads the history as the operator, asks for a refit and waits until it has finished. */
+async function seedAndRefit(): Promise<void> {
+  const token = await signInApi('operator');
+  const auth = { Authorization: `Bearer ${token}` };
+  const form = new FormData();
+  form.append('file', new Blob([historyCsv(6 * 168)], { type: 'text/csv' }), 'copperline-history.csv');
+  const upload = await fetch(`${BASE_URL}/api/readings/upload?zone=${ZONE}`, { method: 'POST', headers: auth, body: form });
+  expect(upload.status).toBe(201);
+  expect(((await upload.json()) as { rejectedCount: number }).rejectedCount).toBe(0);
+  const refit = await fetch(`${BASE_URL}/api/models/refits`, { method: 'POST', headers: { ...auth, 'Content-Type': 'application/json' }, body: JSON.stringify({ zone: ZONE, reason: 'Accuracy browser test: a forecast run to score' }) });
+  expect(refit.status).toBe(202);
+  const [job] = (await refit.json()) as { id: number }[];
+  for (;;) {
+    const jobs = (await (await fetch(`${BASE_URL}/api/models/refits?zone=${ZONE}`, { headers: auth })).json()) as { id: number; state: string; message: string | null }[];
+    const mine = jobs.find((j) => j.id === job.id);
+    if (mine?.state === 'failed') throw new Error(`the refit failed: ${mine.message}`);
+    if (mine?.state === 'done') return;
+    await new Promise((resolve) => setTimeout(resolve, 1000));
+  }
+}
+
+describe('accuracy', () => {
+  let desk: Desk;
+
+  beforeAll(async () => {
+    await seedAndRefit();
+    desk = await openDesk();
+  }, 240_000);
+  afterAll(async () => {
+    await desk?.close();
+  });
+
+  it('shows a viewer the days of a zone with actuals but no forecast issued before their gate closure, never as zero error', async () => {
+    const page = desk.page;
+    await signInAs(page, demoUser('viewer'));
+    await page.getByRole('link', { name: 'Accuracy' }).click();
+    await page.getByRole('heading', { name: 'Accuracy' }).waitFor();
+    await page.getByTestId('accuracy-zones-picker').click();
+    await page.getByRole('option', { name: 'Copperline (COPPERLINE)' }).click();
+    await page.keyboard.press('Escape');
+    await page.waitForURL(/\/accuracy\?zone=COPPERLINE&from=\d{4}-\d\d-\d\d&to=\d{4}-\d\d-\d\d/);
+
+    // The only stored run was issued just now: no past day had a forecast at its gate closure.
+    const empty = page.getByTestId('accuracy-no-data');
+    await empty.waitFor({ state: 'visible', timeout: 30_000 });
+    expect(await empty.innerText()).toMatch(/never counted as zero error/);
+    const zones = await page.getByTestId('accuracy-zones').innerText();
+    expect(zones).toMatch(/Copperline \(COPPERLINE\)\s+0 \/ 14/);
+    expect(zones).not.toMatch(/0\.00 %/);
+    const days = page.getByTestId('accuracy-days');
+    const rows = await days.getByRole('row').allInnerTexts();
+    expect(rows).toHaveLength(15);
+    expect(rows.slice(1).every((r) => r.includes('no model forecast'))).toBe(true);
+    expect(await page.getByTestId('accuracy-verdict').innerText()).toMatch(/nothing to compare yet/);
+    expect(await page.getByTestId('accuracy-no-charts').innerText()).toMatch(/no charts yet/);
+    await page.addStyleTag({ content: 'header { position: static !important; }' });
+    await screenshot(page, 'accuracy-no-forecast');
+
+    // A range the server refuses, asked for by address: its message, not a blank page.
+    await page.goto('/accuracy?zone=COPPERLINE&from=2026-01-01&to=2026-06-30');
+    expect(await page.getByText(/Choose at most 92 days/).innerText()).toMatch(/this range has 181/);
+  }, 120_000);
+});
