@@ -17,6 +17,7 @@ const CSV = [
   `${new Date(base + 4 * HOUR_MS + 30 * 60_000).toISOString()},96`,
 ].join('\n');
 
+// Harrow Flats: no other browser test writes readings there, so the download holds only these rows.
 describe('history', () => {
   let desk: Desk;
 
@@ -32,13 +33,13 @@ describe('history', () => {
     const { page } = desk;
     await signInAs(page, demoUser('operator'));
     await page.getByRole('link', { name: 'History' }).click();
-    await page.locator('input[type="file"]').setInputFiles({ name: 'quarry-hill-backfill.csv', mimeType: 'text/csv', buffer: Buffer.from(CSV) });
+    await page.locator('input[type="file"]').setInputFiles({ name: 'harrow-flats-backfill.csv', mimeType: 'text/csv', buffer: Buffer.from(CSV) });
     await page.getByText('The file has no zone column').waitFor();
     const upload = page.getByRole('button', { name: 'Upload and check' });
     expect(await upload.isDisabled()).toBe(true);
 
     await page.getByRole('combobox', { name: 'Zone for every row' }).click();
-    await page.getByRole('option', { name: 'Quarry Hill (QUARRY)' }).click();
+    await page.getByRole('option', { name: 'Harrow Flats (HARROW)' }).click();
     await upload.click();
 
     const report = page.getByTestId('upload-report');
@@ -54,13 +55,13 @@ describe('history', () => {
 
     // The good rows are stored: the download for the zone carries them.
     await page.getByRole('combobox', { name: 'Zone', exact: true }).click();
-    await page.getByRole('option', { name: 'Quarry Hill (QUARRY)' }).click();
+    await page.getByRole('option', { name: 'Harrow Flats (HARROW)' }).click();
     const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Download CSV' }).click()]);
-    expect(download.suggestedFilename()).toMatch(/^readings-quarry-\d{4}-\d{2}-\d{2}-to-\d{4}-\d{2}-\d{2}\.csv$/);
+    expect(download.suggestedFilename()).toMatch(/^readings-harrow-\d{4}-\d{2}-\d{2}-to-\d{4}-\d{2}-\d{2}\.csv$/);
     const text = await readFile(await download.path(), 'utf8');
     expect(text.split('\n')[0]).toBe('timestamp,load_mw,zone,quality');
-    expect(text).toContain(`${hour(0)},101.5,QUARRY`);
-    expect(text).toContain(`${hour(3)},97,QUARRY`);
+    expect(text).toContain(`${hour(0)},101.5,HARROW`);
+    expect(text).toContain(`${hour(3)},97,HARROW`);
     expect(text).not.toContain(hour(2));
   });
 
