@@ -232,4 +232,27 @@ describe('outages, refits, model versions and forecasts (real MariaDB)', () => {
     expect(jobs.find((j) => j.id === stale.id)).toMatchObject({ state: 'failed', message: INTERRUPTED });
     expect((await api().get(`/api/models?zone=${zone}`).set(as(viewer)).expect(200)).body).toEqual(versionsBefore);
   });
+  it('gives a zone with enough history and no model its first model at the scheduled update, and leaves a zone with too little alone', async () => {
+    const ready = await createZone(app, admin, { maxPlausibleMw: 2000 });
+    await seedHistory(ready, () => false);
+    const young = await createZone(app, admin, { maxPlausibleMw: 2000 });
+    const zoneRow = await app.get(EntityManager).fork().findOneOrFail(Zone, { code: young });
+    const last = Math.floor(Date.now() / HOUR) * HOUR - HOUR;
+    const week = Array.from({ length: WEEK_HOURS }, (_, i) => {
+      const t = last - (WEEK_HOURS - 1 - i) * HOUR;
+      return { zoneId: zoneRow.id, zone: young, hourStart: t, mw: normalLoad(t), quality: 'good' as const };
+    });
+    await app.get(ReadingsRepository).store(week, 'test:history');
+
+    // The scheduled tick is private; the test calls it as the cron would.
+    await (app.get(RefitsService) as unknown as { scheduled(mode: 'update'): Promise<void> }).scheduled('update');
+    await app.get(RefitsService).settled();
+
+    const readyJobs = (await api().get(`/api/models/refits?zone=${ready}`).set(as(viewer)).expect(200)).body as RefitJobDto[];
+    expect(readyJobs).toHaveLength(1);
+    expect(readyJobs[0]).toMatchObject({ trigger: 'schedule', state: 'done' });
+    const versions = (await api().get(`/api/models?zone=${ready}`).set(as(viewer)).expect(200)).body as ModelVersionDto[];
+    expect(versions.filter((v) => v.status === 'in-service')).toHaveLength(1);
+    expect((await api().get(`/api/models/refits?zone=${young}`).set(as(viewer)).expect(200)).body).toEqual([]);
+  });
 });

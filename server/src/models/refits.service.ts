@@ -10,6 +10,7 @@ import type { AppConfig } from '../config/configuration';
 import { DeskGateway } from '../desk/desk.gateway';
 import { forecastHorizon } from '../forecasts/forecast-horizon';
 import { ForecastsService } from '../forecasts/forecasts.service';
+import { Reading } from '../readings/entities/reading.entity';
 import { Zone } from '../zones/entities/zone.entity';
 import { REFIT_BACKTEST_DAYS, type RefitPayload, type RefitResult } from './analysis/refit';
 import { ModelVersion } from './entities/model-version.entity';
@@ -22,6 +23,10 @@ const HOUR_MS = 3_600_000;
 /** Jobs in flight at once: the pool's threads plus one reading or storing meanwhile. */
 const JOB_CONCURRENCY = 2;
 export const INTERRUPTED = 'interrupted by a server restart';
+/** How long after start the first check for zones without a model runs (feeds backfill first). */
+const FIRST_MODEL_DELAY_MS = 3 * 60_000;
+/** Three weeks of hourly readings: what the weekly differencing and a short backtest need. */
+const FIRST_MODEL_MIN_HOURS = 21 * 24;
 
 type JobMode = RefitJob['mode'];
 
@@ -44,6 +49,7 @@ export class RefitsService implements OnApplicationBootstrap, OnApplicationShutd
   private readonly queue: number[] = [];
   private readonly inFlight = new Set<Promise<void>>();
   private stopping = false;
+  private firstModelTimer: NodeJS.Timeout | null = null;
   private readonly deskTimeZone: string;
 
   constructor(
@@ -69,9 +75,14 @@ export class RefitsService implements OnApplicationBootstrap, OnApplicationShutd
     this.scheduler.addCronJob('refit.nightly', nightly);
     this.scheduler.addCronJob('refit.hourly-update', update);
     this.logger.log(`nightly refit at ${cron.nightly}, forecast update at ${cron.update} (${this.deskTimeZone})`);
+    // A new installation should not wait for the night to get its first models: a little after
+    // start (time for the feeds to backfill), zones with enough history and no model are fitted.
+    this.firstModelTimer = setTimeout(() => void this.scheduled('update'), FIRST_MODEL_DELAY_MS);
+    this.firstModelTimer.unref();
   }
 
   async onApplicationShutdown(): Promise<void> {
+    if (this.firstModelTimer) clearTimeout(this.firstModelTimer);
     this.stopping = true;
     this.queue.length = 0;
     await Promise.allSettled([...this.inFlight]);
@@ -168,8 +179,16 @@ export class RefitsService implements OnApplicationBootstrap, OnApplicationShutd
         await this.request(null, undefined, 'nightly refit', 'schedule', 'full');
         return;
       }
-      const inService = await this.em.fork().find(ModelVersion, { status: 'in-service', zone: { active: true } }, { populate: ['zone'] });
+      const em = this.em.fork();
+      const inService = await em.find(ModelVersion, { status: 'in-service', zone: { active: true } }, { populate: ['zone'] });
       for (const v of inService) await this.enqueue(v.zone, null, 'hourly forecast update', 'update', 'update');
+      // Zones with no model yet get a full refit instead, once they have enough history for one.
+      const served = new Set(inService.map((v) => v.zone.id));
+      for (const zone of await em.find(Zone, { active: true })) {
+        if (served.has(zone.id)) continue;
+        if ((await em.count(Reading, { zone: zone.id })) < FIRST_MODEL_MIN_HOURS) continue;
+        await this.enqueue(zone, null, 'first model of the zone', 'schedule', 'full');
+      }
     } catch (error) {
       this.logger.error(`scheduled ${mode} refit could not start: ${(error as Error).message}`);
     }
