@@ -1,6 +1,7 @@
 import { DateTime } from 'luxon';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { BASE_URL, demoUser, openDesk, screenshot, signInAs, type Desk } from './support/browser';
+import { apiToken, uploadHistory } from './support/history';
 
 const HOUR = 3_600_000;
 const ZONE = 'COPPERLINE';
@@ -22,22 +23,11 @@ function historyCsv(hours: number): string {
   return rows.join('\n') + '\n';
 }
 
-async function signInApi(role: 'operator' | 'viewer'): Promise<string> {
-  const user = demoUser(role);
-  const login = await fetch(`${BASE_URL}/api/auth/login`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ email: user.email, password: user.password }) });
-  expect(login.status).toBe(200);
-  return ((await login.json()) as { accessToken: string }).accessToken;
-}
-
 /** Uploads the history as the operator, asks for a refit and waits until it has finished. */
 async function seedAndRefit(): Promise<void> {
-  const token = await signInApi('operator');
+  const token = await apiToken('operator');
   const auth = { Authorization: `Bearer ${token}` };
-  const form = new FormData();
-  form.append('file', new Blob([historyCsv(6 * 168)], { type: 'text/csv' }), 'copperline-history.csv');
-  const upload = await fetch(`${BASE_URL}/api/readings/upload?zone=${ZONE}`, { method: 'POST', headers: auth, body: form });
-  expect(upload.status).toBe(201);
-  expect(((await upload.json()) as { rejectedCount: number }).rejectedCount).toBe(0);
+  await uploadHistory(token, ZONE, historyCsv(6 * 168), 'copperline-history.csv');
   const refit = await fetch(`${BASE_URL}/api/models/refits`, { method: 'POST', headers: { ...auth, 'Content-Type': 'application/json' }, body: JSON.stringify({ zone: ZONE, reason: 'Accuracy browser test: a forecast run to score' }) });
   expect(refit.status).toBe(202);
   const [job] = (await refit.json()) as { id: number }[];

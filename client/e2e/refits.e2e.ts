@@ -1,57 +1,20 @@
 import { DateTime } from 'luxon';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { BASE_URL, demoUser, openDesk, signInAs, type Desk } from './support/browser';
+import { demoUser, openDesk, signInAs, type Desk } from './support/browser';
+import { apiToken, historyCsv, QUARRY_LOAD, uploadHistory } from './support/history';
 import { mkdir } from 'node:fs/promises';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 
-const HOUR = 3_600_000;
 const ZONE = 'QUARRY';
 const TIME_ZONE = 'America/Denver';
 const SCREENSHOTS = fileURLToPath(new URL('./screenshots/', import.meta.url));
-
-/**
- * Eight weeks and four days of hourly Quarry Hill load (the test database has the demo zones but
- * no readings): a daily swing with an afternoon pumping peak, lower weekends, AR(1) noise.
- */
-function historyCsv(hours: number): string {
-  const last = Math.floor(Date.now() / HOUR) * HOUR - HOUR;
-  let seed = 777001;
-  const uniform = () => ((seed = (seed * 1103515245 + 12345) % 2 ** 31) + 1) / (2 ** 31 + 1);
-  const gauss = () => Math.sqrt(-2 * Math.log(uniform())) * Math.cos(2 * Math.PI * uniform());
-  let noise = 0;
-  const rows = ['timestamp,load_mw'];
-  for (let i = 0; i < hours; i++) {
-    const at = last - (hours - 1 - i) * HOUR;
-    const local = new Date(at - 7 * HOUR);
-    const h = local.getUTCHours();
-    const day = local.getUTCDay();
-    const daily = 25 * Math.exp(-((h - 15) ** 2) / 10) + 12 * Math.exp(-((h - 7) ** 2) / 4) - 10 * Math.exp(-((h - 3) ** 2) / 8);
-    const weekend = day === 0 || day === 6 ? -12 - 0.3 * daily : 0;
-    noise = 0.7 * noise + 2.5 * gauss();
-    rows.push(`${new Date(at).toISOString()},${(95 + daily + weekend + noise).toFixed(2)}`);
-  }
-  return rows.join('\n') + '\n';
-}
-
-async function seedReadings(): Promise<void> {
-  const operator = demoUser('operator');
-  const login = await fetch(`${BASE_URL}/api/auth/login`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ email: operator.email, password: operator.password }) });
-  expect(login.status).toBe(200);
-  const { accessToken } = (await login.json()) as { accessToken: string };
-  const form = new FormData();
-  form.append('file', new Blob([historyCsv(8 * 168 + 4 * 24)], { type: 'text/csv' }), 'quarry-history.csv');
-  const upload = await fetch(`${BASE_URL}/api/readings/upload?zone=${ZONE}`, { method: 'POST', headers: { Authorization: `Bearer ${accessToken}` }, body: form });
-  const report = (await upload.json()) as { accepted: number; rejectedCount: number };
-  expect(upload.status).toBe(201);
-  expect(report.rejectedCount).toBe(0);
-}
 
 describe('refits', () => {
   let desk: Desk;
 
   beforeAll(async () => {
-    await seedReadings();
+    await uploadHistory(await apiToken('operator'), ZONE, historyCsv(8 * 168 + 4 * 24, QUARRY_LOAD), 'quarry-history.csv');
     desk = await openDesk();
   });
   afterAll(async () => {

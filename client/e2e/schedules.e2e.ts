@@ -3,50 +3,9 @@ import { DEMO_TIME_ZONE, SCHEDULE_EXPORT_COLUMNS, type DayScheduleDto, type Zone
 import { DateTime } from 'luxon';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { BASE_URL, demoUser, openDesk, screenshot, signInAs, type Desk } from './support/browser';
+import { apiToken, historyCsv, MILLRACE_LOAD, uploadHistory } from './support/history';
 
-const HOUR = 3_600_000;
 const ZONE = 'MILLRACE';
-
-/**
- * Eight weeks of hourly Millrace load up to the last full hour (the test database has the demo
- * zones but no readings), the same series as the workbench test: morning and evening peaks,
- * lower weekends, AR(1) noise from a fixed seed. The seasonal-naive stand-in forecasts the next
- * days from it when no model run is stored.
- */
-function historyCsv(hours: number): string {
-  const last = Math.floor(Date.now() / HOUR) * HOUR - HOUR;
-  let seed = 424242;
-  const uniform = () => ((seed = (seed * 1103515245 + 12345) % 2 ** 31) + 1) / (2 ** 31 + 1);
-  const gauss = () => Math.sqrt(-2 * Math.log(uniform())) * Math.cos(2 * Math.PI * uniform());
-  let noise = 0;
-  const rows = ['timestamp,load_mw'];
-  for (let i = 0; i < hours; i++) {
-    const at = last - (hours - 1 - i) * HOUR;
-    const local = new Date(at - 7 * HOUR);
-    const h = local.getUTCHours();
-    const day = local.getUTCDay();
-    const daily = 30 * Math.exp(-((h - 8) ** 2) / 6) + 45 * Math.exp(-((h - 19) ** 2) / 8) - 18 * Math.exp(-((h - 3) ** 2) / 10);
-    const weekend = day === 0 || day === 6 ? -30 - 0.4 * daily : 0;
-    noise = 0.7 * noise + 4 * gauss();
-    rows.push(`${new Date(at).toISOString()},${(170 + daily + weekend + noise).toFixed(2)}`);
-  }
-  return rows.join('\n') + '\n';
-}
-
-async function tokenFor(role: 'operator' | 'admin'): Promise<string> {
-  const user = demoUser(role);
-  const login = await fetch(`${BASE_URL}/api/auth/login`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ email: user.email, password: user.password }) });
-  expect(login.status).toBe(200);
-  return ((await login.json()) as { accessToken: string }).accessToken;
-}
-
-async function seedReadings(token: string): Promise<void> {
-  const form = new FormData();
-  form.append('file', new Blob([historyCsv(8 * 168)], { type: 'text/csv' }), 'millrace-history.csv');
-  const upload = await fetch(`${BASE_URL}/api/readings/upload?zone=${ZONE}`, { method: 'POST', headers: { Authorization: `Bearer ${token}` }, body: form });
-  expect(upload.status).toBe(201);
-  expect(((await upload.json()) as { rejectedCount: number }).rejectedCount).toBe(0);
-}
 
 /**
  * Tomorrow's schedule, in the desk's time zone. The demo gate closes at 10:00 the day before, so
@@ -63,7 +22,7 @@ async function tomorrowWithGateOpen(operator: string): Promise<string> {
   const zone = await look();
   expect(zone.forecast).not.toBeNull();
   if (zone.gateClosed) {
-    const admin = await tokenFor('admin');
+    const admin = await apiToken('admin');
     const zones = (await (await fetch(`${BASE_URL}/api/zones`, { headers: { Authorization: `Bearer ${admin}` } })).json()) as ZoneDto[];
     const millrace = zones.find((z) => z.code === ZONE);
     const patch = await fetch(`${BASE_URL}/api/zones/${millrace?.id}`, {
@@ -82,8 +41,8 @@ describe('day-ahead schedule', () => {
   let day: string;
 
   beforeAll(async () => {
-    const token = await tokenFor('operator');
-    await seedReadings(token);
+    const token = await apiToken('operator');
+    await uploadHistory(token, ZONE, historyCsv(8 * 168, MILLRACE_LOAD), 'millrace-history.csv');
     day = await tomorrowWithGateOpen(token);
     desk = await openDesk();
   });

@@ -1,55 +1,18 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { BASE_URL, demoUser, openDesk, signInAs, type Desk } from './support/browser';
+import { demoUser, openDesk, signInAs, type Desk } from './support/browser';
+import { apiToken, historyCsv, MILLRACE_LOAD, uploadHistory } from './support/history';
 import { mkdir } from 'node:fs/promises';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 
-const HOUR = 3_600_000;
 const ZONE = 'MILLRACE';
 const SCREENSHOTS = fileURLToPath(new URL('./screenshots/', import.meta.url));
-
-/**
- * Eight weeks of hourly Millrace load (the test database has the demo zones but no readings):
- * morning and evening peaks, lower weekends, AR(1) noise from a fixed seed.
- */
-function historyCsv(hours: number): string {
-  const last = Math.floor(Date.now() / HOUR) * HOUR - HOUR;
-  let seed = 424242;
-  const uniform = () => ((seed = (seed * 1103515245 + 12345) % 2 ** 31) + 1) / (2 ** 31 + 1);
-  const gauss = () => Math.sqrt(-2 * Math.log(uniform())) * Math.cos(2 * Math.PI * uniform());
-  let noise = 0;
-  const rows = ['timestamp,load_mw'];
-  for (let i = 0; i < hours; i++) {
-    const at = last - (hours - 1 - i) * HOUR;
-    const local = new Date(at - 7 * HOUR);
-    const h = local.getUTCHours();
-    const day = local.getUTCDay();
-    const daily = 30 * Math.exp(-((h - 8) ** 2) / 6) + 45 * Math.exp(-((h - 19) ** 2) / 8) - 18 * Math.exp(-((h - 3) ** 2) / 10);
-    const weekend = day === 0 || day === 6 ? -30 - 0.4 * daily : 0;
-    noise = 0.7 * noise + 4 * gauss();
-    rows.push(`${new Date(at).toISOString()},${(170 + daily + weekend + noise).toFixed(2)}`);
-  }
-  return rows.join('\n') + '\n';
-}
-
-async function seedReadings(): Promise<void> {
-  const operator = demoUser('operator');
-  const login = await fetch(`${BASE_URL}/api/auth/login`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ email: operator.email, password: operator.password }) });
-  expect(login.status).toBe(200);
-  const { accessToken } = (await login.json()) as { accessToken: string };
-  const form = new FormData();
-  form.append('file', new Blob([historyCsv(8 * 168 + 4 * 24)], { type: 'text/csv' }), 'millrace-history.csv');
-  const upload = await fetch(`${BASE_URL}/api/readings/upload?zone=${ZONE}`, { method: 'POST', headers: { Authorization: `Bearer ${accessToken}` }, body: form });
-  const report = (await upload.json()) as { accepted: number; rejectedCount: number };
-  expect(upload.status).toBe(201);
-  expect(report.rejectedCount).toBe(0);
-}
 
 describe('model workbench', () => {
   let desk: Desk;
 
   beforeAll(async () => {
-    await seedReadings();
+    await uploadHistory(await apiToken('operator'), ZONE, historyCsv(8 * 168 + 4 * 24, MILLRACE_LOAD), 'millrace-history.csv');
     desk = await openDesk();
   });
   afterAll(async () => {
