@@ -7,6 +7,8 @@ export function fakeSocketFactory() {
     active: boolean;
     disconnected: boolean;
     emitFromServer: (event: string, payload: unknown) => void;
+    /** Fires one of socket.io's own lifecycle events ('connect', 'disconnect', 'connect_error'). */
+    fire: (event: string, ...args: unknown[]) => void;
     on: (event: string, handler: (...args: unknown[]) => void) => FakeSocket;
     onAny: (handler: (event: string, payload: unknown) => void) => FakeSocket;
     removeAllListeners: () => FakeSocket;
@@ -20,6 +22,7 @@ export function fakeSocketFactory() {
       active: true,
       disconnected: false,
       emitFromServer: (event, payload) => any.forEach((handler) => handler(event, payload)),
+      fire: (event, ...args) => listeners.get(event)?.forEach((handler) => handler(...args)),
       on: (event, handler) => {
         listeners.set(event, [...(listeners.get(event) ?? []), handler]);
         return socket;

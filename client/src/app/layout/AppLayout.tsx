@@ -4,6 +4,7 @@ import { Outlet } from 'react-router-dom';
 import { Wordmark } from '../../components/Wordmark';
 import { SignOutButton, useSignedInUser } from '../../features/auth';
 import { PendingHandoverBanner } from '../../features/handover';
+import { useLiveUpdates } from '../../features/live';
 import { ColorSchemeToggle } from './ColorSchemeToggle';
 import { SectionNavigation } from './SectionNavigation';
 import { SignedInUser } from './SignedInUser';
@@ -11,6 +12,7 @@ import { SignedInUser } from './SignedInUser';
 export function AppLayout() {
   const user = useSignedInUser();
   const [navigationOpen, { toggle, close }] = useDisclosure(false);
+  useLiveUpdates();
 
   return (
     <AppShell

@@ -1,1 +1,2 @@
 export { LiveLoadPage } from './routes/LiveLoadPage';
+export { useLiveUpdates } from './hooks/use-live-updates';

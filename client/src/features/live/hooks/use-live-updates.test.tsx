@@ -1,4 +1,4 @@
-import { DESK_EVENTS, type AlertDto, type ReadingSeriesDto } from '@morrowline/shared';
+import { DESK_EVENTS, type AlertDto, type ForecastRunDto, type LatestForecastsDto, type ReadingSeriesDto } from '@morrowline/shared';
 import { MantineProvider } from '@mantine/core';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { act, renderHook } from '@testing-library/react';
@@ -8,7 +8,7 @@ import { createDeskSocket } from '../../../lib/desk-socket';
 import { fakeSocketFactory } from '../../../test/fake-socket';
 import { createSessionStore } from '../../../lib/session-store';
 import { mockApi } from '../../../test/mock-api';
-import { openAlertsKey, readingsSeriesKey } from '../api/live-keys';
+import { latestForecastsKey, openAlertsKey, readingsSeriesKey } from '../api/live-keys';
 import { useLiveUpdates } from './use-live-updates';
 
 const series: ReadingSeriesDto = {
@@ -58,5 +58,36 @@ describe('useLiveUpdates', () => {
     expect(queryClient.getQueryData<AlertDto[]>(openAlertsKey)?.map((a) => a.id)).toEqual([7]);
     act(() => server.emitFromServer(DESK_EVENTS.alertAcknowledged, { ...alert, state: 'acknowledged' }));
     expect(queryClient.getQueryData<AlertDto[]>(openAlertsKey)).toEqual([]);
+  });
+
+  it('puts a new forecast run only into the cached queries that asked for its zone', () => {
+    const { queryClient, server } = setup();
+    const run: ForecastRunDto = {
+      id: 41, zone: 'LANTERN', issuedAt: '2026-05-01T02:00:05.000Z', basedOnHour: '2026-05-01T01:00:00.000Z', method: 'arima', fallbackReason: null,
+      modelVersionId: 9, hours: ['2026-05-01T02:00:00.000Z'], mean: [188], lower80: [180], upper80: [196], lower95: [176], upper95: [200],
+    };
+    const standIn: ForecastRunDto = { ...run, id: null, method: 'seasonal-naive', fallbackReason: 'no model yet', modelVersionId: null };
+    const both = latestForecastsKey(['LANTERN', 'HARROW'], series.from, series.to);
+    const other = latestForecastsKey(['HARROW'], series.from, series.to);
+    queryClient.setQueryData<LatestForecastsDto>(both, { zones: [standIn, { ...standIn, zone: 'HARROW' }] });
+    queryClient.setQueryData<LatestForecastsDto>(other, { zones: [{ ...standIn, zone: 'HARROW' }] });
+    act(() => server.emitFromServer(DESK_EVENTS.forecast, run));
+    const next = queryClient.getQueryData<LatestForecastsDto>(both);
+    expect(next?.zones.find((z) => z.zone === 'LANTERN')?.method).toBe('arima');
+    expect(next?.zones.map((z) => z.zone).sort()).toEqual(['HARROW', 'LANTERN']);
+    expect(queryClient.getQueryData<LatestForecastsDto>(other)?.zones.map((z) => z.zone)).toEqual(['HARROW']);
+  });
+
+  it('fetches the live queries again after the connection dropped and came back, not on the first connect', () => {
+    const { queryClient, server } = setup();
+    const key = readingsSeriesKey(['LANTERN'], series.from, series.to);
+    queryClient.setQueryData(key, series);
+    queryClient.setQueryData<AlertDto[]>(openAlertsKey, []);
+    act(() => server.fire('connect'));
+    expect(queryClient.getQueryState(key)?.isInvalidated).toBe(false);
+    act(() => server.fire('disconnect'));
+    act(() => server.fire('connect'));
+    expect(queryClient.getQueryState(key)?.isInvalidated).toBe(true);
+    expect(queryClient.getQueryState(openAlertsKey)?.isInvalidated).toBe(true);
   });
 });

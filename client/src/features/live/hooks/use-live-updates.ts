@@ -1,22 +1,44 @@
 import { DESK_EVENTS, type AlertDto, type FeedStatusDto, type LatestForecastsDto, type ReadingSeriesDto } from '@morrowline/shared';
 import { notifications, notificationsStore } from '@mantine/notifications';
 import { useQueryClient } from '@tanstack/react-query';
-import { deskSocket, useDeskEvent, type DeskSocket } from '../../../lib/desk-socket';
+import { useEffect, useRef } from 'react';
+import { deskSocket, useDeskConnectionState, useDeskEvent, type DeskSocket } from '../../../lib/desk-socket';
 import { formatPercent } from '../../../lib/format';
 import { useZones } from '../../zones';
 import { feedStatusKey, latestForecastsPrefix, openAlertsKey, readingsSeriesPrefix } from '../api/live-keys';
 import { withAlert, withoutAlert } from '../model/alert-list';
 import { applyDeskReadings, applyDeskReadingsToStatus } from '../model/apply-desk-readings';
 
+/** The zones a cached latest-forecasts query asked for (its key's last element). */
+function zonesOfKey(queryKey: readonly unknown[]): string[] {
+  const params = queryKey[latestForecastsPrefix.length] as { zones?: string } | undefined;
+  return params?.zones ? params.zones.split(',') : [];
+}
+
 /**
  * Writes what the live channel brings into the query cache: readings into every cached series and
  * the feed status, alerts into the open list (with a notification when one is raised), new
- * forecast runs into the latest forecasts. Nothing is refetched for it.
+ * forecast runs into the latest forecasts of the queries that asked for that zone. Nothing is
+ * refetched for it, except after a dropped connection: what was pushed while it was down is lost,
+ * so the live queries are fetched again once it is back.
+ *
+ * Mounted once in the signed-in layout, not on the live page: an operator on the refits or
+ * schedules screen still sees a deviation alert, and the live view is current when they return.
  */
 export function useLiveUpdates(socket: DeskSocket = deskSocket): void {
   const queryClient = useQueryClient();
   const zones = useZones();
   const zoneName = (code: string) => zones.data?.find((z) => z.code === code)?.name ?? code;
+  const connection = useDeskConnectionState(socket);
+  const wasConnected = useRef(false);
+
+  useEffect(() => {
+    if (connection !== 'connected') return;
+    if (wasConnected.current) {
+      for (const queryKey of [readingsSeriesPrefix, feedStatusKey, openAlertsKey, latestForecastsPrefix]) void queryClient.invalidateQueries({ queryKey });
+    }
+    wasConnected.current = true;
+  }, [connection, queryClient]);
 
   useDeskEvent(DESK_EVENTS.readings, (event) => {
     queryClient.setQueriesData<ReadingSeriesDto>({ queryKey: readingsSeriesPrefix }, (series) => (series ? applyDeskReadings(series, event) : series));
@@ -47,8 +69,9 @@ export function useLiveUpdates(socket: DeskSocket = deskSocket): void {
   }, socket);
 
   useDeskEvent(DESK_EVENTS.forecast, (run) => {
-    queryClient.setQueriesData<LatestForecastsDto>({ queryKey: latestForecastsPrefix }, (latest) =>
-      latest ? { zones: [...latest.zones.filter((z) => z.zone !== run.zone), run] } : latest,
-    );
+    for (const [queryKey, latest] of queryClient.getQueriesData<LatestForecastsDto>({ queryKey: latestForecastsPrefix })) {
+      if (!latest || !zonesOfKey(queryKey).includes(run.zone)) continue;
+      queryClient.setQueryData<LatestForecastsDto>(queryKey, { zones: [...latest.zones.filter((z) => z.zone !== run.zone), run] });
+    }
   }, socket);
 }

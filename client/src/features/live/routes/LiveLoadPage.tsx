@@ -17,7 +17,6 @@ import { IncompleteNote } from '../components/IncompleteNote';
 import { LoadChart } from '../components/LoadChart';
 import { ZoneStrip } from '../components/ZoneStrip';
 import { useCurrentHour } from '../hooks/use-current-hour';
-import { useLiveUpdates } from '../hooks/use-live-updates';
 import { liveWindow } from '../model/live-window';
 import { nowIndexOf, SYSTEM, systemView, zoneViews } from '../model/zone-view';
 
@@ -32,7 +31,6 @@ export function LiveLoadPage() {
   const status = useFeedStatus();
   const nowHour = useCurrentHour();
   const [params, setParams] = useSearchParams();
-  useLiveUpdates();
 
   const activeZones = useMemo(() => (zones.data ?? []).filter((z) => z.active), [zones.data]);
   const timeZone = activeZones[0]?.timeZone ?? DEMO_TIME_ZONE;
