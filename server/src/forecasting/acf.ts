@@ -15,7 +15,27 @@ export function autocovariance(x: ArrayLike<number>, maxLag: number): Float64Arr
   const d = new Float64Array(n);
   for (let i = 0; i < n; i++) d[i] = x[i] - m;
   const out = new Float64Array(maxLag + 1);
+  let complete = true;
+  for (let i = 0; i < n && complete; i++) complete = d[i] === d[i];
   for (let lag = 0; lag <= maxLag; lag++) {
+    if (complete) {
+      // no missing value: four running sums, so the additions do not wait on one another
+      const end = n - lag;
+      let s0 = 0;
+      let s1 = 0;
+      let s2 = 0;
+      let s3 = 0;
+      let i = 0;
+      for (; i + 3 < end; i += 4) {
+        s0 += d[i] * d[i + lag];
+        s1 += d[i + 1] * d[i + 1 + lag];
+        s2 += d[i + 2] * d[i + 2 + lag];
+        s3 += d[i + 3] * d[i + 3 + lag];
+      }
+      for (; i < end; i++) s0 += d[i] * d[i + lag];
+      out[lag] = end > 0 ? (s0 + s1 + s2 + s3) / n : NaN;
+      continue;
+    }
     let s = 0;
     let pairs = 0;
     for (let i = 0; i + lag < n; i++) {

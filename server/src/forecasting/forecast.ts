@@ -13,7 +13,7 @@
 import { difference, differencePolynomial, extendForecast, integratedVariance } from './differencing';
 import { applyArma, ArmaFit, ArmaSpec, fitArma, FitOptions } from './arma/fit';
 import { normalQuantile } from './distributions';
-import { meanFinite } from './series';
+import { meanFinite, toSeries } from './series';
 
 export interface ArimaSpec extends ArmaSpec {
   /** differencing lags, e.g. [24, 168]; [] for none */
@@ -63,7 +63,7 @@ export function fillHistory(y: ArrayLike<number>, diff: number[], wPred: ArrayLi
   const c = differencePolynomial(diff);
   const D = c.length - 1;
   const n = y.length;
-  const filled = Float64Array.from(y, (v) => (Number.isFinite(v) ? v : NaN));
+  const filled = toSeries(y);
   let count = 0;
   const longest = diff.length ? Math.max(...diff) : 1;
   const fallback = meanFinite(y);

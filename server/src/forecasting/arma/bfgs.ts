@@ -9,12 +9,21 @@ export interface BfgsOptions {
   maxIter?: number;
   /** stop when the largest gradient component is below this */
   gradTol?: number;
-  /** stop when the relative decrease of f is below this */
+  /**
+   * stop when the decrease of f (achieved, or promised by the quadratic model) is below
+   * fTol · (|f| + 1): relative for large f, absolute near zero, where a purely relative rule
+   * would ask for digits that round-off does not leave
+   */
   fTol?: number;
   /** finite-difference step */
   step?: number;
   /** use central differences (twice the cost, more accurate) */
   central?: boolean;
+  /**
+   * starting inverse Hessian (row-major k×k, symmetric positive definite); without it the
+   * search starts from the identity, rescaled after the first step
+   */
+  inverseHessian?: Float64Array;
 }
 
 export interface BfgsResult {
@@ -62,7 +71,9 @@ export function minimizeBfgs(fn: (x: Float64Array) => number, x0: ArrayLike<numb
   };
   // inverse Hessian approximation, row-major
   const H = new Float64Array(k * k);
-  for (let i = 0; i < k; i++) H[i * k + i] = 1;
+  const given = opts.inverseHessian !== undefined && opts.inverseHessian.length === k * k;
+  if (given) H.set(opts.inverseHessian as Float64Array);
+  else for (let i = 0; i < k; i++) H[i * k + i] = 1;
   let g = grad(x, fx);
   let converged = false;
   let iter = 0;
@@ -90,6 +101,14 @@ export function minimizeBfgs(fn: (x: Float64Array) => number, x0: ArrayLike<numb
       }
       slope = -dot(g, g);
     }
+    // The quadratic model promises a decrease of about −slope/2 from the full step. Once that is
+    // below the relative tolerance, the minimum is reached to the precision the finite-difference
+    // gradient allows; going on would only feed round-off into a line search that cannot succeed
+    // (up to 40 evaluations spent on nothing).
+    if (-slope < fTol * (Math.abs(fx) + 1)) {
+      converged = true;
+      break;
+    }
     // cap the step so that one iteration never moves a parameter by more than 2 units
     let alpha = 1;
     const dmax = maxAbs(d);
@@ -105,10 +124,16 @@ export function minimizeBfgs(fn: (x: Float64Array) => number, x0: ArrayLike<numb
         break;
       }
       alpha *= 0.5;
+      // what is left to gain along d is below the tolerance: the search is done
+      if (-alpha * slope < fTol * (Math.abs(fx) + 1)) break;
     }
     if (!accepted) {
-      // no progress along d: restart once from steepest descent, otherwise stop
-      if (smallSteps++ > 1) break;
+      // no progress along d: restart once from steepest descent, otherwise stop (converged
+      // when even the first, full step promised less than the tolerance)
+      if (smallSteps++ > 1) {
+        converged = -slope < 1e3 * fTol * (Math.abs(fx) + 1);
+        break;
+      }
       H.fill(0);
       for (let i = 0; i < k; i++) H[i * k + i] = 1;
       continue;
@@ -121,7 +146,7 @@ export function minimizeBfgs(fn: (x: Float64Array) => number, x0: ArrayLike<numb
       y[i] = gn[i] - g[i];
     }
     const sy = dot(s, y);
-    if (iter === 0 && sy > 0) {
+    if (iter === 0 && sy > 0 && !given) {
       // scale the first inverse Hessian guess (Nocedal & Wright 2006, eq. 6.20)
       const scale = sy / dot(y, y);
       for (let i = 0; i < k; i++) H[i * k + i] = scale;
@@ -141,7 +166,7 @@ export function minimizeBfgs(fn: (x: Float64Array) => number, x0: ArrayLike<numb
         }
       }
     }
-    const rel = Math.abs(fx - fn1) / (Math.abs(fx) + 1e-10);
+    const rel = Math.abs(fx - fn1) / (Math.abs(fx) + 1);
     x = xn;
     fx = fn1;
     g = gn;

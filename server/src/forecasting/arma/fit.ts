@@ -7,7 +7,7 @@
  *  - objective the exact Gaussian likelihood from the Kalman filter with σ² concentrated out and
  *    the mean concentrated out by GLS, initial covariance by Gardner, Harvey & Phillips (1980),
  *  - BFGS on the unconstrained values,
- *  - standard errors from the inverse of a central-difference Hessian of −log L in the natural
+ *  - standard errors from the inverse of a forward-difference Hessian of −log L in the natural
  *    parameters (with the mean as a free parameter), as the observed information.
  * Information criteria follow the usual definitions with k = number of coefficients + 1 (σ²):
  * AIC = −2 log L + 2k (Akaike 1974), AICc = AIC + 2k(k+1)/(n−k−1) (Hurvich & Tsai 1989),
@@ -16,11 +16,12 @@
 import { Matrix, inverse } from 'ml-matrix';
 import { minimizeBfgs } from './bfgs';
 import { hannanRissanen } from './hannan-rissanen';
+import { armaInformation, inverseSpd } from './information';
 import { concentratedLogLik, FilterResult, kalmanFilter } from './kalman';
 import { expandAr, expandMa } from './polynomials';
 import { armaStateSpace, ArmaStateSpace } from './state-space';
 import { fromInvertible, fromStationary, toInvertible, toStationary } from './transform';
-import { countFinite, meanFinite, varianceFinite } from '../series';
+import { countFinite, meanFinite, toSeries, varianceFinite } from '../series';
 
 export interface ArmaSpec {
   p: number;
@@ -144,7 +145,7 @@ function toUnconstrained(nat: Natural): Float64Array | null {
 export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOptions = {}): ArmaFit {
   const t0 = performance.now();
   const o = normalizeSpec(specIn);
-  const x = Float64Array.from(series, (v) => (Number.isFinite(v) ? v : NaN));
+  const x = toSeries(series);
   const nFinite = countFinite(x);
   const k = o.p + o.q + o.P + o.Q;
   const nCoef = k + (o.includeMean ? 1 : 0);
@@ -154,7 +155,11 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
 
   // starting values
   const m0 = o.includeMean ? meanFinite(x) : 0;
-  const centred = o.includeMean ? x.map((v) => v - m0) : x;
+  let centred = x;
+  if (o.includeMean) {
+    centred = new Float64Array(x.length);
+    for (let t = 0; t < x.length; t++) centred[t] = x[t] - m0;
+  }
   const hr = hannanRissanen(centred, { p: o.p, q: o.q, P: o.P, Q: o.Q, period: s || 1 });
   const st = opts.start;
   const startNat: Natural = {
@@ -173,7 +178,14 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
     if (!(f.ssq > 0)) return Infinity;
     return 0.5 * Math.log(f.ssq / f.nUsed) + (0.5 * f.sumLogF) / f.nUsed;
   };
-  const opt = minimizeBfgs(objective, u0, { maxIter: opts.maxIter ?? 200, gradTol: 1e-7, fTol: opts.fTol ?? 1e-13, step: 1e-6 });
+  const start = u0;
+  const opt = minimizeBfgs(objective, start, {
+    maxIter: opts.maxIter ?? 200,
+    gradTol: 1e-7,
+    fTol: opts.fTol ?? 1e-13,
+    step: 1e-6,
+    inverseHessian: startingInverseHessian(start, o, Math.min(x.length, Math.max(2000, 20 * s))) ?? undefined,
+  });
   const nat = fromUnconstrained(opt.x, o);
   const ss = stateSpaceOf(nat, s);
   const prof = kalmanFilter(x, ss, { profileMean: o.includeMean, tol });
@@ -240,7 +252,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
  * with fixed coefficients and inside backtests.
  */
 export function applyArma(fit: ArmaFit, series: ArrayLike<number>, tol = 1e-10): ArmaFit {
-  const x = Float64Array.from(series, (v) => (Number.isFinite(v) ? v : NaN));
+  const x = toSeries(series);
   const ss = stateSpaceOf({ ar: fit.ar, ma: fit.ma, sar: fit.sar, sma: fit.sma }, fit.spec.period);
   const residuals = new Float64Array(x.length);
   const predictions = new Float64Array(x.length);
@@ -249,6 +261,51 @@ export function applyArma(fit: ArmaFit, series: ArrayLike<number>, tol = 1e-10):
   const PEnd = f.PPred as Float64Array;
   const sigma2 = fit.sigma2;
   return { ...fit, residuals, predictions, forecast: (h: number) => forecastState(ss, aEnd, PEnd, sigma2, fit.mean, h) };
+}
+
+/**
+ * The inverse of the information matrix carried to the unconstrained values, H_u = J' I J with
+ * J = ∂(natural)/∂(unconstrained) by central differences of the transform (no filtering
+ * involved), as the quasi-Newton search's starting inverse Hessian. Null when it is not usable.
+ */
+function startingInverseHessian(u: Float64Array, o: Required<ArmaSpec>, length: number): Float64Array | null {
+  const k = u.length;
+  if (k === 0) return null;
+  const flat = (nat: Natural): Float64Array => {
+    const out = new Float64Array(k);
+    out.set(nat.ar, 0);
+    out.set(nat.ma, o.p);
+    out.set(nat.sar, o.p + o.q);
+    out.set(nat.sma, o.p + o.q + o.P);
+    return out;
+  };
+  const info = armaInformation(fromUnconstrained(u, o), o, length);
+  const J = new Float64Array(k * k);
+  const h = 1e-6;
+  const probe = Float64Array.from(u);
+  for (let j = 0; j < k; j++) {
+    probe[j] = u[j] + h;
+    const up = flat(fromUnconstrained(probe, o));
+    probe[j] = u[j] - h;
+    const down = flat(fromUnconstrained(probe, o));
+    probe[j] = u[j];
+    for (let i = 0; i < k; i++) J[i * k + j] = (up[i] - down[i]) / (2 * h);
+  }
+  const Hu = new Float64Array(k * k);
+  for (let a = 0; a < k; a++) {
+    for (let b = a; b < k; b++) {
+      let v = 0;
+      for (let i = 0; i < k; i++) {
+        const Jia = J[i * k + a];
+        if (Jia === 0) continue;
+        for (let j = 0; j < k; j++) v += Jia * info[i * k + j] * J[j * k + b];
+      }
+      Hu[a * k + b] = v;
+      Hu[b * k + a] = v;
+    }
+  }
+  const inv = inverseSpd(Hu, k, 1e-6);
+  return inv && inv.every(Number.isFinite) ? inv : null;
 }
 
 /** −log L in the natural parameters (mean explicit), for the Hessian. */
@@ -269,21 +326,25 @@ function negLogLik(x: Float64Array, o: Required<ArmaSpec>, v: ArrayLike<number>,
 function hessianStandardErrors(x: Float64Array, o: Required<ArmaSpec>, values: number[], tol: number, sdx: number): number[] {
   const m = values.length;
   if (m === 0) return [];
-  const hs = values.map((v, i) => (o.includeMean && i === m - 1 ? 1e-3 * sdx : 1e-4));
+  // Forward differences: H_ij ≈ [f(v + h_i e_i + h_j e_j) − f(v + h_i e_i) − f(v + h_j e_j) + f(v)] / (h_i h_j),
+  // 1 + m + m(m+1)/2 likelihood passes instead of the 1 + 2m² of central differences. The error
+  // is O(h) instead of O(h²); with h = 1e-5 that is far below the 2 % the standard errors are
+  // checked to, and round-off (about 1e-12 of a log-likelihood in the thousands, over h²) stays
+  // negligible beside curvatures of the order of n.
+  const hs = values.map((v, i) => (o.includeMean && i === m - 1 ? 1e-4 * sdx : 1e-5));
   const f = (vv: number[]): number => negLogLik(x, o, vv, tol);
   const f0 = f(values);
-  const H = new Matrix(m, m);
-  const at = (d: Array<[number, number]>): number => {
+  const at = (i: number, j: number): number => {
     const vv = values.slice();
-    for (const [i, s] of d) vv[i] += s * hs[i];
+    vv[i] += hs[i];
+    if (j >= 0) vv[j] += hs[j];
     return f(vv);
   };
+  const fi = values.map((_, i) => at(i, -1));
+  const H = new Matrix(m, m);
   for (let i = 0; i < m; i++) {
-    const fp = at([[i, 1]]);
-    const fm = at([[i, -1]]);
-    H.set(i, i, (fp - 2 * f0 + fm) / (hs[i] * hs[i]));
-    for (let j = 0; j < i; j++) {
-      const v = (at([[i, 1], [j, 1]]) - at([[i, 1], [j, -1]]) - at([[i, -1], [j, 1]]) + at([[i, -1], [j, -1]])) / (4 * hs[i] * hs[j]);
+    for (let j = 0; j <= i; j++) {
+      const v = (at(i, j) - fi[i] - fi[j] + f0) / (hs[i] * hs[j]);
       H.set(i, j, v);
       H.set(j, i, v);
     }

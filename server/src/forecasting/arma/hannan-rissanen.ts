@@ -30,26 +30,29 @@ export interface HrStart {
   rows: number;
 }
 
-export function hannanRissanen(x: ArrayLike<number>, o: HrOrders): HrStart {
-  const n = x.length;
+/**
+ * Hours the starting values are computed from at most (the latest ones). They are only a
+ * starting point for the exact likelihood over the whole series; beyond a few thousand hours a
+ * longer window moves them little and costs a third of a year-long fit.
+ */
+export const HR_MAX_HOURS = 3000;
+
+export function hannanRissanen(series: ArrayLike<number>, o: HrOrders): HrStart {
   const { p, q, P, Q, period: s } = o;
+  const all = series instanceof Float64Array ? series : Float64Array.from(series);
+  // the window grows with a seasonal block so that it still holds several seasons of lags
+  const keep = Math.max(HR_MAX_HOURS, 20 * s * Math.max(P, Q, 0));
+  const x = all.length > keep ? all.subarray(all.length - keep) : all;
+  const n = x.length;
   const zero = (): HrStart => ({ ar: new Float64Array(p), ma: new Float64Array(q), sar: new Float64Array(P), sma: new Float64Array(Q), sigma2: NaN, rows: 0 });
   if (p + q + P + Q === 0) return zero();
-  const needResid = q + Q > 0;
   let e: Float64Array | null = null;
   let m = 0;
-  if (needResid) {
+  if (q + Q > 0) {
     m = Math.max(Math.floor(10 * Math.log10(Math.max(n, 10))), p + q + 1);
     if (P + Q > 0) m = Math.max(m, s * Math.max(P, Q) + Math.max(p, q) + 1);
     m = Math.min(m, Math.floor(n / 3));
-    const rho = acf(x, m);
-    const { phi } = yuleWalker(rho, m);
-    e = new Float64Array(n).fill(NaN);
-    for (let t = m; t < n; t++) {
-      let v = x[t];
-      for (let k = 1; k <= m; k++) v -= phi[k - 1] * x[t - k];
-      e[t] = v;
-    }
+    e = longArResiduals(x, yuleWalker(acf(x, m), m).phi, m);
   }
   const lagsX: number[] = [];
   for (let i = 1; i <= p; i++) lagsX.push(i);
@@ -57,58 +60,29 @@ export function hannanRissanen(x: ArrayLike<number>, o: HrOrders): HrStart {
   const lagsE: number[] = [];
   for (let i = 1; i <= q; i++) lagsE.push(i);
   for (let j = 1; j <= Q; j++) lagsE.push(j * s);
-  const maxLag = Math.max(0, ...lagsX, ...lagsE.map((l) => l + m));
   const k = lagsX.length + lagsE.length;
-  // normal equations accumulated directly (no n×k matrix)
-  const XtX = new Float64Array(k * k);
-  const Xty = new Float64Array(k);
-  const row = new Float64Array(k);
-  let rows = 0;
-  let yy = 0;
-  for (let t = maxLag; t < n; t++) {
-    const yt = x[t];
-    if (!(yt === yt)) continue;
-    let ok = true;
-    let c = 0;
-    for (const l of lagsX) {
-      const v = x[t - l];
-      if (!(v === v)) ok = false;
-      row[c++] = v;
-    }
-    for (const l of lagsE) {
-      const v = e ? e[t - l] : NaN;
-      if (!(v === v)) ok = false;
-      row[c++] = v;
-    }
-    if (!ok) continue;
-    rows++;
-    yy += yt * yt;
-    for (let i = 0; i < k; i++) {
-      Xty[i] += row[i] * yt;
-      for (let j = 0; j <= i; j++) XtX[i * k + j] += row[i] * row[j];
-    }
-  }
-  if (rows <= k + 1) return zero();
+  const eq = normalEquations(x, e ?? new Float64Array(n).fill(NaN), Int32Array.from(lagsX), Int32Array.from(lagsE), Math.max(0, ...lagsX, ...lagsE.map((l) => l + m)));
+  if (eq.rows <= k + 1) return zero();
   const A = new Matrix(k, k);
   for (let i = 0; i < k; i++) {
     for (let j = 0; j <= i; j++) {
-      A.set(i, j, XtX[i * k + j]);
-      A.set(j, i, XtX[i * k + j]);
+      A.set(i, j, eq.XtX[i * k + j]);
+      A.set(j, i, eq.XtX[i * k + j]);
     }
     A.set(i, i, A.get(i, i) * (1 + 1e-10));
   }
   let beta: number[];
   try {
-    beta = solve(A, Matrix.columnVector(Array.from(Xty))).getColumn(0);
+    beta = solve(A, Matrix.columnVector(Array.from(eq.Xty))).getColumn(0);
   } catch {
     return zero();
   }
   if (!beta.every(Number.isFinite)) return zero();
-  let rss = yy;
-  for (let i = 0; i < k; i++) rss -= beta[i] * Xty[i];
+  let rss = eq.yy;
+  for (let i = 0; i < k; i++) rss -= beta[i] * eq.Xty[i];
   const start: HrStart = {
-    sigma2: Math.max(rss, 0) / rows,
-    rows,
+    sigma2: Math.max(rss, 0) / eq.rows,
+    rows: eq.rows,
     ar: Float64Array.from(beta.slice(0, p)),
     sar: Float64Array.from(beta.slice(p, p + P)),
     ma: Float64Array.from(beta.slice(p + P, p + P + q)),
@@ -119,6 +93,73 @@ export function hannanRissanen(x: ArrayLike<number>, o: HrOrders): HrStart {
   start.ma = shrinkInto(start.ma, isInvertible);
   start.sma = shrinkInto(start.sma, isInvertible);
   return start;
+}
+
+// The two loops below are separate functions on purpose: inside one long function V8 compiled
+// each loop on its own entry and threw the code away on reaching the next, on every call.
+
+/** Residuals of the long autoregression φ (NaN for the first m hours and around missing ones). */
+function longArResiduals(x: Float64Array, phi: Float64Array, m: number): Float64Array {
+  const n = x.length;
+  const e = new Float64Array(n).fill(NaN);
+  for (let t = m; t < n; t++) {
+    // two running sums, so the long sum does not wait on one addition at a time
+    let v0 = x[t];
+    let v1 = 0;
+    let k = 1;
+    for (; k < m; k += 2) {
+      v0 -= phi[k - 1] * x[t - k];
+      v1 -= phi[k] * x[t - k - 1];
+    }
+    if (k === m) v0 -= phi[m - 1] * x[t - m];
+    e[t] = v0 + v1;
+  }
+  return e;
+}
+
+interface NormalEquations {
+  /** lower triangle of X'X, row-major k×k */
+  XtX: Float64Array;
+  Xty: Float64Array;
+  yy: number;
+  rows: number;
+}
+
+/** X'X and X'y of the regression of x_t on x_{t−l} (l in lagsX) and e_{t−l} (l in lagsE), complete rows only. */
+function normalEquations(x: Float64Array, e: Float64Array, lagsX: Int32Array, lagsE: Int32Array, maxLag: number): NormalEquations {
+  const n = x.length;
+  const kx = lagsX.length;
+  const k = kx + lagsE.length;
+  const XtX = new Float64Array(k * k);
+  const Xty = new Float64Array(k);
+  const row = new Float64Array(k);
+  let rows = 0;
+  let yy = 0;
+  for (let t = maxLag; t < n; t++) {
+    const yt = x[t];
+    if (!(yt === yt)) continue;
+    let ok = true;
+    for (let c = 0; c < kx; c++) {
+      const v = x[t - lagsX[c]];
+      if (!(v === v)) ok = false;
+      row[c] = v;
+    }
+    for (let c = kx; c < k; c++) {
+      const v = e[t - lagsE[c - kx]];
+      if (!(v === v)) ok = false;
+      row[c] = v;
+    }
+    if (!ok) continue;
+    rows++;
+    yy += yt * yt;
+    for (let i = 0; i < k; i++) {
+      const ri = row[i];
+      Xty[i] += ri * yt;
+      const base = i * k;
+      for (let j = 0; j <= i; j++) XtX[base + j] += ri * row[j];
+    }
+  }
+  return { XtX, Xty, yy, rows };
 }
 
 /** Scale coefficients toward zero until `ok` holds (a polynomial with root-modulus margin). */

@@ -87,10 +87,15 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
   const p1 = r > 1 ? phi[1] : 0;
   const p2 = r > 2 ? phi[2] : 0;
   const p3 = r > 3 ? phi[3] : 0;
-  let k0 = 0;
-  let k1 = 0;
-  let k2 = 0;
-  let k3 = 0;
+  // the steady recursion's constants: c_i = φ_i (1 − k_0) − k_{i+1}, d_i = φ_i k_0 + k_{i+1}
+  let c0 = 0;
+  let c1 = 0;
+  let c2 = 0;
+  let c3 = 0;
+  let d0 = 0;
+  let d1 = 0;
+  let d2 = 0;
+  let d3 = 0;
   for (let t = 0; t < n; t++) {
     const yt = x[t] - mu0;
     const observed = yt === yt;
@@ -103,24 +108,47 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       let a2 = r > 2 ? a[2] : 0;
       let a3 = r > 3 ? a[3] : 0;
       let sv = 0;
-      let m = 0;
       let u = t;
-      for (; u < n; u++) {
+      if (r <= 2) {
+        // the same with two states: fewer live values, no spills
+        for (; u < n; u++) {
+          const yu = x[u] - mu0;
+          if (!(yu === yu)) break;
+          const v = yu - a0;
+          sv += v * v;
+          const na0 = c0 * a0 + (d0 * yu + a1);
+          a1 = c1 * a0 + d1 * yu;
+          a0 = na0;
+        }
+      } else if (r === 3) {
+        for (; u < n; u++) {
+          const yu = x[u] - mu0;
+          if (!(yu === yu)) break;
+          const v = yu - a0;
+          sv += v * v;
+          const na0 = c0 * a0 + (d0 * yu + a1);
+          a1 = c1 * a0 + (d1 * yu + a2);
+          a2 = c2 * a0 + d2 * yu;
+          a0 = na0;
+        }
+      } else for (; u < n; u++) {
         const yu = x[u] - mu0;
         if (!(yu === yu)) break;
         const v = yu - a0;
         sv += v * v;
-        m++;
-        const af0 = a0 + k0 * v;
-        a0 = p0 * af0 + a1 + k1 * v;
-        a1 = p1 * af0 + a2 + k2 * v;
-        a2 = p2 * af0 + a3 + k3 * v;
-        a3 = p3 * af0;
+        // a_i ← φ_i (a_0 + k_0 v) + a_{i+1} + k_{i+1} v with v = y − a_0, regrouped as
+        // c_i a_0 + (d_i y + a_{i+1}): the next a_0 waits on one multiply-add, not on v first
+        const na0 = c0 * a0 + (d0 * yu + a1);
+        a1 = c1 * a0 + (d1 * yu + a2);
+        a2 = c2 * a0 + (d2 * yu + a3);
+        a3 = c3 * a0 + d3 * yu;
+        a0 = na0;
       }
       a[0] = a0;
       if (r > 1) a[1] = a1;
       if (r > 2) a[2] = a2;
       if (r > 3) a[3] = a3;
+      const m = u - t;
       ssq += sv / Fss;
       sumLogF += m * logFss;
       nUsed += m;
@@ -205,10 +233,20 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       Fss = P[0];
       logFss = Math.log(Fss);
       for (let i = 0; i < r; i++) K[i] = P[i] / Fss;
-      k0 = K[0];
-      k1 = K[1];
-      k2 = r > 2 ? K[2] : 0;
-      k3 = r > 3 ? K[3] : 0;
+      // K and φ are zero beyond r, so the unused constants come out zero
+      const k0 = K[0];
+      const k1 = K[1];
+      const k2 = r >= 2 ? K[2] : 0;
+      const k3 = r >= 3 ? K[3] : 0;
+      const k4 = r >= 4 ? K[4] : 0;
+      c0 = p0 * (1 - k0) - k1;
+      c1 = p1 * (1 - k0) - k2;
+      c2 = p2 * (1 - k0) - k3;
+      c3 = p3 * (1 - k0) - k4;
+      d0 = p0 * k0 + k1;
+      d1 = p1 * k0 + k2;
+      d2 = p2 * k0 + k3;
+      d3 = p3 * k0 + k4;
     }
   }
   let mean = mu0;

@@ -35,7 +35,25 @@ export function stationaryCovariance(ss: ArmaStateSpace): Float64Array {
   return ss.r <= GARDNER_MAX_R ? gardnerCovariance(ss) : seriesCovariance(ss);
 }
 
-/** Gardner, Harvey & Phillips (1980): solve (I − T⊗T) vec P = vec RR' on the upper triangle. */
+/** Position of (i, j), i ≤ j, in the row-wise upper triangle of an r×r matrix, for each r. */
+const triangleIndex = new Map<number, Int32Array>();
+function triangleOf(r: number): Int32Array {
+  let idx = triangleIndex.get(r);
+  if (!idx) {
+    idx = new Int32Array((r + 1) * (r + 1)).fill(-1);
+    let k = 0;
+    for (let i = 0; i < r; i++) for (let j = i; j < r; j++) idx[i * (r + 1) + j] = idx[j * (r + 1) + i] = k++;
+    triangleIndex.set(r, idx);
+  }
+  return idx;
+}
+
+/**
+ * Gardner, Harvey & Phillips (1980): solve (I − T⊗T) vec P = vec RR' on the upper triangle.
+ * It runs once per likelihood evaluation, so the system is built from a cached index table
+ * (row and column r of the table are −1: the zero padding of the shift structure) and solved
+ * in place.
+ */
 export function gardnerCovariance(ss: ArmaStateSpace): Float64Array {
   const { r, phi, R } = ss;
   const P = new Float64Array(r * r);
@@ -44,31 +62,27 @@ export function gardnerCovariance(ss: ArmaStateSpace): Float64Array {
     return P;
   }
   const m = (r * (r + 1)) / 2;
-  const idx = (i: number, j: number): number => {
-    if (i > j) {
-      const t = i;
-      i = j;
-      j = t;
-    }
-    // position of (i, j), i ≤ j, in the row-wise upper triangle
-    return i * r - (i * (i - 1)) / 2 + (j - i);
-  };
+  const w = r + 1;
+  const idx = triangleOf(r);
   const A = new Float64Array(m * m);
   const b = new Float64Array(m);
   for (let i = 0; i < r; i++) {
     for (let j = i; j < r; j++) {
-      const row = idx(i, j);
-      A[row * m + row] += 1;
+      const row = idx[i * w + j] * m;
+      A[row + idx[i * w + j]] += 1;
       // (T P T')_ij = φ_i φ_j P_00 + φ_i P_{0,j+1} + φ_j P_{i+1,0} + P_{i+1,j+1}
-      A[row * m + idx(0, 0)] -= phi[i] * phi[j];
-      if (j + 1 < r) A[row * m + idx(0, j + 1)] -= phi[i];
-      if (i + 1 < r) A[row * m + idx(i + 1, 0)] -= phi[j];
-      if (i + 1 < r && j + 1 < r) A[row * m + idx(i + 1, j + 1)] -= 1;
-      b[row] = R[i] * R[j];
+      A[row] -= phi[i] * phi[j];
+      const a = idx[j + 1];
+      if (a >= 0) A[row + a] -= phi[i];
+      const c = idx[(i + 1) * w];
+      if (c >= 0) A[row + c] -= phi[j];
+      const d = idx[(i + 1) * w + j + 1];
+      if (d >= 0) A[row + d] -= 1;
+      b[idx[i * w + j]] = R[i] * R[j];
     }
   }
-  const x = solveDense(A, b, m);
-  for (let i = 0; i < r; i++) for (let j = 0; j < r; j++) P[i * r + j] = x[idx(i, j)];
+  const x = solveDenseInPlace(A, b, m);
+  for (let i = 0; i < r; i++) for (let j = 0; j < r; j++) P[i * r + j] = x[idx[i * w + j]];
   return P;
 }
 
@@ -100,10 +114,11 @@ export function seriesCovariance(ss: ArmaStateSpace, maxTerms = 200000): Float64
   return P;
 }
 
-/** Gaussian elimination with partial pivoting on a small dense system (row-major A, m×m). */
-export function solveDense(A: Float64Array, b: Float64Array, m: number): Float64Array {
-  const a = Float64Array.from(A);
-  const x = Float64Array.from(b);
+/**
+ * Gaussian elimination with partial pivoting on a small dense system (row-major A, m×m),
+ * overwriting A and b; returns b, which then holds the solution.
+ */
+function solveDenseInPlace(a: Float64Array, x: Float64Array, m: number): Float64Array {
   for (let c = 0; c < m; c++) {
     let piv = c;
     let best = Math.abs(a[c * m + c]);
