@@ -4,6 +4,8 @@
  * from datasets that ship with R (lh, LakeHuron, Nile, presidents, WWWusage, USAccDeaths,
  * AirPassengers). The last block uses values typed from engine.md §8 (also R 4.2.2).
  */
+import { simulateArma21 } from '../../cli/bench-series';
+import { fitArma } from './fit';
 import fixture from '../fixtures/r-arima.json';
 import { fitArima, forecastArima } from '../forecast';
 
@@ -148,5 +150,30 @@ describe('engine.md §8 values (typed from the brief, R 4.2.2)', () => {
     expect(co.intercept).toBeCloseTo(2.4101, 3);
     expect(fit.arma.sigma2).toBeCloseTo(0.1923, 4);
     expect(fit.arma.loglik).toBeCloseTo(-28.76, 2);
+  });
+});
+
+describe('several likelihood maxima (overparameterised orders)', () => {
+  // The bench's simulated ARMA(2,1) series (cli/bench-series.ts), fitted as ARMA(3,3) without a
+  // mean. R 4.2.2 stats::arima(x, order = c(3, 0, 3), include.mean = FALSE), CSS-ML, gave
+  // log-likelihood −2817.148 (2,000 points, seed 42) and −12396.874 (8,760 points, seed 4242),
+  // read from `npm run bench` on 2026-12-01. The Hannan–Rissanen start alone stops at −2819.943
+  // on the first.
+  it('ARMA(3,3) on 2,000 points reaches R’s maximum, not the lower one the Hannan–Rissanen start leads to', () => {
+    const x = simulateArma21(2000, 42);
+    const both = fitArma(x, { p: 3, q: 3, includeMean: false }, { computeSe: false });
+    expect(both.loglik).toBeGreaterThan(-2817.148 - 0.01);
+    const one = fitArma(x, { p: 3, q: 3, includeMean: false }, { computeSe: false, secondStart: false });
+    expect(both.loglik).toBeGreaterThan(one.loglik + 1);
+    expect(both.startedFrom).toBe('zero');
+  });
+
+  it('keeps the Hannan–Rissanen search when it is the higher one, and never starts twice from a given start', () => {
+    const x = simulateArma21(8760, 4242);
+    const f = fitArma(x, { p: 3, q: 3, includeMean: false }, { computeSe: false });
+    expect(f.loglik).toBeGreaterThan(-12396.874 - 0.01);
+    const given = fitArma(x, { p: 3, q: 3, includeMean: false }, { computeSe: false, start: { ar: f.ar, ma: f.ma } });
+    expect(given.startedFrom).toBe('given');
+    expect(given.loglik).toBeCloseTo(f.loglik, 3);
   });
 });

@@ -6,7 +6,8 @@
  *    (Barndorff-Nielsen & Schou 1973; Jones 1980; Monahan 1984),
  *  - objective the exact Gaussian likelihood from the Kalman filter with σ² concentrated out and
  *    the mean concentrated out by GLS, initial covariance by Gardner, Harvey & Phillips (1980),
- *  - BFGS on the unconstrained values,
+ *  - BFGS on the unconstrained values, started from the information matrix (information.ts); for
+ *    AR and MA orders both ≥ 2 a second search from all-zero coefficients, the higher kept,
  *  - standard errors from the inverse of a forward-difference Hessian of −log L in the natural
  *    parameters (with the mean as a free parameter), as the observed information.
  * Information criteria follow the usual definitions with k = number of coefficients + 1 (σ²):
@@ -68,8 +69,12 @@ export interface ArmaFit {
   /** one-step predictions of every point of the series, including missing ones */
   predictions: Float64Array;
   converged: boolean;
+  /** BFGS iterations of the search that was kept */
   iterations: number;
+  /** likelihood evaluations of the estimation, over every start */
   evaluations: number;
+  /** where the search that was kept began */
+  startedFrom: 'given' | 'hannan-rissanen' | 'zero';
   /** wall time of the estimation, ms */
   fitMs: number;
   forecast(h: number): ArmaForecast;
@@ -89,6 +94,16 @@ export interface FitOptions {
    * iterations on the last digits.
    */
   fTol?: number;
+  /**
+   * Search a second time from all-zero coefficients and keep the higher likelihood. Default: on
+   * when both the AR and the MA order are two or more and no `start` is given (see fitArma).
+   */
+  secondStart?: boolean;
+}
+
+/** Orders whose likelihood commonly has several maxima (near-cancelling AR and MA roots). */
+export function needsSecondStart(o: Required<ArmaSpec>): boolean {
+  return o.p >= 2 && o.q >= 2;
 }
 
 export function normalizeSpec(spec: ArmaSpec): Required<ArmaSpec> {
@@ -171,21 +186,37 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   let u0 = toUnconstrained(startNat);
   if (!u0) u0 = new Float64Array(k);
 
+  const complete = nFinite === x.length;
   const objective = (u: Float64Array): number => {
     const nat = fromUnconstrained(u, o);
     const ss = stateSpaceOf(nat, s);
-    const f = kalmanFilter(x, ss, { profileMean: o.includeMean, tol });
+    const f = kalmanFilter(x, ss, { profileMean: o.includeMean, tol, complete });
     if (!(f.ssq > 0)) return Infinity;
     return 0.5 * Math.log(f.ssq / f.nUsed) + (0.5 * f.sumLogF) / f.nUsed;
   };
-  const start = u0;
-  const opt = minimizeBfgs(objective, start, {
-    maxIter: opts.maxIter ?? 200,
-    gradTol: 1e-7,
-    fTol: opts.fTol ?? 1e-13,
-    step: 1e-6,
-    inverseHessian: startingInverseHessian(start, o, Math.min(x.length, Math.max(2000, 20 * s))) ?? undefined,
-  });
+  const search = (from: Float64Array) =>
+    minimizeBfgs(objective, from, {
+      maxIter: opts.maxIter ?? 200,
+      gradTol: 1e-7,
+      fTol: opts.fTol ?? 1e-13,
+      step: 1e-6,
+      inverseHessian: startingInverseHessian(from, o, Math.min(x.length, Math.max(2000, 20 * s))) ?? undefined,
+    });
+  let opt = search(u0);
+  let startedFrom: ArmaFit['startedFrom'] = st ? 'given' : 'hannan-rissanen';
+  let evaluations = opt.evaluations;
+  if (!st && (opts.secondStart ?? needsSecondStart(o))) {
+    // With AR and MA orders of two or more, roots of the two polynomials can nearly cancel and
+    // the likelihood has several maxima; the Hannan–Rissanen start then often lands on a lower
+    // one. The all-zero start (the one R's arima begins its conditional sum of squares from)
+    // finds another; the higher of the two is kept.
+    const other = search(new Float64Array(k));
+    evaluations += other.evaluations;
+    if (other.f < opt.f) {
+      opt = other;
+      startedFrom = 'zero';
+    }
+  }
   const nat = fromUnconstrained(opt.x, o);
   const ss = stateSpaceOf(nat, s);
   const prof = kalmanFilter(x, ss, { profileMean: o.includeMean, tol });
@@ -237,7 +268,8 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
     predictions,
     converged: opt.converged,
     iterations: opt.iterations,
-    evaluations: opt.evaluations,
+    evaluations,
+    startedFrom,
     fitMs: 0,
     forecast: (h: number) => forecastState(ss, aEnd, PEnd, sigma2, mean, h),
   };
@@ -309,13 +341,13 @@ function startingInverseHessian(u: Float64Array, o: Required<ArmaSpec>, length: 
 }
 
 /** −log L in the natural parameters (mean explicit), for the Hessian. */
-function negLogLik(x: Float64Array, o: Required<ArmaSpec>, v: ArrayLike<number>, tol: number): number {
+function negLogLik(x: Float64Array, o: Required<ArmaSpec>, v: ArrayLike<number>, tol: number, complete: boolean): number {
   const nat = splitNatural(v, o);
   const mean = o.includeMean ? v[v.length - 1] : 0;
   let ss: ArmaStateSpace;
   try {
     ss = stateSpaceOf(nat, o.period);
-    const f: FilterResult = kalmanFilter(x, ss, { mean, tol });
+    const f: FilterResult = kalmanFilter(x, ss, { mean, tol, complete });
     const ll = concentratedLogLik(f);
     return Number.isFinite(ll) ? -ll : NaN;
   } catch {
@@ -332,7 +364,8 @@ function hessianStandardErrors(x: Float64Array, o: Required<ArmaSpec>, values: n
   // checked to, and round-off (about 1e-12 of a log-likelihood in the thousands, over h²) stays
   // negligible beside curvatures of the order of n.
   const hs = values.map((v, i) => (o.includeMean && i === m - 1 ? 1e-4 * sdx : 1e-5));
-  const f = (vv: number[]): number => negLogLik(x, o, vv, tol);
+  const complete = countFinite(x) === x.length;
+  const f = (vv: number[]): number => negLogLik(x, o, vv, tol, complete);
   const f0 = f(values);
   const at = (i: number, j: number): number => {
     const vv = values.slice();

@@ -11,6 +11,7 @@
  * A constant mean can be concentrated out as a GLS regression coefficient by filtering a
  * column of ones alongside the data with the same gains (the augmented filter of de Jong 1991).
  */
+import { scratch } from './scratch';
 import { ArmaStateSpace, stationaryCovariance } from './state-space';
 
 export interface FilterOptions {
@@ -26,6 +27,12 @@ export interface FilterOptions {
   predictions?: Float64Array;
   /** Keep the final predicted state a_{n+1|n} and covariance P_{n+1|n}. */
   keepState?: boolean;
+  /**
+   * Whether the series has no missing value, when the caller knows (a fit filters the same
+   * series hundreds of times; looking for gaps each time cost a fifth of a pass). Looked up
+   * here otherwise.
+   */
+  complete?: boolean;
 }
 
 export interface FilterResult {
@@ -38,6 +45,9 @@ export interface FilterResult {
   aPred?: Float64Array;
   PPred?: Float64Array;
 }
+
+/** Stands in for an output that was not asked for (never written: its flag is false). */
+const NO_OUTPUT = new Float64Array(0);
 
 export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts: FilterOptions = {}): FilterResult {
   const { r, phi: phiIn, R } = ss;
@@ -54,20 +64,36 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
   // vector and row / column r of a matrix are always zero. Only the upper triangle (j ≥ i) of
   // the symmetric covariances is kept; P's first column is read from its first row.
   const s = r + 1;
-  const phi = new Float64Array(s);
+  const phi = scratch('kalman.phi', s);
   for (let i = 0; i < r; i++) phi[i] = phiIn[i];
-  let P = new Float64Array(s * s);
-  let Pn = new Float64Array(s * s);
+  let P = scratch('kalman.P', s * s);
+  let Pn = scratch('kalman.Pn', s * s);
   {
-    const P0 = stationaryCovariance(ss);
+    const P0 = stationaryCovariance(ss, scratch('kalman.P0', r * r));
     for (let i = 0; i < r; i++) for (let j = i; j < r; j++) P[i * s + j] = P0[i * r + j];
   }
-  const RR = new Float64Array(s * s);
+  const RR = scratch('kalman.RR', s * s);
   for (let i = 0; i < r; i++) for (let j = i; j < r; j++) RR[i * s + j] = R[i] * R[j];
-  const a = new Float64Array(s); // a[r] stays 0
-  const c = new Float64Array(s); // state of the filtered column of ones (profile mean)
-  const K = new Float64Array(s); // gain P[·,0]/F; K[r] stays 0
-  const g = new Float64Array(s); // T P[·,0]
+  const a = scratch('kalman.a', s); // a[r] stays 0
+  const c = scratch('kalman.c', s); // state of the filtered column of ones (profile mean)
+  const K = scratch('kalman.K', s); // gain P[·,0]/F; K[r] stays 0
+  const g = scratch('kalman.g', s); // T P[·,0]
+  // Chandrasekhar recursions (Morf, Sidhu & Kailath 1974; for ARMA likelihoods, Mélard 1984;
+  // Herbst 2015): started from the stationary covariance, P_{t+1} − P_t has rank one, m_t w_t w_t',
+  // and w_t, m_t and the first row of P (all the update needs) follow in O(r) per hour instead of
+  // the O(r²) Riccati step. They hold until the first missing hour, where the full recursion takes
+  // over; the whole of P is then kept up to date as well (a rank-one update), as it is when the
+  // final state is wanted. w_0 = T P_0 Z', m_0 = −1/F_0, so this needs an observed first hour.
+  let chandra = n > 0 && x[0] - mu0 === x[0] - mu0;
+  const complete = opts.complete ?? !hasMissing(x);
+  const trackP = chandra && (!!opts.keepState || !complete);
+  let w = scratch('kalman.w', s); // w[r] stays 0
+  let wn = scratch('kalman.wn', s);
+  let mw = 0;
+  if (chandra) {
+    for (let i = 0; i < r; i++) w[i] = phi[i] * P[0] + P[i + 1];
+    mw = -1 / P[0];
+  }
   let steady = false;
   let Fss = 0;
   let logFss = 0;
@@ -79,8 +105,8 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
   let sxx = 0;
   const wantRes = opts.residuals !== undefined;
   const wantPred = opts.predictions !== undefined;
-  const res: Float64Array = opts.residuals ?? new Float64Array(0);
-  const pred: Float64Array = opts.predictions ?? new Float64Array(0);
+  const res: Float64Array = opts.residuals ?? NO_OUTPUT;
+  const pred: Float64Array = opts.predictions ?? NO_OUTPUT;
   // likelihood only, small state: the steady-state stretches take the scalar loop below
   const fast = r <= 4 && !profile && !wantRes && !wantPred;
   const p0 = phi[0];
@@ -109,11 +135,12 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       let a3 = r > 3 ? a[3] : 0;
       let sv = 0;
       let u = t;
+      // the stretch runs to the next missing hour; the loops below need no test for one
+      const end = complete ? n : nextMissing(x, t);
       if (r <= 2) {
         // the same with two states: fewer live values, no spills
-        for (; u < n; u++) {
+        for (; u < end; u++) {
           const yu = x[u] - mu0;
-          if (!(yu === yu)) break;
           const v = yu - a0;
           sv += v * v;
           const na0 = c0 * a0 + (d0 * yu + a1);
@@ -121,9 +148,8 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
           a0 = na0;
         }
       } else if (r === 3) {
-        for (; u < n; u++) {
+        for (; u < end; u++) {
           const yu = x[u] - mu0;
-          if (!(yu === yu)) break;
           const v = yu - a0;
           sv += v * v;
           const na0 = c0 * a0 + (d0 * yu + a1);
@@ -131,9 +157,8 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
           a2 = c2 * a0 + d2 * yu;
           a0 = na0;
         }
-      } else for (; u < n; u++) {
+      } else for (; u < end; u++) {
         const yu = x[u] - mu0;
-        if (!(yu === yu)) break;
         const v = yu - a0;
         sv += v * v;
         // a_i ← φ_i (a_0 + k_0 v) + a_{i+1} + k_{i+1} v with v = y − a_0, regrouped as
@@ -206,28 +231,43 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       }
       steady = false;
     }
-    // P ← T (P − P[·,0] P[0,·]/F) T' + R R' = T P T' − g g'/F + R R', g = T P[·,0]
-    for (let i = 0; i < r; i++) g[i] = phi[i] * p00 + P[i + 1];
     let change = 0;
-    for (let i = 0; i < r; i++) {
-      const phii = phi[i];
-      const p0i = P[i + 1];
-      const gi = g[i] * ginv;
-      const rowN = i * s;
-      const rowP = (i + 1) * s + 1;
-      for (let j = i; j < r; j++) {
-        const phij = phi[j];
-        const v = phii * (phij * p00 + P[j + 1]) + phij * p0i + P[rowP + j] + RR[rowN + j] - gi * g[j];
-        Pn[rowN + j] = v;
-        const d = v - P[rowN + j];
-        if (d > change) change = d;
-        else if (-d > change) change = -d;
+    if (chandra && observed) {
+      // w_{t+1} = T (w_t − P_t Z' (Z w_t) / F_t), P_{t+1} = P_t + m_t w_t w_t',
+      // m_{t+1} = m_t − m_t² (Z w_t)² / F_{t+1}
+      const zw = w[0];
+      const coef = zw / p00;
+      const e0 = w[0] - P[0] * coef;
+      for (let i = 0; i < r; i++) wn[i] = phi[i] * e0 + (w[i + 1] - P[i + 1] * coef);
+      let wmax = 0;
+      if (trackP) {
+        for (let i = 0; i < r; i++) {
+          const mwi = mw * w[i];
+          const row = i * s;
+          for (let j = i; j < r; j++) P[row + j] += mwi * w[j];
+          if (w[i] * w[i] > wmax) wmax = w[i] * w[i];
+        }
+      } else {
+        const mz = mw * zw;
+        for (let j = 0; j < r; j++) {
+          P[j] += mz * w[j];
+          if (w[j] * w[j] > wmax) wmax = w[j] * w[j];
+        }
       }
+      change = Math.abs(mw) * wmax;
+      mw -= (mw * mw * zw * zw) / P[0];
+      const tmpW = w;
+      w = wn;
+      wn = tmpW;
+    } else {
+      chandra = false;
+      change = riccatiStep(P, Pn, RR, phi, g, r, p00, ginv);
+      const tmp = P;
+      P = Pn;
+      Pn = tmp;
     }
-    const tmp = P;
-    P = Pn;
-    Pn = tmp;
     if (observed && change < tol) {
+      chandra = false;
       steady = true;
       steadyAt = t;
       Fss = P[0];
@@ -277,4 +317,42 @@ export function concentratedLogLik(f: FilterResult): number {
   const n = f.nUsed;
   const s2 = f.ssq / n;
   return -0.5 * (n * Math.log(2 * Math.PI * s2) + f.sumLogF + n);
+}
+
+/**
+ * One step of the full Riccati recursion on the padded upper triangle:
+ * P ← T (P − P[·,0] P[0,·]/F) T' + R R' = T P T' − g g'/F + R R', g = T P[·,0] (ginv = 1/F, or 0
+ * for a missing hour). Writes Pn; returns the largest change of an element.
+ */
+function riccatiStep(P: Float64Array, Pn: Float64Array, RR: Float64Array, phi: Float64Array, g: Float64Array, r: number, p00: number, ginv: number): number {
+  const s = r + 1;
+  for (let i = 0; i < r; i++) g[i] = phi[i] * p00 + P[i + 1];
+  let change = 0;
+  for (let i = 0; i < r; i++) {
+    const phii = phi[i];
+    const p0i = P[i + 1];
+    const gi = g[i] * ginv;
+    const rowN = i * s;
+    const rowP = (i + 1) * s + 1;
+    for (let j = i; j < r; j++) {
+      const phij = phi[j];
+      const v = phii * (phij * p00 + P[j + 1]) + phij * p0i + P[rowP + j] + RR[rowN + j] - gi * g[j];
+      Pn[rowN + j] = v;
+      const d = v - P[rowN + j];
+      if (d > change) change = d;
+      else if (-d > change) change = -d;
+    }
+  }
+  return change;
+}
+
+/** Index of the first missing value at or after `from` (x.length when there is none). */
+function nextMissing(x: Float64Array, from: number): number {
+  for (let t = from; t < x.length; t++) if (!(x[t] === x[t])) return t;
+  return x.length;
+}
+
+function hasMissing(x: Float64Array): boolean {
+  for (let t = 0; t < x.length; t++) if (!(x[t] === x[t])) return true;
+  return false;
 }

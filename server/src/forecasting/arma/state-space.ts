@@ -10,6 +10,8 @@
  * cheap because R R' has rank one.
  */
 
+import { scratch } from './scratch';
+
 export interface ArmaStateSpace {
   r: number;
   /** AR coefficients padded with zeros to length r. */
@@ -30,9 +32,9 @@ export function armaStateSpace(ar: ArrayLike<number>, ma: ArrayLike<number>): Ar
 
 const GARDNER_MAX_R = 12;
 
-/** Stationary covariance of the state, row-major r×r, in units of σ². */
-export function stationaryCovariance(ss: ArmaStateSpace): Float64Array {
-  return ss.r <= GARDNER_MAX_R ? gardnerCovariance(ss) : seriesCovariance(ss);
+/** Stationary covariance of the state, row-major r×r, in units of σ² (into `out` when it has that size). */
+export function stationaryCovariance(ss: ArmaStateSpace, out?: Float64Array): Float64Array {
+  return ss.r <= GARDNER_MAX_R ? gardnerCovariance(ss, out) : seriesCovariance(ss);
 }
 
 /** Position of (i, j), i ≤ j, in the row-wise upper triangle of an r×r matrix, for each r. */
@@ -51,12 +53,13 @@ function triangleOf(r: number): Int32Array {
 /**
  * Gardner, Harvey & Phillips (1980): solve (I − T⊗T) vec P = vec RR' on the upper triangle.
  * It runs once per likelihood evaluation, so the system is built from a cached index table
- * (row and column r of the table are −1: the zero padding of the shift structure) and solved
- * in place.
+ * (row and column r of the table are −1: the zero padding of the shift structure) in scratch
+ * arrays and solved in place.
  */
-export function gardnerCovariance(ss: ArmaStateSpace): Float64Array {
+export function gardnerCovariance(ss: ArmaStateSpace, out?: Float64Array): Float64Array {
   const { r, phi, R } = ss;
-  const P = new Float64Array(r * r);
+  // written whole below, so a reused `out` needs no clearing
+  const P = out && out.length === r * r ? out : new Float64Array(r * r);
   if (r === 1) {
     P[0] = (R[0] * R[0]) / (1 - phi[0] * phi[0]);
     return P;
@@ -64,8 +67,8 @@ export function gardnerCovariance(ss: ArmaStateSpace): Float64Array {
   const m = (r * (r + 1)) / 2;
   const w = r + 1;
   const idx = triangleOf(r);
-  const A = new Float64Array(m * m);
-  const b = new Float64Array(m);
+  const A = scratch('gardner.A', m * m);
+  const b = scratch('gardner.b', m);
   for (let i = 0; i < r; i++) {
     for (let j = i; j < r; j++) {
       const row = idx[i * w + j] * m;
