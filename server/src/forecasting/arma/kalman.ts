@@ -231,7 +231,7 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       }
       steady = false;
     }
-    let change = 0;
+    let change: number;
     if (chandra && observed) {
       // w_{t+1} = T (w_t − P_t Z' (Z w_t) / F_t), P_{t+1} = P_t + m_t w_t w_t',
       // m_{t+1} = m_t − m_t² (Z w_t)² / F_{t+1}
