@@ -9,6 +9,7 @@ import { hourEndingSplits, hourEndingTick } from './chart-axis';
 import { CHART_COLORS } from './chart-colors';
 import { ChartLegend } from './ChartLegend';
 import { HoverReadout } from './HoverReadout';
+import { forecastBands, forecastBandSeries } from '../../../lib/forecast-bands';
 
 const HOUR_S = 3600;
 const HEIGHT = 340;
@@ -50,7 +51,6 @@ export function LoadChart({ view, hours, displayFrom, nowHour, excluded }: LoadC
     // Windows change rarely; a change makes a new chart with the new shading.
     const excludedFlags = excluded?.slice(first) ?? [];
     const step = width < 700 ? 12 : 6;
-    const band = { show: true, points: { show: false }, stroke: 'transparent', width: 0 };
     return {
       width: Math.max(320, width),
       height: HEIGHT,
@@ -59,18 +59,12 @@ export function LoadChart({ view, hours, displayFrom, nowHour, excluded }: LoadC
       scales: { x: { time: false } },
       series: [
         {},
-        { ...band, label: '95 % upper' },
-        { ...band, label: '95 % lower' },
-        { ...band, label: '80 % upper' },
-        { ...band, label: '80 % lower' },
+        ...forecastBandSeries(),
         { label: 'Forecast', stroke: CHART_COLORS.forecast, width: 1.5, dash: [6, 4], points: { show: false } },
         { label: 'Actual load', stroke: CHART_COLORS.actual, width: 2, points: { show: false } },
         { label: 'Published schedule', stroke: CHART_COLORS.schedule, width: 1.5, points: { show: false } },
       ],
-      bands: [
-        { series: [1, 2], fill: CHART_COLORS.band95 },
-        { series: [3, 4], fill: CHART_COLORS.band80 },
-      ],
+      bands: forecastBands(),
       axes: [
         {
           stroke: CHART_COLORS.axis,

@@ -2,8 +2,6 @@
 export const CHART_COLORS = {
   actual: '#046874', // tide 8
   forecast: '#5151b5', // dusk 6
-  band80: 'rgba(81, 81, 181, 0.26)',
-  band95: 'rgba(81, 81, 181, 0.13)',
   schedule: '#d16700', // ember 7
   now: '#55708e', // slate 7
   incomplete: 'rgba(236, 130, 25, 0.16)',

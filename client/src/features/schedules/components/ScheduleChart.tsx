@@ -6,6 +6,7 @@ import UplotReact from 'uplot-react';
 import 'uplot/dist/uPlot.min.css';
 import type { ScheduleRow } from '../model/rows';
 import { SCHEDULE_COLORS } from './chart-colors';
+import { forecastBands, forecastBandSeries, FORECAST_BAND_COLORS } from '../../../lib/forecast-bands';
 
 const HEIGHT = 300;
 
@@ -42,7 +43,6 @@ export function ScheduleChart({ rows, title }: { rows: readonly ScheduleRow[]; t
   );
 
   const options = useMemo<uPlot.Options>(() => {
-    const band = { show: true, points: { show: false }, stroke: 'transparent', width: 0 };
     const every = width < 700 ? 4 : 2;
     return {
       width: Math.max(320, width),
@@ -52,17 +52,11 @@ export function ScheduleChart({ rows, title }: { rows: readonly ScheduleRow[]; t
       scales: { x: { time: false } },
       series: [
         {},
-        { ...band, label: '95 % upper' },
-        { ...band, label: '95 % lower' },
-        { ...band, label: '80 % upper' },
-        { ...band, label: '80 % lower' },
+        ...forecastBandSeries(),
         { label: 'Model forecast', stroke: SCHEDULE_COLORS.model, width: 1.5, dash: [6, 4], points: { show: false } },
         { label: 'Adjusted', stroke: SCHEDULE_COLORS.adjusted, width: 2.5, points: { show: true, size: 4 } },
       ],
-      bands: [
-        { series: [1, 2], fill: SCHEDULE_COLORS.band95 },
-        { series: [3, 4], fill: SCHEDULE_COLORS.band80 },
-      ],
+      bands: forecastBands(),
       axes: [
         {
           stroke: SCHEDULE_COLORS.axis,
@@ -81,8 +75,8 @@ export function ScheduleChart({ rows, title }: { rows: readonly ScheduleRow[]; t
       <Group gap="md" mb={4} data-testid="schedule-chart-legend">
         <Group gap={6}><Swatch color={SCHEDULE_COLORS.adjusted} /><Text size="xs">Adjusted (what is published)</Text></Group>
         <Group gap={6}><Swatch color={SCHEDULE_COLORS.model} dashed /><Text size="xs">Model forecast</Text></Group>
-        {hasBands && <Group gap={6}><Swatch color="rgba(81, 81, 181, 0.35)" block /><Text size="xs">80 % band</Text></Group>}
-        {hasBands && <Group gap={6}><Swatch color="rgba(81, 81, 181, 0.15)" block /><Text size="xs">95 % band</Text></Group>}
+        {hasBands && <Group gap={6}><Swatch color={FORECAST_BAND_COLORS.band80} block /><Text size="xs">80 % band</Text></Group>}
+        {hasBands && <Group gap={6}><Swatch color={FORECAST_BAND_COLORS.band95} block /><Text size="xs">95 % band</Text></Group>}
       </Group>
       <Box ref={ref} data-testid="schedule-chart" role="img" aria-label={`Schedule chart: ${title}`}>
         {width > 0 && <UplotReact options={options} data={data} />}

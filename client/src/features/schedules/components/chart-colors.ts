@@ -2,8 +2,6 @@
 export const SCHEDULE_COLORS = {
   model: '#5151b5', // dusk 6
   adjusted: '#d16700', // ember 7
-  band80: 'rgba(81, 81, 181, 0.24)',
-  band95: 'rgba(81, 81, 181, 0.11)',
   grid: 'rgba(113, 137, 167, 0.18)',
   axis: '#6682a3',
 } as const;
