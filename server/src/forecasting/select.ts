@@ -3,7 +3,7 @@
  * AICc (Hurvich & Tsai 1989) or BIC (Schwarz 1978), each model fitted by exact ML (./arma/fit).
  * Candidates are fitted without standard errors; only the winner gets its Hessian.
  */
-import { ArmaFit, fitArma } from './arma/fit';
+import { ArmaFit, fitArma, needsSecondStart } from './arma/fit';
 import { hannanRissanen } from './arma/hannan-rissanen';
 
 export type Criterion = 'aicc' | 'bic' | 'aic';
@@ -27,6 +27,12 @@ export interface SelectOptions {
   maxIter?: number;
   /** relative-decrease stopping rule of the candidates' BFGS (see FitOptions.fTol) */
   fTol?: number;
+  /**
+   * Search candidates with p, q ≥ 2 from a second start too (FitOptions.secondStart). Off by
+   * default: selection screens many candidates, with capped iterations already, and the nightly
+   * refit of every zone has a time budget; the second start doubles or triples those candidates.
+   */
+  secondStart?: boolean;
 }
 
 export interface CandidateScore {
@@ -89,7 +95,7 @@ export function selectOrder(x: ArrayLike<number>, opts: SelectOptions = {}): Sel
   for (const [p, q] of orders) {
     {
       try {
-        const f = fitArma(x, { p, q, P: opts.P, Q: opts.Q, period: opts.period, includeMean: opts.includeMean ?? false }, { computeSe: false, maxIter: opts.maxIter, fTol: opts.fTol });
+        const f = fitArma(x, { p, q, P: opts.P, Q: opts.Q, period: opts.period, includeMean: opts.includeMean ?? false }, { computeSe: false, maxIter: opts.maxIter, fTol: opts.fTol, secondStart: opts.secondStart ?? false });
         const ok = Number.isFinite(f.loglik);
         candidates.push({ p, q, loglik: f.loglik, aic: f.aic, aicc: f.aicc, bic: f.bic, ok });
         if (ok && (!best || f[criterion] < best[criterion])) best = f;
@@ -100,7 +106,14 @@ export function selectOrder(x: ArrayLike<number>, opts: SelectOptions = {}): Sel
   }
   if (!best) throw new Error('no ARMA candidate could be fitted');
   if (opts.computeSe ?? true) {
-    best = fitArma(x, best.spec, { start: { ar: best.ar, ma: best.ma, sar: best.sar, sma: best.sma } });
+    const chosen = best;
+    best = fitArma(x, chosen.spec, { start: { ar: chosen.ar, ma: chosen.ma, sar: chosen.sar, sma: chosen.sma } });
+    // the chosen order gets the thorough search of a final fit: a second one from zero
+    if (needsSecondStart(chosen.spec)) {
+      const zero = (m: number) => new Array<number>(m).fill(0);
+      const other = fitArma(x, chosen.spec, { start: { ar: zero(chosen.spec.p), ma: zero(chosen.spec.q), sar: zero(chosen.spec.P), sma: zero(chosen.spec.Q) } });
+      if (other.loglik > best.loglik) best = { ...other, startedFrom: 'zero' };
+    }
   }
   return { best, candidates, criterion };
 }
