@@ -190,7 +190,14 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   const objective = (u: Float64Array): number => {
     const nat = fromUnconstrained(u, o);
     const ss = stateSpaceOf(nat, s);
-    const f = kalmanFilter(x, ss, { profileMean: o.includeMean, tol, complete });
+    let f: FilterResult;
+    try {
+      f = kalmanFilter(x, ss, { profileMean: o.includeMean, tol, complete });
+    } catch {
+      // a root on the unit circle to machine precision (the transform's tanh saturates far out):
+      // no stationary covariance there, so no likelihood; the line search steps back
+      return Infinity;
+    }
     if (!(f.ssq > 0)) return Infinity;
     return 0.5 * Math.log(f.ssq / f.nUsed) + (0.5 * f.sumLogF) / f.nUsed;
   };
