@@ -1,13 +1,17 @@
 #!/usr/bin/env bash
 # npm run dev: MariaDB as for npm start, the server recompiled and restarted on change
 # (tsc --watch + node --watch) and the client through Vite's dev server with hot reload
-# on http://127.0.0.1:5173 (it forwards /api and /socket.io to the server on :3000).
+# on http://127.0.0.1:5173 (it forwards /api and /socket.io to the server on :3000), with the
+# SMTP fake and the meter-feed simulator as for npm start.
 set -uo pipefail
 source "$(dirname "$0")/lib.sh"
 cd "$ROOT"
 export NODE_ENV=development DB_PORT="${DB_PORT:-3307}"
 pids=()
-stop_all() { trap - INT TERM EXIT; for pid in "${pids[@]}"; do kill "$pid" 2>/dev/null; done; wait; bash scripts/db.sh stop dev; exit 0; }
+# Children of the background jobs (npx → vite, npm → the simulator) go too, also when only this
+# script gets the signal (Ctrl-C in a terminal reaches the whole group anyway).
+kill_tree() { local child; for child in $(pgrep -P "$1"); do kill_tree "$child"; done; kill "$1" 2>/dev/null; }
+stop_all() { trap - INT TERM EXIT; for pid in "${pids[@]}"; do kill_tree "$pid"; done; wait; bash scripts/db.sh stop dev; exit 0; }
 trap stop_all INT TERM EXIT
 
 npm_deps
@@ -19,5 +23,17 @@ npm run -s build -w server >/dev/null || true
 (cd server && npx tsc -p tsconfig.build.json --watch --preserveWatchOutput) & pids+=($!)
 (cd server && node --watch-path=dist --watch-path=../shared/dist dist/main.js) & pids+=($!)
 (cd client && npx vite --host 127.0.0.1) & pids+=($!)
-log "dev desk on http://127.0.0.1:5173 (API on :3000). Ctrl-C stops everything."
+
+# As npm start does: the SMTP fake for publication e-mails and the meter-feed simulator, so the
+# dev desk has live data (the simulator reconnects and resends while the server restarts).
+export SMTP_PORT="${SMTP_PORT:-2525}"
+node scripts/smtp-fake.mjs --port "$SMTP_PORT" --dir "$ROOT/.data/mail/dev" >"$ROOT/.data/smtp-fake.log" 2>&1 & pids+=($!)
+for _ in $(seq 1 60); do curl -fs "http://127.0.0.1:3000/api/health" >/dev/null && break; sleep 0.5; done
+if key="$(cd server && node dist/database/manage.js feed-key demo-simulator)"; then
+  MORROWLINE_FEED_KEY="$key" npm run -s simulate -- --url "http://127.0.0.1:3000" --backfill-weeks "${SIM_BACKFILL_WEEKS:-6}" \
+    --speed "${SIM_SPEED:-3600}" --quiet >"$ROOT/.data/simulator.log" 2>&1 & pids+=($!)
+else
+  log "no simulator: the feed key could not be made (the desk runs without live readings)"
+fi
+log "dev desk on http://127.0.0.1:5173 (API on :3000, simulator log .data/simulator.log, e-mails .data/mail/dev). Ctrl-C stops everything."
 wait
