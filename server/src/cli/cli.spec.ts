@@ -13,7 +13,7 @@ const taylor = join(__dirname, '../forecasting/fixtures/taylor-hourly.csv');
 describe('command line', () => {
   it('fit --json has the documented keys', () => {
     const r = runFit(['--input', taylor, '--diff', '168', '--order', '2,1', '--json']).json;
-    for (const k of ['coefficients', 'sigma2', 'loglik', 'aic', 'aicc', 'bic', 'ljungBox', 'n', 'fitMs']) expect(r).toHaveProperty(k);
+    for (const k of ['coefficients', 'sigma2', 'loglik', 'aic', 'aicc', 'bic', 'ljungBox', 'n', 'fitMs', 'startedFrom']) expect(r).toHaveProperty(k);
     expect((r.coefficients as Array<{ name: string; se: number }>).map((c) => c.name)).toEqual(['ar1', 'ar2', 'ma1']);
     expect(r.n).toBe(2016 - 168);
     expect(r.aicc as number).toBeGreaterThan(r.aic as number);

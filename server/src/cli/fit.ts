@@ -98,6 +98,7 @@ export function runFit(argv: string[]): { text: string; json: Record<string, unk
     ljungBox: lb,
     n: m.nUsed,
     converged: m.converged,
+    startedFrom: m.startedFrom,
     fitMs: m.fitMs,
     ...(pipelineMs !== undefined ? { selectionMs: pipelineMs } : {}),
   };
@@ -111,7 +112,7 @@ export function runFit(argv: string[]): { text: string; json: Record<string, unk
     '',
     `sigma2 ${f(m.sigma2)}   loglik ${f(m.loglik, 2)}   AIC ${f(m.aic, 2)}   AICc ${f(m.aicc, 2)}   BIC ${f(m.bic, 2)}`,
     ...lb.map((l) => `Ljung–Box lag ${l.lag}: Q ${f(l.statistic, 2)} on ${l.df} df, p ${f(l.pValue, 4)}`),
-    `n ${m.nUsed}   estimation ${f(m.fitMs, 1)} ms${m.converged ? '' : '   (optimiser did not fully converge)'}`,
+    `n ${m.nUsed}   estimation ${f(m.fitMs, 1)} ms, search kept: from the ${m.startedFrom === 'zero' ? 'all-zero' : m.startedFrom === 'given' ? 'given' : 'Hannan–Rissanen'} start${m.converged ? '' : '   (optimiser did not fully converge)'}`,
   ];
   return { text: lines.join('\n'), json };
 }
