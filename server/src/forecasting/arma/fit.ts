@@ -175,8 +175,12 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
     centred = new Float64Array(x.length);
     for (let t = 0; t < x.length; t++) centred[t] = x[t] - m0;
   }
-  const hr = hannanRissanen(centred, { p: o.p, q: o.q, P: o.P, Q: o.Q, period: s || 1 });
   const st = opts.start;
+  // a start given in full (the hourly update, a selected order's final fit) needs no regression
+  const hr =
+    st?.ar && st.ma && st.sar && st.sma
+      ? { ar: new Float64Array(0), ma: new Float64Array(0), sar: new Float64Array(0), sma: new Float64Array(0) }
+      : hannanRissanen(centred, { p: o.p, q: o.q, P: o.P, Q: o.Q, period: s || 1 });
   const startNat: Natural = {
     ar: st?.ar ? Float64Array.from(st.ar) : hr.ar,
     ma: st?.ma ? Float64Array.from(st.ma) : hr.ma,
