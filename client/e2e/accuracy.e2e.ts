@@ -2,6 +2,7 @@ import { DateTime } from 'luxon';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { BASE_URL, demoUser, openDesk, screenshot, signInAs, type Desk } from './support/browser';
 import { apiToken, uploadHistory } from './support/history';
+import { insertPastForecastRun } from './support/test-database';
 
 const HOUR = 3_600_000;
 const ZONE = 'COPPERLINE';
@@ -24,10 +25,15 @@ function historyCsv(hours: number): string {
 }
 
 /** Uploads the history as the operator, asks for a refit and waits until it has finished. */
-async function seedAndRefit(): Promise<void> {
+async function seedAndRefit(): Promise<Map<number, number>> {
   const token = await apiToken('operator');
   const auth = { Authorization: `Bearer ${token}` };
-  await uploadHistory(token, ZONE, historyCsv(6 * 168), 'copperline-history.csv');
+  const csv = historyCsv(6 * 168);
+  await uploadHistory(token, ZONE, csv, 'copperline-history.csv');
+  const actuals = new Map(csv.trim().split('\n').slice(1).map((line) => {
+    const [at, mw] = line.split(',');
+    return [Date.parse(at), Number(mw)] as [number, number];
+  }));
   const refit = await fetch(`${BASE_URL}/api/models/refits`, { method: 'POST', headers: { ...auth, 'Content-Type': 'application/json' }, body: JSON.stringify({ zone: ZONE, reason: 'Accuracy browser test: a forecast run to score' }) });
   expect(refit.status).toBe(202);
   const [job] = (await refit.json()) as { id: number }[];
@@ -35,16 +41,17 @@ async function seedAndRefit(): Promise<void> {
     const jobs = (await (await fetch(`${BASE_URL}/api/models/refits?zone=${ZONE}`, { headers: auth })).json()) as { id: number; state: string; message: string | null }[];
     const mine = jobs.find((j) => j.id === job.id);
     if (mine?.state === 'failed') throw new Error(`the refit failed: ${mine.message}`);
-    if (mine?.state === 'done') return;
+    if (mine?.state === 'done') return actuals;
     await new Promise((resolve) => setTimeout(resolve, 1000));
   }
 }
 
 describe('accuracy', () => {
   let desk: Desk;
+  let actuals: Map<number, number>;
 
   beforeAll(async () => {
-    await seedAndRefit();
+    actuals = await seedAndRefit();
     desk = await openDesk();
   }, 240_000);
   afterAll(async () => {
@@ -80,5 +87,35 @@ describe('accuracy', () => {
     // A range the server refuses, asked for by address: its message, not a blank page.
     await page.goto('/accuracy?zone=COPPERLINE&from=2026-01-01&to=2026-06-30');
     expect(await page.getByText(/Choose at most 92 days/).innerText()).toMatch(/this range has 181/);
+  }, 120_000);
+
+  it('scores yesterday once a forecast issued before its gate closure is stored: 2 % over every hour is a MAPE of 2.00 %', async () => {
+    // Yesterday in Copperline's time, whole (23, 24 or 25 hours), and its gate closure (10:00 the
+    // day before, the zone's default). The run, 2 % above every actual hour, is written as issued
+    // an hour before that gate: the server only ever issues at the present time.
+    const yesterday = DateTime.now().setZone(TIME_ZONE).startOf('day').minus({ days: 1 });
+    const start = yesterday.toMillis();
+    const end = yesterday.plus({ days: 1 }).toMillis();
+    const mean: number[] = [];
+    for (let at = start; at < end; at += HOUR) {
+      const actual = actuals.get(at);
+      if (actual === undefined) throw new Error(`the uploaded history has no hour ${new Date(at).toISOString()}`);
+      mean.push(Math.round(actual * 1.02 * 1000) / 1000);
+    }
+    const gate = yesterday.minus({ days: 1 }).set({ hour: 10, minute: 0 });
+    await insertPastForecastRun({ zone: ZONE, issuedAt: gate.minus({ hours: 1 }).toJSDate(), firstHour: new Date(start), mean });
+
+    const page = desk.page;
+    const day = yesterday.toFormat('yyyy-LL-dd');
+    await page.goto(`/accuracy?zone=${ZONE}&from=${yesterday.minus({ days: 6 }).toFormat('yyyy-LL-dd')}&to=${day}`);
+    const zones = page.getByTestId('accuracy-zones');
+    await zones.getByText(/1 \/ 7/).waitFor({ timeout: 30_000 });
+    expect(await zones.innerText()).toMatch(/Copperline \(COPPERLINE\)\s+1 \/ 7\s+2\.0\d? %/);
+    const row = page.getByTestId('accuracy-days').getByRole('row').filter({ hasText: day });
+    // MAPE is 2.00 % up to the rounding of the stored values (0.001 MW in some 300 MW)
+    expect(await row.innerText()).toMatch(/2\.00 %/);
+    expect(await page.getByTestId('accuracy-days').innerText()).toMatch(/no model forecast/);
+    await page.addStyleTag({ content: 'header { position: static !important; }' });
+    await screenshot(page, 'accuracy-scored-day');
   }, 120_000);
 });
