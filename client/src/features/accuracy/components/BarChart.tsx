@@ -1,13 +1,9 @@
-import { Box, Text } from '@mantine/core';
-import { useElementSize } from '@mantine/hooks';
 import { useMemo } from 'react';
 import uPlot from 'uplot';
-import UplotReact from 'uplot-react';
-import 'uplot/dist/uPlot.min.css';
+import { axis, UplotChart } from '../../../components/UplotChart';
 
 /** Literal colours (uPlot draws on canvas): model in teal, schedule in amber. */
-export const ACCURACY_COLORS = { model: '#0f7683', schedule: '#d16700', grid: 'rgba(132,152,177,0.25)', axis: '#6682a3' } as const;
-const MONO = '11px "JetBrains Mono", ui-monospace, monospace';
+export const ACCURACY_COLORS = { model: '#0f7683', schedule: '#d16700' } as const;
 
 interface BarChartProps {
   title: string;
@@ -26,13 +22,9 @@ interface BarChartProps {
 
 /** Grouped bars, one group per x value (days or hours ending), sized to the container's width. */
 export function BarChart({ title, data, series, xLabel, xName, unit, height = 240, testId, caption }: BarChartProps) {
-  const { ref, width } = useElementSize();
-  const options = useMemo<uPlot.Options>(() => {
+  const options = useMemo<Omit<uPlot.Options, 'width' | 'height'>>(() => {
     const groups = series.length;
-    const axis = (extra: Partial<uPlot.Axis>): uPlot.Axis => ({ stroke: ACCURACY_COLORS.axis, grid: { stroke: ACCURACY_COLORS.grid, width: 1 }, ticks: { stroke: ACCURACY_COLORS.grid, width: 1 }, font: MONO, ...extra });
     return {
-      width: Math.max(240, Math.floor(width)),
-      height,
       // Bars grow from zero, so the y range always includes it.
       scales: { x: { time: false, range: (_u, min, max) => [min - 0.6, max + 0.6] }, y: { range: (_u, min, max) => [Math.min(0, min * 1.1), Math.max(0, max * 1.1) || 1] } },
       legend: { show: true },
@@ -56,20 +48,6 @@ export function BarChart({ title, data, series, xLabel, xName, unit, height = 24
         axis({ size: 64, label: unit, labelSize: 14, values: (_u, splits) => splits.map((v) => v.toFixed(1)) }),
       ],
     };
-  }, [width, height, series, xLabel, xName, unit, data]);
-  return (
-    <Box data-testid={testId} role="figure" aria-label={title}>
-      <Text size="sm" fw={600} mb={4}>
-        {title}
-      </Text>
-      <Box ref={ref} style={{ minHeight: height }}>
-        {width > 0 && <UplotReact options={options} data={data as uPlot.AlignedData} />}
-      </Box>
-      {caption && (
-        <Text size="xs" c="dimmed" mt={2}>
-          {caption}
-        </Text>
-      )}
-    </Box>
-  );
+  }, [series, xLabel, xName, unit, data]);
+  return <UplotChart title={title} options={options} data={data as uPlot.AlignedData} height={height} testId={testId} caption={caption} />;
 }

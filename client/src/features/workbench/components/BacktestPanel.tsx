@@ -6,7 +6,7 @@ import uPlotLib from 'uplot';
 import { ErrorNotice } from '../../../components/ErrorNotice';
 import { useRunBacktest } from '../api/use-workbench';
 import { dailyMapeData, fmtNum } from '../chart-data';
-import { axis, CHART_COLORS, UplotChart } from './UplotChart';
+import { axis, CHART_COLORS, UplotChart } from '../../../components/UplotChart';
 
 const METRICS: { key: keyof BacktestScoresDto; label: string; unit: string; pct?: boolean }[] = [
   { key: 'mape', label: 'MAPE', unit: '%' },

@@ -2,7 +2,7 @@ import { useMemo } from 'react';
 import uPlot from 'uplot';
 import type { Correlogram } from '@morrowline/shared';
 import { correlogramData, correlogramRange } from '../chart-data';
-import { axis, CHART_COLORS, UplotChart } from './UplotChart';
+import { axis, CHART_COLORS, UplotChart } from '../../../components/UplotChart';
 
 interface CorrelogramChartProps {
   title: string;

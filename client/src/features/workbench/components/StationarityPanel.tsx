@@ -4,7 +4,7 @@ import { useMemo, useState } from 'react';
 import { CorrelogramChart } from './CorrelogramChart';
 import { TestResultsTable } from './TestResultsTable';
 import { TimeChart } from './TimeChart';
-import { CHART_COLORS } from './UplotChart';
+import { CHART_COLORS } from '../../../components/UplotChart';
 import { VerdictSummary } from './VerdictSummary';
 
 /** Is the load stationary, and which differencing makes it so? */

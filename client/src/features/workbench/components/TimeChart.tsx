@@ -1,7 +1,7 @@
 import { useMemo } from 'react';
 import type uPlot from 'uplot';
 import { timeSeriesData } from '../chart-data';
-import { axis, UplotChart } from './UplotChart';
+import { axis, UplotChart } from '../../../components/UplotChart';
 
 export interface TimeSeriesLine {
   label: string;
