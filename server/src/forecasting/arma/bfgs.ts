@@ -24,6 +24,11 @@ export interface BfgsOptions {
    * search starts from the identity, rescaled after the first step
    */
   inverseHessian?: Float64Array;
+  /**
+   * the gradient at x, where f(x) = fx was the last evaluation, when the caller has a cheaper
+   * route to it than differences (null: fall back to them)
+   */
+  gradient?: (x: Float64Array, fx: number) => Float64Array | null;
 }
 
 export interface BfgsResult {
@@ -52,6 +57,8 @@ export function minimizeBfgs(fn: (x: Float64Array) => number, x0: ArrayLike<numb
   let fx = f(x);
   if (k === 0) return { x, f: fx, iterations: 0, evaluations, converged: true, gradNorm: 0 };
   const grad = (xv: Float64Array, fv: number): Float64Array => {
+    const given = opts.gradient?.(xv, fv);
+    if (given) return given;
     const g = new Float64Array(k);
     const xt = Float64Array.from(xv);
     for (let i = 0; i < k; i++) {

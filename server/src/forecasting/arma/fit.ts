@@ -21,6 +21,7 @@ import { armaInformation, inverseSpd } from './information';
 import { concentratedLogLik, FilterResult, kalmanFilter } from './kalman';
 import { expandAr, expandMa } from './polynomials';
 import { armaStateSpace, ArmaStateSpace } from './state-space';
+import { SteadyPass, steadyStateScore } from './steady-score';
 import { fromInvertible, fromStationary, toInvertible, toStationary } from './transform';
 import { countFinite, meanFinite, toSeries, varianceFinite } from '../series';
 
@@ -191,26 +192,44 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   if (!u0) u0 = new Float64Array(k);
 
   const complete = nFinite === x.length;
+  const model = (u: Float64Array): ArmaStateSpace => stateSpaceOf(fromUnconstrained(u, o), s);
+  const step = 1e-6;
+  // A complete series with a known mean: the long steady stretch of the likelihood is
+  // differentiated exactly by one backward pass (steady-score.ts), which pays from three
+  // coefficients on; otherwise the whole likelihood is forward-differenced.
+  const scoreInput = complete && !o.includeMean && k >= 3 ? { x, model, step } : null;
+  // the last evaluation's point and what its filter left for the steady-state score there
+  const lastU = new Float64Array(k);
+  let lastValid = false;
+  let lastPass: SteadyPass | null = null;
+  const trace = scoreInput ? new Float64Array(x.length) : undefined;
   const objective = (u: Float64Array): number => {
-    const nat = fromUnconstrained(u, o);
-    const ss = stateSpaceOf(nat, s);
+    const ss = model(u);
     let f: FilterResult;
+    lastValid = false;
     try {
-      f = kalmanFilter(x, ss, { profileMean: o.includeMean, tol, complete });
+      f = kalmanFilter(x, ss, { profileMean: o.includeMean, tol, complete, trace });
     } catch {
       // a root on the unit circle to machine precision (the transform's tanh saturates far out):
       // no stationary covariance there, so no likelihood; the line search steps back
       return Infinity;
     }
     if (!(f.ssq > 0)) return Infinity;
+    lastU.set(u);
+    lastValid = true;
+    lastPass = f.entry && trace ? { ssq: f.ssq, entry: f.entry, trace } : null;
     return 0.5 * Math.log(f.ssq / f.nUsed) + (0.5 * f.sumLogF) / f.nUsed;
   };
+  const gradient = scoreInput
+    ? (u: Float64Array): Float64Array | null => (lastValid && lastPass && sameValues(lastU, u) ? steadyStateScore(scoreInput, u, lastPass) : null)
+    : undefined;
   const search = (from: Float64Array) =>
     minimizeBfgs(objective, from, {
       maxIter: opts.maxIter ?? 200,
       gradTol: 1e-7,
       fTol: opts.fTol ?? 1e-13,
-      step: 1e-6,
+      step,
+      gradient,
       inverseHessian: startingInverseHessian(from, o, Math.min(x.length, Math.max(2000, 20 * s))) ?? undefined,
     });
   let opt = search(u0);
@@ -286,6 +305,12 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   };
   fit.fitMs = performance.now() - t0;
   return fit;
+}
+
+function sameValues(a: Float64Array, b: Float64Array): boolean {
+  if (a.length !== b.length) return false;
+  for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false;
+  return true;
 }
 
 /**

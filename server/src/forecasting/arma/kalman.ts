@@ -11,7 +11,6 @@
  * A constant mean can be concentrated out as a GLS regression coefficient by filtering a
  * column of ones alongside the data with the same gains (the augmented filter of de Jong 1991).
  */
-import { scratch } from './scratch';
 import { ArmaStateSpace, stationaryCovariance } from './state-space';
 
 export interface FilterOptions {
@@ -33,6 +32,33 @@ export interface FilterOptions {
    * here otherwise.
    */
   complete?: boolean;
+  /**
+   * Run the hours 0..stopAt only, with the time-varying recursions throughout (no steady-state
+   * switch), and return with `entry` describing where they stopped: the start-up stretch on its
+   * own, which the steady-state score (steady-score.ts) differentiates.
+   */
+  stopAt?: number;
+  /**
+   * Fill with the predicted a_{t,0} (mean removed) for the hours after the first steady-state
+   * switch, and return `entry` for that switch: what the steady-state score needs from the
+   * pass that evaluated the likelihood. The scalar loop writes the prediction anyway (into a
+   * buffer of the filter's own when this is not given), so it costs nothing.
+   */
+  trace?: Float64Array;
+}
+
+/** The filter at the end of a start-up stretch: hours 0..steadyAt run. */
+export interface SteadyEntry {
+  steadyAt: number;
+  /** Σ v_t²/F_t and Σ log F_t over hours 0..steadyAt */
+  ssq: number;
+  sumLogF: number;
+  /** predicted state a_{steadyAt+1} */
+  a: Float64Array;
+  /** gain P_{steadyAt+1}[·,0] / F */
+  gain: Float64Array;
+  /** F = P_{steadyAt+1}[0,0], in units of σ² */
+  F: number;
 }
 
 export interface FilterResult {
@@ -44,6 +70,53 @@ export interface FilterResult {
   steadyAt: number;
   aPred?: Float64Array;
   PPred?: Float64Array;
+  /** with `stopAt`, or `trace` and a steady-state switch */
+  entry?: SteadyEntry;
+}
+
+/**
+ * The filter's arrays for one state size, allocated once (zeroed) and reused by every call: a
+ * fit filters the same series hundreds of times, and a dozen allocations (or lookups and
+ * clearings) per call were a quarter of a 2,000-hour pass. Each array is padded to stride
+ * s = r + 1 and its padding (element r, row and column r) is never written, so it stays zero;
+ * the used parts are written before they are read on every call, except a and c, which are
+ * cleared. One filter runs at a time per thread (it calls nothing that filters).
+ */
+interface Workspace {
+  phi: Float64Array;
+  P: Float64Array;
+  Pn: Float64Array;
+  /** the stationary covariance, r×r unpadded */
+  P0: Float64Array;
+  RR: Float64Array;
+  a: Float64Array;
+  /** state of the filtered column of ones (profile mean) */
+  c: Float64Array;
+  /** gain P[·,0]/F */
+  K: Float64Array;
+  /** T P[·,0] */
+  g: Float64Array;
+  w: Float64Array;
+  wn: Float64Array;
+  /** where the scalar loop writes its predictions when nobody asked for them */
+  trace: Float64Array;
+}
+const workspaces = new Map<number, Workspace>();
+function workspaceFor(r: number): Workspace {
+  let ws = workspaces.get(r);
+  if (!ws) {
+    const s = r + 1;
+    const v = () => new Float64Array(s);
+    const m = () => new Float64Array(s * s);
+    ws = { phi: v(), P: m(), Pn: m(), P0: new Float64Array(r * r), RR: m(), a: v(), c: v(), K: v(), g: v(), w: v(), wn: v(), trace: new Float64Array(0) };
+    workspaces.set(r, ws);
+  }
+  return ws;
+}
+
+function traceBuffer(ws: Workspace, n: number): Float64Array {
+  if (ws.trace.length < n) ws.trace = new Float64Array(n);
+  return ws.trace;
 }
 
 /** Stands in for an output that was not asked for (never written: its flag is false). */
@@ -64,20 +137,18 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
   // vector and row / column r of a matrix are always zero. Only the upper triangle (j ≥ i) of
   // the symmetric covariances is kept; P's first column is read from its first row.
   const s = r + 1;
-  const phi = scratch('kalman.phi', s);
+  const ws = workspaceFor(r);
+  const { phi, RR, a, c, K, g } = ws;
   for (let i = 0; i < r; i++) phi[i] = phiIn[i];
-  let P = scratch('kalman.P', s * s);
-  let Pn = scratch('kalman.Pn', s * s);
+  let P = ws.P;
+  let Pn = ws.Pn;
   {
-    const P0 = stationaryCovariance(ss, scratch('kalman.P0', r * r));
+    const P0 = stationaryCovariance(ss, ws.P0);
     for (let i = 0; i < r; i++) for (let j = i; j < r; j++) P[i * s + j] = P0[i * r + j];
   }
-  const RR = scratch('kalman.RR', s * s);
   for (let i = 0; i < r; i++) for (let j = i; j < r; j++) RR[i * s + j] = R[i] * R[j];
-  const a = scratch('kalman.a', s); // a[r] stays 0
-  const c = scratch('kalman.c', s); // state of the filtered column of ones (profile mean)
-  const K = scratch('kalman.K', s); // gain P[·,0]/F; K[r] stays 0
-  const g = scratch('kalman.g', s); // T P[·,0]
+  a.fill(0);
+  c.fill(0);
   // Chandrasekhar recursions (Morf, Sidhu & Kailath 1974; for ARMA likelihoods, Mélard 1984;
   // Herbst 2015): started from the stationary covariance, P_{t+1} − P_t has rank one, m_t w_t w_t',
   // and w_t, m_t and the first row of P (all the update needs) follow in O(r) per hour instead of
@@ -87,8 +158,8 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
   let chandra = n > 0 && x[0] - mu0 === x[0] - mu0;
   const complete = opts.complete ?? !hasMissing(x);
   const trackP = chandra && (!!opts.keepState || !complete);
-  let w = scratch('kalman.w', s); // w[r] stays 0
-  let wn = scratch('kalman.wn', s);
+  let w = ws.w;
+  let wn = ws.wn;
   let mw = 0;
   if (chandra) {
     for (let i = 0; i < r; i++) w[i] = phi[i] * P[0] + P[i + 1];
@@ -98,6 +169,10 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
   let Fss = 0;
   let logFss = 0;
   let steadyAt = -1;
+  const stopAt = opts.stopAt ?? -1;
+  const wantTrace = opts.trace !== undefined;
+  const tr: Float64Array = opts.trace ?? traceBuffer(ws, n);
+  let entry: SteadyEntry | undefined;
   let ssq = 0;
   let sumLogF = 0;
   let nUsed = 0;
@@ -141,6 +216,7 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
         // the same with two states: fewer live values, no spills
         for (; u < end; u++) {
           const yu = x[u] - mu0;
+          tr[u] = a0;
           const v = yu - a0;
           sv += v * v;
           const na0 = c0 * a0 + (d0 * yu + a1);
@@ -150,6 +226,7 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       } else if (r === 3) {
         for (; u < end; u++) {
           const yu = x[u] - mu0;
+          tr[u] = a0;
           const v = yu - a0;
           sv += v * v;
           const na0 = c0 * a0 + (d0 * yu + a1);
@@ -159,6 +236,7 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
         }
       } else for (; u < end; u++) {
         const yu = x[u] - mu0;
+        tr[u] = a0;
         const v = yu - a0;
         sv += v * v;
         // a_i ← φ_i (a_0 + k_0 v) + a_{i+1} + k_{i+1} v with v = y − a_0, regrouped as
@@ -181,6 +259,7 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       continue;
     }
     if (steady && observed) {
+      if (wantTrace) tr[t] = a[0];
       const v = yt - a[0];
       const vf = v / Fss;
       ssq += v * vf;
@@ -266,7 +345,9 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       P = Pn;
       Pn = tmp;
     }
-    if (observed && change < tol) {
+    if (t === stopAt) return { ssq, sumLogF, nUsed, mean: mu0, steadyAt: -1, entry: entryOf(t, ssq, sumLogF, a, P, r) };
+    if (observed && change < tol && stopAt < 0) {
+      if (wantTrace && !entry) entry = entryOf(t, ssq, sumLogF, a, P, r);
       chandra = false;
       steady = true;
       steadyAt = t;
@@ -295,7 +376,7 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
     ssq -= beta * sxy;
     mean = beta;
   }
-  const out: FilterResult = { ssq, sumLogF, nUsed, mean, steadyAt };
+  const out: FilterResult = { ssq, sumLogF, nUsed, mean, steadyAt, entry };
   if (opts.keepState) {
     const aOut = new Float64Array(r);
     for (let i = 0; i < r; i++) aOut[i] = a[i] - (profile ? mean * c[i] : 0);
@@ -310,6 +391,16 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
     out.PPred = POut;
   }
   return out;
+}
+
+function entryOf(t: number, ssq: number, sumLogF: number, a: Float64Array, P: Float64Array, r: number): SteadyEntry {
+  const aOut = new Float64Array(r);
+  const gain = new Float64Array(r);
+  for (let i = 0; i < r; i++) {
+    aOut[i] = a[i];
+    gain[i] = P[i] / P[0];
+  }
+  return { steadyAt: t, ssq, sumLogF, a: aOut, gain, F: P[0] };
 }
 
 /** Exact Gaussian log-likelihood with σ² concentrated out. */

@@ -1,0 +1,184 @@
+/**
+ * The gradient of the concentrated exact log-likelihood (the objective of fit.ts) for a complete
+ * series with a known mean, at about the cost of one likelihood pass (plus a short start-up per
+ * coefficient) whatever the number of coefficients, instead of one pass per coefficient for
+ * forward differences.
+ *
+ * Once the Kalman filter has reached its steady state (hour t₀ on), the rest of the series runs
+ * through a fixed linear recursion, the innovations form of the ARMA model:
+ *   e_t = y_t − a_{t,0},   a_{t+1,i} = c_i a_{t,0} + d_i y_t + a_{t,i+1},
+ * with c_i = φ_i (1 − k_0) − k_{i+1} and d_i = φ_i k_0 + k_{i+1} from the steady gain k. Its
+ * sum of squares E = Σ e_t² depends on the coefficients only through c, d and the state a_{t₀+1}
+ * it starts from, and the derivatives of E with respect to all of those come from one backward
+ * (adjoint) recursion, reverse-mode differentiation of the loop above (Griewank & Walther 2008,
+ * ch. 3): with γ_t = ∂E/∂a_{t,0}, the shift structure gives ∂E/∂a_{t,j} = γ_{t+j}, so
+ *   γ_t = −2 e_t + Σ_i c_i γ_{t+1+i},  ∂E/∂c_i = Σ_t γ_{t+1+i} a_{t,0},  ∂E/∂d_i = Σ_t γ_{t+1+i} y_t.
+ * The forward half, a_{t,0}, is what the likelihood pass at the same point already computed (its
+ * `trace`). What happens before t₀ (the stationary start, the time-varying gain, F_t) is short;
+ * it is run once more per coefficient, forward-differenced as the whole likelihood used to be,
+ * and joined to the exact steady-state part by the chain rule. Seen from outside this is the
+ * same forward-difference gradient as before, with the long steady stretch differentiated
+ * exactly.
+ */
+import { kalmanFilter, SteadyEntry } from './kalman';
+import { scratch } from './scratch';
+import { ArmaStateSpace } from './state-space';
+
+export interface SteadyScoreInput {
+  /** the series, complete (no missing hour), mean already removed */
+  x: Float64Array;
+  /** the model at a vector of unconstrained values (null where there is none) */
+  model: (u: Float64Array) => ArmaStateSpace | null;
+  /** forward-difference step, relative to max(1, |u_j|), as in the BFGS search */
+  step: number;
+}
+
+/** What the likelihood pass at u left behind: its Σ v_t²/F_t, its switch, its predictions. */
+export interface SteadyPass {
+  ssq: number;
+  entry: SteadyEntry;
+  /** a_{t,0} for the hours after the switch */
+  trace: Float64Array;
+}
+
+/** The steady recursion's constants c and d from the AR coefficients and the steady gain. */
+function recursionOf(ss: ArmaStateSpace, k: Float64Array): { c: Float64Array; d: Float64Array } {
+  const r = ss.r;
+  const c = new Float64Array(r);
+  const d = new Float64Array(r);
+  for (let i = 0; i < r; i++) {
+    const next = i + 1 < r ? k[i + 1] : 0;
+    c[i] = ss.phi[i] * (1 - k[0]) - next;
+    d[i] = ss.phi[i] * k[0] + next;
+  }
+  return { c, d };
+}
+
+/**
+ * ∇ of ½ log(S/n) + ½ Σ log F_t / n at u, S = Σ v_t²/F_t (the objective of fit.ts without a
+ * mean), from the pass that evaluated it at u. Null when the steady stretch is too short for
+ * this to pay, or the model does not exist near u: the caller then differences the whole
+ * likelihood.
+ */
+export function steadyStateScore(input: SteadyScoreInput, u: Float64Array, pass: SteadyPass): Float64Array | null {
+  const { x, model, step } = input;
+  const n = x.length;
+  const entry = pass.entry;
+  const t0 = entry.steadyAt;
+  const k = u.length;
+  // the start-up is rerun k times: worth it only while it is a small part of the series
+  if (t0 < 0 || k * (t0 + 1) > n) return null;
+  const ss = model(u);
+  if (!ss) return null;
+  const r = ss.r;
+  const { c, d } = recursionOf(ss, entry.gain);
+  const first = t0 + 1;
+  const gamma = scratch('score.gamma', n + r + 1);
+  const gc = new Float64Array(r);
+  const gd = new Float64Array(r);
+  if (r <= 4) adjointSmall(x, first, c, pass.trace, gamma, gc, gd);
+  else adjointGeneral(x, first, c, pass.trace, gamma, gc, gd);
+  const F = entry.F;
+  // E = Σ e_t² over the steady stretch, where the pass divided by the constant F
+  const E = (pass.ssq - entry.ssq) * F;
+  const S = pass.ssq;
+  const m = n - first;
+  const grad = new Float64Array(k);
+  const probe = Float64Array.from(u);
+  for (let j = 0; j < k; j++) {
+    const h = step * Math.max(1, Math.abs(u[j]));
+    probe[j] = u[j] + h;
+    const ssj = model(probe);
+    probe[j] = u[j];
+    if (!ssj) return null;
+    let pj: SteadyEntry;
+    try {
+      pj = kalmanFilter(x, ssj, { stopAt: t0, complete: true }).entry as SteadyEntry;
+    } catch {
+      return null;
+    }
+    const rj = recursionOf(ssj, pj.gain);
+    let dE = 0;
+    for (let i = 0; i < r; i++) {
+      dE += gc[i] * (rj.c[i] - c[i]) + gd[i] * (rj.d[i] - d[i]) + gamma[first + i] * (pj.a[i] - entry.a[i]);
+    }
+    const dF = pj.F - F;
+    const dS = pj.ssq - entry.ssq + dE / F - (E * dF) / (F * F);
+    const dL = pj.sumLogF - entry.sumLogF + (m * dF) / F;
+    grad[j] = (0.5 * dS) / S / h + (0.5 * dL) / n / h;
+  }
+  return grad;
+}
+
+/**
+ * The backward recursion γ_t = −2 e_t + Σ_i c_i γ_{t+1+i} over the steady stretch, zero past
+ * the end (a_n and later feed nothing), with ∂E/∂c and ∂E/∂d accumulated; e_t = y_t − a_{t,0}
+ * from the pass's predictions. Writes γ_t for t ≥ first.
+ */
+function adjointGeneral(x: Float64Array, first: number, c: Float64Array, a0s: Float64Array, gamma: Float64Array, gc: Float64Array, gd: Float64Array): void {
+  const n = x.length;
+  const r = c.length;
+  for (let t = n - 1; t >= first; t--) {
+    const y = x[t];
+    const a0 = a0s[t];
+    let g = 2 * (a0 - y);
+    for (let i = 0; i < r; i++) {
+      const gi = gamma[t + 1 + i];
+      g += c[i] * gi;
+      gc[i] += gi * a0;
+      gd[i] += gi * y;
+    }
+    gamma[t] = g;
+  }
+}
+
+/** The same for up to four states, in scalars (zero-padded: unused c_i are 0). */
+function adjointSmall(x: Float64Array, first: number, c: Float64Array, a0s: Float64Array, gamma: Float64Array, gc: Float64Array, gd: Float64Array): void {
+  const n = x.length;
+  const r = c.length;
+  const c0 = c[0];
+  const c1 = r > 1 ? c[1] : 0;
+  const c2 = r > 2 ? c[2] : 0;
+  const c3 = r > 3 ? c[3] : 0;
+  // γ_{t+1} … γ_{t+4}
+  let g1 = 0;
+  let g2 = 0;
+  let g3 = 0;
+  let g4 = 0;
+  let sc0 = 0;
+  let sc1 = 0;
+  let sc2 = 0;
+  let sc3 = 0;
+  let sd0 = 0;
+  let sd1 = 0;
+  let sd2 = 0;
+  let sd3 = 0;
+  for (let t = n - 1; t >= first; t--) {
+    const y = x[t];
+    const a = a0s[t];
+    sc0 += g1 * a;
+    sc1 += g2 * a;
+    sc2 += g3 * a;
+    sc3 += g4 * a;
+    sd0 += g1 * y;
+    sd1 += g2 * y;
+    sd2 += g3 * y;
+    sd3 += g4 * y;
+    const g = 2 * (a - y) + c0 * g1 + c1 * g2 + (c2 * g3 + c3 * g4);
+    g4 = g3;
+    g3 = g2;
+    g2 = g1;
+    g1 = g;
+  }
+  // γ_first … γ_{first+3}: what the start-up state's derivative is taken against
+  gamma[first] = g1;
+  gamma[first + 1] = g2;
+  gamma[first + 2] = g3;
+  gamma[first + 3] = g4;
+  const sc = [sc0, sc1, sc2, sc3];
+  const sd = [sd0, sd1, sd2, sd3];
+  for (let i = 0; i < r; i++) {
+    gc[i] = sc[i];
+    gd[i] = sd[i];
+  }
+}
