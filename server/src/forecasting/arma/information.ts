@@ -19,16 +19,25 @@ export interface NaturalCoefficients {
   sma: Float64Array;
 }
 
-/** Impulse response of 1 / (1 − Σ c_i B^{i·step}) (sign −1 turns it into 1 / (1 + Σ c_i B^{i·step})). */
-function inverseResponse(c: Float64Array, step: number, sign: number, length: number): Float64Array {
+/**
+ * Impulse response of 1 / (1 − Σ c_i B^{i·step}) (sign −1 turns it into 1 / (1 + Σ c_i B^{i·step})),
+ * and how much of it is not negligible: once a whole memory of the recursion (c.length·step
+ * values) is below 1e-15, every later value is a decaying combination of those (the
+ * polynomial is stationary), negligible beside h₀ = 1, so they are left at zero.
+ */
+function inverseResponse(c: Float64Array, step: number, sign: number, length: number): { h: Float64Array; used: number } {
   const h = new Float64Array(length);
   h[0] = 1;
+  const memory = c.length * step;
+  let quiet = 0;
   for (let k = step; k < length; k += step) {
     let v = 0;
     for (let i = 1; i <= c.length && i * step <= k; i++) v += c[i - 1] * h[k - i * step];
     h[k] = sign * v;
+    quiet = Math.abs(v) < 1e-15 ? quiet + step : 0;
+    if (quiet >= memory) return { h, used: k + 1 };
   }
-  return h;
+  return { h, used: length };
 }
 
 /**
@@ -38,11 +47,11 @@ function inverseResponse(c: Float64Array, step: number, sign: number, length: nu
  */
 export function armaInformation(c: NaturalCoefficients, spec: Required<ArmaSpec>, length: number): Float64Array {
   const s = spec.period || 1;
-  const blocks: Array<{ h: Float64Array; lag: number }> = [];
+  const blocks: Array<{ h: Float64Array; used: number; lag: number }> = [];
   const add = (coef: Float64Array, step: number, sign: number) => {
     if (coef.length === 0) return;
-    const h = inverseResponse(coef, step, sign, length);
-    for (let i = 1; i <= coef.length; i++) blocks.push({ h, lag: i * step });
+    const { h, used } = inverseResponse(coef, step, sign, length);
+    for (let i = 1; i <= coef.length; i++) blocks.push({ h, used, lag: i * step });
   };
   add(c.ar, 1, 1);
   add(c.ma, 1, -1);
@@ -53,12 +62,13 @@ export function armaInformation(c: NaturalCoefficients, spec: Required<ArmaSpec>
   for (let a = 0; a < k; a++) {
     for (let b = a; b < k; b++) {
       // E[∂ε_a ∂ε_b] = Σ_m h_a[m − lag_a] h_b[m − lag_b]: with d = lag_b − lag_a ≥ 0 or < 0
-      const { h: ha, lag: la } = blocks[a];
-      const { h: hb, lag: lb } = blocks[b];
+      const { h: ha, used: ua, lag: la } = blocks[a];
+      const { h: hb, used: ub, lag: lb } = blocks[b];
       const d = lb - la;
       let sum = 0;
-      if (d >= 0) for (let j = 0; j + d < length; j++) sum += ha[j + d] * hb[j];
-      else for (let j = 0; j - d < length; j++) sum += ha[j] * hb[j - d];
+      // beyond `used` a response is zero, so the products are too
+      if (d >= 0) for (let j = 0, end = Math.min(length - d, ua - d, ub); j < end; j++) sum += ha[j + d] * hb[j];
+      else for (let j = 0, end = Math.min(length + d, ua, ub + d); j < end; j++) sum += ha[j] * hb[j - d];
       info[a * k + b] = sum;
       info[b * k + a] = sum;
     }

@@ -169,6 +169,8 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
   let Fss = 0;
   let logFss = 0;
   let steadyAt = -1;
+  let prodF = 1;
+  let inProd = 0;
   const stopAt = opts.stopAt ?? -1;
   const wantTrace = opts.trace !== undefined;
   const tr: Float64Array = opts.trace ?? traceBuffer(ws, n);
@@ -286,7 +288,14 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       const v = yt - a[0];
       const vf = v * ginv;
       ssq += v * vf;
-      sumLogF += Math.log(F);
+      // Σ log F as the log of products of four: a logarithm costs more than the rest of the
+      // step here, and F ≥ 1 (it includes the unit innovation variance), so nothing underflows
+      prodF *= F;
+      if (++inProd === 4) {
+        sumLogF += Math.log(prodF);
+        prodF = 1;
+        inProd = 0;
+      }
       nUsed++;
       if (wantRes) res[t] = v / Math.sqrt(F);
       const af0 = a[0] + p00 * vf;
@@ -315,7 +324,7 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       // w_{t+1} = T (w_t − P_t Z' (Z w_t) / F_t), P_{t+1} = P_t + m_t w_t w_t',
       // m_{t+1} = m_t − m_t² (Z w_t)² / F_{t+1}
       const zw = w[0];
-      const coef = zw / p00;
+      const coef = zw * ginv;
       const e0 = w[0] - P[0] * coef;
       for (let i = 0; i < r; i++) wn[i] = phi[i] * e0 + (w[i + 1] - P[i + 1] * coef);
       let wmax = 0;
@@ -345,6 +354,11 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       P = Pn;
       Pn = tmp;
     }
+    if (inProd > 0 && (t === stopAt || (observed && change < tol))) {
+      sumLogF += Math.log(prodF);
+      prodF = 1;
+      inProd = 0;
+    }
     if (t === stopAt) return { ssq, sumLogF, nUsed, mean: mu0, steadyAt: -1, entry: entryOf(t, ssq, sumLogF, a, P, r) };
     if (observed && change < tol && stopAt < 0) {
       if (wantTrace && !entry) entry = entryOf(t, ssq, sumLogF, a, P, r);
@@ -370,6 +384,7 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       d3 = p3 * k0 + k4;
     }
   }
+  if (inProd > 0) sumLogF += Math.log(prodF);
   let mean = mu0;
   if (profile && sxx > 0) {
     const beta = sxy / sxx;

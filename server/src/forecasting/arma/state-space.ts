@@ -67,8 +67,23 @@ export function gardnerCovariance(ss: ArmaStateSpace, out?: Float64Array): Float
   const m = (r * (r + 1)) / 2;
   const w = r + 1;
   const idx = triangleOf(r);
-  const A = scratch('gardner.A', m * m);
+  const A = gardnerSystem(ss);
   const b = scratch('gardner.b', m);
+  for (let i = 0; i < r; i++) for (let j = i; j < r; j++) b[idx[i * w + j]] = R[i] * R[j];
+  const piv = pivotsOf(m);
+  luFactorInPlace(A, m, piv);
+  luSolveInPlace(A, m, piv, b);
+  for (let i = 0; i < r; i++) for (let j = 0; j < r; j++) P[i * r + j] = b[idx[i * w + j]];
+  return P;
+}
+
+/** The matrix I − T⊗T of Gardner's system on the upper triangle, m×m (m = r(r+1)/2), in scratch. */
+function gardnerSystem(ss: ArmaStateSpace): Float64Array {
+  const { r, phi } = ss;
+  const m = (r * (r + 1)) / 2;
+  const w = r + 1;
+  const idx = triangleOf(r);
+  const A = scratch('gardner.A', m * m);
   for (let i = 0; i < r; i++) {
     for (let j = i; j < r; j++) {
       const row = idx[i * w + j] * m;
@@ -81,12 +96,98 @@ export function gardnerCovariance(ss: ArmaStateSpace, out?: Float64Array): Float
       if (c >= 0) A[row + c] -= phi[j];
       const d = idx[(i + 1) * w + j + 1];
       if (d >= 0) A[row + d] -= 1;
-      b[idx[i * w + j]] = R[i] * R[j];
     }
   }
-  const x = solveDenseInPlace(A, b, m);
-  for (let i = 0; i < r; i++) for (let j = 0; j < r; j++) P[i * r + j] = x[idx[i * w + j]];
-  return P;
+  return A;
+}
+
+/**
+ * The first row of the stationary covariance P and its derivatives along k directions, given
+ * as the derivatives of φ and R (row-major k×r each). Differentiating P = T P T' + R R' gives
+ * the same equation for dP with another right-hand side,
+ *   dP − T dP T' = dT P T' + T P dT' + dR R' + R dR',  dT = dφ e₀',
+ * and (dT P T')_ij = dφ_i q_j with q = T P e₀, so one factorisation of Gardner's system serves
+ * P and all its derivatives. Beyond the sizes Gardner's system is used for, the series form.
+ */
+export function stationaryCovarianceTangents(ss: ArmaStateSpace, dPhi: Float64Array, dR: Float64Array, k: number): { row: Float64Array; dRow: Float64Array } {
+  const { r, phi, R } = ss;
+  if (r > GARDNER_MAX_R) return seriesCovarianceTangents(ss, dPhi, dR, k);
+  const m = (r * (r + 1)) / 2;
+  const w = r + 1;
+  const idx = triangleOf(r);
+  const A = gardnerSystem(ss);
+  const piv = pivotsOf(m);
+  luFactorInPlace(A, m, piv);
+  const b = scratch('tangents.b', m);
+  for (let i = 0; i < r; i++) for (let j = i; j < r; j++) b[idx[i * w + j]] = R[i] * R[j];
+  luSolveInPlace(A, m, piv, b);
+  const row = new Float64Array(r);
+  for (let j = 0; j < r; j++) row[j] = b[idx[j]];
+  // q_j = (T P)_{j0} = φ_j P_00 + P_{j+1,0}
+  const q = scratch('tangents.q', r);
+  for (let j = 0; j < r; j++) q[j] = phi[j] * row[0] + (j + 1 < r ? row[j + 1] : 0);
+  const dRow = new Float64Array(k * r);
+  const rhs = scratch('tangents.rhs', m);
+  for (let h = 0; h < k; h++) {
+    const o = h * r;
+    for (let i = 0; i < r; i++) {
+      for (let j = i; j < r; j++) {
+        rhs[idx[i * w + j]] = dPhi[o + i] * q[j] + q[i] * dPhi[o + j] + dR[o + i] * R[j] + R[i] * dR[o + j];
+      }
+    }
+    luSolveInPlace(A, m, piv, rhs);
+    for (let j = 0; j < r; j++) dRow[o + j] = rhs[idx[j]];
+  }
+  return { row, dRow };
+}
+
+/**
+ * The same for the series form (seriesCovariance): the first row of P is Σ g_k[0] g_k, and
+ * along a direction dg_{k+1} = dT g_k + T dg_k, dg_0 = dR. Summed over the same terms.
+ */
+export function seriesCovarianceTangents(ss: ArmaStateSpace, dPhi: Float64Array, dR: Float64Array, k: number, maxTerms = 200000): { row: Float64Array; dRow: Float64Array } {
+  const { r, phi, R } = ss;
+  const row = new Float64Array(r);
+  const dRow = new Float64Array(k * r);
+  let g = Float64Array.from(R);
+  let next = new Float64Array(r);
+  let dg = Float64Array.from(dR);
+  let dnext = new Float64Array(k * r);
+  let trace = 0;
+  for (let term = 0; term < maxTerms; term++) {
+    let norm = 0;
+    for (let i = 0; i < r; i++) norm += g[i] * g[i];
+    const g0 = g[0];
+    for (let j = 0; j < r; j++) row[j] += g0 * g[j];
+    for (let h = 0; h < k; h++) {
+      const o = h * r;
+      const dg0 = dg[o];
+      for (let j = 0; j < r; j++) dRow[o + j] += dg0 * g[j] + g0 * dg[o + j];
+    }
+    trace += norm;
+    if (term > r && norm <= 1e-15 * trace) break;
+    for (let i = 0; i < r - 1; i++) next[i] = phi[i] * g0 + g[i + 1];
+    next[r - 1] = phi[r - 1] * g0;
+    for (let h = 0; h < k; h++) {
+      const o = h * r;
+      const dg0 = dg[o];
+      for (let i = 0; i < r - 1; i++) dnext[o + i] = dPhi[o + i] * g0 + phi[i] * dg0 + dg[o + i + 1];
+      dnext[o + r - 1] = dPhi[o + r - 1] * g0 + phi[r - 1] * dg0;
+    }
+    [g, next] = [next, g];
+    [dg, dnext] = [dnext, dg];
+  }
+  return { row, dRow };
+}
+
+const pivots = new Map<number, Int32Array>();
+function pivotsOf(m: number): Int32Array {
+  let p = pivots.get(m);
+  if (!p) {
+    p = new Int32Array(m);
+    pivots.set(m, p);
+  }
+  return p;
 }
 
 /** P = Σ_k g_k g_k', g_0 = R, g_{k+1} = T g_k, summed until the terms are negligible. */
@@ -118,43 +219,57 @@ export function seriesCovariance(ss: ArmaStateSpace, maxTerms = 200000): Float64
 }
 
 /**
- * Gaussian elimination with partial pivoting on a small dense system (row-major A, m×m),
- * overwriting A and b; returns b, which then holds the solution.
+ * LU factorisation with partial pivoting of a small dense matrix (row-major, m×m), in place:
+ * the multipliers below the diagonal, U on and above it, the row swaps in `piv`.
  */
-function solveDenseInPlace(a: Float64Array, x: Float64Array, m: number): Float64Array {
+function luFactorInPlace(a: Float64Array, m: number, piv: Int32Array): void {
   for (let c = 0; c < m; c++) {
-    let piv = c;
+    let pr = c;
     let best = Math.abs(a[c * m + c]);
     for (let rr = c + 1; rr < m; rr++) {
       const v = Math.abs(a[rr * m + c]);
       if (v > best) {
         best = v;
-        piv = rr;
+        pr = rr;
       }
     }
     if (best === 0) throw new Error('singular system for the stationary covariance');
-    if (piv !== c) {
+    piv[c] = pr;
+    if (pr !== c) {
       for (let k = 0; k < m; k++) {
         const t = a[c * m + k];
-        a[c * m + k] = a[piv * m + k];
-        a[piv * m + k] = t;
+        a[c * m + k] = a[pr * m + k];
+        a[pr * m + k] = t;
       }
-      const t = x[c];
-      x[c] = x[piv];
-      x[piv] = t;
     }
     const d = a[c * m + c];
     for (let rr = c + 1; rr < m; rr++) {
       const f = a[rr * m + c] / d;
+      a[rr * m + c] = f;
       if (f === 0) continue;
-      for (let k = c; k < m; k++) a[rr * m + k] -= f * a[c * m + k];
-      x[rr] -= f * x[c];
+      for (let k = c + 1; k < m; k++) a[rr * m + k] -= f * a[c * m + k];
     }
   }
-  for (let c = m - 1; c >= 0; c--) {
-    let s = x[c];
-    for (let k = c + 1; k < m; k++) s -= a[c * m + k] * x[k];
-    x[c] = s / a[c * m + c];
+}
+
+/** Solves with the factors of luFactorInPlace, overwriting b with the solution. */
+function luSolveInPlace(a: Float64Array, m: number, piv: Int32Array, b: Float64Array): void {
+  // every row swap first (the factors' rows were swapped whole, multipliers included), then L
+  for (let c = 0; c < m; c++) {
+    const pr = piv[c];
+    if (pr !== c) {
+      const t = b[c];
+      b[c] = b[pr];
+      b[pr] = t;
+    }
   }
-  return x;
+  for (let c = 0; c < m; c++) {
+    const bc = b[c];
+    if (bc !== 0) for (let rr = c + 1; rr < m; rr++) b[rr] -= a[rr * m + c] * bc;
+  }
+  for (let c = m - 1; c >= 0; c--) {
+    let s = b[c];
+    for (let k = c + 1; k < m; k++) s -= a[c * m + k] * b[k];
+    b[c] = s / a[c * m + c];
+  }
 }

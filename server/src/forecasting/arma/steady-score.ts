@@ -20,8 +20,9 @@
  * same forward-difference gradient as before, with the long steady stretch differentiated
  * exactly.
  */
-import { kalmanFilter, SteadyEntry } from './kalman';
+import { SteadyEntry } from './kalman';
 import { scratch } from './scratch';
+import { startUpTangents, StartUpTangents } from './start-up-tangents';
 import { ArmaStateSpace } from './state-space';
 
 export interface SteadyScoreInput {
@@ -66,16 +67,16 @@ export function steadyStateScore(input: SteadyScoreInput, u: Float64Array, pass:
   const entry = pass.entry;
   const t0 = entry.steadyAt;
   const k = u.length;
-  // the start-up is rerun k times: worth it only while it is a small part of the series
+  // the start-up's tangents cost about k times its length: worth it while that is short
   if (t0 < 0 || k * (t0 + 1) > n) return null;
   const ss = model(u);
   if (!ss) return null;
   const r = ss.r;
-  const { c, d } = recursionOf(ss, entry.gain);
+  const { c } = recursionOf(ss, entry.gain);
   const first = t0 + 1;
   const gamma = scratch('score.gamma', n + r + 1);
-  const gc = new Float64Array(r);
-  const gd = new Float64Array(r);
+  const gc = scratch('score.gc', r);
+  const gd = scratch('score.gd', r);
   if (r <= 4) adjointSmall(x, first, c, pass.trace, gamma, gc, gd);
   else adjointGeneral(x, first, c, pass.trace, gamma, gc, gd);
   const F = entry.F;
@@ -83,29 +84,46 @@ export function steadyStateScore(input: SteadyScoreInput, u: Float64Array, pass:
   const E = (pass.ssq - entry.ssq) * F;
   const S = pass.ssq;
   const m = n - first;
-  const grad = new Float64Array(k);
-  const probe = Float64Array.from(u);
+  // the state-space φ and R along each coefficient, by forward differences of the transform
+  // (no filtering involved), then the start-up's tangents along those directions
+  const dPhi = scratch('score.dPhi', k * r);
+  const dR = scratch('score.dR', k * r);
+  const probe = scratch('score.probe', k);
+  probe.set(u);
   for (let j = 0; j < k; j++) {
     const h = step * Math.max(1, Math.abs(u[j]));
     probe[j] = u[j] + h;
     const ssj = model(probe);
     probe[j] = u[j];
     if (!ssj) return null;
-    let pj: SteadyEntry;
-    try {
-      pj = kalmanFilter(x, ssj, { stopAt: t0, complete: true }).entry as SteadyEntry;
-    } catch {
-      return null;
+    for (let i = 0; i < r; i++) {
+      dPhi[j * r + i] = (ssj.phi[i] - ss.phi[i]) / h;
+      dR[j * r + i] = (ssj.R[i] - ss.R[i]) / h;
     }
-    const rj = recursionOf(ssj, pj.gain);
+  }
+  let tan: StartUpTangents;
+  try {
+    tan = startUpTangents(x, ss, dPhi, dR, k, t0);
+  } catch {
+    return null;
+  }
+  const gain = entry.gain;
+  const k0 = gain[0];
+  const grad = new Float64Array(k);
+  for (let j = 0; j < k; j++) {
+    const o = j * r;
+    const dk0 = tan.gain[o];
     let dE = 0;
     for (let i = 0; i < r; i++) {
-      dE += gc[i] * (rj.c[i] - c[i]) + gd[i] * (rj.d[i] - d[i]) + gamma[first + i] * (pj.a[i] - entry.a[i]);
+      const dkNext = i + 1 < r ? tan.gain[o + i + 1] : 0;
+      const dc = dPhi[o + i] * (1 - k0) - ss.phi[i] * dk0 - dkNext;
+      const dd = dPhi[o + i] * k0 + ss.phi[i] * dk0 + dkNext;
+      dE += gc[i] * dc + gd[i] * dd + gamma[first + i] * tan.a[o + i];
     }
-    const dF = pj.F - F;
-    const dS = pj.ssq - entry.ssq + dE / F - (E * dF) / (F * F);
-    const dL = pj.sumLogF - entry.sumLogF + (m * dF) / F;
-    grad[j] = (0.5 * dS) / S / h + (0.5 * dL) / n / h;
+    const dF = tan.F[j];
+    const dS = tan.ssq[j] + dE / F - (E * dF) / (F * F);
+    const dL = tan.sumLogF[j] + (m * dF) / F;
+    grad[j] = (0.5 * dS) / S + (0.5 * dL) / n;
   }
   return grad;
 }
