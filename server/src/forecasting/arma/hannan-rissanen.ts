@@ -127,14 +127,25 @@ interface NormalEquations {
 
 /** X'X and X'y of the regression of x_t on x_{t−l} (l in lagsX) and e_{t−l} (l in lagsE), complete rows only. */
 function normalEquations(x: Float64Array, e: Float64Array, lagsX: Int32Array, lagsE: Int32Array, maxLag: number): NormalEquations {
+  const k = lagsX.length + lagsE.length;
+  const XtX = new Float64Array(k * k);
+  // X'y, with y'y in the last element
+  const sums = new Float64Array(k + 1);
+  const rows = accumulateRows(x, e, lagsX, lagsE, maxLag, XtX, sums);
+  return { XtX, Xty: sums.subarray(0, k), yy: sums[k], rows };
+}
+
+/**
+ * The loop of normalEquations, alone and returning only a local: it runs once per fit, so V8
+ * enters its long loop through on-stack replacement, and code after the loop that needed type
+ * feedback (building the result) threw that optimised code away on every call.
+ */
+function accumulateRows(x: Float64Array, e: Float64Array, lagsX: Int32Array, lagsE: Int32Array, maxLag: number, XtX: Float64Array, sums: Float64Array): number {
   const n = x.length;
   const kx = lagsX.length;
   const k = kx + lagsE.length;
-  const XtX = new Float64Array(k * k);
-  const Xty = new Float64Array(k);
   const row = new Float64Array(k);
   let rows = 0;
-  let yy = 0;
   for (let t = maxLag; t < n; t++) {
     const yt = x[t];
     if (!(yt === yt)) continue;
@@ -151,15 +162,15 @@ function normalEquations(x: Float64Array, e: Float64Array, lagsX: Int32Array, la
     }
     if (!ok) continue;
     rows++;
-    yy += yt * yt;
+    sums[k] += yt * yt;
     for (let i = 0; i < k; i++) {
       const ri = row[i];
-      Xty[i] += ri * yt;
+      sums[i] += ri * yt;
       const base = i * k;
       for (let j = 0; j <= i; j++) XtX[base + j] += ri * row[j];
     }
   }
-  return { XtX, Xty, yy, rows };
+  return rows;
 }
 
 /** Scale coefficients toward zero until `ok` holds (a polynomial with root-modulus margin). */

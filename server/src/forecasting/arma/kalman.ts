@@ -41,8 +41,7 @@ export interface FilterOptions {
   /**
    * Fill with the predicted a_{t,0} (mean removed) for the hours after the first steady-state
    * switch, and return `entry` for that switch: what the steady-state score needs from the
-   * pass that evaluated the likelihood. The scalar loop writes the prediction anyway (into a
-   * buffer of the filter's own when this is not given), so it costs nothing.
+   * pass that evaluated the likelihood.
    */
   trace?: Float64Array;
 }
@@ -98,8 +97,6 @@ interface Workspace {
   g: Float64Array;
   w: Float64Array;
   wn: Float64Array;
-  /** where the scalar loop writes its predictions when nobody asked for them */
-  trace: Float64Array;
 }
 const workspaces = new Map<number, Workspace>();
 function workspaceFor(r: number): Workspace {
@@ -108,15 +105,10 @@ function workspaceFor(r: number): Workspace {
     const s = r + 1;
     const v = () => new Float64Array(s);
     const m = () => new Float64Array(s * s);
-    ws = { phi: v(), P: m(), Pn: m(), P0: new Float64Array(r * r), RR: m(), a: v(), c: v(), K: v(), g: v(), w: v(), wn: v(), trace: new Float64Array(0) };
+    ws = { phi: v(), P: m(), Pn: m(), P0: new Float64Array(r * r), RR: m(), a: v(), c: v(), K: v(), g: v(), w: v(), wn: v() };
     workspaces.set(r, ws);
   }
   return ws;
-}
-
-function traceBuffer(ws: Workspace, n: number): Float64Array {
-  if (ws.trace.length < n) ws.trace = new Float64Array(n);
-  return ws.trace;
 }
 
 /** Stands in for an output that was not asked for (never written: its flag is false). */
@@ -173,7 +165,7 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
   let inProd = 0;
   const stopAt = opts.stopAt ?? -1;
   const wantTrace = opts.trace !== undefined;
-  const tr: Float64Array = opts.trace ?? traceBuffer(ws, n);
+  const tr: Float64Array = opts.trace ?? NO_OUTPUT;
   let entry: SteadyEntry | undefined;
   let ssq = 0;
   let sumLogF = 0;
@@ -214,11 +206,24 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       let u = t;
       // the stretch runs to the next missing hour; the loops below need no test for one
       const end = complete ? n : nextMissing(x, t);
-      if (r <= 2) {
-        // the same with two states: fewer live values, no spills
+      if (wantTrace) {
+        // the four-state loop (unused states stay zero), writing each prediction down: a store
+        // per hour costs a quarter of the loops below, so only the steady-state score has it
         for (; u < end; u++) {
           const yu = x[u] - mu0;
           tr[u] = a0;
+          const v = yu - a0;
+          sv += v * v;
+          const na0 = c0 * a0 + (d0 * yu + a1);
+          a1 = c1 * a0 + (d1 * yu + a2);
+          a2 = c2 * a0 + (d2 * yu + a3);
+          a3 = c3 * a0 + d3 * yu;
+          a0 = na0;
+        }
+      } else if (r <= 2) {
+        // the same with two states: fewer live values, no spills
+        for (; u < end; u++) {
+          const yu = x[u] - mu0;
           const v = yu - a0;
           sv += v * v;
           const na0 = c0 * a0 + (d0 * yu + a1);
@@ -228,7 +233,6 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       } else if (r === 3) {
         for (; u < end; u++) {
           const yu = x[u] - mu0;
-          tr[u] = a0;
           const v = yu - a0;
           sv += v * v;
           const na0 = c0 * a0 + (d0 * yu + a1);
@@ -238,7 +242,6 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
         }
       } else for (; u < end; u++) {
         const yu = x[u] - mu0;
-        tr[u] = a0;
         const v = yu - a0;
         sv += v * v;
         // a_i ← φ_i (a_0 + k_0 v) + a_{i+1} + k_{i+1} v with v = y − a_0, regrouped as
