@@ -22,6 +22,7 @@ import { concentratedLogLik, FilterResult, kalmanFilter } from './kalman';
 import { expandAr, expandMa } from './polynomials';
 import { armaStateSpace, ArmaStateSpace } from './state-space';
 import { SteadyPass, steadyStateScore } from './steady-score';
+import { stateSpaceWithTangents } from './state-space-tangents';
 import { fromInvertible, fromStationary, toInvertible, toStationary } from './transform';
 import { countFinite, meanFinite, toSeries, varianceFinite } from '../series';
 
@@ -194,10 +195,10 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   const complete = nFinite === x.length;
   const model = (u: Float64Array): ArmaStateSpace => stateSpaceOf(fromUnconstrained(u, o), s);
   const step = 1e-6;
-  // A complete series with a known mean: the long steady stretch of the likelihood is
-  // differentiated exactly by one backward pass (steady-score.ts), which pays from three
-  // coefficients on; otherwise the whole likelihood is forward-differenced.
-  const scoreInput = complete && !o.includeMean && k >= 3 ? { x, model, step } : null;
+  // A complete series with a known mean: the likelihood's gradient exactly, by one backward
+  // pass over the steady stretch and tangents of the start-up (steady-score.ts), which pays
+  // from three coefficients on; otherwise the whole likelihood is forward-differenced.
+  const scoreInput = complete && !o.includeMean && k >= 3 ? { x, model: (u: Float64Array) => stateSpaceWithTangents(u, o) } : null;
   // the last evaluation's point and what its filter left for the steady-state score there
   const lastU = new Float64Array(k);
   let lastValid = false;

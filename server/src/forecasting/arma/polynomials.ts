@@ -49,3 +49,32 @@ export function multiply(x: ArrayLike<number>, y: ArrayLike<number>): Float64Arr
   for (let i = 0; i < x.length; i++) for (let j = 0; j < y.length; j++) out[i + j] += x[i] * y[j];
   return out;
 }
+
+/**
+ * Derivative of expandAr along (dphi, dsphi): the product is bilinear, so it is the product
+ * with each factor replaced by its derivative in turn (AR signs: the cross terms subtract).
+ */
+export function expandArTangent(phi: ArrayLike<number>, sphi: ArrayLike<number>, dphi: ArrayLike<number>, dsphi: ArrayLike<number>, s: number): Float64Array {
+  const p = phi.length;
+  const P = sphi.length;
+  const out = new Float64Array(p + P * s);
+  for (let i = 0; i < p; i++) out[i] += dphi[i];
+  for (let j = 0; j < P; j++) {
+    out[(j + 1) * s - 1] += dsphi[j];
+    for (let i = 0; i < p; i++) out[(j + 1) * s + i] -= dphi[i] * sphi[j] + phi[i] * dsphi[j];
+  }
+  return out;
+}
+
+/** Derivative of expandMa along (dtheta, dstheta), as expandArTangent with MA signs. */
+export function expandMaTangent(theta: ArrayLike<number>, stheta: ArrayLike<number>, dtheta: ArrayLike<number>, dstheta: ArrayLike<number>, s: number): Float64Array {
+  const q = theta.length;
+  const Q = stheta.length;
+  const out = new Float64Array(q + Q * s);
+  for (let i = 0; i < q; i++) out[i] += dtheta[i];
+  for (let j = 0; j < Q; j++) {
+    out[(j + 1) * s - 1] += dstheta[j];
+    for (let i = 0; i < q; i++) out[(j + 1) * s + i] += dtheta[i] * stheta[j] + theta[i] * dstheta[j];
+  }
+  return out;
+}

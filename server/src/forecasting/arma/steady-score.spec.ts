@@ -2,6 +2,7 @@ import { simulateArma21 } from '../../cli/bench-series';
 import { kalmanFilter } from './kalman';
 import { expandAr, expandMa } from './polynomials';
 import { armaStateSpace, ArmaStateSpace } from './state-space';
+import { stateSpaceWithTangents } from './state-space-tangents';
 import { steadyStateScore } from './steady-score';
 import { toInvertible, toStationary } from './transform';
 
@@ -19,7 +20,7 @@ describe('steadyStateScore: the gradient of the concentrated likelihood', () => 
     { name: 'ARMA(1,1)(0,1)_24, five states and more', p: 1, q: 1, P: 0, Q: 1, s: 24, u: [0.5, 0.3, -0.6] },
   ];
 
-  it.each(cases)('$name: within 1e-6 of central differences', ({ p, q, P, s, u }) => {
+  it.each(cases)('$name: within 1e-6 of central differences', ({ p, q, P, Q, s, u }) => {
     const model = (v: Float64Array): ArmaStateSpace => {
       const ar = toStationary(v.subarray(0, p));
       const ma = toInvertible(v.subarray(p, p + q));
@@ -35,7 +36,7 @@ describe('steadyStateScore: the gradient of the concentrated likelihood', () => 
     const trace = new Float64Array(y.length);
     const pass = kalmanFilter(y, model(at), { tol: 1e-10, complete: true, trace });
     expect(pass.entry).toBeDefined();
-    const g = steadyStateScore({ x: y, model, step: 1e-7 }, at, { ssq: pass.ssq, entry: pass.entry!, trace });
+    const g = steadyStateScore({ x: y, model: (v) => stateSpaceWithTangents(v, { p, q, P, Q, period: s }) }, at, { ssq: pass.ssq, entry: pass.entry!, trace });
     expect(g).not.toBeNull();
     for (let j = 0; j < at.length; j++) {
       const h = 1e-5;
@@ -55,6 +56,26 @@ describe('steadyStateScore: the gradient of the concentrated likelihood', () => 
     const trace = new Float64Array(y.length);
     const pass = kalmanFilter(y, model(at), { tol: 1e-10, complete: true, trace });
     expect(pass.entry?.steadyAt).toBeGreaterThan(y.length / 2);
-    expect(steadyStateScore({ x: y, model, step: 1e-7 }, at, { ssq: pass.ssq, entry: pass.entry!, trace })).toBeNull();
+    const tangents = (v: Float64Array) => stateSpaceWithTangents(v, { p: 2, q: 2, P: 0, Q: 0, period: 0 });
+    expect(steadyStateScore({ x: y, model: tangents }, at, { ssq: pass.ssq, entry: pass.entry!, trace })).toBeNull();
+  });
+
+  it('the state-space derivatives match differences of the transform, seasonal product included', () => {
+    const o = { p: 2, q: 1, P: 1, Q: 1, period: 24 };
+    const u = [0.4, -0.3, 0.5, 0.7, -0.6];
+    const { ss, dPhi, dR } = stateSpaceWithTangents(Float64Array.from(u), o);
+    const h = 1e-6;
+    for (let j = 0; j < u.length; j++) {
+      const up = u.slice();
+      const down = u.slice();
+      up[j] += h;
+      down[j] -= h;
+      const a = stateSpaceWithTangents(Float64Array.from(up), o).ss;
+      const b = stateSpaceWithTangents(Float64Array.from(down), o).ss;
+      for (let i = 0; i < ss.r; i++) {
+        expect(dPhi[j * ss.r + i]).toBeCloseTo((a.phi[i] - b.phi[i]) / (2 * h), 7);
+        expect(dR[j * ss.r + i]).toBeCloseTo((a.R[i] - b.R[i]) / (2 * h), 7);
+      }
+    }
   });
 });

@@ -24,14 +24,13 @@ import { SteadyEntry } from './kalman';
 import { scratch } from './scratch';
 import { startUpTangents, StartUpTangents } from './start-up-tangents';
 import { ArmaStateSpace } from './state-space';
+import { StateSpaceTangents } from './state-space-tangents';
 
 export interface SteadyScoreInput {
   /** the series, complete (no missing hour), mean already removed */
   x: Float64Array;
-  /** the model at a vector of unconstrained values (null where there is none) */
-  model: (u: Float64Array) => ArmaStateSpace | null;
-  /** forward-difference step, relative to max(1, |u_j|), as in the BFGS search */
-  step: number;
+  /** the model at a vector of unconstrained values and its derivatives in them */
+  model: (u: Float64Array) => StateSpaceTangents;
 }
 
 /** What the likelihood pass at u left behind: its Σ v_t²/F_t, its switch, its predictions. */
@@ -62,15 +61,14 @@ function recursionOf(ss: ArmaStateSpace, k: Float64Array): { c: Float64Array; d:
  * likelihood.
  */
 export function steadyStateScore(input: SteadyScoreInput, u: Float64Array, pass: SteadyPass): Float64Array | null {
-  const { x, model, step } = input;
+  const { x, model } = input;
   const n = x.length;
   const entry = pass.entry;
   const t0 = entry.steadyAt;
   const k = u.length;
   // the start-up's tangents cost about k times its length: worth it while that is short
   if (t0 < 0 || k * (t0 + 1) > n) return null;
-  const ss = model(u);
-  if (!ss) return null;
+  const { ss, dPhi, dR } = model(u);
   const r = ss.r;
   const { c } = recursionOf(ss, entry.gain);
   const first = t0 + 1;
@@ -84,23 +82,6 @@ export function steadyStateScore(input: SteadyScoreInput, u: Float64Array, pass:
   const E = (pass.ssq - entry.ssq) * F;
   const S = pass.ssq;
   const m = n - first;
-  // the state-space φ and R along each coefficient, by forward differences of the transform
-  // (no filtering involved), then the start-up's tangents along those directions
-  const dPhi = scratch('score.dPhi', k * r);
-  const dR = scratch('score.dR', k * r);
-  const probe = scratch('score.probe', k);
-  probe.set(u);
-  for (let j = 0; j < k; j++) {
-    const h = step * Math.max(1, Math.abs(u[j]));
-    probe[j] = u[j] + h;
-    const ssj = model(probe);
-    probe[j] = u[j];
-    if (!ssj) return null;
-    for (let i = 0; i < r; i++) {
-      dPhi[j * r + i] = (ssj.phi[i] - ss.phi[i]) / h;
-      dR[j * r + i] = (ssj.R[i] - ss.R[i]) / h;
-    }
-  }
   let tan: StartUpTangents;
   try {
     tan = startUpTangents(x, ss, dPhi, dR, k, t0);
@@ -182,7 +163,8 @@ function adjointSmall(x: Float64Array, first: number, c: Float64Array, a0s: Floa
     sd1 += g2 * y;
     sd2 += g3 * y;
     sd3 += g4 * y;
-    const g = 2 * (a - y) + c0 * g1 + c1 * g2 + (c2 * g3 + c3 * g4);
+    // grouped so that the next γ waits on one multiply-add of the last, not on four
+    const g = c0 * g1 + (2 * (a - y) + c1 * g2 + (c2 * g3 + c3 * g4));
     g4 = g3;
     g3 = g2;
     g2 = g1;

@@ -75,3 +75,30 @@ export function isStationary(phi: ArrayLike<number>): boolean {
 export function isInvertible(theta: ArrayLike<number>): boolean {
   return fromInvertible(theta) !== null;
 }
+
+/**
+ * toStationary and its Jacobian, jac[j·p + i] = ∂φ_i/∂x_j, by forward-mode differentiation of
+ * the Durbin–Levinson recursion: φ_i ← φ_i − a_k φ_{k−1−i} gives
+ * dφ_i ← dφ_i − da_k φ_{k−1−i} − a_k dφ_{k−1−i}, with da_k = 1 − tanh²(x_k) along x_k only.
+ */
+export function toStationaryJacobian(x: ArrayLike<number>): { phi: Float64Array; jac: Float64Array } {
+  const p = x.length;
+  const phi = new Float64Array(p);
+  const work = new Float64Array(p);
+  const jac = new Float64Array(p * p);
+  for (let k = 0; k < p; k++) {
+    const a = Math.tanh(x[k]);
+    const da = 1 - a * a;
+    // tangents first: they need φ before this step
+    for (let j = 0; j <= k; j++) {
+      const row = j * p;
+      for (let i = 0; i < k; i++) work[i] = jac[row + i] - (j === k ? da * phi[k - 1 - i] : 0) - a * jac[row + k - 1 - i];
+      for (let i = 0; i < k; i++) jac[row + i] = work[i];
+      jac[row + k] = j === k ? da : 0;
+    }
+    for (let i = 0; i < k; i++) work[i] = phi[i] - a * phi[k - 1 - i];
+    for (let i = 0; i < k; i++) phi[i] = work[i];
+    phi[k] = a;
+  }
+  return { phi, jac };
+}

@@ -1,0 +1,57 @@
+/**
+ * The state-space form at a vector of unconstrained values u (order ar, ma, sar, sma, as the
+ * fit searches them) and its derivatives with respect to each u_j: what the steady-state
+ * score needs to carry derivatives from φ and R back to the search's coordinates. The chain
+ * is the partial-autocorrelation transform (transform.ts, differentiated through its
+ * Durbin–Levinson recursion), then the seasonal product (polynomials.ts, bilinear).
+ */
+import { expandAr, expandArTangent, expandMa, expandMaTangent } from './polynomials';
+import { armaStateSpace, ArmaStateSpace } from './state-space';
+import { toStationaryJacobian } from './transform';
+
+export interface Orders {
+  p: number;
+  q: number;
+  P: number;
+  Q: number;
+  /** seasonal period (0 or 1 without a seasonal block) */
+  period: number;
+}
+
+export interface StateSpaceTangents {
+  ss: ArmaStateSpace;
+  /** ∂φ/∂u_j and ∂R/∂u_j, row-major k×r */
+  dPhi: Float64Array;
+  dR: Float64Array;
+}
+
+export function stateSpaceWithTangents(u: Float64Array, o: Orders): StateSpaceTangents {
+  const s = o.period || 1;
+  const ar = toStationaryJacobian(u.subarray(0, o.p));
+  const ma = toStationaryJacobian(u.subarray(o.p, o.p + o.q));
+  const sar = toStationaryJacobian(u.subarray(o.p + o.q, o.p + o.q + o.P));
+  const sma = toStationaryJacobian(u.subarray(o.p + o.q + o.P, o.p + o.q + o.P + o.Q));
+  // invertible MA coefficients are the negated stationary ones (transform.ts), derivatives too
+  const negate = (v: Float64Array) => {
+    for (let i = 0; i < v.length; i++) v[i] = -v[i];
+    return v;
+  };
+  const theta = negate(ma.phi);
+  const stheta = negate(sma.phi);
+  negate(ma.jac);
+  negate(sma.jac);
+  const ss = armaStateSpace(expandAr(ar.phi, sar.phi, s), expandMa(theta, stheta, s));
+  const r = ss.r;
+  const k = o.p + o.q + o.P + o.Q;
+  const dPhi = new Float64Array(k * r);
+  const dR = new Float64Array(k * r);
+  const row = (jac: Float64Array, m: number, a: number) => jac.subarray(a * m, (a + 1) * m);
+  const zeros = new Float64Array(Math.max(o.p, o.q, o.P, o.Q));
+  const none = (m: number) => zeros.subarray(0, m);
+  let j = 0;
+  for (let a = 0; a < o.p; a++, j++) dPhi.set(expandArTangent(ar.phi, sar.phi, row(ar.jac, o.p, a), none(o.P), s), j * r);
+  for (let a = 0; a < o.q; a++, j++) dR.set(expandMaTangent(theta, stheta, row(ma.jac, o.q, a), none(o.Q), s), j * r + 1);
+  for (let a = 0; a < o.P; a++, j++) dPhi.set(expandArTangent(ar.phi, sar.phi, none(o.p), row(sar.jac, o.P, a), s), j * r);
+  for (let a = 0; a < o.Q; a++, j++) dR.set(expandMaTangent(theta, stheta, none(o.q), row(sma.jac, o.Q, a), s), j * r + 1);
+  return { ss, dPhi, dR };
+}
