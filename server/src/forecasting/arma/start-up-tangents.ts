@@ -79,20 +79,28 @@ export function startUpTangents(x: Float64Array, ss: ArmaStateSpace, dPhi: Float
       const dvf = dv * ginv + v * dginv;
       dS[j] += dv * vf + v * dvf;
       dL[j] += dF * ginv;
-      // in ascending order, so that index i + 1 still holds the previous hour's value
-      for (let i = 0; i < r; i++) da[o + i] = dPhi[or + i] * y + da[o + i + 1] + dp[o + i + 1] * vf + p[i + 1] * dvf;
       const dzw = dw[o];
       const dcoef = dzw * ginv + zw * dginv;
-      for (let i = 0; i < r; i++) dwn[o + i] = dw[o + i + 1] - dp[o + i + 1] * coef - p[i + 1] * dcoef;
       const dmz = dm[j] * zw + m * dzw;
-      for (let i = 0; i < r; i++) dp[o + i] += dmz * w[i] + mz * dw[o + i];
+      // one ascending loop: index i + 1 of a, p still holds the previous hour's value when
+      // index i is updated
+      for (let i = 0; i < r; i++) {
+        const pi1 = p[i + 1];
+        const dpi1 = dp[o + i + 1];
+        da[o + i] = dPhi[or + i] * y + da[o + i + 1] + dpi1 * vf + pi1 * dvf;
+        dwn[o + i] = dw[o + i + 1] - dpi1 * coef - pi1 * dcoef;
+        dp[o + i] += dmz * w[i] + mz * dw[o + i];
+      }
       // m ← m − m² w₀² / p₀(new)
       const dp0n = dp[o];
       dm[j] += (-2 * mz * dmz) / p0n + (mz * mz * dp0n) / (p0n * p0n);
     }
-    for (let i = 0; i < r; i++) a[i] = phi[i] * y + a[i + 1] + p[i + 1] * vf;
-    for (let i = 0; i < r; i++) wn[i] = w[i + 1] - p[i + 1] * coef;
-    for (let i = 0; i < r; i++) p[i] += mz * w[i];
+    for (let i = 0; i < r; i++) {
+      const pi1 = p[i + 1];
+      a[i] = phi[i] * y + a[i + 1] + pi1 * vf;
+      wn[i] = w[i + 1] - pi1 * coef;
+      p[i] += mz * w[i];
+    }
     m -= (mz * mz) / p0n;
     const tw = w;
     w = wn;

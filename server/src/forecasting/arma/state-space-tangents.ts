@@ -26,6 +26,7 @@ export interface StateSpaceTangents {
 }
 
 export function stateSpaceWithTangents(u: Float64Array, o: Orders): StateSpaceTangents {
+  if (o.P + o.Q === 0) return nonSeasonal(u, o.p, o.q);
   const s = o.period || 1;
   const ar = toStationaryJacobian(u.subarray(0, o.p));
   const ma = toStationaryJacobian(u.subarray(o.p, o.p + o.q));
@@ -54,4 +55,22 @@ export function stateSpaceWithTangents(u: Float64Array, o: Orders): StateSpaceTa
   for (let a = 0; a < o.P; a++, j++) dPhi.set(expandArTangent(ar.phi, sar.phi, none(o.p), row(sar.jac, o.P, a), s), j * r);
   for (let a = 0; a < o.Q; a++, j++) dR.set(expandMaTangent(theta, stheta, none(o.q), row(sma.jac, o.Q, a), s), j * r + 1);
   return { ss, dPhi, dR };
+}
+
+/** Without a seasonal block the polynomials are the coefficients themselves: φ, and R = (1, θ). */
+function nonSeasonal(u: Float64Array, p: number, q: number): StateSpaceTangents {
+  const ar = toStationaryJacobian(u.subarray(0, p));
+  const ma = toStationaryJacobian(u.subarray(p, p + q));
+  const r = Math.max(p, q + 1, 1);
+  const phi = new Float64Array(r);
+  const R = new Float64Array(r);
+  phi.set(ar.phi);
+  R[0] = 1;
+  for (let i = 0; i < q; i++) R[i + 1] = -ma.phi[i];
+  const k = p + q;
+  const dPhi = new Float64Array(k * r);
+  const dR = new Float64Array(k * r);
+  for (let j = 0; j < p; j++) for (let i = 0; i < p; i++) dPhi[j * r + i] = ar.jac[j * p + i];
+  for (let j = 0; j < q; j++) for (let i = 0; i < q; i++) dR[(p + j) * r + i + 1] = -ma.jac[j * q + i];
+  return { ss: { r, phi, R }, dPhi, dR };
 }
