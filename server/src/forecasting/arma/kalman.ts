@@ -97,6 +97,10 @@ interface Workspace {
   g: Float64Array;
   w: Float64Array;
   wn: Float64Array;
+  /** the steady recursion's constants c_0..c_3, d_0..d_3 */
+  cd: Float64Array;
+  /** what quickStartUp hands back: Σ v²/F, Σ log F, whether it reached the steady state */
+  sums: Float64Array;
 }
 const workspaces = new Map<number, Workspace>();
 function workspaceFor(r: number): Workspace {
@@ -105,10 +109,129 @@ function workspaceFor(r: number): Workspace {
     const s = r + 1;
     const v = () => new Float64Array(s);
     const m = () => new Float64Array(s * s);
-    ws = { phi: v(), P: m(), Pn: m(), P0: new Float64Array(r * r), RR: m(), a: v(), c: v(), K: v(), g: v(), w: v(), wn: v() };
+    ws = { phi: v(), P: m(), Pn: m(), P0: new Float64Array(r * r), RR: m(), a: v(), c: v(), K: v(), g: v(), w: v(), wn: v(), cd: new Float64Array(8), sums: new Float64Array(3) };
     workspaces.set(r, ws);
   }
   return ws;
+}
+
+/**
+ * The steady recursion for up to four states over hours from..end−1, writing the predictions
+ * a_{t,0} to tr; the state in and out through a (padded: every element past r is zero and stays
+ * so, since c and d are zero there), c and d in cd. Returns Σ v².
+ */
+function tracedStretch(x: Float64Array, from: number, end: number, mu0: number, a: Float64Array, cd: Float64Array, tr: Float64Array): number {
+  const c0 = cd[0];
+  const c1 = cd[1];
+  const c2 = cd[2];
+  const c3 = cd[3];
+  const d0 = cd[4];
+  const d1 = cd[5];
+  const d2 = cd[6];
+  const d3 = cd[7];
+  const m = a.length;
+  let a0 = a[0];
+  let a1 = m > 1 ? a[1] : 0;
+  let a2 = m > 2 ? a[2] : 0;
+  let a3 = m > 3 ? a[3] : 0;
+  let sv = 0;
+  for (let u = from; u < end; u++) {
+    const yu = x[u] - mu0;
+    tr[u] = a0;
+    const v = yu - a0;
+    sv += v * v;
+    const na0 = c0 * a0 + (d0 * yu + a1);
+    a1 = c1 * a0 + (d1 * yu + a2);
+    a2 = c2 * a0 + (d2 * yu + a3);
+    a3 = c3 * a0 + d3 * yu;
+    a0 = na0;
+  }
+  a[0] = a0;
+  if (m > 1) a[1] = a1;
+  if (m > 2) a[2] = a2;
+  if (m > 3) a[3] = a3;
+  return sv;
+}
+
+/**
+ * The steady gain K = P[·,0]/F into K, and the steady recursion's constants for up to four
+ * states into cd: c_i = φ_i (1 − k_0) − k_{i+1}, then d_i = φ_i k_0 + k_{i+1} (K and φ are zero
+ * beyond r, so the unused constants come out zero).
+ */
+function steadyConstants(P: Float64Array, phi: Float64Array, r: number, K: Float64Array, cd: Float64Array): Float64Array {
+  const F = P[0];
+  for (let i = 0; i < r; i++) K[i] = P[i] / F;
+  const k0 = K[0];
+  for (let i = 0; i < 4; i++) {
+    const phii = i < r ? phi[i] : 0;
+    const next = i + 1 < r ? K[i + 1] : 0;
+    cd[i] = phii * (1 - k0) - next;
+    cd[4 + i] = phii * k0 + next;
+  }
+  return cd;
+}
+
+/**
+ * The Chandrasekhar start-up of kalmanFilter for a complete series, likelihood only: hours from
+ * 0 until the covariance stops changing (or the end), updating the state a and the first row
+ * of P in place. Writes Σ v²/F, Σ log F and whether the steady state was reached (1 or 0) to
+ * sums; returns the last hour run. The same recursions as the general loop, with what an
+ * observed hour makes exact used (a_{t|t,0} = y_t; the first element of w − P Z'(Z w)/F is
+ * zero) and one division per hour: 1/F of the next hour also updates m.
+ */
+function quickStartUp(x: Float64Array, mu0: number, r: number, phi: Float64Array, P: Float64Array, a: Float64Array, wIn: Float64Array, wnIn: Float64Array, mw0: number, tol: number, sums: Float64Array): number {
+  const n = x.length;
+  let w = wIn;
+  let wn = wnIn;
+  let mw = mw0;
+  let ssq = 0;
+  let sumLogF = 0;
+  let prodF = 1;
+  let inProd = 0;
+  let ginv = 1 / P[0];
+  let t = 0;
+  let reached = 0;
+  for (; t < n; t++) {
+    const y = x[t] - mu0;
+    const F = P[0];
+    const v = y - a[0];
+    const vf = v * ginv;
+    ssq += v * vf;
+    prodF *= F;
+    if (++inProd === 4) {
+      sumLogF += Math.log(prodF);
+      prodF = 1;
+      inProd = 0;
+    }
+    const zw = w[0];
+    const coef = zw * ginv;
+    const mz = mw * zw;
+    let wmax = 0;
+    for (let i = 0; i < r; i++) {
+      const pi1 = P[i + 1];
+      const wi = w[i];
+      a[i] = phi[i] * y + a[i + 1] + pi1 * vf;
+      wn[i] = w[i + 1] - pi1 * coef;
+      P[i] += mz * wi;
+      const w2 = wi * wi;
+      wmax = w2 > wmax ? w2 : wmax;
+    }
+    const change = Math.abs(mw) * wmax;
+    ginv = 1 / P[0];
+    mw -= mz * mz * ginv;
+    const tmp = w;
+    w = wn;
+    wn = tmp;
+    if (change < tol) {
+      reached = 1;
+      break;
+    }
+  }
+  if (inProd > 0) sumLogF += Math.log(prodF);
+  sums[0] = ssq;
+  sums[1] = sumLogF;
+  sums[2] = reached;
+  return Math.min(t, n - 1);
 }
 
 /** Stands in for an output that was not asked for (never written: its flag is false). */
@@ -178,10 +301,6 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
   const pred: Float64Array = opts.predictions ?? NO_OUTPUT;
   // likelihood only, small state: the steady-state stretches take the scalar loop below
   const fast = r <= 4 && !profile && !wantRes && !wantPred;
-  const p0 = phi[0];
-  const p1 = r > 1 ? phi[1] : 0;
-  const p2 = r > 2 ? phi[2] : 0;
-  const p3 = r > 3 ? phi[3] : 0;
   // the steady recursion's constants: c_i = φ_i (1 − k_0) − k_{i+1}, d_i = φ_i k_0 + k_{i+1}
   let c0 = 0;
   let c1 = 0;
@@ -191,7 +310,34 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
   let d1 = 0;
   let d2 = 0;
   let d3 = 0;
-  for (let t = 0; t < n; t++) {
+  let tStart = 0;
+  if (chandra && !trackP && complete && !profile && !wantRes && !wantPred && stopAt < 0) {
+    // the likelihood-only case, the one a fit runs hundreds of times: the start-up in a
+    // function of its own (below), then straight into the steady state
+    const sums = ws.sums;
+    const last = quickStartUp(x, mu0, r, phi, P, a, w, wn, mw, tol, sums);
+    ssq = sums[0];
+    sumLogF = sums[1];
+    nUsed = last + 1;
+    tStart = last + 1;
+    if (sums[2] === 1) {
+      if (wantTrace) entry = entryOf(last, ssq, sumLogF, a, P, r);
+      steady = true;
+      steadyAt = last;
+      Fss = P[0];
+      logFss = Math.log(Fss);
+      const cd = steadyConstants(P, phi, r, K, ws.cd);
+      c0 = cd[0];
+      c1 = cd[1];
+      c2 = cd[2];
+      c3 = cd[3];
+      d0 = cd[4];
+      d1 = cd[5];
+      d2 = cd[6];
+      d3 = cd[7];
+    }
+  }
+  for (let t = tStart; t < n; t++) {
     const yt = x[t] - mu0;
     const observed = yt === yt;
     if (wantPred) pred[t] = a[0] + mu0;
@@ -207,19 +353,24 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       // the stretch runs to the next missing hour; the loops below need no test for one
       const end = complete ? n : nextMissing(x, t);
       if (wantTrace) {
-        // the four-state loop (unused states stay zero), writing each prediction down: a store
-        // per hour costs a quarter of the loops below, so only the steady-state score has it
-        for (; u < end; u++) {
-          const yu = x[u] - mu0;
-          tr[u] = a0;
-          const v = yu - a0;
-          sv += v * v;
-          const na0 = c0 * a0 + (d0 * yu + a1);
-          a1 = c1 * a0 + (d1 * yu + a2);
-          a2 = c2 * a0 + (d2 * yu + a3);
-          a3 = c3 * a0 + d3 * yu;
-          a0 = na0;
-        }
+        // the four-state loop (unused states stay zero), writing each prediction down, in a
+        // function of its own (inside this one the store slowed the loop by half)
+        a[0] = a0;
+        const cd = ws.cd;
+        cd[0] = c0;
+        cd[1] = c1;
+        cd[2] = c2;
+        cd[3] = c3;
+        cd[4] = d0;
+        cd[5] = d1;
+        cd[6] = d2;
+        cd[7] = d3;
+        sv = tracedStretch(x, t, end, mu0, a, cd, tr);
+        u = end;
+        a0 = a[0];
+        a1 = a[1];
+        a2 = r > 2 ? a[2] : 0;
+        a3 = r > 3 ? a[3] : 0;
       } else if (r <= 2) {
         // the same with two states: fewer live values, no spills
         for (; u < end; u++) {
@@ -370,21 +521,15 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       steadyAt = t;
       Fss = P[0];
       logFss = Math.log(Fss);
-      for (let i = 0; i < r; i++) K[i] = P[i] / Fss;
-      // K and φ are zero beyond r, so the unused constants come out zero
-      const k0 = K[0];
-      const k1 = K[1];
-      const k2 = r >= 2 ? K[2] : 0;
-      const k3 = r >= 3 ? K[3] : 0;
-      const k4 = r >= 4 ? K[4] : 0;
-      c0 = p0 * (1 - k0) - k1;
-      c1 = p1 * (1 - k0) - k2;
-      c2 = p2 * (1 - k0) - k3;
-      c3 = p3 * (1 - k0) - k4;
-      d0 = p0 * k0 + k1;
-      d1 = p1 * k0 + k2;
-      d2 = p2 * k0 + k3;
-      d3 = p3 * k0 + k4;
+      const cd = steadyConstants(P, phi, r, K, ws.cd);
+      c0 = cd[0];
+      c1 = cd[1];
+      c2 = cd[2];
+      c3 = cd[3];
+      d0 = cd[4];
+      d1 = cd[5];
+      d2 = cd[6];
+      d3 = cd[7];
     }
   }
   if (inProd > 0) sumLogF += Math.log(prodF);
