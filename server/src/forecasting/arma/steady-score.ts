@@ -72,11 +72,12 @@ export function steadyStateScore(input: SteadyScoreInput, u: Float64Array, pass:
   const r = ss.r;
   const { c } = recursionOf(ss, entry.gain);
   const first = t0 + 1;
-  const gamma = scratch('score.gamma', n + r + 1);
   const gc = scratch('score.gc', r);
   const gd = scratch('score.gd', r);
-  if (r <= 4) adjointSmall(x, first, c, pass.trace, gamma, gc, gd);
-  else adjointGeneral(x, first, c, pass.trace, gamma, gc, gd);
+  // ∂E/∂a_{t₀+1}: γ_{t₀+1+i}
+  const ga = scratch('score.ga', r);
+  if (r <= 4) adjointSmall(x, first, c, pass.trace, ga, gc, gd);
+  else adjointGeneral(x, first, c, pass.trace, ga, gc, gd);
   const F = entry.F;
   // E = Σ e_t² over the steady stretch, where the pass divided by the constant F
   const E = (pass.ssq - entry.ssq) * F;
@@ -99,7 +100,7 @@ export function steadyStateScore(input: SteadyScoreInput, u: Float64Array, pass:
       const dkNext = i + 1 < r ? tan.gain[o + i + 1] : 0;
       const dc = dPhi[o + i] * (1 - k0) - ss.phi[i] * dk0 - dkNext;
       const dd = dPhi[o + i] * k0 + ss.phi[i] * dk0 + dkNext;
-      dE += gc[i] * dc + gd[i] * dd + gamma[first + i] * tan.a[o + i];
+      dE += gc[i] * dc + gd[i] * dd + ga[i] * tan.a[o + i];
     }
     const dF = tan.F[j];
     const dS = tan.ssq[j] + dE / F - (E * dF) / (F * F);
@@ -112,11 +113,12 @@ export function steadyStateScore(input: SteadyScoreInput, u: Float64Array, pass:
 /**
  * The backward recursion γ_t = −2 e_t + Σ_i c_i γ_{t+1+i} over the steady stretch, zero past
  * the end (a_n and later feed nothing), with ∂E/∂c and ∂E/∂d accumulated; e_t = y_t − a_{t,0}
- * from the pass's predictions. Writes γ_t for t ≥ first.
+ * from the pass's predictions. Writes γ_first … γ_{first+r−1} to ga.
  */
-function adjointGeneral(x: Float64Array, first: number, c: Float64Array, a0s: Float64Array, gamma: Float64Array, gc: Float64Array, gd: Float64Array): void {
+function adjointGeneral(x: Float64Array, first: number, c: Float64Array, a0s: Float64Array, ga: Float64Array, gc: Float64Array, gd: Float64Array): void {
   const n = x.length;
   const r = c.length;
+  const gamma = scratch('score.gamma', n + r + 1);
   for (let t = n - 1; t >= first; t--) {
     const y = x[t];
     const a0 = a0s[t];
@@ -129,10 +131,11 @@ function adjointGeneral(x: Float64Array, first: number, c: Float64Array, a0s: Fl
     }
     gamma[t] = g;
   }
+  for (let i = 0; i < r; i++) ga[i] = gamma[first + i];
 }
 
 /** The same for up to four states, in scalars (zero-padded: unused c_i are 0). */
-function adjointSmall(x: Float64Array, first: number, c: Float64Array, a0s: Float64Array, gamma: Float64Array, gc: Float64Array, gd: Float64Array): void {
+function adjointSmall(x: Float64Array, first: number, c: Float64Array, a0s: Float64Array, ga: Float64Array, gc: Float64Array, gd: Float64Array): void {
   const n = x.length;
   const r = c.length;
   const c0 = c[0];
@@ -171,13 +174,11 @@ function adjointSmall(x: Float64Array, first: number, c: Float64Array, a0s: Floa
     g1 = g;
   }
   // γ_first … γ_{first+3}: what the start-up state's derivative is taken against
-  gamma[first] = g1;
-  gamma[first + 1] = g2;
-  gamma[first + 2] = g3;
-  gamma[first + 3] = g4;
+  const g = [g1, g2, g3, g4];
   const sc = [sc0, sc1, sc2, sc3];
   const sd = [sd0, sd1, sd2, sd3];
   for (let i = 0; i < r; i++) {
+    ga[i] = g[i];
     gc[i] = sc[i];
     gd[i] = sd[i];
   }
