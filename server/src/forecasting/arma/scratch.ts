@@ -17,3 +17,16 @@ export function scratch(slot: string, length: number): Float64Array {
   buffer.fill(0);
   return buffer;
 }
+
+/**
+ * A scratch array of at least `length` elements, not cleared: for a caller whose length varies
+ * from call to call and who writes every element it reads.
+ */
+export function scratchAtLeast(slot: string, length: number): Float64Array {
+  let buffer = slots.get(slot);
+  if (!buffer || buffer.length < length) {
+    buffer = new Float64Array(Math.max(length, 2 * (buffer?.length ?? 0)));
+    slots.set(slot, buffer);
+  }
+  return buffer;
+}

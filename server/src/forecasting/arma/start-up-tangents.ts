@@ -11,7 +11,7 @@
  * and each tangent follows them by the product rule, started from the derivative of the
  * stationary covariance (state-space.ts). Exact, unlike differences, and one pass for all k.
  */
-import { scratch } from './scratch';
+import { scratch, scratchAtLeast } from './scratch';
 import { ArmaStateSpace, stationaryCovarianceTangents } from './state-space';
 
 export interface StartUpTangents {
@@ -154,7 +154,7 @@ function smallTangents(x: Float64Array, ss: ArmaStateSpace, dPhi: Float64Array, 
   let a2 = 0;
   let a3 = 0;
   let m = -1 / p0;
-  const traj = scratch('tangents.traj', (t0 + 1) * TRAJ);
+  const traj = scratchAtLeast('tangents.traj', (t0 + 1) * TRAJ);
   for (let t = 0; t <= t0; t++) {
     const y = x[t];
     const ginv = 1 / p0;
