@@ -1,5 +1,6 @@
 /**
- * Engine benchmark (not a test): `tsx src/cli/bench.ts`.
+ * Engine benchmark (not a test): `npm run bench`, which runs the compiled `dist/cli/bench.js` (the
+ * code a server runs; under tsx the timings of the same fits varied several-fold between runs).
  *  1. exact-ML ARMA fits (with standard errors) on 2,000 and 8,760 hourly points, median wall
  *     time, on simulated ARMA(2,1) series (φ = 0.6, −0.2; θ = 0.4), several orders;
  *  2. the automatic pipeline on eight weeks (1,344 h) of the real demand fixture;
@@ -11,13 +12,14 @@
  * Prints a table and the machine (CPU model, cores, Node and R versions).
  */
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { cpus, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { accuracy, backtest, fitArma, median, runPipeline } from '../forecasting';
 import { simulateArma21 as simulate } from './bench-series';
 
-const FIX = join(__dirname, '../forecasting/fixtures');
+// from src/cli (tsx) or dist/cli (compiled, as `npm run bench` runs it): the fixtures stay in src
+const FIX = [join(__dirname, '../forecasting/fixtures'), join(__dirname, '../../src/forecasting/fixtures')].find((d) => existsSync(d)) ?? '';
 
 function hasR(): string | null {
   const r = spawnSync('Rscript', ['-e', 'cat(R.version.string)'], { encoding: 'utf8' });

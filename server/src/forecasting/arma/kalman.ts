@@ -101,6 +101,8 @@ interface Workspace {
   cd: Float64Array;
   /** what quickStartUp hands back: Σ v²/F, Σ log F, whether it reached the steady state */
   sums: Float64Array;
+  /** the steady state handed to and from tracedStretch */
+  st: Float64Array;
 }
 const workspaces = new Map<number, Workspace>();
 function workspaceFor(r: number): Workspace {
@@ -109,7 +111,7 @@ function workspaceFor(r: number): Workspace {
     const s = r + 1;
     const v = () => new Float64Array(s);
     const m = () => new Float64Array(s * s);
-    ws = { phi: v(), P: m(), Pn: m(), P0: new Float64Array(r * r), RR: m(), a: v(), c: v(), K: v(), g: v(), w: v(), wn: v(), cd: new Float64Array(8), sums: new Float64Array(3) };
+    ws = { phi: v(), P: m(), Pn: m(), P0: new Float64Array(r * r), RR: m(), a: v(), c: v(), K: v(), g: v(), w: v(), wn: v(), cd: new Float64Array(8), sums: new Float64Array(3), st: new Float64Array(4) };
     workspaces.set(r, ws);
   }
   return ws;
@@ -117,10 +119,12 @@ function workspaceFor(r: number): Workspace {
 
 /**
  * The steady recursion for up to four states over hours from..end−1, writing the predictions
- * a_{t,0} to tr; the state in and out through a (padded: every element past r is zero and stays
- * so, since c and d are zero there), c and d in cd. Returns Σ v².
+ * a_{t,0} to tr; the state in and out through st (four elements: unused states are zero and
+ * stay so, since c and d are zero there), c and d in cd. Returns Σ v². Every element access
+ * is unconditional: this runs once per pass, is entered through on-stack replacement, and an
+ * access that had never run before (a fourth state) threw its compiled code away each time.
  */
-function tracedStretch(x: Float64Array, from: number, end: number, mu0: number, a: Float64Array, cd: Float64Array, tr: Float64Array): number {
+function tracedStretch(x: Float64Array, from: number, end: number, mu0: number, st: Float64Array, cd: Float64Array, tr: Float64Array): number {
   const c0 = cd[0];
   const c1 = cd[1];
   const c2 = cd[2];
@@ -129,11 +133,10 @@ function tracedStretch(x: Float64Array, from: number, end: number, mu0: number, 
   const d1 = cd[5];
   const d2 = cd[6];
   const d3 = cd[7];
-  const m = a.length;
-  let a0 = a[0];
-  let a1 = m > 1 ? a[1] : 0;
-  let a2 = m > 2 ? a[2] : 0;
-  let a3 = m > 3 ? a[3] : 0;
+  let a0 = st[0];
+  let a1 = st[1];
+  let a2 = st[2];
+  let a3 = st[3];
   let sv = 0;
   for (let u = from; u < end; u++) {
     const yu = x[u] - mu0;
@@ -146,10 +149,10 @@ function tracedStretch(x: Float64Array, from: number, end: number, mu0: number, 
     a3 = c3 * a0 + d3 * yu;
     a0 = na0;
   }
-  a[0] = a0;
-  if (m > 1) a[1] = a1;
-  if (m > 2) a[2] = a2;
-  if (m > 3) a[3] = a3;
+  st[0] = a0;
+  st[1] = a1;
+  st[2] = a2;
+  st[3] = a3;
   return sv;
 }
 
@@ -354,8 +357,7 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       const end = complete ? n : nextMissing(x, t);
       if (wantTrace) {
         // the four-state loop (unused states stay zero), writing each prediction down, in a
-        // function of its own (inside this one the store slowed the loop by half)
-        a[0] = a0;
+        // function of its own
         const cd = ws.cd;
         cd[0] = c0;
         cd[1] = c1;
@@ -365,12 +367,17 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
         cd[5] = d1;
         cd[6] = d2;
         cd[7] = d3;
-        sv = tracedStretch(x, t, end, mu0, a, cd, tr);
+        const st = ws.st;
+        st[0] = a0;
+        st[1] = a1;
+        st[2] = a2;
+        st[3] = a3;
+        sv = tracedStretch(x, t, end, mu0, st, cd, tr);
         u = end;
-        a0 = a[0];
-        a1 = a[1];
-        a2 = r > 2 ? a[2] : 0;
-        a3 = r > 3 ? a[3] : 0;
+        a0 = st[0];
+        a1 = st[1];
+        a2 = st[2];
+        a3 = st[3];
       } else if (r <= 2) {
         // the same with two states: fewer live values, no spills
         for (; u < end; u++) {
