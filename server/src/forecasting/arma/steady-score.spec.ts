@@ -17,6 +17,7 @@ describe('steadyStateScore: the gradient of the concentrated likelihood', () => 
     { name: 'ARMA(3,3)', p: 3, q: 3, P: 0, Q: 0, s: 1, u: [0.5, -0.3, 0.2, 0.4, 0.1, -0.2] },
     { name: 'ARMA(2,2) near a unit MA root', p: 2, q: 2, P: 0, Q: 0, s: 1, u: [0.3, 0.2, 1.6, 0.3] },
     { name: 'ARMA(1,2)', p: 1, q: 2, P: 0, Q: 0, s: 1, u: [0.6, 0.3, -0.4] },
+    { name: 'ARMA(4,1), four states all moving (the general adjoint)', p: 4, q: 1, P: 0, Q: 0, s: 1, u: [0.5, -0.3, 0.2, 0.1, 0.4] },
     { name: 'ARMA(1,1)(0,1)_24, five states and more', p: 1, q: 1, P: 0, Q: 1, s: 24, u: [0.5, 0.3, -0.6] },
   ];
 

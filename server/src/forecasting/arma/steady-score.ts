@@ -76,7 +76,7 @@ export function steadyStateScore(input: SteadyScoreInput, u: Float64Array, pass:
   const gd = scratch('score.gd', r);
   // ∂E/∂a_{t₀+1}: γ_{t₀+1+i}
   const ga = scratch('score.ga', r);
-  if (r <= 4) adjointSmall(x, first, c, pass.trace, ga, gc, gd);
+  if (r <= 3 || (r === 4 && lastStateFixed(ss, dPhi, k))) adjointSmall(x, first, c, pass.trace, ga, gc, gd);
   else adjointGeneral(x, first, c, pass.trace, ga, gc, gd);
   const F = entry.F;
   // E = Σ e_t² over the steady stretch, where the pass divided by the constant F
@@ -111,6 +111,18 @@ export function steadyStateScore(input: SteadyScoreInput, u: Float64Array, pass:
 }
 
 /**
+ * Whether φ_{r−1} is zero with all its derivatives (fewer AR coefficients than states, as in
+ * ARMA(p, q) with q ≥ p): then c_{r−1} = d_{r−1} = 0 along every direction and the last state
+ * only passes values on, which lets the four-state adjoint keep three of everything.
+ */
+function lastStateFixed(ss: ArmaStateSpace, dPhi: Float64Array, k: number): boolean {
+  const r = ss.r;
+  if (ss.phi[r - 1] !== 0) return false;
+  for (let j = 0; j < k; j++) if (dPhi[j * r + r - 1] !== 0) return false;
+  return true;
+}
+
+/**
  * The backward recursion γ_t = −2 e_t + Σ_i c_i γ_{t+1+i} over the steady stretch, zero past
  * the end (a_n and later feed nothing), with ∂E/∂c and ∂E/∂d accumulated; e_t = y_t − a_{t,0}
  * from the pass's predictions. Writes γ_first … γ_{first+r−1} to ga.
@@ -134,49 +146,47 @@ function adjointGeneral(x: Float64Array, first: number, c: Float64Array, a0s: Fl
   for (let i = 0; i < r; i++) ga[i] = gamma[first + i];
 }
 
-/** The same for up to four states, in scalars (zero-padded: unused c_i are 0). */
+/**
+ * The same in scalars for up to three states, or four whose last has c_3 = d_3 = 0 with all
+ * derivatives (lastStateFixed): then γ needs three lags and ∂E/∂c_3, ∂E/∂d_3 and ∂E/∂a_3 are
+ * never used (written as zero). Fewer live values than the general four-state form, which
+ * spilled registers.
+ */
 function adjointSmall(x: Float64Array, first: number, c: Float64Array, a0s: Float64Array, ga: Float64Array, gc: Float64Array, gd: Float64Array): void {
   const n = x.length;
   const r = c.length;
   const c0 = c[0];
   const c1 = r > 1 ? c[1] : 0;
   const c2 = r > 2 ? c[2] : 0;
-  const c3 = r > 3 ? c[3] : 0;
-  // γ_{t+1} … γ_{t+4}
+  // γ_{t+1} … γ_{t+3}
   let g1 = 0;
   let g2 = 0;
   let g3 = 0;
-  let g4 = 0;
   let sc0 = 0;
   let sc1 = 0;
   let sc2 = 0;
-  let sc3 = 0;
   let sd0 = 0;
   let sd1 = 0;
   let sd2 = 0;
-  let sd3 = 0;
   for (let t = n - 1; t >= first; t--) {
     const y = x[t];
     const a = a0s[t];
     sc0 += g1 * a;
     sc1 += g2 * a;
     sc2 += g3 * a;
-    sc3 += g4 * a;
     sd0 += g1 * y;
     sd1 += g2 * y;
     sd2 += g3 * y;
-    sd3 += g4 * y;
-    // grouped so that the next γ waits on one multiply-add of the last, not on four
-    const g = c0 * g1 + (2 * (a - y) + c1 * g2 + (c2 * g3 + c3 * g4));
-    g4 = g3;
+    // grouped so that the next γ waits on one multiply-add of the last, not on three
+    const g = c0 * g1 + (2 * (a - y) + (c1 * g2 + c2 * g3));
     g3 = g2;
     g2 = g1;
     g1 = g;
   }
-  // γ_first … γ_{first+3}: what the start-up state's derivative is taken against
-  const g = [g1, g2, g3, g4];
-  const sc = [sc0, sc1, sc2, sc3];
-  const sd = [sd0, sd1, sd2, sd3];
+  // γ_first … γ_{first+2}: what the start-up state's derivative is taken against
+  const g = [g1, g2, g3, 0];
+  const sc = [sc0, sc1, sc2, 0];
+  const sd = [sd0, sd1, sd2, 0];
   for (let i = 0; i < r; i++) {
     ga[i] = g[i];
     gc[i] = sc[i];
