@@ -23,7 +23,7 @@ import { expandAr, expandMa } from './polynomials';
 import { armaStateSpace, ArmaStateSpace } from './state-space';
 import { SteadyPass, steadyStateScore } from './steady-score';
 import { stateSpaceWithTangents } from './state-space-tangents';
-import { fromInvertible, fromStationary, toInvertible, toStationary } from './transform';
+import { fromInvertible, fromStationary, toInvertible, toStationary, toStationaryInto } from './transform';
 import { countFinite, meanFinite, toSeries, varianceFinite } from '../series';
 
 export interface ArmaSpec {
@@ -193,7 +193,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   if (!u0) u0 = new Float64Array(k);
 
   const complete = nFinite === x.length;
-  const model = (u: Float64Array): ArmaStateSpace => stateSpaceOf(fromUnconstrained(u, o), s);
+  const model = s === 0 ? nonSeasonalModel(o.p, o.q) : (u: Float64Array): ArmaStateSpace => stateSpaceOf(fromUnconstrained(u, o), s);
   const step = 1e-6;
   // A complete series with a known mean: the likelihood's gradient exactly, by one backward
   // pass over the steady stretch and tangents of the start-up (steady-score.ts), which pays
@@ -306,6 +306,24 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   };
   fit.fitMs = performance.now() - t0;
   return fit;
+}
+
+/**
+ * The objective's state space without a seasonal block, written into one object reused for
+ * every evaluation (the filter copies what it keeps): φ, and R = (1, θ).
+ */
+function nonSeasonalModel(p: number, q: number): (u: Float64Array) => ArmaStateSpace {
+  const r = Math.max(p, q + 1, 1);
+  const ss: ArmaStateSpace = { r, phi: new Float64Array(r), R: new Float64Array(r) };
+  const theta = new Float64Array(q);
+  const work = new Float64Array(Math.max(p, q));
+  ss.R[0] = 1;
+  return (u) => {
+    toStationaryInto(u, 0, p, ss.phi, work, 1);
+    toStationaryInto(u, p, q, theta, work, -1);
+    for (let i = 0; i < q; i++) ss.R[i + 1] = theta[i];
+    return ss;
+  };
 }
 
 function sameValues(a: Float64Array, b: Float64Array): boolean {

@@ -102,3 +102,18 @@ export function toStationaryJacobian(x: ArrayLike<number>): { phi: Float64Array;
   }
   return { phi, jac };
 }
+
+/**
+ * toStationary (sign 1) or toInvertible (sign −1) of x[from..from+p) written into out[0..p),
+ * with work (length ≥ p) as scratch: the same recursion without allocating, for the likelihood
+ * objective, which maps a vector hundreds of times per fit.
+ */
+export function toStationaryInto(x: ArrayLike<number>, from: number, p: number, out: Float64Array, work: Float64Array, sign: number): void {
+  for (let k = 0; k < p; k++) {
+    const a = Math.tanh(x[from + k]);
+    for (let j = 0; j < k; j++) work[j] = out[j] - a * out[k - 1 - j];
+    for (let j = 0; j < k; j++) out[j] = work[j];
+    out[k] = a;
+  }
+  if (sign < 0) for (let k = 0; k < p; k++) out[k] = -out[k];
+}
