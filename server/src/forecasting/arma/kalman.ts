@@ -304,15 +304,6 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
   const pred: Float64Array = opts.predictions ?? NO_OUTPUT;
   // likelihood only, small state: the steady-state stretches take the scalar loop below
   const fast = r <= 4 && !profile && !wantRes && !wantPred;
-  // the steady recursion's constants: c_i = φ_i (1 − k_0) − k_{i+1}, d_i = φ_i k_0 + k_{i+1}
-  let c0 = 0;
-  let c1 = 0;
-  let c2 = 0;
-  let c3 = 0;
-  let d0 = 0;
-  let d1 = 0;
-  let d2 = 0;
-  let d3 = 0;
   let tStart = 0;
   if (chandra && !trackP && complete && !profile && !wantRes && !wantPred && stopAt < 0) {
     // the likelihood-only case, the one a fit runs hundreds of times: the start-up in a
@@ -329,15 +320,7 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       steadyAt = last;
       Fss = P[0];
       logFss = Math.log(Fss);
-      const cd = steadyConstants(P, phi, r, K, ws.cd);
-      c0 = cd[0];
-      c1 = cd[1];
-      c2 = cd[2];
-      c3 = cd[3];
-      d0 = cd[4];
-      d1 = cd[5];
-      d2 = cd[6];
-      d3 = cd[7];
+      steadyConstants(P, phi, r, K, ws.cd);
     }
   }
   for (let t = tStart; t < n; t++) {
@@ -351,6 +334,17 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       let a1 = a[1];
       let a2 = r > 2 ? a[2] : 0;
       let a3 = r > 3 ? a[3] : 0;
+      // the steady recursion's constants (steadyConstants): c_i = φ_i (1 − k_0) − k_{i+1},
+      // d_i = φ_i k_0 + k_{i+1}
+      const cd = ws.cd;
+      const c0 = cd[0];
+      const c1 = cd[1];
+      const c2 = cd[2];
+      const c3 = cd[3];
+      const d0 = cd[4];
+      const d1 = cd[5];
+      const d2 = cd[6];
+      const d3 = cd[7];
       let sv = 0;
       let u = t;
       // the stretch runs to the next missing hour; the loops below need no test for one
@@ -358,15 +352,6 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       if (wantTrace) {
         // the four-state loop (unused states stay zero), writing each prediction down, in a
         // function of its own
-        const cd = ws.cd;
-        cd[0] = c0;
-        cd[1] = c1;
-        cd[2] = c2;
-        cd[3] = c3;
-        cd[4] = d0;
-        cd[5] = d1;
-        cd[6] = d2;
-        cd[7] = d3;
         const st = ws.st;
         st[0] = a0;
         st[1] = a1;
@@ -528,15 +513,7 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       steadyAt = t;
       Fss = P[0];
       logFss = Math.log(Fss);
-      const cd = steadyConstants(P, phi, r, K, ws.cd);
-      c0 = cd[0];
-      c1 = cd[1];
-      c2 = cd[2];
-      c3 = cd[3];
-      d0 = cd[4];
-      d1 = cd[5];
-      d2 = cd[6];
-      d3 = cd[7];
+      steadyConstants(P, phi, r, K, ws.cd);
     }
   }
   if (inProd > 0) sumLogF += Math.log(prodF);
