@@ -35,7 +35,8 @@ export interface FilterOptions {
   /**
    * Run the hours 0..stopAt only, with the time-varying recursions throughout (no steady-state
    * switch), and return with `entry` describing where they stopped: the start-up stretch on its
-   * own, which the steady-state score (steady-score.ts) differentiates.
+   * own, what the steady-state score differentiates (start-up-tangents.ts is checked against
+   * differences of this).
    */
   stopAt?: number;
   /**

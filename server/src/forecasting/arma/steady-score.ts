@@ -41,17 +41,15 @@ export interface SteadyPass {
   trace: Float64Array;
 }
 
-/** The steady recursion's constants c and d from the AR coefficients and the steady gain. */
-function recursionOf(ss: ArmaStateSpace, k: Float64Array): { c: Float64Array; d: Float64Array } {
+/**
+ * The steady recursion's c_i = φ_i (1 − k_0) − k_{i+1} from the AR coefficients and the steady
+ * gain (the backward pass needs c only; d enters through the derivatives below).
+ */
+function recursionC(ss: ArmaStateSpace, k: Float64Array): Float64Array {
   const r = ss.r;
   const c = new Float64Array(r);
-  const d = new Float64Array(r);
-  for (let i = 0; i < r; i++) {
-    const next = i + 1 < r ? k[i + 1] : 0;
-    c[i] = ss.phi[i] * (1 - k[0]) - next;
-    d[i] = ss.phi[i] * k[0] + next;
-  }
-  return { c, d };
+  for (let i = 0; i < r; i++) c[i] = ss.phi[i] * (1 - k[0]) - (i + 1 < r ? k[i + 1] : 0);
+  return c;
 }
 
 /**
@@ -70,7 +68,7 @@ export function steadyStateScore(input: SteadyScoreInput, u: Float64Array, pass:
   if (t0 < 0 || k * (t0 + 1) > n) return null;
   const { ss, dPhi, dR } = model(u);
   const r = ss.r;
-  const { c } = recursionOf(ss, entry.gain);
+  const c = recursionC(ss, entry.gain);
   const first = t0 + 1;
   const gc = scratch('score.gc', r);
   const gd = scratch('score.gd', r);
