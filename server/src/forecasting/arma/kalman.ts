@@ -104,6 +104,8 @@ interface Workspace {
   sums: Float64Array;
   /** the steady state handed to and from tracedStretch */
   st: Float64Array;
+  /** what quickStartUpSmall reads and writes */
+  io: Float64Array;
 }
 const workspaces = new Map<number, Workspace>();
 function workspaceFor(r: number): Workspace {
@@ -112,7 +114,7 @@ function workspaceFor(r: number): Workspace {
     const s = r + 1;
     const v = () => new Float64Array(s);
     const m = () => new Float64Array(s * s);
-    ws = { phi: v(), P: m(), Pn: m(), P0: new Float64Array(r * r), RR: m(), a: v(), c: v(), K: v(), g: v(), w: v(), wn: v(), cd: new Float64Array(8), sums: new Float64Array(3), st: new Float64Array(4) };
+    ws = { phi: v(), P: m(), Pn: m(), P0: new Float64Array(r * r), RR: m(), a: v(), c: v(), K: v(), g: v(), w: v(), wn: v(), cd: new Float64Array(8), sums: new Float64Array(3), st: new Float64Array(4), io: new Float64Array(16) };
     workspaces.set(r, ws);
   }
   return ws;
@@ -238,6 +240,89 @@ function quickStartUp(x: Float64Array, mu0: number, r: number, phi: Float64Array
   return Math.min(t, n - 1);
 }
 
+/**
+ * quickStartUp for up to four states with everything in scalars (zero-padded: unused states
+ * stay zero). io holds φ (0–3), the first row of P (4–7) and w (8–11) on entry, and the first
+ * row of P (4–7) and the state a (12–15) on return; every element is read and written
+ * unconditionally (see tracedStretch).
+ */
+function quickStartUpSmall(x: Float64Array, mu0: number, io: Float64Array, mw0: number, tol: number, sums: Float64Array): number {
+  const n = x.length;
+  const f0 = io[0];
+  const f1 = io[1];
+  const f2 = io[2];
+  const f3 = io[3];
+  let p0 = io[4];
+  let p1 = io[5];
+  let p2 = io[6];
+  let p3 = io[7];
+  let w0 = io[8];
+  let w1 = io[9];
+  let w2 = io[10];
+  let w3 = io[11];
+  let a0 = 0;
+  let a1 = 0;
+  let a2 = 0;
+  let a3 = 0;
+  let mw = mw0;
+  let ssq = 0;
+  let sumLogF = 0;
+  let prodF = 1;
+  let inProd = 0;
+  let ginv = 1 / p0;
+  let t = 0;
+  let reached = 0;
+  for (; t < n; t++) {
+    const y = x[t] - mu0;
+    const v = y - a0;
+    const vf = v * ginv;
+    ssq += v * vf;
+    prodF *= p0;
+    if (++inProd === 4) {
+      sumLogF += Math.log(prodF);
+      prodF = 1;
+      inProd = 0;
+    }
+    const coef = w0 * ginv;
+    const mz = mw * w0;
+    a0 = f0 * y + a1 + p1 * vf;
+    a1 = f1 * y + a2 + p2 * vf;
+    a2 = f2 * y + a3 + p3 * vf;
+    a3 = f3 * y;
+    const nw0 = w1 - p1 * coef;
+    const nw1 = w2 - p2 * coef;
+    const nw2 = w3 - p3 * coef;
+    const change = Math.abs(mw) * Math.max(w0 * w0, w1 * w1, w2 * w2, w3 * w3);
+    p0 += mz * w0;
+    p1 += mz * w1;
+    p2 += mz * w2;
+    p3 += mz * w3;
+    w0 = nw0;
+    w1 = nw1;
+    w2 = nw2;
+    w3 = 0;
+    ginv = 1 / p0;
+    mw -= mz * mz * ginv;
+    if (change < tol) {
+      reached = 1;
+      break;
+    }
+  }
+  if (inProd > 0) sumLogF += Math.log(prodF);
+  io[4] = p0;
+  io[5] = p1;
+  io[6] = p2;
+  io[7] = p3;
+  io[12] = a0;
+  io[13] = a1;
+  io[14] = a2;
+  io[15] = a3;
+  sums[0] = ssq;
+  sums[1] = sumLogF;
+  sums[2] = reached;
+  return Math.min(t, n - 1);
+}
+
 /** Stands in for an output that was not asked for (never written: its flag is false). */
 const NO_OUTPUT = new Float64Array(0);
 
@@ -310,7 +395,21 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
     // the likelihood-only case, the one a fit runs hundreds of times: the start-up in a
     // function of its own (below), then straight into the steady state
     const sums = ws.sums;
-    const last = quickStartUp(x, mu0, r, phi, P, a, w, wn, mw, tol, sums);
+    let last: number;
+    if (r <= 4) {
+      // up to four states: the recursion in scalars, handed in and out through io
+      const io = ws.io;
+      for (let i = 0; i < 4; i++) {
+        io[i] = i < r ? phi[i] : 0;
+        io[4 + i] = i < r ? P[i] : 0;
+        io[8 + i] = i < r ? w[i] : 0;
+      }
+      last = quickStartUpSmall(x, mu0, io, mw, tol, sums);
+      for (let i = 0; i < r; i++) {
+        P[i] = io[4 + i];
+        a[i] = io[12 + i];
+      }
+    } else last = quickStartUp(x, mu0, r, phi, P, a, w, wn, mw, tol, sums);
     ssq = sums[0];
     sumLogF = sums[1];
     nUsed = last + 1;
