@@ -6,8 +6,10 @@
  *    (Barndorff-Nielsen & Schou 1973; Jones 1980; Monahan 1984),
  *  - objective the exact Gaussian likelihood from the Kalman filter with σ² concentrated out and
  *    the mean concentrated out by GLS, initial covariance by Gardner, Harvey & Phillips (1980),
- *  - BFGS on the unconstrained values, started from the information matrix (information.ts); for
- *    AR and MA orders both ≥ 2 a second search from all-zero coefficients, the higher kept,
+ *  - BFGS on the unconstrained values, started from the information matrix (information.ts), with
+ *    the exact gradient for a complete series without a mean (steady-score.ts) and forward
+ *    differences otherwise; for AR and MA orders both ≥ 2 a second search from all-zero
+ *    coefficients, the higher kept,
  *  - standard errors from the inverse of a forward-difference Hessian of −log L in the natural
  *    parameters (with the mean as a free parameter), as the observed information.
  * Information criteria follow the usual definitions with k = number of coefficients + 1 (σ²):

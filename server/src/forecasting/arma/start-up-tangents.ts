@@ -9,7 +9,8 @@
  *   a_i ← φ_i y + a_{i+1} + p_{i+1} v/F,
  *   w_i ← w_{i+1} − p_{i+1} w₀/F,  p_i ← p_i + m w₀ w_i,  m ← m − m² w₀² / p₀(new),
  * and each tangent follows them by the product rule, started from the derivative of the
- * stationary covariance (state-space.ts). Exact, unlike differences, and one pass for all k.
+ * stationary covariance (state-space.ts). Exact, unlike differences, and the base recursion
+ * runs once for all k directions.
  */
 import { scratch, scratchAtLeast } from './scratch';
 import { ArmaStateSpace, stationaryCovarianceTangents } from './state-space';

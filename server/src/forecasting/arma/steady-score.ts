@@ -1,8 +1,7 @@
 /**
- * The gradient of the concentrated exact log-likelihood (the objective of fit.ts) for a complete
- * series with a known mean, at about the cost of one likelihood pass (plus a short start-up per
- * coefficient) whatever the number of coefficients, instead of one pass per coefficient for
- * forward differences.
+ * The exact gradient of the concentrated log-likelihood (the objective of fit.ts) for a complete
+ * series with a known mean, at about the cost of three likelihood passes whatever the number of
+ * coefficients, instead of one pass per coefficient for forward differences.
  *
  * Once the Kalman filter has reached its steady state (hour t₀ on), the rest of the series runs
  * through a fixed linear recursion, the innovations form of the ARMA model:
@@ -15,10 +14,8 @@
  *   γ_t = −2 e_t + Σ_i c_i γ_{t+1+i},  ∂E/∂c_i = Σ_t γ_{t+1+i} a_{t,0},  ∂E/∂d_i = Σ_t γ_{t+1+i} y_t.
  * The forward half, a_{t,0}, is what the likelihood pass at the same point already computed (its
  * `trace`). What happens before t₀ (the stationary start, the time-varying gain, F_t) is short;
- * it is run once more per coefficient, forward-differenced as the whole likelihood used to be,
- * and joined to the exact steady-state part by the chain rule. Seen from outside this is the
- * same forward-difference gradient as before, with the long steady stretch differentiated
- * exactly.
+ * its derivatives along every coefficient come from forward-mode tangents
+ * (start-up-tangents.ts), and the chain rule joins the two parts.
  */
 import { SteadyEntry } from './kalman';
 import { scratch } from './scratch';
