@@ -22,11 +22,14 @@ apt_install() {
 }
 
 # npm_deps — install npm dependencies when node_modules is missing or older than the lockfile.
+# Always with the devDependencies: every entry point builds (TypeScript, Vite, the CLIs), and
+# npm would leave them out whenever NODE_ENV=production is in the environment (npm start sets it
+# for the server; an operator's shell may have it too).
 npm_deps() {
   cd "$ROOT" || exit 1
   if [ ! -d node_modules ] || [ ! -f node_modules/.package-lock.json ] \
      || [ package-lock.json -nt node_modules/.package-lock.json ]; then
-    log "installing npm dependencies (npm ci)"
-    npm ci --no-audit --no-fund >/dev/null || die "npm ci failed"
+    log "installing npm dependencies (npm ci, devDependencies included: the build needs them)"
+    NODE_ENV=development npm ci --include=dev --no-audit --no-fund >/dev/null || die "npm ci failed"
   fi
 }
