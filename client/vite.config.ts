@@ -3,7 +3,8 @@ import react from '@vitejs/plugin-react';
 import { defineConfig } from 'vite';
 
 const sharedSource = fileURLToPath(new URL('../shared/src/index.ts', import.meta.url));
-const server = 'http://127.0.0.1:3000';
+// npm run dev moves the server with PORT (default 3000); the dev server's own port is DEV_CLIENT_PORT.
+const server = `http://127.0.0.1:${process.env.PORT ?? 3000}`;
 
 export default defineConfig({
   plugins: [react()],
@@ -14,7 +15,7 @@ export default defineConfig({
   },
   server: {
     host: '127.0.0.1',
-    port: 5173,
+    port: Number(process.env.DEV_CLIENT_PORT ?? 5173),
     proxy: {
       '/api': { target: server, changeOrigin: false },
       '/socket.io': { target: server, ws: true, changeOrigin: false },

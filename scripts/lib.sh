@@ -33,3 +33,35 @@ npm_deps() {
     NODE_ENV=development npm ci --include=dev --no-audit --no-fund >/dev/null || die "npm ci failed"
   fi
 }
+
+# Seconds since this script began, for progress lines ("[ 42 s] ...").
+SCRIPT_T0=$(date +%s)
+step() { log "[$(printf '%3d' $(( $(date +%s) - SCRIPT_T0 ))) s] $*"; }
+
+# build_all — build every workspace (npm run build) unless nothing it reads changed since the last
+# build: a second npm start on an unchanged tree goes straight to serving. The stamp records the
+# newest source file seen; any newer file (or a missing dist/) means a rebuild.
+build_all() {
+  cd "$ROOT" || exit 1
+  local stamp="$ROOT/.data/build-stamp" ws newer=""
+  mkdir -p "$ROOT/.data"
+  # the workspaces that have a build script (the same ones `npm run build` builds)
+  local built; built="$(node -p "require('./package.json').workspaces.filter((w) => require('./' + w + '/package.json').scripts?.build).join(' ')")"
+  for ws in $built; do
+    [ -d "$ws/dist" ] || { newer="$ws/dist missing"; break; }
+  done
+  if [ -z "$newer" ] && [ -f "$stamp" ]; then
+    newer="$(find package.json package-lock.json tsconfig.base.json $(node -p "require('./package.json').workspaces.join(' ')") \
+      \( -name node_modules -o -name dist -o -name .data \) -prune -o -type f -newer "$stamp" -print -quit 2>/dev/null)"
+  else
+    newer="${newer:-no earlier build}"
+  fi
+  if [ -z "$newer" ]; then
+    step "build is up to date (nothing changed since the last one)"
+    return 0
+  fi
+  step "building shared, server, client ($newer)"
+  touch "$stamp.new"
+  npm run -s build >"$ROOT/.data/build.log" 2>&1 || { tail -30 "$ROOT/.data/build.log" >&2; rm -f "$stamp.new"; die "build failed (full output in .data/build.log)"; }
+  mv "$stamp.new" "$stamp"
+}

@@ -1,9 +1,10 @@
 #!/usr/bin/env bash
 # npm test: every suite, with what they need started here and stopped afterwards.
 #   server unit (jest) · server integration (jest, real MariaDB on 127.0.0.1:3308, fresh schema)
-#   simulator (jest) · client (vitest) · browser (vitest + playwright-core + Debian Chromium)
+#   simulator (jest) · client (vitest) · browser (vitest + playwright-core + Debian Chromium) ·
+#   start (a clean clone of HEAD through npm run dev, bench:ingest and npm start, twice)
 # Ends with one line "N passed, N failed" and a non-zero exit if anything failed.
-# Run one suite alone: scripts/test.sh unit|integration|simulators|client|e2e
+# Run one suite alone: scripts/test.sh unit|integration|simulators|client|e2e|start
 set -uo pipefail
 source "$(dirname "$0")/lib.sh"
 cd "$ROOT"
@@ -83,6 +84,12 @@ if want e2e; then
   else
     failures+=(build)
   fi
+fi
+
+if want start; then
+  # Last, on ports of its own: a clean clone of HEAD goes through npm run dev, bench:ingest and
+  # npm start as a new user would (scripts/start-test.mjs).
+  suite start node scripts/start-test.mjs "$reports/start.json"
 fi
 
 summary=$(node scripts/summarize-tests.mjs "$reports")

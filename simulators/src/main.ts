@@ -16,6 +16,8 @@ export async function run(options: SimOptions, log: (line: string) => void): Pro
   const start = liveStart - options.backfillWeeks * 168 * HOUR_MS;
   const generator = new FeedGenerator(zones, start, options.seed, DEMO_TIME_ZONE);
   const sender = new FeedSender(options.url, options.key, `sim${options.seed}-${Date.now().toString(36)}`, log);
+  // --quiet leaves out the hour-by-hour lines; the backfill's progress and end are always told
+  // (npm start waits for "backfill done").
   const info = (line: string) => options.quiet || log(line);
   let stopping = false;
   const stop = () => {
@@ -26,21 +28,21 @@ export async function run(options: SimOptions, log: (line: string) => void): Pro
 
   try {
     if (generator.hour < liveStart) {
-      info(`backfilling ${options.backfillWeeks} week(s) for ${zones.map((z) => z.code).join(', ')} from ${new Date(start).toISOString()}`);
+      log(`backfilling ${options.backfillWeeks} week(s) for ${zones.map((z) => z.code).join(', ')} from ${new Date(start).toISOString()}`);
       const buffer: SimReading[] = [];
       let lastReport = Date.now();
       while (generator.hour < liveStart && !stopping) {
         buffer.push(...generator.step());
         while (buffer.length >= options.batch) await sender.send(buffer.splice(0, options.batch));
         if (Date.now() - lastReport > 2000) {
-          info(`  … ${new Date(generator.hour).toISOString()} (${sender.stats.stored} stored)`);
+          log(`  … ${new Date(generator.hour).toISOString()} (${sender.stats.stored} stored)`);
           lastReport = Date.now();
         }
       }
       if (options.once) buffer.push(...generator.flush());
       await sender.send(buffer.splice(0));
       await sender.drain();
-      info(`backfill done: ${sender.stats.stored} stored, ${sender.stats.rejected} rejected`);
+      log(`backfill done: ${sender.stats.stored} stored, ${sender.stats.rejected} rejected`);
     }
 
     info(options.once ? 'catching up to now' : `live from ${new Date(generator.hour).toISOString()} at ${options.speed}x`);

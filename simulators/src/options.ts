@@ -38,7 +38,7 @@ Usage: npm run simulate -- [options]
   --zones A,B           zone codes (default every demo zone: ${DEMO_ZONES.map((z) => z.code).join(',')})
   --batch N             readings per batch during the backfill (default 1000)
   --once                send the backfill (and the live part up to now), then exit
-  --quiet               print only problems and the summary
+  --quiet               leave out the hour-by-hour lines (the backfill's progress and end are still printed)
   -h, --help            this text
 `;
 
