@@ -14,9 +14,20 @@ mkdir -p "$out"
 export NODE_ENV=test DB_PORT="$db_port" DB_NAME=morrowline_bench DB_USER=morrowline DB_PASSWORD=morrowline-bench
 server_pid=""
 
+# Stops the server and this bench's MariaDB whatever happened, and keeps the script's own exit
+# status: under `set -e`, a `wait` on the server it just killed (status 143) used to end the
+# script inside this handler, before MariaDB was stopped.
 cleanup() {
-  [ -n "$server_pid" ] && kill "$server_pid" 2>/dev/null && wait "$server_pid" 2>/dev/null
-  bash scripts/db.sh stop bench >/dev/null 2>&1 || true
+  local rc=$?
+  set +e
+  trap '' INT TERM
+  trap - EXIT
+  if [ -n "$server_pid" ]; then
+    kill "$server_pid" 2>/dev/null
+    wait "$server_pid" 2>/dev/null
+  fi
+  bash scripts/db.sh stop bench >/dev/null 2>&1
+  exit "$rc"
 }
 trap cleanup EXIT
 trap 'exit 130' INT TERM

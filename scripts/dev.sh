@@ -12,7 +12,8 @@ pids=()
 # Children of the background jobs (npx → vite, npm → the simulator) go too, also when only this
 # script gets the signal (Ctrl-C in a terminal reaches the whole group anyway).
 kill_tree() { local child; for child in $(pgrep -P "$1"); do kill_tree "$child"; done; kill "$1" 2>/dev/null; }
-stop_all() { trap - INT TERM EXIT; for pid in "${pids[@]}"; do kill_tree "$pid"; done; wait; bash scripts/db.sh stop dev; exit 0; }
+# Further INT/TERM are ignored while stopping (a Ctrl-C arrives twice: from the terminal and from npm).
+stop_all() { trap '' INT TERM; trap - EXIT; for pid in "${pids[@]}"; do kill_tree "$pid"; done; wait; bash scripts/db.sh stop dev; exit 0; }
 trap stop_all INT TERM EXIT
 
 npm_deps

@@ -13,6 +13,7 @@
 //      manager sends it) → exit 0, nothing left.
 //
 // Usage: node scripts/start-test.mjs REPORT.json   (scripts/test.sh runs it as the suite "start")
+//        START_TEST_ONLY=start node scripts/start-test.mjs REPORT.json   (only the npm start steps)
 // Writes a report in jest's shape, so the closing "N passed, N failed" line counts each step.
 import { spawn, execFileSync } from 'node:child_process';
 import { mkdtempSync, readdirSync, readlinkSync, readFileSync, rmSync, writeFileSync, mkdirSync, cpSync, existsSync } from 'node:fs';
@@ -76,9 +77,11 @@ async function stopAndCheck(run, signal, toGroup, clone, ports) {
   if (toGroup) process.kill(-pid, signal);
   else process.kill(pid, signal);
   const ended = await Promise.race([run.exited.then(() => true), sleep(120_000).then(() => false)]);
+  // Whatever the verdict, give what it started time to go, so a failure here does not spill into
+  // the next step (a server still holding the port).
+  for (let i = 0; i < 60 && processesUnder(clone).length > 0; i++) await sleep(1000);
   assert(ended, `after ${signal} the command was still running 120 s later`);
   assert(run.code === 0, `after ${signal} the command ended with ${run.code === null ? `signal ${run.signal}` : `exit status ${run.code}`}, not 0; last output:\n${tail(run.text)}`);
-  await sleep(500);
   const left = processesUnder(clone);
   assert(left.length === 0, `processes left running after ${signal}:\n${left.join('\n')}`);
   for (const port of ports) assert(!(await listening(port)), `port ${port} is still held after ${signal}`);
@@ -136,7 +139,10 @@ for (const name of ['NODE_ENV', 'DB_NAME', 'DB_USER', 'DB_PASSWORD', 'TEST_DB_PO
 
 const results = [];
 const figures = {};
+// START_TEST_ONLY=dev,bench,start runs only those steps (while working on one of them).
+const only = process.env.START_TEST_ONLY?.split(',');
 async function test(name, body) {
+  if (only && !only.some((word) => name.startsWith(`npm ${word === 'dev' || word === 'bench' ? 'run ' : ''}${word}`))) return;
   const t0 = Date.now();
   try {
     await body();

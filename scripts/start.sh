@@ -16,8 +16,11 @@ pids=()
 status=0
 
 # Each child runs in a session of its own (setsid), so stopping it stops everything it started.
+# Further INT/TERM are ignored while stopping: a Ctrl-C reaches this script twice (from the
+# terminal and forwarded by npm), and the second one must not end it before MariaDB is stopped.
 stop_all() {
-  trap - INT TERM EXIT
+  trap '' INT TERM
+  trap - EXIT
   step "stopping"
   for pid in "${pids[@]}"; do kill -TERM -- "-$pid" 2>/dev/null; done
   for _ in $(seq 1 20); do
@@ -75,17 +78,17 @@ pids+=($sim_pid)
 step "meter feeds: sending ${SIM_BACKFILL_WEEKS:-6} weeks of history (log .data/simulator.log)"
 last_note=0
 for _ in $(seq 1 600); do
-  grep -q '^backfill done' "$sim_log" && break
+  grep -aq '^backfill done' "$sim_log" && break
   kill -0 "$sim_pid" 2>/dev/null || break
   if [ $(( $(date +%s) - last_note )) -ge 15 ]; then
-    note="$(grep -o '… [0-9T:-]*' "$sim_log" | tail -1 | tr -d '…')"
+    note="$(grep -ao '… [0-9T:-]*' "$sim_log" | tail -1 | tr -d '…')"
     [ -n "$note" ] && step "meter feeds: backfilled up to${note}"
     last_note=$(date +%s)
   fi
   sleep 1
 done
-if grep -q '^backfill done' "$sim_log"; then
-  step "meter feeds: $(grep '^backfill done' "$sim_log" | tail -1)"
+if grep -aq '^backfill done' "$sim_log"; then
+  step "meter feeds: $(grep -a '^backfill done' "$sim_log" | tail -1)"
 else
   log "the simulator did not finish its backfill (see .data/simulator.log); the desk runs on what arrived"
 fi

@@ -18,6 +18,7 @@ failures=()
 pids=()
 
 cleanup() {
+  trap '' INT TERM
   for pid in "${pids[@]}"; do kill "$pid" 2>/dev/null; done
   wait 2>/dev/null
   bash scripts/db.sh stop test >/dev/null 2>&1 || true
