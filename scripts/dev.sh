@@ -17,11 +17,13 @@ trap stop_all INT TERM EXIT
 npm_deps
 bash scripts/db.sh start dev "$DB_PORT" || die "MariaDB did not start"
 npm run -s build -w shared
+npm run -s build -w engine
 npm run -s build -w server >/dev/null || true
 (cd server && node dist/database/manage.js migrate && node dist/database/manage.js seed) || die "database set-up failed"
 (cd shared && npx tsc -p tsconfig.build.json --watch --preserveWatchOutput >/dev/null) & pids+=($!)
+(cd engine && npx tsc -p tsconfig.build.json --watch --preserveWatchOutput >/dev/null) & pids+=($!)
 (cd server && npx tsc -p tsconfig.build.json --watch --preserveWatchOutput) & pids+=($!)
-(cd server && node --watch-path=dist --watch-path=../shared/dist dist/main.js) & pids+=($!)
+(cd server && node --watch-path=dist --watch-path=../shared/dist --watch-path=../engine/dist dist/main.js) & pids+=($!)
 (cd client && npx vite --host 127.0.0.1) & pids+=($!)
 
 # As npm start does: the SMTP fake for publication e-mails and the meter-feed simulator, so the

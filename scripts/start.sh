@@ -37,7 +37,7 @@ secret_file="$ROOT/.data/jwt-secret"
 JWT_SECRET="$(cat "$secret_file")"
 export JWT_SECRET
 
-log "building (shared, server, client)"
+log "building (shared, engine, server, client)"
 npm run -s build >/dev/null || die "build failed; run 'npm run build' to see why"
 
 (cd server && node dist/database/manage.js migrate && node dist/database/manage.js seed) || die "database set-up failed"
