@@ -8,5 +8,6 @@ source "$(dirname "$0")/lib.sh"
 cd "$ROOT"
 npm_deps
 npm run -s build -w shared >/dev/null || die "shared build failed"
+npm run -s build -w engine >/dev/null || die "engine build failed"
 cd server
 exec npx tsx src/cli/bench-refit.ts

@@ -9,5 +9,6 @@ source "$(dirname "$0")/lib.sh"
 cd "$ROOT"
 npm_deps
 [ "${MORROWLINE_BENCH_NO_R:-0}" = "1" ] || apt_install r-base-core r-cran-jsonlite
-npm run -s build -w shared
-npm run -s bench:engine -w server -- "$@"
+# The compiled engine (engine/dist), the same code the server runs.
+npm run -s build -w engine
+npm run -s bench -w engine -- "$@"

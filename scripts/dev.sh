@@ -18,13 +18,15 @@ trap stop_all INT TERM EXIT
 
 npm_deps
 bash scripts/db.sh start dev "$DB_PORT" || die "MariaDB did not start"
-# shared and the server once before the watchers start (the client is served from source by Vite)
+# shared, the engine and the server once before the watchers start (the client is served from source by Vite)
 npm run -s build -w shared || die "shared build failed"
+npm run -s build -w engine || die "engine build failed"
 npm run -s build -w server >/dev/null || log "the server build has errors; tsc --watch below shows them"
 (cd server && node dist/database/manage.js migrate && node dist/database/manage.js seed) || die "database set-up failed"
 (cd shared && npx tsc -p tsconfig.build.json --watch --preserveWatchOutput >/dev/null) & pids+=($!)
+(cd engine && npx tsc -p tsconfig.build.json --watch --preserveWatchOutput >/dev/null) & pids+=($!)
 (cd server && npx tsc -p tsconfig.build.json --watch --preserveWatchOutput) & pids+=($!)
-(cd server && node --watch-path=dist --watch-path=../shared/dist dist/main.js) & pids+=($!)
+(cd server && node --watch-path=dist --watch-path=../shared/dist --watch-path=../engine/dist dist/main.js) & pids+=($!)
 (cd client && npx vite --host 127.0.0.1 --port "$DEV_CLIENT_PORT" --strictPort) & pids+=($!)
 
 # As npm start does: the SMTP fake for publication e-mails and the meter-feed simulator, so the

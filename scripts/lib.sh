@@ -60,7 +60,7 @@ build_all() {
     step "build is up to date (nothing changed since the last one)"
     return 0
   fi
-  step "building shared, server, client ($newer)"
+  step "building every workspace ($newer)"
   touch "$stamp.new"
   npm run -s build >"$ROOT/.data/build.log" 2>&1 || { tail -30 "$ROOT/.data/build.log" >&2; rm -f "$stamp.new"; die "build failed (full output in .data/build.log)"; }
   mv "$stamp.new" "$stamp"

@@ -1,10 +1,10 @@
 #!/usr/bin/env bash
 # npm test: every suite, with what they need started here and stopped afterwards.
-#   server unit (jest) · server integration (jest, real MariaDB on 127.0.0.1:3308, fresh schema)
+#   engine (jest) · server unit (jest) · server integration (jest, real MariaDB on 127.0.0.1:3308, fresh schema)
 #   simulator (jest) · client (vitest) · browser (vitest + playwright-core + Debian Chromium) ·
 #   start (a clean clone of HEAD through npm run dev, bench:ingest and npm start, twice)
 # Ends with one line "N passed, N failed" and a non-zero exit if anything failed.
-# Run one suite alone: scripts/test.sh unit|integration|simulators|client|e2e|start
+# Run one suite alone: scripts/test.sh engine|unit|integration|simulators|client|e2e|start
 set -uo pipefail
 source "$(dirname "$0")/lib.sh"
 cd "$ROOT"
@@ -39,10 +39,16 @@ npm_deps
 apt_install mariadb-server mariadb-client
 want e2e && apt_install chromium
 npm run -s build -w shared || die "shared build failed"
+# The server and its worker threads load the compiled engine (engine/dist), as in production.
+npm run -s build -w engine || die "engine build failed"
 
 # Environment for everything that talks to the test database.
 export NODE_ENV=test DB_PORT="$TEST_DB_PORT" DB_NAME=morrowline_test DB_USER=morrowline DB_PASSWORD=morrowline-test
 export LOGIN_ATTEMPTS_PER_MINUTE=10
+
+if want engine; then
+  suite engine npx --workspace engine jest --json --outputFile="$reports/engine.json"
+fi
 
 if want unit; then
   suite unit npx --workspace server jest --selectProjects unit --json --outputFile="$reports/unit.json"

@@ -1,5 +1,5 @@
 import type { AccuracyComparisonDto, AccuracyDayDto, AccuracyDaySourceDto, AccuracyHourDto, AccuracyScore, AccuracyZoneDto } from '@morrowline/shared';
-import { accuracy } from '../forecasting/metrics';
+import { accuracy } from '@morrowline/engine';
 import type { OperatingDay } from './operating-days';
 
 /** A forecast (model run or schedule revision) for one day, aligned with the day's hours. */

@@ -2,7 +2,7 @@ import { EntityManager } from '@mikro-orm/mariadb';
 import { Injectable } from '@nestjs/common';
 import { DESK_EVENTS, type ForecastRunDto, type LatestForecastsDto } from '@morrowline/shared';
 import { DeskGateway } from '../desk/desk.gateway';
-import { floorAtZero, seasonalNaive, type IntervalForecast } from '../forecasting';
+import { floorAtZero, seasonalNaive, type IntervalForecast } from '@morrowline/engine';
 import { OutagesService } from '../outages/outages.service';
 import { ReadingsService } from '../readings/readings.service';
 import { Zone } from '../zones/entities/zone.entity';

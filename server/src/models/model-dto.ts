@@ -1,5 +1,5 @@
 import type { ModelVersionDto, RefitJobDto } from '@morrowline/shared';
-import type { ModelChoice } from '../forecasting';
+import type { ModelChoice } from '@morrowline/engine';
 import type { ModelVersion } from './entities/model-version.entity';
 import type { RefitJob } from './entities/refit-job.entity';
 

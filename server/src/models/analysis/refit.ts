@@ -21,7 +21,7 @@ import {
   type IntervalForecast,
   type ModelChoice,
   type ModelSummary,
-} from '../../forecasting';
+} from '@morrowline/engine';
 
 
 /**

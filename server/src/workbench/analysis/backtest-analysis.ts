@@ -5,7 +5,7 @@
  * so 23- and 25-hour days are scored whole.
  */
 import type { BacktestDayDto, BacktestScoresDto } from '@morrowline/shared';
-import { backtest, type BacktestSummary } from '../../forecasting';
+import { backtest, type BacktestSummary } from '@morrowline/engine';
 import { num } from './stationarity-analysis';
 
 export interface BacktestInput {

@@ -4,7 +4,7 @@
  * residual checks in plain words.
  */
 import type { ModelCandidateDto, ModelFitDto } from '@morrowline/shared';
-import { runPipeline } from '../../forecasting';
+import { runPipeline } from '@morrowline/engine';
 import { num, toWire } from './stationarity-analysis';
 import { differencingLabel, residualVerdict } from './verdict';
 

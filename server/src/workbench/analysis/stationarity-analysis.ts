@@ -6,7 +6,7 @@
  * weekly mean and variance drift, and the plain-words verdict of ./verdict.
  */
 import type { Correlogram, SeriesCheckDto, StationarityVerdictDto } from '@morrowline/shared';
-import { acf, acfBand, adfTest, countFinite, difference, kpssTest, meanFinite, pacfFromAcf, rollingStats, varianceFinite } from '../../forecasting';
+import { acf, acfBand, adfTest, countFinite, difference, kpssTest, meanFinite, pacfFromAcf, rollingStats, varianceFinite } from '@morrowline/engine';
 import { adfReading, differencingLabel, judgeVersion, kpssReading, overallVerdict } from './verdict';
 
 export const STATIONARITY_CANDIDATES: number[][] = [[24], [168], [24, 168]];

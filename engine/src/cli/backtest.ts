@@ -1,6 +1,6 @@
 /**
  * `npm run backtest -- --input FILE.csv [--days N] [--issue-hour H]
- *  [--method auto|seasonal-naive|fixed] [--diff 24,168 --order p,q] [--json]`
+ *  [--method auto|seasonal-naive|fixed] [--diff 24,168 --order p,q] [--json]` (`--help` prints the usage)
  * Rolling day-ahead backtest over the last N operating days (default 14) with the weekly
  * seasonal-naive baseline beside the model. Without --issue-hour each origin is a local
  * midnight and the forecast is the 24 (23/25) hours that follow it; with --issue-hour H the
@@ -10,7 +10,7 @@ import { readFileSync } from 'node:fs';
 import { parseArgs } from 'node:util';
 import { localDate, parseLoadCsv } from './csv-series';
 import { parseIntList } from './fit';
-import { backtest, BacktestMethod } from '../forecasting';
+import { backtest, BacktestMethod } from '@morrowline/engine';
 
 const USAGE = 'usage: npm run backtest -- --input FILE.csv [--days N] [--issue-hour H] [--method auto|seasonal-naive|fixed --diff 24,168 --order p,q] [--json]';
 
@@ -26,9 +26,11 @@ export function runBacktest(argv: string[]): { text: string; json: Record<string
       order: { type: 'string' },
       'reselect-every': { type: 'string' },
       json: { type: 'boolean' },
+      help: { type: 'boolean', short: 'h' },
     },
     strict: true,
   });
+  if (a.help) return { text: USAGE, json: { usage: USAGE } };
   if (!a.input) throw new Error(`--input is required\n${USAGE}`);
   const days = a.days === undefined ? 14 : Number(a.days);
   if (!Number.isInteger(days) || days < 1) throw new Error(`--days must be a positive integer, got "${a.days}"`);

@@ -1,5 +1,5 @@
 /**
- * The fit and backtest commands on the real demand fixture (forecasting/fixtures/taylor-hourly.csv:
+ * The fit and backtest commands on the real demand fixture (src/fixtures/taylor-hourly.csv:
  * R package forecast, dataset taylor, hourly means) and on a small file with a fault.
  */
 import { mkdtempSync, writeFileSync } from 'node:fs';
@@ -8,7 +8,7 @@ import { join } from 'node:path';
 import { runFit } from './fit';
 import { runBacktest } from './backtest';
 
-const taylor = join(__dirname, '../forecasting/fixtures/taylor-hourly.csv');
+const taylor = join(__dirname, '../fixtures/taylor-hourly.csv');
 
 describe('command line', () => {
   it('fit --json has the documented keys', () => {
@@ -36,6 +36,10 @@ describe('command line', () => {
     const r = runBacktest(['--input', taylor, '--days', '2', '--issue-hour', '9', '--method', 'seasonal-naive', '--json']).json;
     const days = r.days as Array<{ issuedAtIndex: number }>;
     expect(days[1].issuedAtIndex).toBe(2016 - 48 + 9);
+  });
+  it('--help prints the usage of each command and reads no file', () => {
+    expect(runFit(['--help']).text).toMatch(/^usage: npm run fit -- --input FILE\.csv /);
+    expect(runBacktest(['-h']).text).toMatch(/^usage: npm run backtest -- --input FILE\.csv /);
   });
   it('a bad file names the line and the fault', () => {
     const dir = mkdtempSync(join(tmpdir(), 'mw-'));

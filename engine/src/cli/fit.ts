@@ -1,6 +1,6 @@
 /**
  * `npm run fit -- --input FILE.csv [--diff 24,168] [--order p,q] [--seasonal P,Q,s]
- *  [--mean|--no-mean] [--json]`
+ *  [--mean|--no-mean] [--json]` (`--help` prints the usage)
  * Fits a model to an hourly load history and prints coefficients with standard errors, σ²,
  * log-likelihood, AIC, AICc, BIC, Ljung–Box at lags 24 and 48, n and the estimation time.
  * Without --order the orders are chosen by AICc (p, q ≤ 3); without --diff and --order the
@@ -9,7 +9,7 @@
 import { readFileSync } from 'node:fs';
 import { parseArgs } from 'node:util';
 import { parseLoadCsv } from './csv-series';
-import { difference, describeDifferencing, fitArima, ljungBox, runPipeline, selectOrder, ArimaFit } from '../forecasting';
+import { difference, describeDifferencing, fitArima, ljungBox, runPipeline, selectOrder, ArimaFit } from '@morrowline/engine';
 
 const USAGE = 'usage: npm run fit -- --input FILE.csv [--diff 24,168|none] [--order p,q] [--seasonal P,Q,s] [--mean|--no-mean] [--json]';
 
@@ -32,9 +32,11 @@ export function runFit(argv: string[]): { text: string; json: Record<string, unk
       mean: { type: 'boolean' },
       'no-mean': { type: 'boolean' },
       json: { type: 'boolean' },
+      help: { type: 'boolean', short: 'h' },
     },
     strict: true,
   });
+  if (a.help) return { text: USAGE, json: { usage: USAGE } };
   if (!a.input) throw new Error(`--input is required\n${USAGE}`);
   if (a.mean && a['no-mean']) throw new Error('--mean and --no-mean exclude each other');
   const series = parseLoadCsv(readFileSync(a.input, 'utf8'));

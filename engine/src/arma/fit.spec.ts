@@ -4,7 +4,7 @@
  * from datasets that ship with R (lh, LakeHuron, Nile, presidents, WWWusage, USAccDeaths,
  * AirPassengers). The last block uses values typed from engine.md §8 (also R 4.2.2).
  */
-import { simulateArma21 } from '../../cli/bench-series';
+import { simulateArma21 } from '../cli/bench-series';
 import { fitArma } from './fit';
 import fixture from '../fixtures/r-arima.json';
 import { fitArima, forecastArima } from '../forecast';

@@ -1,4 +1,4 @@
-import { simulateArma21 } from '../../cli/bench-series';
+import { simulateArma21 } from '../cli/bench-series';
 import { kalmanFilter } from './kalman';
 import { expandAr, expandMa } from './polynomials';
 import { armaStateSpace, ArmaStateSpace } from './state-space';

@@ -1,4 +1,4 @@
-import { simulateArma21 } from '../../cli/bench-series';
+import { simulateArma21 } from '../cli/bench-series';
 import { concentratedLogLik, kalmanFilter } from './kalman';
 import { armaStateSpace } from './state-space';
 

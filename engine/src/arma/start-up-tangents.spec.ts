@@ -1,5 +1,5 @@
 import fc from 'fast-check';
-import { simulateArma21 } from '../../cli/bench-series';
+import { simulateArma21 } from '../cli/bench-series';
 import { kalmanFilter, SteadyEntry } from './kalman';
 import { armaStateSpace, gardnerCovariance, seriesCovariance, seriesCovarianceTangents, stationaryCovarianceTangents } from './state-space';
 import { startUpTangents } from './start-up-tangents';

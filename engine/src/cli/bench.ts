@@ -15,11 +15,11 @@ import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { cpus, tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { accuracy, backtest, fitArma, median, runPipeline } from '../forecasting';
+import { accuracy, backtest, fitArma, median, runPipeline } from '@morrowline/engine';
 import { simulateArma21 as simulate } from './bench-series';
 
-// from src/cli (tsx) or dist/cli (compiled, as `npm run bench` runs it): the fixtures stay in src
-const FIX = [join(__dirname, '../forecasting/fixtures'), join(__dirname, '../../src/forecasting/fixtures')].find((d) => existsSync(d)) ?? '';
+// from src/cli (jest, tsx) or dist/cli (compiled, as `npm run bench` runs it): the fixtures stay in src
+const FIX = [join(__dirname, '../fixtures'), join(__dirname, '../../src/fixtures')].find((d) => existsSync(d)) ?? '';
 
 function hasR(): string | null {
   const r = spawnSync('Rscript', ['-e', 'cat(R.version.string)'], { encoding: 'utf8' });
