@@ -1,9 +1,10 @@
 #!/usr/bin/env bash
 # npm test: every suite, with what they need started here and stopped afterwards.
-#   server unit (jest) · server integration (jest, real MariaDB on 127.0.0.1:3308, fresh schema)
+#   shared rules (jest) · server unit (jest) · server integration (jest, real MariaDB on 127.0.0.1:3308, fresh schema)
 #   simulator (jest) · client (vitest) · browser (vitest + playwright-core + Debian Chromium)
 # Ends with one line "N passed, N failed" and a non-zero exit if anything failed.
-# Run one suite alone: scripts/test.sh unit|integration|simulators|client|e2e
+# Run one suite alone: scripts/test.sh shared|unit|integration|simulators|client|e2e
+# (unit includes shared: the operating-day, role and zone-code rules the server and the desk both use)
 set -uo pipefail
 source "$(dirname "$0")/lib.sh"
 cd "$ROOT"
@@ -41,6 +42,10 @@ npm run -s build -w shared || die "shared build failed"
 # Environment for everything that talks to the test database.
 export NODE_ENV=test DB_PORT="$TEST_DB_PORT" DB_NAME=morrowline_test DB_USER=morrowline DB_PASSWORD=morrowline-test
 export LOGIN_ATTEMPTS_PER_MINUTE=10
+
+if want shared || want unit; then
+  suite shared npx --workspace shared jest --json --outputFile="$reports/shared.json"
+fi
 
 if want unit; then
   suite unit npx --workspace server jest --selectProjects unit --json --outputFile="$reports/unit.json"

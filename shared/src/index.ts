@@ -1,4 +1,6 @@
 export * from './roles';
+export * from './hours';
+export * from './operating-day';
 export * from './api';
 export * from './feed';
 export * from './demo-scenario';

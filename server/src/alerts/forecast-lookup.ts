@@ -1,8 +1,6 @@
 import { Injectable } from '@nestjs/common';
+import { HOUR_MS, WEEK_HOURS } from '@morrowline/shared';
 import { ReadingsRepository } from '../readings/readings.repository';
-
-const HOUR_MS = 3_600_000;
-export const WEEK_HOURS = 168;
 
 /**
  * "What is the current forecast for these hours?" — what the deviation alerts compare actual load

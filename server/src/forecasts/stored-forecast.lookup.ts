@@ -1,9 +1,8 @@
 import { Injectable } from '@nestjs/common';
+import { HOUR_MS } from '@morrowline/shared';
 import { SeasonalNaiveForecastLookup, type ForecastLookup } from '../alerts/forecast-lookup';
 import { ReadingsRepository } from '../readings/readings.repository';
 import { ForecastsService } from './forecasts.service';
-
-const HOUR_MS = 3_600_000;
 
 /**
  * What the deviation alerts compare against: the latest stored forecast run of the zone for the

@@ -1,5 +1,6 @@
+import { WEEK_HOURS } from '@morrowline/shared';
 import { DateTime } from 'luxon';
-import { BAND_WEEKS, WEEK_HOURS } from './seasonal-naive';
+import { BAND_WEEKS } from './seasonal-naive';
 
 export interface LiveWindow {
   /** Readings are fetched from here: a week for the stand-in's lag and weeks for its bands. */

@@ -1,5 +1,6 @@
+import { WEEK_HOURS } from '@morrowline/shared';
 import { describe, expect, it } from 'vitest';
-import { MIN_ERRORS_FOR_BANDS, quantile, seasonalNaiveForecast, WEEK_HOURS } from './seasonal-naive';
+import { MIN_ERRORS_FOR_BANDS, quantile, seasonalNaiveForecast } from './seasonal-naive';
 
 describe('seasonalNaiveForecast', () => {
   it('forecasts each hour as the same hour one week earlier, with no forecast where that hour is missing', () => {

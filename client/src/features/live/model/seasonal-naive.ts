@@ -1,6 +1,6 @@
+import { WEEK_HOURS } from '@morrowline/shared';
 import { emptyForecastLine, type ForecastLine } from './forecast-line';
 
-export const WEEK_HOURS = 168;
 /** How many weeks of past errors the bands are drawn from. */
 export const BAND_WEEKS = 4;
 /** Fewer errors than this and the spread says too little to draw bands. */

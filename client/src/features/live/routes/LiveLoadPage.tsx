@@ -1,10 +1,9 @@
 import { Card, Loader, Stack, Text, Title } from '@mantine/core';
-import { DEMO_TIME_ZONE } from '@morrowline/shared';
+import { DEMO_TIME_ZONE, operatingDayOf, operatingDayStart } from '@morrowline/shared';
 import { useMemo } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { ErrorNotice } from '../../../components/ErrorNotice';
 import { PageHeader } from '../../../components/PageHeader';
-import { operatingDayOf, operatingDayStart } from '../../../lib/hour-ending';
 import { useSignedInUser } from '../../auth';
 import { outageHoursOf, useOutages } from '../../outages';
 import { useZones } from '../../zones';
