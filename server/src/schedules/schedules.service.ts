@@ -6,6 +6,7 @@ import {
   EDITABLE_SCHEDULE_STATES,
   gateClosureAt,
   isOperatingDay,
+  may,
   operatingDayBounds,
   operatingDaySlots,
   SCHEDULE_CAUTION,
@@ -338,7 +339,7 @@ export class SchedulesService {
       if (missing.length) throw new BadRequestException(`${revision.zone.code} ${revision.operatingDay} has no value for ${missing.join(', ')}; set those hours first`);
       const gate = new Date(gateClosureAt(revision.operatingDay, revision.zone.timeZone, revision.zone.gateClosure));
       const late = now >= gate;
-      if (late && user.role !== 'supervisor') {
+      if (late && !may(user.role, 'supervise')) {
         throw new ForbiddenException(`Gate closure for ${revision.zone.code} ${revision.operatingDay} passed at ${gate.toISOString()}; only a supervisor may submit now, and it is marked late`);
       }
       revision.state = 'submitted';
