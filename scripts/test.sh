@@ -1,10 +1,12 @@
 #!/usr/bin/env bash
 # npm test: every suite, with what they need started here and stopped afterwards.
-#   engine (jest) · server unit (jest) · server integration (jest, real MariaDB on 127.0.0.1:3308, fresh schema)
-#   simulator (jest) · client (vitest) · browser (vitest + playwright-core + Debian Chromium) ·
-#   start (a clean clone of HEAD through npm run dev, bench:ingest and npm start, twice)
+#   engine (jest) · shared rules (jest) · server unit (jest) · server integration (jest, real
+#   MariaDB on 127.0.0.1:3308, fresh schema) · simulator (jest) · client (vitest) · browser (vitest
+#   + playwright-core + Debian Chromium) · start (a clean clone of HEAD through npm run dev,
+#   bench:ingest and npm start, twice)
 # Ends with one line "N passed, N failed" and a non-zero exit if anything failed.
-# Run one suite alone: scripts/test.sh engine|unit|integration|simulators|client|e2e|start
+# Run one suite alone: scripts/test.sh engine|shared|unit|integration|simulators|client|e2e|start
+# (unit includes shared: the operating-day, role and zone-code rules the server and the desk both use)
 set -uo pipefail
 source "$(dirname "$0")/lib.sh"
 cd "$ROOT"
@@ -48,6 +50,10 @@ export LOGIN_ATTEMPTS_PER_MINUTE=10
 
 if want engine; then
   suite engine npx --workspace engine jest --json --outputFile="$reports/engine.json"
+fi
+
+if want shared || want unit; then
+  suite shared npx --workspace shared jest --json --outputFile="$reports/shared.json"
 fi
 
 if want unit; then

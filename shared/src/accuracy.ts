@@ -40,8 +40,6 @@
 
 export const ACCURACY_MAX_DAYS = 92;
 
-export type AccuracySource = 'model' | 'schedule';
-
 export interface AccuracyScore {
   /** Hours scored. */
   hours: number;

@@ -4,7 +4,6 @@
  */
 import type { Role } from './roles';
 
-export const DEMO_UTILITY = 'Tallowmere Valley Electric Cooperative';
 export const DEMO_TIME_ZONE = 'America/Denver';
 
 export interface DemoZone {

@@ -16,7 +16,7 @@ export const DESK_EVENTS = {
   alertAcknowledged: 'desk:alert-acknowledged',
   /** A new forecast run for a zone (ForecastRunDto). */
   forecast: 'desk:forecast',
-  /** Progress of a refit job (RefitJobDto, see the refit work). */
+  /** Progress of a refit job (RefitJobDto). */
   refitProgress: 'desk:refit-progress',
   /** A day-ahead schedule revision changed: drafted, adjusted, submitted, returned, published (DeskScheduleEvent). */
   schedule: 'desk:schedule',

@@ -34,17 +34,6 @@ export type RejectionReason =
   /** The feed's key is limited to one zone and the reading is for another. */
   | 'zone-not-allowed';
 
-export const REJECTION_REASONS: readonly RejectionReason[] = [
-  'unknown-zone',
-  'not-on-the-hour',
-  'not-a-number',
-  'negative',
-  'implausible',
-  'too-far-in-future',
-  'malformed',
-  'zone-not-allowed',
-];
-
 /** Most readings one batch may carry; a larger batch is refused whole (every reading 'malformed'). */
 export const MAX_READINGS_PER_BATCH = 5000;
 

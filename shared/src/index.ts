@@ -1,4 +1,7 @@
 export * from './roles';
+export * from './hours';
+export * from './operating-day';
+export * from './zone-code';
 export * from './api';
 export * from './feed';
 export * from './demo-scenario';

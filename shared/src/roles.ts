@@ -3,10 +3,37 @@ export const ROLES = ['viewer', 'operator', 'supervisor', 'admin'] as const;
 export type Role = (typeof ROLES)[number];
 
 /**
- * What each role may do. Admin administers users, zones and feeds; it takes no forecasting
- * decisions, so it is not a "super-supervisor".
+ * Who may do what: each permission and the roles that hold it. The server's route guards
+ * (@Roles) and socket checks, the desk's navigation and its buttons all read this one table;
+ * the server has the last word.
+ *
+ * Admin is IT, not a "super-supervisor": it administers users, zones and meter feeds and watches
+ * live load (to check that the feeds arrive), but takes no forecasting decisions.
  */
-export const FORECASTING_ROLES: readonly Role[] = ['operator', 'supervisor'];
+export const PERMISSIONS = {
+  /** Anyone signed in: live load and the desk's live updates. */
+  signedIn: ROLES,
+  /** Read the forecasting work: schedules, accuracy, reading history, workbench reports. */
+  readForecasts: ['viewer', 'operator', 'supervisor'],
+  /**
+   * Do the forecasting work: analyses, refits and promotions, schedule drafts, adjustments and
+   * submissions, alert acknowledgements, outage windows, shift notes, reading uploads.
+   */
+  forecast: ['operator', 'supervisor'],
+  /** Approve or return a submitted schedule, submit after gate closure, manage the schedule's subscribers. */
+  supervise: ['supervisor'],
+  /** Read the audit trail: supervisors answer for what was published, admins for accounts and feeds. */
+  readAudit: ['supervisor', 'admin'],
+  /** Users, zones and meter feeds. */
+  administer: ['admin'],
+} as const satisfies Record<string, readonly Role[]>;
+
+export type Permission = keyof typeof PERMISSIONS;
+
+/** Whether a role holds a permission. */
+export function may(role: Role, permission: Permission): boolean {
+  return (PERMISSIONS[permission] as readonly Role[]).includes(role);
+}
 
 export function isRole(value: unknown): value is Role {
   return typeof value === 'string' && (ROLES as readonly string[]).includes(value);

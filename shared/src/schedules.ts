@@ -282,7 +282,7 @@ export interface ScheduleAdjustmentInput {
 export type ReplayResult = { ok: true; values: (number | null)[] } | { ok: false; hour: number; message: string };
 
 /** MW values are kept to 0.1 MW. */
-export function roundMw(mw: number): number {
+function roundMw(mw: number): number {
   return Math.round(mw * 10) / 10;
 }
 

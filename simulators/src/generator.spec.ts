@@ -1,5 +1,6 @@
 import { localTime } from './calendar';
-import { FeedGenerator, HOUR_MS, type SimReading } from './generator';
+import { HOUR_MS } from '@morrowline/shared';
+import { FeedGenerator, type SimReading } from './generator';
 import { expectedLoadMw } from './load-model';
 import { parseOptions } from './options';
 

@@ -1,9 +1,8 @@
+import { floorHour, HOUR_MS } from '@morrowline/shared';
 import { isHoliday, localTime } from './calendar';
 import { expectedLoadMw } from './load-model';
 import { Random, subSeed } from './random';
 import { WeatherPath } from './weather';
-
-export const HOUR_MS = 3_600_000;
 
 export interface SimZone {
   code: string;
@@ -62,7 +61,7 @@ export class FeedGenerator {
   ) {
     this.weather = new WeatherPath(subSeed(seed, 'weather'));
     this.zones = zones.map((zone) => ({ zone, random: new Random(subSeed(seed, zone.code)), noise: 0, dropoutLeft: 0, outageLeft: 0, outageDepth: 1 }));
-    this.nextHour = Math.floor(startHour / HOUR_MS) * HOUR_MS;
+    this.nextHour = floorHour(startHour);
   }
 
   /** The hour the next call to step() makes. */

@@ -1,8 +1,8 @@
 /**
  * The meter-feed simulator's command line (`npm run simulate -- --help`).
  */
-import { DEMO_TIME_ZONE, DEMO_ZONES } from '@morrowline/shared';
-import { FeedGenerator, HOUR_MS, type SimReading } from './generator';
+import { DEMO_TIME_ZONE, DEMO_ZONES, floorHour, HOUR_MS, WEEK_HOURS } from '@morrowline/shared';
+import { FeedGenerator, type SimReading } from './generator';
 import { HELP, parseOptions, type SimOptions } from './options';
 import { FeedSender } from './sender';
 
@@ -11,9 +11,9 @@ const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
 export async function run(options: SimOptions, log: (line: string) => void): Promise<void> {
   if (!options.key) throw new Error('A feed key is needed: --key KEY or MORROWLINE_FEED_KEY (an admin creates one under feed keys)');
   const zones = DEMO_ZONES.filter((z) => options.zones.includes(z.code)).map((z) => ({ code: z.code, peakMw: z.peakMw }));
-  const currentHour = Math.floor(Date.now() / HOUR_MS) * HOUR_MS;
+  const currentHour = floorHour(Date.now());
   const liveStart = currentHour - options.lagHours * HOUR_MS;
-  const start = liveStart - options.backfillWeeks * 168 * HOUR_MS;
+  const start = liveStart - options.backfillWeeks * WEEK_HOURS * HOUR_MS;
   const generator = new FeedGenerator(zones, start, options.seed, DEMO_TIME_ZONE);
   const sender = new FeedSender(options.url, options.key, `sim${options.seed}-${Date.now().toString(36)}`, log);
   // --quiet leaves out the hour-by-hour lines; the backfill's progress and end are always told

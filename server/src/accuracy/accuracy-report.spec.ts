@@ -1,5 +1,5 @@
+import { operatingDay } from '@morrowline/shared';
 import { systemInput, zoneAccuracy, type ZoneInput } from './accuracy-report';
-import { gateClosureAt, operatingDay, operatingDays } from './operating-days';
 
 const TZ = 'America/Denver';
 const HOUR = 3_600_000;
@@ -18,22 +18,6 @@ function input(days: string[], scale: number, schedule?: number): ZoneInput {
     schedule: actual.map((row, i) => (schedule === undefined ? null : { id: 100 + i, at: 0, revision: 1, values: row.map((a) => a * schedule) })),
   };
 }
-
-describe('operating days', () => {
-  it('gives 23, 24 and 25 hours with hour-ending labels', () => {
-    const spring = operatingDay('2026-03-08', TZ);
-    expect(spring.labels).toHaveLength(23);
-    expect(spring.labels.slice(0, 3)).toEqual(['HE01', 'HE03', 'HE04']);
-    const autumn = operatingDay('2026-11-01', TZ);
-    expect(autumn.labels).toHaveLength(25);
-    expect(autumn.labels.at(-1)).toBe('HE25');
-    expect(operatingDays('2026-10-31', '2026-11-02', TZ).map((d) => d.labels.length)).toEqual([24, 25, 24]);
-  });
-
-  it('puts gate closure at the local time on the day before', () => {
-    expect(new Date(gateClosureAt('2026-06-10', TZ, '10:00')).toISOString()).toBe('2026-06-09T16:00:00.000Z');
-  });
-});
 
 describe('zone accuracy', () => {
   const later = Date.parse('2027-01-01T00:00:00Z');

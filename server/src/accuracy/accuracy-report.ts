@@ -1,6 +1,5 @@
-import type { AccuracyComparisonDto, AccuracyDayDto, AccuracyDaySourceDto, AccuracyHourDto, AccuracyScore, AccuracyZoneDto } from '@morrowline/shared';
+import { HOUR_MS, type AccuracyComparisonDto, type AccuracyDayDto, type AccuracyDaySourceDto, type AccuracyHourDto, type AccuracyScore, type AccuracyZoneDto, type OperatingDay } from '@morrowline/shared';
 import { accuracy } from '@morrowline/engine';
-import type { OperatingDay } from './operating-days';
 
 /** A forecast (model run or schedule revision) for one day, aligned with the day's hours. */
 export interface DaySource {
@@ -20,8 +19,6 @@ export interface ZoneInput {
   model: (DaySource | null)[];
   schedule: (DaySource | null)[];
 }
-
-const HOUR_MS = 3_600_000;
 
 function r3(x: number | null | undefined): number | null {
   if (x === null || x === undefined || !Number.isFinite(x)) return null;

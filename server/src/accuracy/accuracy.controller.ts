@@ -1,6 +1,6 @@
 import { Controller, Get, Query } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
-import type { AccuracyReportDto } from '@morrowline/shared';
+import { PERMISSIONS, type AccuracyReportDto } from '@morrowline/shared';
 import { Roles } from '../auth/roles.decorator';
 import { AccuracyQueryDto } from './dto/accuracy-query.dto';
 import { AccuracyService } from './accuracy.service';
@@ -13,7 +13,7 @@ export class AccuracyController {
 
   /** MAPE, MAE, bias and peak-hour error per day, hour ending and zone, model and schedule. */
   @Get()
-  @Roles('viewer', 'operator', 'supervisor')
+  @Roles(...PERMISSIONS.readForecasts)
   report(@Query() query: AccuracyQueryDto): Promise<AccuracyReportDto> {
     return this.accuracy.report(query.zone, query.from, query.to);
   }

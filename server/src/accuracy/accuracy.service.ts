@@ -1,16 +1,13 @@
 import { EntityManager } from '@mikro-orm/mariadb';
 import { BadRequestException, Injectable } from '@nestjs/common';
-import { ACCURACY_MAX_DAYS, type AccuracyReportDto } from '@morrowline/shared';
+import { ACCURACY_MAX_DAYS, dayCount, gateClosureAt, HOUR_MS, isOperatingDay, operatingDays, type AccuracyReportDto, type OperatingDay } from '@morrowline/shared';
 import { ForecastRun } from '../forecasts/entities/forecast-run.entity';
 import { MAX_HORIZON_HOURS } from '../forecasts/forecast-horizon';
 import { OutagesService } from '../outages/outages.service';
 import { ReadingsRepository } from '../readings/readings.repository';
 import { Zone } from '../zones/entities/zone.entity';
 import { systemInput, zoneAccuracy, type DaySource, type ZoneInput } from './accuracy-report';
-import { dayCount, gateClosureAt, operatingDays, parseDay, type OperatingDay } from './operating-days';
 import { ScheduleInForce } from './schedule-in-force';
-
-const HOUR_MS = 3_600_000;
 
 type RunValues = Pick<ForecastRun, 'id' | 'issuedAt' | 'firstHour' | 'mean'>;
 /** Reports kept; a changed key (new reading hour, run or publication) makes a new entry. */
@@ -36,8 +33,8 @@ export class AccuracyService {
   ) {}
 
   async report(codes: readonly string[] | undefined, from: string, to: string, now = Date.now()): Promise<AccuracyReportDto> {
-    if (!parseDay(from, 'UTC')) throw new BadRequestException('from must be an operating day, yyyy-MM-dd');
-    if (!parseDay(to, 'UTC')) throw new BadRequestException('to must be an operating day, yyyy-MM-dd');
+    if (!isOperatingDay(from)) throw new BadRequestException('from must be an operating day, yyyy-MM-dd');
+    if (!isOperatingDay(to)) throw new BadRequestException('to must be an operating day, yyyy-MM-dd');
     if (to < from) throw new BadRequestException(`from (${from}) must not be after to (${to})`);
     const span = dayCount(from, to);
     if (span > ACCURACY_MAX_DAYS) throw new BadRequestException(`The range may span at most ${ACCURACY_MAX_DAYS} days; ${from} to ${to} is ${span}`);

@@ -1,10 +1,8 @@
 import { EntityManager } from '@mikro-orm/mariadb';
 import { Injectable } from '@nestjs/common';
+import { HOUR_MS, type OperatingDay } from '@morrowline/shared';
 import { ScheduleRevision } from '../schedules/entities/schedule-revision.entity';
 import type { DaySource } from './accuracy-report';
-import type { OperatingDay } from './operating-days';
-
-const HOUR_MS = 3_600_000;
 
 /**
  * The published schedule in force for a zone and operating day: its latest published revision

@@ -1,6 +1,6 @@
 import { Body, Controller, Get, HttpCode, Param, ParseIntPipe, Post, Query } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
-import type { AlertDto } from '@morrowline/shared';
+import { PERMISSIONS, type AlertDto } from '@morrowline/shared';
 import type { AuthUser } from '../auth/auth-user';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles, SignedIn } from '../auth/roles.decorator';
@@ -21,7 +21,7 @@ export class AlertsController {
 
   @Post(':id/acknowledge')
   @HttpCode(200)
-  @Roles('operator', 'supervisor')
+  @Roles(...PERMISSIONS.forecast)
   acknowledge(@CurrentUser() actor: AuthUser, @Param('id', ParseIntPipe) id: number, @Body() body: AcknowledgeAlertDto): Promise<AlertDto> {
     return this.alerts.acknowledge(actor, id, body.comment);
   }

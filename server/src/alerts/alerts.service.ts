@@ -1,6 +1,6 @@
 import { EntityManager } from '@mikro-orm/mariadb';
 import { ConflictException, Inject, Injectable, Logger, NotFoundException, type OnModuleInit } from '@nestjs/common';
-import { DESK_EVENTS, type AlertDto, type AlertState } from '@morrowline/shared';
+import { DESK_EVENTS, HOUR_MS, type AlertDto, type AlertState } from '@morrowline/shared';
 import { AuditService, type Actor } from '../audit/audit.service';
 import { DeskGateway } from '../desk/desk.gateway';
 import type { StoredRow } from '../readings/readings.repository';
@@ -10,7 +10,6 @@ import { deviationRuns } from './deviation';
 import { DeviationAlert } from './entities/deviation-alert.entity';
 import { FORECAST_LOOKUP, type ForecastLookup } from './forecast-lookup';
 
-const HOUR_MS = 3_600_000;
 /**
  * Only hours this recent raise alerts: an alert is for the desk on shift, not for a backfill of
  * last month's history (which would bury today's alerts under old ones).

@@ -1,13 +1,11 @@
 import { Injectable } from '@nestjs/common';
+import { HOUR_MS, WEEK_HOURS } from '@morrowline/shared';
 import { ReadingsRepository } from '../readings/readings.repository';
-
-const HOUR_MS = 3_600_000;
-export const WEEK_HOURS = 168;
 
 /**
  * "What is the current forecast for these hours?" — what the deviation alerts compare actual load
- * against. Until model forecasts exist it is the weekly seasonal-naive value; the refit work swaps
- * the provider (`{ provide: FORECAST_LOOKUP, useClass: ... }`) without touching the alerts.
+ * against. AlertsModule binds it to StoredForecastLookup (forecasts/): the zone's latest stored
+ * run where it covers the hour, the load a week earlier elsewhere.
  */
 export interface ForecastLookup {
   /** Forecast MW for each hour start in [from, to) of a zone; null where there is none. */
@@ -16,9 +14,9 @@ export interface ForecastLookup {
 
 export const FORECAST_LOOKUP = Symbol('ForecastLookup');
 
-/** Weekly seasonal naive: the forecast for an hour is the load of the same hour one week earlier. */
+/** The load of the same hour one week earlier, from the stored readings (null where there is none). */
 @Injectable()
-export class SeasonalNaiveForecastLookup implements ForecastLookup {
+export class WeekEarlierLoadLookup implements ForecastLookup {
   constructor(private readonly readings: ReadingsRepository) {}
 
   async forecast(zoneId: number, from: number, to: number): Promise<(number | null)[]> {

@@ -1,6 +1,6 @@
 import { Controller, Get, Query } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
-import type { AuditEntryDto, Page } from '@morrowline/shared';
+import { PERMISSIONS, type AuditEntryDto, type Page } from '@morrowline/shared';
 import { Roles } from '../auth/roles.decorator';
 import { AuditService } from './audit.service';
 import { AuditQueryDto } from './dto/audit-query.dto';
@@ -12,7 +12,7 @@ export class AuditController {
   constructor(private readonly audit: AuditService) {}
 
   @Get()
-  @Roles('supervisor', 'admin')
+  @Roles(...PERMISSIONS.readAudit)
   list(@Query() query: AuditQueryDto): Promise<Page<AuditEntryDto>> {
     return this.audit.list(query);
   }

@@ -4,7 +4,7 @@
  * A task is a plain function of one structured-cloneable payload (numbers, arrays, typed arrays,
  * plain objects) that returns a structured-cloneable result. It must not import Nest, the ORM
  * or anything with I/O: it runs in a worker thread that only loads this file and what it
- * imports. To add a task (the refit work will), write the function beside its feature (e.g.
+ * imports. To add a task, write the function beside its feature (e.g.
  * `src/models/analysis/refit.ts`), add one line below, and call
  * `compute.run('models.refit', payload)`: the names, payloads and results are typed from here.
  */

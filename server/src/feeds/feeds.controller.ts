@@ -1,6 +1,6 @@
 import { Body, Controller, Get, HttpCode, Param, ParseIntPipe, Post } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
-import type { CreatedFeedKey, FeedKeyDto } from '@morrowline/shared';
+import { PERMISSIONS, type CreatedFeedKey, type FeedKeyDto } from '@morrowline/shared';
 import type { AuthUser } from '../auth/auth-user';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
@@ -10,7 +10,7 @@ import { FeedKeysService } from './feed-keys.service';
 @ApiTags('feeds')
 @ApiBearerAuth()
 @Controller('feeds/keys')
-@Roles('admin')
+@Roles(...PERMISSIONS.administer)
 export class FeedsController {
   constructor(private readonly keys: FeedKeysService) {}
 

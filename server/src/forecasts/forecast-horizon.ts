@@ -1,6 +1,6 @@
 import { DateTime } from 'luxon';
+import { HOUR_MS } from '@morrowline/shared';
 
-const HOUR_MS = 3_600_000;
 /** A history that stopped long ago still gets a bounded forecast. */
 export const MAX_HORIZON_HOURS = 14 * 24;
 

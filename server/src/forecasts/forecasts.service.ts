@@ -1,6 +1,6 @@
 import { EntityManager } from '@mikro-orm/mariadb';
 import { Injectable } from '@nestjs/common';
-import { DESK_EVENTS, type ForecastRunDto, type LatestForecastsDto } from '@morrowline/shared';
+import { DESK_EVENTS, HOUR_MS, type ForecastRunDto, type LatestForecastsDto } from '@morrowline/shared';
 import { DeskGateway } from '../desk/desk.gateway';
 import { floorAtZero, seasonalNaive, type IntervalForecast } from '@morrowline/engine';
 import { OutagesService } from '../outages/outages.service';
@@ -9,7 +9,6 @@ import { Zone } from '../zones/entities/zone.entity';
 import { ForecastRun } from './entities/forecast-run.entity';
 import { forecastHorizon } from './forecast-horizon';
 
-const HOUR_MS = 3_600_000;
 /** History the seasonal-naive stand-in looks back over (it needs the same hour weeks earlier). */
 export const STAND_IN_HISTORY_HOURS = 4 * 168;
 

@@ -1,27 +1,26 @@
 import { Injectable } from '@nestjs/common';
-import { SeasonalNaiveForecastLookup, type ForecastLookup } from '../alerts/forecast-lookup';
+import { HOUR_MS } from '@morrowline/shared';
+import { WeekEarlierLoadLookup, type ForecastLookup } from '../alerts/forecast-lookup';
 import { ReadingsRepository } from '../readings/readings.repository';
 import { ForecastsService } from './forecasts.service';
 
-const HOUR_MS = 3_600_000;
-
 /**
  * What the deviation alerts compare against: the latest stored forecast run of the zone for the
- * hours it covers, the weekly seasonal-naive value for the others.
+ * hours it covers, the load of the same hour a week earlier for the others.
  */
 @Injectable()
 export class StoredForecastLookup implements ForecastLookup {
-  private readonly naive: SeasonalNaiveForecastLookup;
+  private readonly weekEarlier: WeekEarlierLoadLookup;
 
   constructor(
     private readonly forecasts: ForecastsService,
     readings: ReadingsRepository,
   ) {
-    this.naive = new SeasonalNaiveForecastLookup(readings);
+    this.weekEarlier = new WeekEarlierLoadLookup(readings);
   }
 
   async forecast(zoneId: number, from: number, to: number): Promise<(number | null)[]> {
-    const out = await this.naive.forecast(zoneId, from, to);
+    const out = await this.weekEarlier.forecast(zoneId, from, to);
     const run = await this.forecasts.latestRun(zoneId);
     if (!run) return out;
     const first = run.firstHour.getTime();

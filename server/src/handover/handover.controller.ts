@@ -1,6 +1,6 @@
 import { Body, Controller, Get, Param, ParseIntPipe, Post, Query } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
-import type { CurrentShiftDto, HandoverDraftDto, HandoverNoteDto, HandoverNoteWithEventsDto, Page } from '@morrowline/shared';
+import { PERMISSIONS, type CurrentShiftDto, type HandoverDraftDto, type HandoverNoteDto, type HandoverNoteWithEventsDto, type Page } from '@morrowline/shared';
 import type { AuthUser } from '../auth/auth-user';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles, SignedIn } from '../auth/roles.decorator';
@@ -20,7 +20,7 @@ export class HandoverController {
   }
 
   @Get('draft')
-  @Roles('operator', 'supervisor')
+  @Roles(...PERMISSIONS.forecast)
   draft(): Promise<HandoverDraftDto> {
     return this.handover.draft();
   }
@@ -44,13 +44,13 @@ export class HandoverController {
   }
 
   @Post()
-  @Roles('operator', 'supervisor')
+  @Roles(...PERMISSIONS.forecast)
   create(@CurrentUser() user: AuthUser, @Body() body: CreateHandoverDto): Promise<HandoverNoteDto> {
     return this.handover.create(user, body);
   }
 
   @Post(':id/acknowledge')
-  @Roles('operator', 'supervisor')
+  @Roles(...PERMISSIONS.forecast)
   acknowledge(@CurrentUser() user: AuthUser, @Param('id', ParseIntPipe) id: number, @Body() body: AcknowledgeHandoverDto): Promise<HandoverNoteDto> {
     return this.handover.acknowledge(user, id, body.reply);
   }

@@ -1,14 +1,15 @@
 import { EntityManager, type FilterQuery } from '@mikro-orm/mariadb';
 import { BadRequestException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
-import type {
-  CreateHandoverRequest,
-  CurrentShiftDto,
-  HandoverDraftDto,
-  HandoverItemDto,
-  HandoverNoteDto,
-  HandoverNoteWithEventsDto,
-  Page,
+import {
+  PERMISSIONS,
+  type CreateHandoverRequest,
+  type CurrentShiftDto,
+  type HandoverDraftDto,
+  type HandoverItemDto,
+  type HandoverNoteDto,
+  type HandoverNoteWithEventsDto,
+  type Page,
 } from '@morrowline/shared';
 import { AuditService } from '../audit/audit.service';
 import type { AuthUser } from '../auth/auth-user';
@@ -55,7 +56,7 @@ export class HandoverService {
     const signIns = await this.audit.between(new Date(current.start), now, ['auth.login']);
     const ids = [...new Set(signIns.map((e) => e.actorId).filter((id): id is number => id !== null))];
     const users = ids.length
-      ? await this.em.fork().find(User, { id: { $in: ids }, role: { $in: ['operator', 'supervisor'] }, active: true }, { orderBy: { name: 'asc' } })
+      ? await this.em.fork().find(User, { id: { $in: ids }, role: { $in: [...PERMISSIONS.forecast] }, active: true }, { orderBy: { name: 'asc' } })
       : [];
     return { current, previous, onShift: users.map((u) => ({ id: u.id, name: u.name, role: u.role })) };
   }

@@ -1,6 +1,6 @@
 import { Body, Controller, Get, HttpCode, Param, ParseIntPipe, Post, Query } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
-import type { ModelCompareDto, ModelVersionDto, RefitJobDto } from '@morrowline/shared';
+import { PERMISSIONS, type ModelCompareDto, type ModelVersionDto, type RefitJobDto } from '@morrowline/shared';
 import type { AuthUser } from '../auth/auth-user';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles, SignedIn } from '../auth/roles.decorator';
@@ -26,7 +26,7 @@ export class ModelsController {
   /** One job per zone (all active zones when none given); a zone's queued or running job is answered as it is. */
   @Post('refits')
   @HttpCode(202)
-  @Roles('operator', 'supervisor')
+  @Roles(...PERMISSIONS.forecast)
   start(@CurrentUser() actor: AuthUser, @Body() body: StartRefitDto): Promise<RefitJobDto[]> {
     return this.refits.request(actor, body.zone, body.reason, 'operator', 'full');
   }
@@ -51,7 +51,7 @@ export class ModelsController {
 
   @Post(':id/promote')
   @HttpCode(200)
-  @Roles('operator', 'supervisor')
+  @Roles(...PERMISSIONS.forecast)
   promote(@CurrentUser() actor: AuthUser, @Param('id', ParseIntPipe) id: number, @Body() body: PromoteModelDto): Promise<ModelVersionDto> {
     return this.models.promote(actor, id, body.reason);
   }

@@ -1,5 +1,6 @@
 import { EntityManager, LockMode } from '@mikro-orm/mariadb';
 import { ConflictException, Injectable, NotFoundException } from '@nestjs/common';
+import { HOUR_MS } from '@morrowline/shared';
 import type { ModelCompareDto, ModelVersionDto } from '@morrowline/shared';
 import { AuditService, type Actor } from '../audit/audit.service';
 import { ComputeService } from '../compute/compute.service';
@@ -8,8 +9,6 @@ import { ForecastsService } from '../forecasts/forecasts.service';
 import { ModelVersion } from './entities/model-version.entity';
 import { choiceOf, toModelVersionDto } from './model-dto';
 import { ZoneHistoryLoader } from './zone-history';
-
-const HOUR_MS = 3_600_000;
 
 /**
  * Model versions: the list per zone, a candidate beside the model in service (both scored again

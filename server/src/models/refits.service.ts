@@ -3,7 +3,7 @@ import { BadRequestException, Injectable, Logger, NotFoundException, type OnAppl
 import { ConfigService } from '@nestjs/config';
 import { SchedulerRegistry } from '@nestjs/schedule';
 import { CronJob } from 'cron';
-import { DESK_EVENTS, type RefitJobDto, type RefitJobState, type RefitTrigger } from '@morrowline/shared';
+import { DESK_EVENTS, HOUR_MS, type RefitJobDto, type RefitJobState, type RefitTrigger } from '@morrowline/shared';
 import { AuditService, type Actor } from '../audit/audit.service';
 import { ComputeService } from '../compute/compute.service';
 import type { AppConfig } from '../config/configuration';
@@ -19,7 +19,6 @@ import { choiceOf, toRefitJobDto } from './model-dto';
 import { cronExpressions, loadRefitSchedule } from './refit-schedule';
 import { ZoneHistoryLoader, type ZoneHistory } from './zone-history';
 
-const HOUR_MS = 3_600_000;
 /** Jobs in flight at once: the pool's threads plus one reading or storing meanwhile. */
 const JOB_CONCURRENCY = 2;
 export const INTERRUPTED = 'interrupted by a server restart';

@@ -1,9 +1,9 @@
 import { Injectable } from '@nestjs/common';
+import { HOUR_MS } from '@morrowline/shared';
 import { OutagesService } from '../outages/outages.service';
 import { ReadingsService } from '../readings/readings.service';
 import type { Zone } from '../zones/entities/zone.entity';
 
-const HOUR_MS = 3_600_000;
 /** Hours each fit trains on: eight weeks, as the engine's backtest window. */
 export const TRAINING_HOURS = 8 * 168;
 

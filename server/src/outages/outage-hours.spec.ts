@@ -1,4 +1,5 @@
-import { excludedHourSet, HOUR_MS } from './outage-hours';
+import { HOUR_MS } from '@morrowline/shared';
+import { excludedHourSet } from './outage-hours';
 
 describe('outage hours', () => {
   const t0 = Date.UTC(2026, 10, 30, 0);

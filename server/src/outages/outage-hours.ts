@@ -1,8 +1,5 @@
 /** Hour arithmetic of outage windows (no framework: unit-tested alone). */
-export const HOUR_MS = 3_600_000;
-
-export const floorHour = (ms: number): number => Math.floor(ms / HOUR_MS) * HOUR_MS;
-export const ceilHour = (ms: number): number => Math.ceil(ms / HOUR_MS) * HOUR_MS;
+import { ceilHour, floorHour, HOUR_MS } from '@morrowline/shared';
 
 /**
  * UTC hour starts in [from, to) covered by the windows. A window covers every hour it touches

@@ -1,6 +1,6 @@
 import { Body, Controller, Get, HttpCode, Param, ParseIntPipe, Patch, Post, Query } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
-import type { OutageDto } from '@morrowline/shared';
+import { PERMISSIONS, type OutageDto } from '@morrowline/shared';
 import type { AuthUser } from '../auth/auth-user';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles, SignedIn } from '../auth/roles.decorator';
@@ -20,20 +20,20 @@ export class OutagesController {
   }
 
   @Post()
-  @Roles('operator', 'supervisor')
+  @Roles(...PERMISSIONS.forecast)
   create(@CurrentUser() actor: AuthUser, @Body() body: CreateOutageDto): Promise<OutageDto> {
     return this.outages.create(actor, body);
   }
 
   @Patch(':id')
-  @Roles('operator', 'supervisor')
+  @Roles(...PERMISSIONS.forecast)
   update(@CurrentUser() actor: AuthUser, @Param('id', ParseIntPipe) id: number, @Body() body: UpdateOutageDto): Promise<OutageDto> {
     return this.outages.update(actor, id, body);
   }
 
   @Post(':id/close')
   @HttpCode(200)
-  @Roles('operator', 'supervisor')
+  @Roles(...PERMISSIONS.forecast)
   close(@CurrentUser() actor: AuthUser, @Param('id', ParseIntPipe) id: number, @Body() body: CloseOutageDto): Promise<OutageDto> {
     return this.outages.close(actor, id, body.end, body.reason);
   }

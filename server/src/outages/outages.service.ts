@@ -1,10 +1,10 @@
 import { EntityManager } from '@mikro-orm/mariadb';
 import { BadRequestException, ConflictException, Injectable, NotFoundException } from '@nestjs/common';
-import type { CreateOutageRequest, OutageDto, UpdateOutageRequest } from '@morrowline/shared';
+import { ceilHour, floorHour, HOUR_MS, type CreateOutageRequest, type OutageDto, type UpdateOutageRequest } from '@morrowline/shared';
 import { AuditService, type Actor } from '../audit/audit.service';
 import { Zone } from '../zones/entities/zone.entity';
 import { Outage } from './entities/outage.entity';
-import { ceilHour, excludedHourSet, floorHour, HOUR_MS } from './outage-hours';
+import { excludedHourSet } from './outage-hours';
 
 /** The longest window one may mark (a longer one is almost certainly a typing error). */
 const MAX_WINDOW_DAYS = 92;

@@ -1,7 +1,7 @@
+import { HOUR_MS } from '@morrowline/shared';
 import type { ReadingQuality, ReadingRejection, RejectionReason } from '@morrowline/shared';
 import { READING_QUALITIES } from './entities/reading.entity';
 
-const HOUR_MS = 3_600_000;
 /** ISO 8601 date and time with an explicit offset (Z or ±HH:MM); a bare local time is ambiguous. */
 const ISO_WITH_OFFSET = /^\d{4}-\d{2}-\d{2}[T ]\d{2}:\d{2}(:\d{2}(\.\d{1,9})?)?(Z|[+-]\d{2}:\d{2})$/;
 

@@ -1,7 +1,7 @@
 import { BadRequestException, Controller, Get, Header, Post, Query, UploadedFile, UseInterceptors } from '@nestjs/common';
 import { FileInterceptor } from '@nestjs/platform-express';
 import { ApiBearerAuth, ApiConsumes, ApiTags } from '@nestjs/swagger';
-import { CSV_MAX_BYTES, type CsvUploadReport, type FeedStatusDto, type ReadingSeriesDto } from '@morrowline/shared';
+import { CSV_MAX_BYTES, PERMISSIONS, type CsvUploadReport, type FeedStatusDto, type ReadingSeriesDto } from '@morrowline/shared';
 import type { AuthUser } from '../auth/auth-user';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles, SignedIn } from '../auth/roles.decorator';
@@ -48,7 +48,7 @@ export class ReadingsController {
 
   /** CSV history, multipart field `file`: `timestamp,load_mw[,zone]`. */
   @Post('upload')
-  @Roles('operator', 'supervisor')
+  @Roles(...PERMISSIONS.forecast)
   @ApiConsumes('multipart/form-data')
   @UseInterceptors(FileInterceptor('file', { limits: { fileSize: CSV_MAX_BYTES, files: 1 } }))
   upload(@CurrentUser() actor: AuthUser, @Query() query: ReadingsUploadQueryDto, @UploadedFile() file: UploadedCsv | undefined): Promise<CsvUploadReport> {

@@ -2,6 +2,7 @@ import { EntityManager } from '@mikro-orm/mariadb';
 import { BadRequestException, Injectable, Logger } from '@nestjs/common';
 import {
   DESK_EVENTS,
+  HOUR_MS,
   STALE_AFTER_HOURS,
   type DeskReadings,
   type FeedStatusDto,
@@ -13,7 +14,6 @@ import { Zone } from '../zones/entities/zone.entity';
 import { validateBatch, type ZoneLimits } from './reading-validation';
 import { ReadingsRepository, type StoredRow } from './readings.repository';
 
-export const HOUR_MS = 3_600_000;
 /** Longest range one series request may ask for. */
 export const MAX_SERIES_HOURS = 24 * 92;
 /** Zone settings are re-read at most this often (a change reaches validation within seconds). */

@@ -1,7 +1,7 @@
 import { Body, Controller, Delete, Get, Header, Param, ParseIntPipe, Post, Query, Res } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
-import type { AdjustmentResultDto, DayScheduleDto, ScheduleRevisionDto, ScheduleSubscriberDto } from '@morrowline/shared';
+import { PERMISSIONS, type AdjustmentResultDto, type DayScheduleDto, type ScheduleRevisionDto, type ScheduleSubscriberDto } from '@morrowline/shared';
 import type { AuthUser } from '../auth/auth-user';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles } from '../auth/roles.decorator';
@@ -9,8 +9,6 @@ import { CreateAdjustmentDto, CreateCorrectionDto, CreateSubscriberDto, DayQuery
 import { exportCsv, exportJson } from './schedule-export';
 import { ScheduleSubscribersService } from './schedule-subscribers.service';
 import { SchedulesService } from './schedules.service';
-
-const READERS = ['viewer', 'operator', 'supervisor'] as const;
 
 /** Day-ahead schedules; the contract is shared/src/schedules.ts. Admin takes no part (IT, not forecasting). */
 @ApiTags('schedules')
@@ -24,37 +22,37 @@ export class SchedulesController {
 
   // Fixed paths first, so "subscribers" and "revisions" are never read as an operating day.
   @Get('subscribers')
-  @Roles('supervisor')
+  @Roles(...PERMISSIONS.supervise)
   listSubscribers(): Promise<ScheduleSubscriberDto[]> {
     return this.subscribers.list();
   }
 
   @Post('subscribers')
-  @Roles('supervisor')
+  @Roles(...PERMISSIONS.supervise)
   addSubscriber(@CurrentUser() user: AuthUser, @Body() body: CreateSubscriberDto): Promise<ScheduleSubscriberDto> {
     return this.subscribers.add(user, body);
   }
 
   @Delete('subscribers/:id')
-  @Roles('supervisor')
+  @Roles(...PERMISSIONS.supervise)
   removeSubscriber(@CurrentUser() user: AuthUser, @Param('id', ParseIntPipe) id: number): Promise<ScheduleSubscriberDto> {
     return this.subscribers.remove(user, id);
   }
 
   @Delete('adjustments/:id')
-  @Roles('operator', 'supervisor')
+  @Roles(...PERMISSIONS.forecast)
   undo(@CurrentUser() user: AuthUser, @Param('id', ParseIntPipe) id: number): Promise<ScheduleRevisionDto> {
     return this.schedules.undo(user, id);
   }
 
   @Get('revisions/:id')
-  @Roles(...READERS)
+  @Roles(...PERMISSIONS.readForecasts)
   revision(@Param('id', ParseIntPipe) id: number): Promise<ScheduleRevisionDto> {
     return this.schedules.revision(id);
   }
 
   @Get('revisions/:id/export')
-  @Roles(...READERS)
+  @Roles(...PERMISSIONS.readForecasts)
   @Header('Cache-Control', 'no-store')
   async export(@Param('id', ParseIntPipe) id: number, @Query() query: ExportQueryDto, @Res({ passthrough: true }) res: Response): Promise<string> {
     const { revision, publishedByEmail } = await this.schedules.forExport(id);
@@ -69,49 +67,49 @@ export class SchedulesController {
   }
 
   @Post('revisions/:id/submit')
-  @Roles('operator', 'supervisor')
+  @Roles(...PERMISSIONS.forecast)
   submit(@CurrentUser() user: AuthUser, @Param('id', ParseIntPipe) id: number, @Body() body: SubmitScheduleDto): Promise<ScheduleRevisionDto> {
     return this.schedules.submit(user, id, body.comment);
   }
 
   @Post('revisions/:id/approve')
-  @Roles('supervisor')
+  @Roles(...PERMISSIONS.supervise)
   approve(@CurrentUser() user: AuthUser, @Param('id', ParseIntPipe) id: number): Promise<ScheduleRevisionDto> {
     return this.schedules.approve(user, id);
   }
 
   @Post('revisions/:id/return')
-  @Roles('supervisor')
+  @Roles(...PERMISSIONS.supervise)
   returnToOperators(@CurrentUser() user: AuthUser, @Param('id', ParseIntPipe) id: number, @Body() body: ReturnScheduleDto): Promise<ScheduleRevisionDto> {
     return this.schedules.returnToOperators(user, id, body.comment);
   }
 
   @Get(':day')
-  @Roles(...READERS)
+  @Roles(...PERMISSIONS.readForecasts)
   day(@Param('day') day: string, @Query() query: DayQueryDto): Promise<DayScheduleDto> {
     return this.schedules.day(day, query.zone);
   }
 
   @Post(':day/adjustments')
-  @Roles('operator', 'supervisor')
+  @Roles(...PERMISSIONS.forecast)
   adjust(@CurrentUser() user: AuthUser, @Param('day') day: string, @Body() body: CreateAdjustmentDto): Promise<AdjustmentResultDto> {
     return this.schedules.adjust(user, day, body);
   }
 
   @Post(':day/:zone/draft')
-  @Roles('operator', 'supervisor')
+  @Roles(...PERMISSIONS.forecast)
   draft(@CurrentUser() user: AuthUser, @Param('day') day: string, @Param('zone') zone: string): Promise<ScheduleRevisionDto> {
     return this.schedules.createDraft(user, day, zone);
   }
 
   @Post(':day/:zone/corrections')
-  @Roles('operator', 'supervisor')
+  @Roles(...PERMISSIONS.forecast)
   correction(@CurrentUser() user: AuthUser, @Param('day') day: string, @Param('zone') zone: string, @Body() body: CreateCorrectionDto): Promise<ScheduleRevisionDto> {
     return this.schedules.correction(user, day, zone, body.reason);
   }
 
   @Get(':day/:zone/revisions')
-  @Roles(...READERS)
+  @Roles(...PERMISSIONS.readForecasts)
   revisions(@Param('day') day: string, @Param('zone') zone: string): Promise<ScheduleRevisionDto[]> {
     return this.schedules.revisions(day, zone);
   }

@@ -4,6 +4,11 @@ import { BadRequestException, ConflictException, ForbiddenException, Injectable,
 import {
   DESK_EVENTS,
   EDITABLE_SCHEDULE_STATES,
+  gateClosureAt,
+  isOperatingDay,
+  may,
+  operatingDayBounds,
+  operatingDaySlots,
   SCHEDULE_CAUTION,
   replayAdjustments,
   type AdjustmentResultDto,
@@ -24,7 +29,6 @@ import { User } from '../users/entities/user.entity';
 import { Zone } from '../zones/entities/zone.entity';
 import { ScheduleAdjustment } from './entities/schedule-adjustment.entity';
 import { ScheduleRevision } from './entities/schedule-revision.entity';
-import { gateClosureAt, isOperatingDay, operatingDayBounds, operatingDaySlots } from './operating-day';
 import { ScheduleNotifier } from './schedule-notifier';
 
 const USERS = ['zone', 'createdBy', 'submittedBy', 'returnedBy', 'publishedBy'] as const;
@@ -147,7 +151,7 @@ export class SchedulesService {
     const out: ZoneScheduleDto[] = [];
     for (const zone of zones) {
       const slots = operatingDaySlots(day, zone.timeZone);
-      const gate = gateClosureAt(day, zone.timeZone, zone.gateClosure);
+      const gate = new Date(gateClosureAt(day, zone.timeZone, zone.gateClosure));
       const working = revisions.find((r) => r.zone.id === zone.id && r.workingKey !== null);
       const published = revisions.find((r) => r.zone.id === zone.id && r.publishedKey !== null);
       const forecast = await this.forecastHours(zone, day, slots);
@@ -333,9 +337,9 @@ export class SchedulesService {
       this.editable(revision, 'submit');
       const missing = revision.hours.filter((h) => h.adjustedMw === null).map((h) => h.hourEnding);
       if (missing.length) throw new BadRequestException(`${revision.zone.code} ${revision.operatingDay} has no value for ${missing.join(', ')}; set those hours first`);
-      const gate = gateClosureAt(revision.operatingDay, revision.zone.timeZone, revision.zone.gateClosure);
+      const gate = new Date(gateClosureAt(revision.operatingDay, revision.zone.timeZone, revision.zone.gateClosure));
       const late = now >= gate;
-      if (late && user.role !== 'supervisor') {
+      if (late && !may(user.role, 'supervise')) {
         throw new ForbiddenException(`Gate closure for ${revision.zone.code} ${revision.operatingDay} passed at ${gate.toISOString()}; only a supervisor may submit now, and it is marked late`);
       }
       revision.state = 'submitted';

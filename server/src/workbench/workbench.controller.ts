@@ -1,6 +1,6 @@
 import { Body, Controller, Get, HttpCode, Param, Post, Query } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
-import type { BacktestReportDto, ModelReportDto, StationarityReportDto } from '@morrowline/shared';
+import { PERMISSIONS, type BacktestReportDto, type ModelReportDto, type StationarityReportDto } from '@morrowline/shared';
 import { Roles } from '../auth/roles.decorator';
 import { BacktestRequestDto, WorkbenchQueryDto } from './dto/workbench.dto';
 import { WorkbenchService } from './workbench.service';
@@ -17,14 +17,14 @@ export class WorkbenchController {
 
   /** Is the zone's load stationary, and which differencing makes it so? */
   @Get(':zone/stationarity')
-  @Roles('viewer', 'operator', 'supervisor')
+  @Roles(...PERMISSIONS.readForecasts)
   stationarity(@Param('zone') zone: string, @Query() query: WorkbenchQueryDto): Promise<StationarityReportDto> {
     return this.workbench.stationarity(zone, query.weeks);
   }
 
   /** The model the automatic pipeline chooses on the zone's history, with its checks. */
   @Get(':zone/model')
-  @Roles('viewer', 'operator', 'supervisor')
+  @Roles(...PERMISSIONS.readForecasts)
   model(@Param('zone') zone: string, @Query() query: WorkbenchQueryDto): Promise<ModelReportDto> {
     return this.workbench.model(zone, query.weeks);
   }
@@ -32,7 +32,7 @@ export class WorkbenchController {
   /** Rolling day-ahead backtest over the last `days` operating days against seasonal naive. */
   @Post(':zone/backtest')
   @HttpCode(200)
-  @Roles('operator', 'supervisor')
+  @Roles(...PERMISSIONS.forecast)
   backtest(@Param('zone') zone: string, @Body() body: BacktestRequestDto): Promise<BacktestReportDto> {
     return this.workbench.backtest(zone, body.days);
   }

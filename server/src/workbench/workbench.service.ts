@@ -3,6 +3,8 @@ import {
   type BacktestReportDto,
   type ModelReportDto,
   type StationarityReportDto,
+  HOUR_MS,
+  operatingDayStarts,
   WORKBENCH_DEFAULT_WEEKS,
   WORKBENCH_MAX_LAG,
   WORKBENCH_MIN_HOURS,
@@ -12,9 +14,7 @@ import { ReadingsService } from '../readings/readings.service';
 import { ZonesService } from '../zones/zones.service';
 import { toWire } from './analysis/stationarity-analysis';
 import { ExclusionsLookup } from './exclusions.lookup';
-import { operatingDayStarts } from './operating-days';
 
-const HOUR_MS = 3_600_000;
 /** Results are kept this long for the same zone, range and latest reading. */
 export const WORKBENCH_CACHE_MS = 5 * 60_000;
 /** Hours of history each backtest fit may use (the engine's default window). */

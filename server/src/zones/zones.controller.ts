@@ -1,6 +1,6 @@
 import { Body, Controller, Get, Param, ParseIntPipe, Patch, Post } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
-import type { ZoneDto } from '@morrowline/shared';
+import { PERMISSIONS, type ZoneDto } from '@morrowline/shared';
 import type { AuthUser } from '../auth/auth-user';
 import { CurrentUser } from '../auth/current-user.decorator';
 import { Roles, SignedIn } from '../auth/roles.decorator';
@@ -20,13 +20,13 @@ export class ZonesController {
   }
 
   @Post()
-  @Roles('admin')
+  @Roles(...PERMISSIONS.administer)
   create(@CurrentUser() actor: AuthUser, @Body() body: CreateZoneDto): Promise<ZoneDto> {
     return this.zones.create(actor, body);
   }
 
   @Patch(':id')
-  @Roles('admin')
+  @Roles(...PERMISSIONS.administer)
   update(@CurrentUser() actor: AuthUser, @Param('id', ParseIntPipe) id: number, @Body() body: UpdateZoneDto): Promise<ZoneDto> {
     return this.zones.update(actor, id, body);
   }

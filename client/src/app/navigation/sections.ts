@@ -1,4 +1,4 @@
-import type { Role } from '@morrowline/shared';
+import { PERMISSIONS, type Role } from '@morrowline/shared';
 
 export type SectionId =
   | 'live'
@@ -22,27 +22,25 @@ export interface Section {
   roles: readonly Role[];
 }
 
-const EVERY_DESK_ROLE: readonly Role[] = ['viewer', 'operator', 'supervisor'];
-const FORECASTERS: readonly Role[] = ['operator', 'supervisor'];
-
 /**
- * Every screen of the desk, in navigation order.
+ * Every screen of the desk, in navigation order, with the permission (shared/src/roles.ts) it
+ * takes to open it.
  *
  * Admin is IT, not a senior forecaster: it sees live load (to check that meter feeds arrive)
  * and the administration screens, but none of the forecasting work. The audit trail is also
  * open to supervisors, who answer for what was published.
  */
 export const SECTIONS: readonly Section[] = [
-  { id: 'live', path: '/live', label: 'Live load', group: 'desk', roles: [...EVERY_DESK_ROLE, 'admin'] },
-  { id: 'workbench', path: '/workbench', label: 'Model workbench', group: 'desk', roles: FORECASTERS },
-  { id: 'refits', path: '/refits', label: 'Refits', group: 'desk', roles: FORECASTERS },
-  { id: 'schedules', path: '/schedules', label: 'Day-ahead schedule', group: 'desk', roles: EVERY_DESK_ROLE },
-  { id: 'accuracy', path: '/accuracy', label: 'Accuracy', group: 'desk', roles: EVERY_DESK_ROLE },
-  { id: 'shift-log', path: '/shift-log', label: 'Shift log', group: 'desk', roles: FORECASTERS },
-  { id: 'history', path: '/history', label: 'History', group: 'desk', roles: EVERY_DESK_ROLE },
-  { id: 'users', path: '/admin/users', label: 'Users', group: 'admin', roles: ['admin'] },
-  { id: 'zones', path: '/admin/zones', label: 'Zones', group: 'admin', roles: ['admin'] },
-  { id: 'audit', path: '/admin/audit', label: 'Audit trail', group: 'admin', roles: ['supervisor', 'admin'] },
+  { id: 'live', path: '/live', label: 'Live load', group: 'desk', roles: PERMISSIONS.signedIn },
+  { id: 'workbench', path: '/workbench', label: 'Model workbench', group: 'desk', roles: PERMISSIONS.forecast },
+  { id: 'refits', path: '/refits', label: 'Refits', group: 'desk', roles: PERMISSIONS.forecast },
+  { id: 'schedules', path: '/schedules', label: 'Day-ahead schedule', group: 'desk', roles: PERMISSIONS.readForecasts },
+  { id: 'accuracy', path: '/accuracy', label: 'Accuracy', group: 'desk', roles: PERMISSIONS.readForecasts },
+  { id: 'shift-log', path: '/shift-log', label: 'Shift log', group: 'desk', roles: PERMISSIONS.forecast },
+  { id: 'history', path: '/history', label: 'History', group: 'desk', roles: PERMISSIONS.readForecasts },
+  { id: 'users', path: '/admin/users', label: 'Users', group: 'admin', roles: PERMISSIONS.administer },
+  { id: 'zones', path: '/admin/zones', label: 'Zones', group: 'admin', roles: PERMISSIONS.administer },
+  { id: 'audit', path: '/admin/audit', label: 'Audit trail', group: 'admin', roles: PERMISSIONS.readAudit },
 ];
 
 export function sectionById(id: SectionId): Section {

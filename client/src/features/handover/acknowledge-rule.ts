@@ -1,4 +1,4 @@
-import type { HandoverNoteDto, UserDto } from '@morrowline/shared';
+import { may, type HandoverNoteDto, type UserDto } from '@morrowline/shared';
 
 /**
  * Who is offered "Acknowledge": an operator or supervisor of the incoming shift, never the
@@ -6,11 +6,11 @@ import type { HandoverNoteDto, UserDto } from '@morrowline/shared';
  */
 export function mayAcknowledge(user: Pick<UserDto, 'id' | 'role'>, note: Pick<HandoverNoteDto, 'author' | 'acknowledgedAt'>): boolean {
   if (note.acknowledgedAt !== null) return false;
-  if (user.role !== 'operator' && user.role !== 'supervisor') return false;
+  if (!may(user.role, 'forecast')) return false;
   return note.author.id !== user.id;
 }
 
 /** Writing a note is for the same two roles. */
 export function mayWriteHandover(user: Pick<UserDto, 'role'>): boolean {
-  return user.role === 'operator' || user.role === 'supervisor';
+  return may(user.role, 'forecast');
 }

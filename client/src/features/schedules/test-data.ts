@@ -1,5 +1,4 @@
-import type { ScheduleHourDto, ScheduleRevisionDto, ScheduleState, ZoneScheduleDto } from '@morrowline/shared';
-import { operatingDayHours } from '../../lib/hour-ending';
+import { operatingDayHours, type ScheduleHourDto, type ScheduleRevisionDto, type ScheduleState, type ZoneScheduleDto } from '@morrowline/shared';
 
 const TZ = 'America/Denver';
 

@@ -1,4 +1,4 @@
-import type { CreateZoneRequest, UpdateZoneRequest, ZoneDto } from '@morrowline/shared';
+import { isZoneCode, ZONE_CODE_RULE, type CreateZoneRequest, type UpdateZoneRequest, type ZoneDto } from '@morrowline/shared';
 
 /** What the zone form edits; numbers may be '' while a field is being typed. */
 export interface ZoneFormValues {
@@ -31,7 +31,6 @@ export function zoneToForm(zone: ZoneDto): ZoneFormValues {
   return { ...zone, reason: '' };
 }
 
-const CODE_PATTERN = /^[A-Z][A-Z0-9_-]{1,31}$/;
 const HIGHEST_PLAUSIBLE_MW = 100_000;
 const GATE_PATTERN = /^([01]\d|2[0-3]):[0-5]\d$/;
 
@@ -41,8 +40,8 @@ function isNumber(value: number | string): value is number {
 
 export function validateZoneForm(values: ZoneFormValues, timeZones: readonly string[], creating: boolean) {
   const errors: Partial<Record<keyof ZoneFormValues, string>> = {};
-  if (creating && !CODE_PATTERN.test(values.code.trim().toUpperCase())) {
-    errors.code = 'Capital letters, digits, - or _, 2 to 32 characters, starting with a letter';
+  if (creating && !isZoneCode(values.code.trim().toUpperCase())) {
+    errors.code = ZONE_CODE_RULE;
   }
   if (!values.name.trim()) errors.name = 'Enter a name';
   if (!timeZones.includes(values.timeZone)) errors.timeZone = 'Choose an IANA time zone';

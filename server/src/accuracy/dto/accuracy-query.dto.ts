@@ -1,6 +1,7 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
 import { Transform } from 'class-transformer';
 import { ArrayMaxSize, IsArray, IsOptional, Matches } from 'class-validator';
+import { IsZoneCode } from '../../common/validation/is-zone-code';
 
 const DAY = /^\d{4}-\d{2}-\d{2}$/;
 
@@ -10,7 +11,7 @@ export class AccuracyQueryDto {
   @Transform(({ value }) => (Array.isArray(value) ? value : String(value).split(',')).map((v: string) => v.trim()).filter(Boolean))
   @IsArray()
   @ArrayMaxSize(50)
-  @Matches(/^[A-Z][A-Z0-9_-]{1,31}$/, { each: true, message: 'zone must be zone codes such as MILLRACE' })
+  @IsZoneCode({ each: true })
   zone?: string[];
 
   @ApiProperty({ description: 'First operating day, yyyy-MM-dd (included)', example: '2026-11-01' })

@@ -1,7 +1,8 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
 import { Type } from 'class-transformer';
-import { IsIn, IsInt, IsOptional, IsString, Matches, Max, MaxLength, Min } from 'class-validator';
+import { IsIn, IsInt, IsOptional, IsString, Max, MaxLength, Min } from 'class-validator';
 import type { AcknowledgeAlertRequest, AlertState } from '@morrowline/shared';
+import { IsZoneCode } from '../../common/validation/is-zone-code';
 
 export class AlertsQueryDto {
   @ApiPropertyOptional({ enum: ['open', 'acknowledged'] })
@@ -9,7 +10,7 @@ export class AlertsQueryDto {
   state?: AlertState;
 
   @ApiPropertyOptional({ example: 'MILLRACE' })
-  @IsOptional() @Matches(/^[A-Z][A-Z0-9_-]{1,31}$/, { message: 'zone must be a zone code such as MILLRACE' })
+  @IsOptional() @IsZoneCode()
   zone?: string;
 
   @IsOptional() @Type(() => Number) @IsInt() @Min(1) @Max(1000)

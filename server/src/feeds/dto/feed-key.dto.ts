@@ -1,6 +1,7 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
-import { IsOptional, IsString, Matches, MaxLength, MinLength } from 'class-validator';
+import { IsOptional, IsString, MaxLength, MinLength } from 'class-validator';
 import type { CreateFeedKeyRequest } from '@morrowline/shared';
+import { IsZoneCode } from '../../common/validation/is-zone-code';
 
 export class CreateFeedKeyDto implements CreateFeedKeyRequest {
   @ApiProperty({ example: 'Millrace substation RTU' })
@@ -9,7 +10,7 @@ export class CreateFeedKeyDto implements CreateFeedKeyRequest {
 
   @ApiPropertyOptional({ description: 'Limit the key to one zone', example: 'MILLRACE' })
   @IsOptional()
-  @Matches(/^[A-Z][A-Z0-9_-]{1,31}$/, { message: 'zone must be a zone code such as MILLRACE' })
+  @IsZoneCode()
   zone?: string | null;
 }
 

@@ -1,6 +1,7 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
 import { Transform, Type } from 'class-transformer';
-import { ArrayMaxSize, IsArray, IsDate, IsOptional, Matches } from 'class-validator';
+import { ArrayMaxSize, IsArray, IsDate, IsOptional } from 'class-validator';
+import { IsZoneCode } from '../../common/validation/is-zone-code';
 
 export class LatestForecastsQueryDto {
   @ApiPropertyOptional({ description: 'comma-separated zone codes; all active zones when omitted', example: 'MILLRACE,COPPERLINE' })
@@ -8,7 +9,7 @@ export class LatestForecastsQueryDto {
   @Transform(({ value }) => (Array.isArray(value) ? value : String(value).split(',')).map((v: string) => v.trim()).filter(Boolean))
   @IsArray()
   @ArrayMaxSize(50)
-  @Matches(/^[A-Z][A-Z0-9_-]{1,31}$/, { each: true, message: 'zone must be a comma-separated list of zone codes' })
+  @IsZoneCode({ each: true })
   zone?: string[];
 
   @IsOptional() @Type(() => Date) @IsDate({ message: 'from must be a time' })

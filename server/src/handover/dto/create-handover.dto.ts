@@ -1,6 +1,6 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
 import { Type } from 'class-transformer';
-import { ArrayMaxSize, IsArray, IsDate, IsIn, IsInt, Max, Min, IsOptional, IsString, Matches, MaxLength, MinLength, ValidateNested } from 'class-validator';
+import { ArrayMaxSize, IsArray, IsDate, IsIn, IsInt, Max, Min, IsOptional, IsString, MaxLength, MinLength, ValidateNested } from 'class-validator';
 import {
   HANDOVER_ITEM_KINDS,
   HANDOVER_ITEM_STATUSES,
@@ -10,13 +10,14 @@ import {
   type HandoverItemKind,
   type HandoverItemStatus,
 } from '@morrowline/shared';
+import { IsZoneCode } from '../../common/validation/is-zone-code';
 
 export class HandoverItemDto implements HandoverItemInput {
   @ApiProperty({ enum: HANDOVER_ITEM_KINDS })
   @IsIn([...HANDOVER_ITEM_KINDS], { message: `kind must be one of ${HANDOVER_ITEM_KINDS.join(', ')}` })
   kind!: HandoverItemKind;
 
-  @ApiPropertyOptional() @IsOptional() @Matches(/^[A-Z][A-Z0-9_-]{1,31}$/, { message: 'zoneCode must be a zone code' })
+  @ApiPropertyOptional() @IsOptional() @IsZoneCode()
   zoneCode?: string | null;
 
   @ApiProperty() @IsString() @MinLength(1, { message: 'each item needs a line of text' }) @MaxLength(2000)
@@ -46,7 +47,7 @@ export class AcknowledgeHandoverDto implements AcknowledgeHandoverRequest {
 
 export class HandoverSearchDto {
   @IsOptional() @IsString() @MaxLength(200) q?: string;
-  @IsOptional() @Matches(/^[A-Z][A-Z0-9_-]{1,31}$/, { message: 'zone must be a zone code' }) zone?: string;
+  @IsOptional() @IsZoneCode() zone?: string;
   @IsOptional() @Type(() => Date) @IsDate() from?: Date;
   @IsOptional() @Type(() => Date) @IsDate() to?: Date;
   @IsOptional() @Type(() => Number) @IsInt() @Min(1) @Max(100) limit: number = 20;

@@ -1,14 +1,12 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
 import { Type } from 'class-transformer';
-import { IsIn, IsInt, IsOptional, IsString, Matches, Max, MaxLength, Min, MinLength } from 'class-validator';
+import { IsIn, IsInt, IsOptional, IsString, Max, MaxLength, Min, MinLength } from 'class-validator';
 import { REFIT_JOB_STATES, type PromoteModelRequest, type RefitJobState, type StartRefitRequest } from '@morrowline/shared';
-
-const ZONE = /^[A-Z][A-Z0-9_-]{1,31}$/;
-const ZONE_MESSAGE = 'zone must be a zone code such as MILLRACE';
+import { IsZoneCode } from '../../common/validation/is-zone-code';
 
 export class StartRefitDto implements StartRefitRequest {
   @ApiPropertyOptional({ example: 'COPPERLINE', description: 'omit for all active zones' })
-  @IsOptional() @Matches(ZONE, { message: ZONE_MESSAGE })
+  @IsOptional() @IsZoneCode()
   zone?: string;
 
   @ApiProperty({ example: 'Feeder 12 outage marked; refit without it' })
@@ -21,7 +19,7 @@ export class RefitsQueryDto {
   @IsOptional() @IsIn([...REFIT_JOB_STATES], { message: `state must be one of ${REFIT_JOB_STATES.join(', ')}` })
   state?: RefitJobState;
 
-  @IsOptional() @Matches(ZONE, { message: ZONE_MESSAGE })
+  @IsOptional() @IsZoneCode()
   zone?: string;
 
   @IsOptional() @Type(() => Number) @IsInt() @Min(1) @Max(500)
@@ -29,7 +27,7 @@ export class RefitsQueryDto {
 }
 
 export class ModelsQueryDto {
-  @IsOptional() @Matches(ZONE, { message: ZONE_MESSAGE })
+  @IsOptional() @IsZoneCode()
   zone?: string;
 
   @IsOptional() @Type(() => Number) @IsInt() @Min(1) @Max(500)

@@ -1,14 +1,14 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
 import { Type } from 'class-transformer';
-import { IsDate, IsIn, IsISO8601, IsOptional, IsString, Matches, MaxLength, MinLength, ValidateIf } from 'class-validator';
+import { IsDate, IsIn, IsISO8601, IsOptional, IsString, MaxLength, MinLength, ValidateIf } from 'class-validator';
 import { OUTAGE_KINDS, type CloseOutageRequest, type CreateOutageRequest, type OutageKind, type UpdateOutageRequest } from '@morrowline/shared';
+import { IsZoneCode } from '../../common/validation/is-zone-code';
 
-const ZONE = /^[A-Z][A-Z0-9_-]{1,31}$/;
 const KIND_MESSAGE = `kind must be one of ${OUTAGE_KINDS.join(', ')}`;
 
 export class CreateOutageDto implements CreateOutageRequest {
   @ApiProperty({ example: 'COPPERLINE' })
-  @Matches(ZONE, { message: 'zone must be a zone code such as MILLRACE' })
+  @IsZoneCode()
   zone!: string;
 
   @ApiProperty({ enum: OUTAGE_KINDS })
@@ -57,7 +57,7 @@ export class CloseOutageDto implements CloseOutageRequest {
 
 export class OutagesQueryDto {
   @ApiPropertyOptional({ example: 'MILLRACE' })
-  @IsOptional() @Matches(ZONE, { message: 'zone must be a zone code such as MILLRACE' })
+  @IsOptional() @IsZoneCode()
   zone?: string;
 
   @IsOptional() @Type(() => Date) @IsDate({ message: 'from must be a time' })

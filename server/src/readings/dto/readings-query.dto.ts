@@ -1,8 +1,7 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
 import { Transform, Type } from 'class-transformer';
-import { ArrayMaxSize, IsArray, IsDate, IsOptional, Matches } from 'class-validator';
-
-const ZONE_CODE = /^[A-Z][A-Z0-9_-]{1,31}$/;
+import { ArrayMaxSize, IsArray, IsDate, IsOptional } from 'class-validator';
+import { IsZoneCode } from '../../common/validation/is-zone-code';
 
 /** `zone` may repeat or be comma-separated; absent means every active zone. */
 export class ReadingsQueryDto {
@@ -11,7 +10,7 @@ export class ReadingsQueryDto {
   @Transform(({ value }) => (Array.isArray(value) ? value : String(value).split(',')).map((v: string) => v.trim()).filter(Boolean))
   @IsArray()
   @ArrayMaxSize(50)
-  @Matches(ZONE_CODE, { each: true, message: 'zone must be zone codes such as MILLRACE' })
+  @IsZoneCode({ each: true })
   zone?: string[];
 
   @ApiPropertyOptional({ description: 'First hour (UTC, inclusive); default 7 days before `to`' })
@@ -25,7 +24,7 @@ export class ReadingsQueryDto {
 
 export class ReadingsExportQueryDto {
   @ApiPropertyOptional({ example: 'MILLRACE' })
-  @Matches(ZONE_CODE, { message: 'zone must be a zone code such as MILLRACE' })
+  @IsZoneCode()
   zone!: string;
 
   @IsOptional() @Type(() => Date) @IsDate({ message: 'from must be an ISO 8601 date and time' })
@@ -38,6 +37,6 @@ export class ReadingsExportQueryDto {
 export class ReadingsUploadQueryDto {
   @ApiPropertyOptional({ description: 'Zone for rows without a zone column', example: 'MILLRACE' })
   @IsOptional()
-  @Matches(ZONE_CODE, { message: 'zone must be a zone code such as MILLRACE' })
+  @IsZoneCode()
   zone?: string;
 }

@@ -1,6 +1,6 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
 import { Transform } from 'class-transformer';
-import { ArrayMaxSize, ArrayMinSize, IsArray, IsEmail, IsIn, IsInt, IsNumber, IsOptional, IsString, Matches, Max, MaxLength, Min, MinLength } from 'class-validator';
+import { ArrayMaxSize, ArrayMinSize, IsArray, IsEmail, IsIn, IsInt, IsNumber, IsOptional, IsString, Max, MaxLength, Min, MinLength } from 'class-validator';
 import {
   SCHEDULE_ADJUSTMENT_KINDS,
   type CreateScheduleAdjustmentRequest,
@@ -10,14 +10,14 @@ import {
   type ScheduleAdjustmentKind,
   type SubmitScheduleRequest,
 } from '@morrowline/shared';
+import { IsZoneCode } from '../../common/validation/is-zone-code';
 
-const ZONE_CODE = /^[A-Z][A-Z0-9_-]{1,31}$/;
 const trim = ({ value }: { value: unknown }) => (typeof value === 'string' ? value.trim() : value);
 
 export class CreateAdjustmentDto implements CreateScheduleAdjustmentRequest {
   @ApiProperty({ type: [String] })
   @IsArray() @ArrayMinSize(1, { message: 'name at least one zone' }) @ArrayMaxSize(50)
-  @Matches(ZONE_CODE, { each: true, message: 'each zone must be a zone code' })
+  @IsZoneCode({ each: true })
   zones!: string[];
 
   @ApiProperty({ enum: SCHEDULE_ADJUSTMENT_KINDS })
@@ -67,7 +67,7 @@ export class CreateSubscriberDto implements CreateScheduleSubscriberRequest {
 
   @ApiPropertyOptional({ type: [String], nullable: true, description: 'zone codes; omit or null for every zone' })
   @IsOptional() @IsArray() @ArrayMinSize(1, { message: 'zones: name at least one, or leave it out for every zone' }) @ArrayMaxSize(50)
-  @Matches(ZONE_CODE, { each: true, message: 'each zone must be a zone code' })
+  @IsZoneCode({ each: true })
   zones?: string[] | null;
 }
 
@@ -75,7 +75,7 @@ export class DayQueryDto {
   @ApiPropertyOptional({ description: 'zone codes, comma-separated; all active zones if left out' })
   @IsOptional()
   @Transform(({ value }: { value: unknown }) => (typeof value === 'string' ? value.split(',').map((s) => s.trim()).filter(Boolean) : value))
-  @IsArray() @Matches(ZONE_CODE, { each: true, message: 'zone must be a comma-separated list of zone codes' })
+  @IsArray() @IsZoneCode({ each: true })
   zone?: string[];
 }
 

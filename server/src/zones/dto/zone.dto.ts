@@ -1,11 +1,12 @@
 import { ApiProperty, ApiPropertyOptional, PartialType, OmitType } from '@nestjs/swagger';
 import { IsBoolean, IsInt, IsNumber, IsOptional, IsString, Matches, Max, MaxLength, Min, MinLength } from 'class-validator';
-import type { CreateZoneRequest, UpdateZoneRequest } from '@morrowline/shared';
+import { ZONE_CODE_RULE, type CreateZoneRequest, type UpdateZoneRequest } from '@morrowline/shared';
+import { IsZoneCode } from '../../common/validation/is-zone-code';
 import { IsTimeZone } from './is-time-zone.validator';
 
 export class CreateZoneDto implements CreateZoneRequest {
-  @ApiProperty({ example: 'MILLRACE' })
-  @Matches(/^[A-Z][A-Z0-9_-]{1,31}$/, { message: 'code must be 2 to 32 capital letters, digits, - or _' })
+  @ApiProperty({ example: 'MILLRACE', description: ZONE_CODE_RULE })
+  @IsZoneCode()
   code!: string;
 
   @ApiProperty() @IsString() @MinLength(1) @MaxLength(120)

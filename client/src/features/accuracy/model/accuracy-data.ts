@@ -1,5 +1,5 @@
 import type { AccuracyDayDto, AccuracyHourDto, AccuracyScore, AccuracyZoneDto } from '@morrowline/shared';
-import { ACCURACY_MAX_DAYS } from '@morrowline/shared';
+import { ACCURACY_MAX_DAYS, formatHourEnding } from '@morrowline/shared';
 import { DateTime } from 'luxon';
 
 export type Range = [string | null, string | null];
@@ -38,9 +38,8 @@ export type HourMetric = 'mae' | 'bias';
 export function hourlyData(hours: readonly AccuracyHourDto[], metric: HourMetric): { data: [number[], (number | null)[], (number | null)[]]; he25: AccuracyHourDto | null } {
   const byLabel = new Map(hours.map((h) => [h.hourEnding, h]));
   const xs = Array.from({ length: 24 }, (_, i) => i + 1);
-  const label = (n: number) => `HE${String(n).padStart(2, '0')}`;
   return {
-    data: [xs, xs.map((n) => byLabel.get(label(n))?.model[metric] ?? null), xs.map((n) => byLabel.get(label(n))?.schedule[metric] ?? null)],
+    data: [xs, xs.map((n) => byLabel.get(formatHourEnding(n))?.model[metric] ?? null), xs.map((n) => byLabel.get(formatHourEnding(n))?.schedule[metric] ?? null)],
     he25: byLabel.get('HE25') ?? null,
   };
 }

@@ -1,6 +1,6 @@
 import { Card, Center, Group, Loader, MultiSelect, SegmentedControl, Select, SimpleGrid, Stack, Text, Title } from '@mantine/core';
 import { DatePickerInput } from '@mantine/dates';
-import type { AccuracyZoneDto } from '@morrowline/shared';
+import { formatHourEnding, type AccuracyZoneDto } from '@morrowline/shared';
 import { useMemo, useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { ErrorNotice } from '../../../components/ErrorNotice';
@@ -23,7 +23,6 @@ function Charts({ subject }: { subject: AccuracyZoneDto }) {
   const daily = useMemo(() => dailyMapeData(subject.days), [subject]);
   const hourly = useMemo(() => hourlyData(subject.byHour, metric), [subject, metric]);
   const dayLabel = useMemo(() => (x: number) => subject.days[x]?.operatingDay.slice(5) ?? '', [subject]);
-  const heLabel = useMemo(() => (x: number) => `HE${String(x).padStart(2, '0')}`, []);
   const he25 = hourly.he25;
   if (!hasValues(daily) && !hasValues(hourly.data)) {
     return (
@@ -48,7 +47,7 @@ function Charts({ subject }: { subject: AccuracyZoneDto }) {
           title={metric === 'mae' ? 'MAE by hour ending' : 'Bias (forecast − actual) by hour ending'}
           data={hourly.data}
           series={SERIES}
-          xLabel={heLabel}
+          xLabel={formatHourEnding}
           xName="Hour ending"
           unit="MW"
           testId="accuracy-hourly-chart"

@@ -1,9 +1,8 @@
 import { Button, Card, Group, Select, Text, Title } from '@mantine/core';
 import { DatePickerInput } from '@mantine/dates';
-import type { ZoneDto } from '@morrowline/shared';
+import { operatingDayStart, type ZoneDto } from '@morrowline/shared';
 import { DateTime } from 'luxon';
 import { useState } from 'react';
-import { operatingDayStart } from '../../../lib/hour-ending';
 import { notifyFailure } from '../../../lib/notify';
 import { downloadReadings } from '../api/download-readings';
 

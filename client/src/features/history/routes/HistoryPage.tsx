@@ -1,4 +1,5 @@
 import { Loader, Stack } from '@mantine/core';
+import { may } from '@morrowline/shared';
 import { ErrorNotice } from '../../../components/ErrorNotice';
 import { PageHeader } from '../../../components/PageHeader';
 import { useSignedInUser } from '../../auth';
@@ -10,7 +11,7 @@ import { UploadPanel } from '../components/UploadPanel';
 export function HistoryPage() {
   const user = useSignedInUser();
   const zones = useZones();
-  const mayUpload = user.role === 'operator' || user.role === 'supervisor';
+  const mayUpload = may(user.role, 'forecast');
   const active = (zones.data ?? []).filter((z) => z.active);
   return (
     <>

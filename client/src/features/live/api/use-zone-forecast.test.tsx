@@ -3,7 +3,7 @@ import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { renderHook, waitFor } from '@testing-library/react';
 import type { ReactNode } from 'react';
 import { describe, expect, it } from 'vitest';
-import { apiError, mockApi } from '../../../test/mock-api';
+import { mockApi } from '../../../test/mock-api';
 import { useZoneForecast } from './use-zone-forecast';
 
 const HOUR_MS = 3_600_000;
@@ -23,12 +23,27 @@ function wrapper({ children }: { children: ReactNode }) {
 }
 
 describe('useZoneForecast', () => {
-  it('computes the seasonal-naive stand-in while the server has no forecasts to give (404)', async () => {
-    mockApi({ 'GET /api/forecasts/latest': () => ({ status: 404, body: apiError(404, 'Not Found', 'Cannot GET /api/forecasts/latest') }) });
+  it('shows the server’s seasonal-naive stand-in for a zone without a model, as such', async () => {
+    // The server's stand-in repeats the same hours one week earlier.
+    const week = Array.from({ length: 24 }, (_, k) => mw[24 + k] as number);
+    const standIn: ForecastRunDto = {
+      id: null, zone: 'MILLRACE', issuedAt: '2026-05-08T23:10:00Z', basedOnHour: null, method: 'seasonal-naive', fallbackReason: 'no model yet', modelVersionId: null,
+      hours: hours.slice(168 + 24, 168 + 48), mean: week, lower80: week, upper80: week, lower95: week, upper95: week,
+    };
+    mockApi({ 'GET /api/forecasts/latest': () => ({ body: { zones: [standIn] } }) });
     const { result } = renderHook(() => useZoneForecast(series, hours[168], 168 + 24), { wrapper });
     await waitFor(() => expect(result.current.forecasts.get('MILLRACE')?.source).toMatch(/^Seasonal-naive stand-in/));
     const line = result.current.forecasts.get('MILLRACE')!.line;
     expect(line.mean[168 + 30]).toBe(mw[30]); // the same hour a week earlier
+    expect(result.current.error).toBeNull();
+  });
+
+  it('makes no forecast up for a zone the server has no run for', async () => {
+    mockApi({ 'GET /api/forecasts/latest': () => ({ body: { zones: [] } }) });
+    const { result } = renderHook(() => useZoneForecast(series, hours[168], 168 + 24), { wrapper });
+    await waitFor(() => expect(result.current.forecasts.get('MILLRACE')?.source).toBe('No forecast for this zone'));
+    const line = result.current.forecasts.get('MILLRACE')!.line;
+    expect(line.mean.every((v) => v === null)).toBe(true);
     expect(result.current.error).toBeNull();
   });
 

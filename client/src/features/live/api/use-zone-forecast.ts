@@ -2,20 +2,15 @@ import type { ForecastRunDto, LatestForecastsDto, ReadingSeriesDto } from '@morr
 import { useQuery } from '@tanstack/react-query';
 import { useMemo } from 'react';
 import { api } from '../../../lib/api-client';
-import { ApiRequestError } from '../../../lib/api-error';
 import { emptyForecastLine, type ForecastLine } from '../model/forecast-line';
 import { hourIndex } from '../model/hours';
-import { seasonalNaiveForecast } from '../model/seasonal-naive';
+import { weekEarlierLine } from '../model/week-earlier-line';
 import { latestForecastsKey } from './live-keys';
 
 export interface ZoneForecast {
   line: ForecastLine;
   /** What the line is, in words for the chart's caption. */
   source: string;
-}
-
-function isNotThere(error: unknown): boolean {
-  return error instanceof ApiRequestError && (error.status === 404 || error.status === 501);
 }
 
 /**
@@ -55,12 +50,12 @@ function describeRun(run: ForecastRunDto): string {
 }
 
 /**
- * The current forecast per zone, on the hours of `series`. It asks GET /api/forecasts/latest; while
- * the server does not offer it (404) the weekly seasonal-naive stand-in is computed here from the
- * readings. This hook is the one place where that switch is made.
+ * The current forecast per zone, on the hours of `series`, from GET /api/forecasts/latest (a zone
+ * without a model gets the server's seasonal-naive stand-in run). The hours before the run show
+ * the week-earlier line computed here from the readings.
  *
  * `displayFrom` is where the chart starts; `originIndex` the first hour of `series` without a
- * reading yet (where the stand-in's error history ends).
+ * reading yet (where the week-earlier line's error history ends).
  */
 export function useZoneForecast(series: ReadingSeriesDto | undefined, displayFrom: string, originIndex: number) {
   const zones = series?.zones.map((z) => z.zone) ?? [];
@@ -69,30 +64,23 @@ export function useZoneForecast(series: ReadingSeriesDto | undefined, displayFro
     queryKey: latestForecastsKey(zones, displayFrom, to),
     queryFn: ({ signal }) => api.get<LatestForecastsDto>('/forecasts/latest', { signal, query: { zone: zones.join(','), from: displayFrom, to } }),
     enabled: zones.length > 0,
-    retry: (count, error) => !isNotThere(error) && count < 2,
     staleTime: 10 * 60_000,
   });
-  const useStandIn = latest.isError && isNotThere(latest.error);
 
   const forecasts = useMemo(() => {
     const out = new Map<string, ZoneForecast>();
     if (!series) return out;
     for (const zone of series.zones) {
-      const standIn = seasonalNaiveForecast(zone.mw, originIndex);
-      if (useStandIn) {
-        out.set(zone.zone, { line: standIn, source: 'Seasonal-naive stand-in: same hour one week earlier (no model forecast yet)' });
-        continue;
-      }
       const run = latest.data?.zones.find((r) => r.zone === zone.zone);
       out.set(
         zone.zone,
         run
-          ? { line: runToLine(run, series, standIn), source: `${describeRun(run)}; hours before it show the same hour one week earlier` }
+          ? { line: runToLine(run, series, weekEarlierLine(zone.mw, originIndex)), source: `${describeRun(run)}; hours before it show the same hour one week earlier` }
           : { line: emptyForecastLine(series.hours.length), source: latest.isPending ? 'Loading the forecast…' : 'No forecast for this zone' },
       );
     }
     return out;
-  }, [series, useStandIn, latest.data, latest.isPending, originIndex]);
+  }, [series, latest.data, latest.isPending, originIndex]);
 
-  return { forecasts, error: latest.isError && !useStandIn ? latest.error : null };
+  return { forecasts, error: latest.isError ? latest.error : null };
 }

@@ -1,7 +1,7 @@
 import { Text } from '@mantine/core';
+import { hourEndingLabel } from '@morrowline/shared';
 import { DateTime } from 'luxon';
 import { formatMw } from '../../../lib/format';
-import { hourEndingLabel } from '../../../lib/hour-ending';
 import type { LoadView } from '../model/zone-view';
 
 /** The values under the cursor, in words: the hour, actual, forecast and its 80 % band. */

@@ -1,6 +1,6 @@
 import { Group, Stack, Text, UnstyledButton } from '@mantine/core';
+import { hourEndingLabel } from '@morrowline/shared';
 import { formatMw, formatPercent } from '../../../lib/format';
-import { hourEndingLabel } from '../../../lib/hour-ending';
 import type { LoadView } from '../model/zone-view';
 import { FeedStateBadge } from './FeedStateBadge';
 

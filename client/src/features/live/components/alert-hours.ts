@@ -1,8 +1,5 @@
 import { DateTime } from 'luxon';
-import type { AlertDto } from '@morrowline/shared';
-import { hourEndingLabel } from '../../../lib/hour-ending';
-
-const HOUR_MS = 3_600_000;
+import { HOUR_MS, hourEndingLabel, type AlertDto } from '@morrowline/shared';
 
 /** "05-12 HE14–HE16 (3 h)": the alert's hours in the zone's own hour-ending terms. */
 export function alertHours(alert: AlertDto, timeZone: string): string {

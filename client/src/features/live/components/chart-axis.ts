@@ -1,5 +1,5 @@
+import { formatHourEnding, hourEndingNumber } from '@morrowline/shared';
 import { DateTime } from 'luxon';
-import { hourEndingNumber } from '../../../lib/hour-ending';
 
 const HOUR_S = 3600;
 
@@ -23,7 +23,7 @@ export function hourEndingSplits(min: number, max: number, timeZone: string, ste
 export function hourEndingTick(t: number, timeZone: string, step: number): string {
   const start = (t - HOUR_S) * 1000;
   const n = hourEndingNumber(start, timeZone);
-  const label = `HE${String(n).padStart(2, '0')}`;
+  const label = formatHourEnding(n);
   if (n > step) return label;
   return `${label}\n${DateTime.fromMillis(start, { zone: timeZone }).toFormat('ccc LL-dd')}`;
 }

@@ -1,11 +1,11 @@
+import { floorHour } from '@morrowline/shared';
 import { useEffect, useState } from 'react';
-import { HOUR_MS } from '../model/hours';
 
 /** Start of the current hour (epoch ms), moving on when the clock passes the hour. */
 export function useCurrentHour(): number {
-  const [hour, setHour] = useState(() => Math.floor(Date.now() / HOUR_MS) * HOUR_MS);
+  const [hour, setHour] = useState(() => floorHour(Date.now()));
   useEffect(() => {
-    const timer = setInterval(() => setHour(Math.floor(Date.now() / HOUR_MS) * HOUR_MS), 30_000);
+    const timer = setInterval(() => setHour(floorHour(Date.now())), 30_000);
     return () => clearInterval(timer);
   }, []);
   return hour;

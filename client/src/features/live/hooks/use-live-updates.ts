@@ -1,4 +1,4 @@
-import { DESK_EVENTS, type AlertDto, type FeedStatusDto, type LatestForecastsDto, type ReadingSeriesDto } from '@morrowline/shared';
+import { DESK_EVENTS, HOUR_MS, type AlertDto, type FeedStatusDto, type LatestForecastsDto, type ReadingSeriesDto } from '@morrowline/shared';
 import { notifications, notificationsStore } from '@mantine/notifications';
 import { useQueryClient } from '@tanstack/react-query';
 import { useEffect, useRef } from 'react';
@@ -52,7 +52,7 @@ export function useLiveUpdates(socket: DeskSocket = deskSocket): void {
       id: `alert-${alert.id}`,
       color: 'ember',
       title: known ? `Deviation alert widened: ${zoneName(alert.zone)}` : `Deviation alert: ${zoneName(alert.zone)}`,
-      message: `Load ${alert.peakDeviationPct >= 0 ? 'above' : 'below'} forecast by up to ${formatPercent(Math.abs(alert.peakDeviationPct))} for ${Math.round((Date.parse(alert.end) - Date.parse(alert.start)) / 3_600_000)} h (threshold ${formatPercent(alert.thresholdPct, 0)}).`,
+      message: `Load ${alert.peakDeviationPct >= 0 ? 'above' : 'below'} forecast by up to ${formatPercent(Math.abs(alert.peakDeviationPct))} for ${Math.round((Date.parse(alert.end) - Date.parse(alert.start)) / HOUR_MS)} h (threshold ${formatPercent(alert.thresholdPct, 0)}).`,
       autoClose: false,
       // Top centre: clear of the user's name and sign-out (top right) and of the alert list's
       // Acknowledge form (lower down), which a notification in a corner would cover.

@@ -1,5 +1,5 @@
-import { STALE_AFTER_HOURS, type DeskReadings, type FeedStatusDto, type ReadingSeriesDto } from '@morrowline/shared';
-import { HOUR_MS, hourIndex } from './hours';
+import { HOUR_MS, STALE_AFTER_HOURS, type DeskReadings, type FeedStatusDto, type ReadingSeriesDto } from '@morrowline/shared';
+import { hourIndex } from './hours';
 
 function later(a: string | null, b: string): string {
   return a === null || Date.parse(b) > Date.parse(a) ? b : a;

@@ -1,4 +1,4 @@
-export const HOUR_MS = 3_600_000;
+import { HOUR_MS } from '@morrowline/shared';
 
 /** Index of an hour in a series that starts at `fromMs`, or -1 when outside [0, length). */
 export function hourIndex(hour: string | number, fromMs: number, length: number): number {

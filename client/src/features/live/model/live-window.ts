@@ -1,8 +1,9 @@
+import { WEEK_HOURS } from '@morrowline/shared';
 import { DateTime } from 'luxon';
-import { BAND_WEEKS, WEEK_HOURS } from './seasonal-naive';
+import { BAND_WEEKS } from './week-earlier-line';
 
 export interface LiveWindow {
-  /** Readings are fetched from here: a week for the stand-in's lag and weeks for its bands. */
+  /** Readings are fetched from here: a week for the week-earlier line's lag and weeks for its bands. */
   historyFrom: string;
   /** The chart starts at local midnight two days before today: the last three operating days. */
   displayFrom: string;

@@ -1,4 +1,4 @@
-import type { FeedStatusDto, ReadingSeriesDto, ZoneDto } from '@morrowline/shared';
+import { HOUR_MS, type FeedStatusDto, type ReadingSeriesDto, type ZoneDto } from '@morrowline/shared';
 import { emptyForecastLine, type ForecastLine } from './forecast-line';
 import { systemTotal } from './system-total';
 
@@ -57,7 +57,7 @@ export interface ViewInputs {
 
 /** Index of the current hour in the series (may be past its end). */
 export function nowIndexOf(series: ReadingSeriesDto, nowHour: number): number {
-  return Math.floor((nowHour - Date.parse(series.from)) / 3_600_000);
+  return Math.floor((nowHour - Date.parse(series.from)) / HOUR_MS);
 }
 
 export function zoneViews({ series, zones, forecasts, status, nowHour }: ViewInputs): LoadView[] {

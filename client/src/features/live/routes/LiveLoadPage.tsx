@@ -1,10 +1,9 @@
 import { Card, Loader, Stack, Text, Title } from '@mantine/core';
-import { DEMO_TIME_ZONE } from '@morrowline/shared';
+import { DEMO_TIME_ZONE, may, operatingDayOf, operatingDayStart } from '@morrowline/shared';
 import { useMemo } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { ErrorNotice } from '../../../components/ErrorNotice';
 import { PageHeader } from '../../../components/PageHeader';
-import { operatingDayOf, operatingDayStart } from '../../../lib/hour-ending';
 import { useSignedInUser } from '../../auth';
 import { outageHoursOf, useOutages } from '../../outages';
 import { useZones } from '../../zones';
@@ -54,7 +53,7 @@ export function LiveLoadPage() {
   // The chosen zone's outage and bad-data windows, shaded on its chart (none for the system total).
   const outages = useOutages(selected && selected.key !== SYSTEM ? selected.key : null);
   const excluded = useMemo(() => (series.data && outages.data ? outageHoursOf(series.data.hours, outages.data) : undefined), [series.data, outages.data]);
-  const mayAcknowledge = user.role === 'operator' || user.role === 'supervisor';
+  const mayAcknowledge = may(user.role, 'forecast');
 
   return (
     <>

@@ -1,5 +1,5 @@
 import { Select, Stack, Text } from '@mantine/core';
-import { DEMO_TIME_ZONE } from '@morrowline/shared';
+import { DEMO_TIME_ZONE, may } from '@morrowline/shared';
 import { useMemo } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { ErrorNotice } from '../../../components/ErrorNotice';
@@ -24,7 +24,7 @@ export function RefitsPage() {
   const names = useMemo(() => new Map((zones.data ?? []).map((z) => [z.code, z.name])), [zones.data]);
   const code = params.get('zone');
   const zone = active.find((z) => z.code === code) ?? null;
-  const canAct = me.role === 'operator' || me.role === 'supervisor';
+  const canAct = may(me.role, 'forecast');
 
   return (
     <>

@@ -1,5 +1,6 @@
+import { HOUR_MS } from '@morrowline/shared';
+
 const MINUTE_MS = 60_000;
-const HOUR_MS = 60 * MINUTE_MS;
 
 export interface GateCountdown {
   /** "5 h 12 min to gate closure", "42 min to gate closure", "Gate closed". */

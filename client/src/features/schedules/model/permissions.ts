@@ -1,4 +1,4 @@
-import { EDITABLE_SCHEDULE_STATES, type ScheduleRevisionDto, type UserDto, type ZoneScheduleDto } from '@morrowline/shared';
+import { EDITABLE_SCHEDULE_STATES, may, type ScheduleRevisionDto, type UserDto, type ZoneScheduleDto } from '@morrowline/shared';
 
 type Viewer = Pick<UserDto, 'id' | 'role'>;
 
@@ -23,7 +23,7 @@ export interface ScheduleActions {
 }
 
 export function isForecaster(user: Viewer): boolean {
-  return user.role === 'operator' || user.role === 'supervisor';
+  return may(user.role, 'forecast');
 }
 
 export function isEditable(revision: ScheduleRevisionDto | null): revision is ScheduleRevisionDto {
@@ -32,7 +32,7 @@ export function isEditable(revision: ScheduleRevisionDto | null): revision is Sc
 
 export function scheduleActions(user: Viewer, zone: Pick<ZoneScheduleDto, 'working' | 'published' | 'gateClosed'>): ScheduleActions {
   const forecaster = isForecaster(user);
-  const supervisor = user.role === 'supervisor';
+  const supervisor = may(user.role, 'supervise');
   const working = zone.working;
   const editable = forecaster && isEditable(working);
   const submitted = working?.state === 'submitted';

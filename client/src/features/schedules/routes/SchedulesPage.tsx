@@ -1,5 +1,5 @@
 import { Button, Card, Group, Loader, MultiSelect, Paper, Stack, Tabs, Text, TextInput, Title } from '@mantine/core';
-import { DEMO_TIME_ZONE, DESK_EVENTS } from '@morrowline/shared';
+import { DEMO_TIME_ZONE, DESK_EVENTS, may } from '@morrowline/shared';
 import { useQueryClient } from '@tanstack/react-query';
 import { useMemo, useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
@@ -72,7 +72,7 @@ export function SchedulesPage() {
         title="Day-ahead schedule"
         description="The model forecast for an operating day, the operator's adjustments, and the way to approval and publication before gate closure."
         actions={
-          user.role === 'supervisor' && (
+          may(user.role, 'supervise') && (
             <Button variant="default" onClick={() => setSubscribersOpen(true)}>
               Subscribers
             </Button>

@@ -1,5 +1,5 @@
 import { Center, Group, Loader, SegmentedControl, Select, Stack, Text } from '@mantine/core';
-import { WORKBENCH_DEFAULT_WEEKS } from '@morrowline/shared';
+import { may, WORKBENCH_DEFAULT_WEEKS } from '@morrowline/shared';
 import { useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { ErrorNotice } from '../../../components/ErrorNotice';
@@ -39,7 +39,7 @@ export function WorkbenchPage() {
   const zone = params.get('zone');
   const stationarity = useStationarity(zone, Number(weeks));
   const model = useModelReport(zone, Number(weeks));
-  const canRun = me.role === 'operator' || me.role === 'supervisor';
+  const canRun = may(me.role, 'forecast');
   const active = (zones.data ?? []).filter((z) => z.active);
 
   return (

@@ -1,11 +1,12 @@
+import { WEEK_HOURS } from '@morrowline/shared';
 import { describe, expect, it } from 'vitest';
-import { MIN_ERRORS_FOR_BANDS, quantile, seasonalNaiveForecast, WEEK_HOURS } from './seasonal-naive';
+import { MIN_ERRORS_FOR_BANDS, quantile, weekEarlierLine } from './week-earlier-line';
 
-describe('seasonalNaiveForecast', () => {
+describe('weekEarlierLine', () => {
   it('forecasts each hour as the same hour one week earlier, with no forecast where that hour is missing', () => {
     const mw: (number | null)[] = Array.from({ length: WEEK_HOURS + 3 }, (_, i) => 100 + i);
     mw[1] = null;
-    const line = seasonalNaiveForecast(mw, WEEK_HOURS + 3);
+    const line = weekEarlierLine(mw, WEEK_HOURS + 3);
     expect(line.mean.slice(0, WEEK_HOURS).every((v) => v === null)).toBe(true);
     expect(line.mean[WEEK_HOURS]).toBe(100);
     expect(line.mean[WEEK_HOURS + 1]).toBeNull();
@@ -19,7 +20,7 @@ describe('seasonalNaiveForecast', () => {
     for (let i = 0; i < WEEK_HOURS; i++) mw.push(200 + ((i % 20) - 10));
     for (let i = 0; i < 24; i++) mw.push(null); // the coming day
     const origin = 2 * WEEK_HOURS;
-    const line = seasonalNaiveForecast(mw, origin);
+    const line = weekEarlierLine(mw, origin);
     const t = origin + 5; // a week after hour WEEK_HOURS + 5, whose load was 195
     expect(line.mean[t]).toBe(195);
     const width80 = (line.upper80[t] as number) - (line.lower80[t] as number);
@@ -34,7 +35,7 @@ describe('seasonalNaiveForecast', () => {
   it('draws no bands while there are too few errors to judge the spread', () => {
     const mw: (number | null)[] = Array.from({ length: WEEK_HOURS + MIN_ERRORS_FOR_BANDS - 1 }, () => 50);
     for (let i = 0; i < 5; i++) mw.push(null);
-    const line = seasonalNaiveForecast(mw, WEEK_HOURS + MIN_ERRORS_FOR_BANDS - 1);
+    const line = weekEarlierLine(mw, WEEK_HOURS + MIN_ERRORS_FOR_BANDS - 1);
     expect(line.mean[mw.length - 1]).toBe(50);
     expect(line.upper80[mw.length - 1]).toBeNull();
   });

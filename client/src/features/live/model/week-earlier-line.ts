@@ -1,6 +1,6 @@
+import { WEEK_HOURS } from '@morrowline/shared';
 import { emptyForecastLine, type ForecastLine } from './forecast-line';
 
-export const WEEK_HOURS = 168;
 /** How many weeks of past errors the bands are drawn from. */
 export const BAND_WEEKS = 4;
 /** Fewer errors than this and the spread says too little to draw bands. */
@@ -15,14 +15,15 @@ export function quantile(sorted: readonly number[], p: number): number {
 }
 
 /**
- * The weekly seasonal-naive forecast, the stand-in until a model run exists: the load of an hour
- * is forecast as the load of the same hour one week earlier. Its 80 % and 95 % bands come from the
- * empirical spread of that rule's own errors (actual − value a week before) over the last
+ * The week-earlier line of the live chart: each hour shows the load of the same hour one week
+ * earlier, the value the deviation alerts compare against where no forecast run covers the hour
+ * (the chart draws it for the hours before the zone's run starts). Its 80 % and 95 % bands come
+ * from the empirical spread of that rule's own errors (actual − value a week before) over the last
  * BAND_WEEKS weeks of hours before `originIndex` (the first hour without a reading yet).
  *
- * `mw` is an hourly series; the forecast is laid out on the same hours.
+ * `mw` is an hourly series; the line is laid out on the same hours.
  */
-export function seasonalNaiveForecast(mw: readonly (number | null)[], originIndex: number): ForecastLine {
+export function weekEarlierLine(mw: readonly (number | null)[], originIndex: number): ForecastLine {
   const line = emptyForecastLine(mw.length);
   const errors: number[] = [];
   for (let s = Math.max(WEEK_HOURS, originIndex - BAND_WEEKS * WEEK_HOURS); s < Math.min(originIndex, mw.length); s++) {
