@@ -16,7 +16,8 @@ server_pid=""
 
 # Stops the server and this bench's MariaDB whatever happened, and keeps the script's own exit
 # status: under `set -e`, a `wait` on the server it just killed (status 143) used to end the
-# script inside this handler, before MariaDB was stopped.
+# script inside this handler, before MariaDB was stopped. db.sh by its absolute path: the script
+# has moved into server/ by the time it ends.
 cleanup() {
   local rc=$?
   set +e
@@ -26,7 +27,7 @@ cleanup() {
     kill "$server_pid" 2>/dev/null
     wait "$server_pid" 2>/dev/null
   fi
-  bash scripts/db.sh stop bench >/dev/null 2>&1
+  bash "$ROOT/scripts/db.sh" stop bench >/dev/null 2>&1
   exit "$rc"
 }
 trap cleanup EXIT
@@ -34,8 +35,8 @@ trap 'exit 130' INT TERM
 
 npm_deps
 apt_install mariadb-server mariadb-client
-bash scripts/db.sh start bench "$db_port" >/dev/null || die "bench MariaDB did not start"
-bash scripts/db.sh reset bench "$db_port" >/dev/null || die "could not reset the bench database"
+bash "$ROOT/scripts/db.sh" start bench "$db_port" >/dev/null || die "bench MariaDB did not start"
+bash "$ROOT/scripts/db.sh" reset bench "$db_port" >/dev/null || die "could not reset the bench database"
 log "building shared, engine and server"
 npm run -s build -w shared || die "shared build failed"
 npm run -s build -w engine || die "engine build failed"

@@ -13,11 +13,11 @@ pids=()
 # script gets the signal (Ctrl-C in a terminal reaches the whole group anyway).
 kill_tree() { local child; for child in $(pgrep -P "$1"); do kill_tree "$child"; done; kill "$1" 2>/dev/null; }
 # Further INT/TERM are ignored while stopping (a Ctrl-C arrives twice: from the terminal and from npm).
-stop_all() { trap '' INT TERM; trap - EXIT; for pid in "${pids[@]}"; do kill_tree "$pid"; done; wait; bash scripts/db.sh stop dev; exit 0; }
+stop_all() { trap '' INT TERM; trap - EXIT; for pid in "${pids[@]}"; do kill_tree "$pid"; done; wait; bash "$ROOT/scripts/db.sh" stop dev; exit 0; }
 trap stop_all INT TERM EXIT
 
 npm_deps
-bash scripts/db.sh start dev "$DB_PORT" || die "MariaDB did not start"
+bash "$ROOT/scripts/db.sh" start dev "$DB_PORT" || die "MariaDB did not start"
 # shared, the engine and the server once before the watchers start (the client is served from source by Vite)
 npm run -s build -w shared || die "shared build failed"
 npm run -s build -w engine || die "engine build failed"

@@ -30,7 +30,7 @@ stop_all() {
     sleep 0.5
   done
   for pid in "${pids[@]}"; do kill -KILL -- "-$pid" 2>/dev/null; done
-  bash scripts/db.sh stop dev
+  bash "$ROOT/scripts/db.sh" stop dev
   step "stopped"
   exit "$status"
 }
@@ -39,7 +39,7 @@ trap stop_all INT TERM EXIT
 step "checking npm dependencies"
 npm_deps
 step "starting MariaDB"
-bash scripts/db.sh start dev "$DB_PORT" || die "MariaDB did not start"
+bash "$ROOT/scripts/db.sh" start dev "$DB_PORT" || die "MariaDB did not start"
 
 # A signing secret of this installation's own, made once and kept out of git.
 secret_file="$ROOT/.data/jwt-secret"

@@ -23,7 +23,7 @@ cleanup() {
   trap '' INT TERM
   for pid in "${pids[@]}"; do kill "$pid" 2>/dev/null; done
   wait 2>/dev/null
-  bash scripts/db.sh stop test >/dev/null 2>&1 || true
+  bash "$ROOT/scripts/db.sh" stop test >/dev/null 2>&1 || true
 }
 trap cleanup EXIT
 trap 'exit 130' INT TERM
@@ -69,8 +69,8 @@ if want integration || want e2e; then
   export SMTP_PORT="${TEST_SMTP_PORT:-2526}" MAIL_FAKE_DIR="$ROOT/.data/mail/test"
   node scripts/smtp-fake.mjs --port "$SMTP_PORT" --dir "$MAIL_FAKE_DIR" >"$reports/smtp-fake.log" 2>&1 &
   pids+=($!)
-  bash scripts/db.sh start test "$TEST_DB_PORT" || die "test MariaDB did not start"
-  bash scripts/db.sh reset test "$TEST_DB_PORT" || die "could not reset the test database"
+  bash "$ROOT/scripts/db.sh" start test "$TEST_DB_PORT" || die "test MariaDB did not start"
+  bash "$ROOT/scripts/db.sh" reset test "$TEST_DB_PORT" || die "could not reset the test database"
 fi
 
 if want integration; then
@@ -85,7 +85,7 @@ if want client; then
 fi
 
 if want e2e; then
-  bash scripts/db.sh reset test "$TEST_DB_PORT" >/dev/null
+  bash "$ROOT/scripts/db.sh" reset test "$TEST_DB_PORT" >/dev/null
   log "building server and client for the browser tests"
   if npm run -s build -w server && npm run -s build -w client; then
     (cd server && node dist/database/manage.js migrate >/dev/null && node dist/database/manage.js seed >/dev/null) || die "test database set-up failed"
