@@ -3,12 +3,12 @@ import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import { Throttle } from '@nestjs/throttler';
 import type { LoginResponse, UserDto } from '@morrowline/shared';
 import { UsersService, toUserDto } from '../users/users.service';
-import type { AuthUser } from './auth-user';
+import type { AuthUser } from '../common/auth-user';
 import { AuthService } from './auth.service';
-import { CurrentUser } from './current-user.decorator';
+import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { LoginDto } from './dto/login.dto';
 import { LoginThrottlerGuard } from './guards/login-throttler.guard';
-import { Public, SignedIn } from './roles.decorator';
+import { Public, SignedIn } from '../common/decorators/roles.decorator';
 
 @ApiTags('auth')
 @Controller('auth')

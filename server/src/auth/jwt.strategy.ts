@@ -4,7 +4,7 @@ import { PassportStrategy } from '@nestjs/passport';
 import { ExtractJwt, Strategy } from 'passport-jwt';
 import type { AppConfig } from '../config/configuration';
 import { UsersService } from '../users/users.service';
-import type { AccessTokenPayload, AuthUser } from './auth-user';
+import type { AccessTokenPayload, AuthUser } from '../common/auth-user';
 
 /**
  * Bearer tokens signed with JWT_SECRET. The user is re-read on each request so that a

@@ -2,7 +2,7 @@ import { Injectable } from '@nestjs/common';
 import { JwtService } from '@nestjs/jwt';
 import type { Role } from '@morrowline/shared';
 import { UsersService } from '../users/users.service';
-import type { AccessTokenPayload, AuthUser } from './auth-user';
+import type { AccessTokenPayload, AuthUser } from '../common/auth-user';
 
 /**
  * Checks the access token a desk presents when its socket connects (handshake `auth.token`).

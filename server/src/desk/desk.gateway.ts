@@ -3,7 +3,7 @@ import { OnEvent } from '@nestjs/event-emitter';
 import { type OnGatewayConnection, WebSocketGateway, WebSocketServer } from '@nestjs/websockets';
 import { ROLES, DESK_NAMESPACE, DESK_EVENTS, type AlertDto, type DeskHello, type DeskReadings, type DeskScheduleEvent, type ForecastRunDto, type RefitJobDto } from '@morrowline/shared';
 import type { Namespace, Socket } from 'socket.io';
-import type { AuthUser } from '../auth/auth-user';
+import type { AuthUser } from '../common/auth-user';
 import { SocketAuthService } from '../auth/socket-auth.service';
 import { DOMAIN_EVENTS, type ReadingsStored } from '../events/domain-events';
 

@@ -16,7 +16,7 @@ import {
   type ZoneScheduleDto,
 } from '@morrowline/shared';
 import { AuditService } from '../audit/audit.service';
-import type { AuthUser } from '../auth/auth-user';
+import type { AuthUser } from '../common/auth-user';
 import { DOMAIN_EVENTS } from '../events/domain-events';
 import { DomainEventsPublisher } from '../events/domain-events.publisher';
 import { ForecastsService } from '../forecasts/forecasts.service';

@@ -2,7 +2,7 @@ import { EntityManager, UniqueConstraintViolationException } from '@mikro-orm/ma
 import { BadRequestException, ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import type { CreateUserRequest, UpdateUserRequest, UserDto } from '@morrowline/shared';
 import { AuditService, type Actor } from '../audit/audit.service';
-import { hashPassword } from '../auth/password';
+import { hashPassword } from './password';
 import { User } from './entities/user.entity';
 
 export function toUserDto(user: User): UserDto {
