@@ -3,8 +3,8 @@ import { OnEvent } from '@nestjs/event-emitter';
 import { type OnGatewayConnection, WebSocketGateway, WebSocketServer } from '@nestjs/websockets';
 import { ROLES, DESK_NAMESPACE, DESK_EVENTS, type AlertDto, type DeskHello, type DeskReadings, type DeskScheduleEvent, type ForecastRunDto, type RefitJobDto } from '@morrowline/shared';
 import type { Namespace, Socket } from 'socket.io';
-import type { AuthUser } from '../common/auth-user';
 import { SocketAuthService } from '../auth/socket-auth.service';
+import type { AuthUser } from '../common/auth-user';
 import { DOMAIN_EVENTS, type ReadingsStored } from '../events/domain-events';
 
 /**
