@@ -3,7 +3,7 @@
  * lh (no missing values) and presidents (missing values, na.action = na.pass).
  */
 import fixture from './fixtures/r-arima.json';
-import { acf, pacf } from './acf';
+import { acf, pacf } from './series/acf';
 
 const nums = (a: Array<number | null>) => a.map((v) => (v === null ? NaN : v));
 

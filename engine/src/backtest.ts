@@ -15,7 +15,7 @@ import { accuracy, Accuracy } from './metrics';
 import { IntervalForecast } from './forecast';
 import { ModelChoice, ModelSummary, PipelineOptions, runPipeline } from './pipeline';
 import { seasonalNaive } from './seasonal-naive';
-import { withExcluded } from './series';
+import { withExcluded } from './series/series';
 
 export type BacktestMethod = 'auto' | 'seasonal-naive' | ModelChoice;
 

@@ -6,8 +6,8 @@
  */
 import fc from 'fast-check';
 import { difference, differencePolynomial, extendForecast, integrate, integrationWeights } from './differencing';
-import { acf } from './acf';
-import { meanFinite, varianceFinite } from './series';
+import { acf } from './series/acf';
+import { meanFinite, varianceFinite } from './series/series';
 
 const lagSets = fc.constantFrom([1], [24], [168], [24, 168], [1, 12], [1, 24]);
 

@@ -13,7 +13,7 @@
 import { difference, differencePolynomial, extendForecast, integratedVariance } from './differencing';
 import { applyArma, ArmaFit, ArmaSpec, fitArma, FitOptions } from './arma/fit';
 import { normalQuantile } from './distributions';
-import { meanFinite, toSeries } from './series';
+import { meanFinite, toSeries } from './series/series';
 
 export interface ArimaSpec extends ArmaSpec {
   /** differencing lags, e.g. [24, 168]; [] for none */

@@ -1,7 +1,7 @@
 /** Public API of the forecasting engine (pure TypeScript, no framework, no I/O). */
-export * from './series';
+export * from './series/series';
 export * from './differencing';
-export * from './acf';
+export * from './series/acf';
 export * from './ljung-box';
 export * from './metrics';
 export * from './seasonal-naive';

@@ -3,9 +3,9 @@
  * with a chi-square on h − fitdf degrees of freedom (fitdf = p + q of the fitted ARMA).
  * n is the number of finite values; autocorrelations as in ./acf (R's `Box.test` convention).
  */
-import { acf } from './acf';
+import { acf } from './series/acf';
 import { chiSquareUpper } from './distributions';
-import { countFinite } from './series';
+import { countFinite } from './series/series';
 
 export interface LjungBoxResult {
   lag: number;

@@ -15,14 +15,14 @@
  * cannot be fitted, produces a non-finite value, or loses to the weekly seasonal-naive forecast
  * on the test days, the pipeline returns the seasonal-naive forecast and says why.
  */
-import { acf, acfBand } from './acf';
+import { acf, acfBand } from './series/acf';
 import { describeDifferencing, differenceOrder } from './differencing';
 import { applyArima, ArimaFit, fitArima, forecastArima, IntervalForecast } from './forecast';
 import { ljungBox, LjungBoxResult } from './ljung-box';
 import { accuracy } from './metrics';
 import { seasonalNaive } from './seasonal-naive';
 import { Criterion, selectOrder } from './select';
-import { countFinite, SeriesInput, withExcluded } from './series';
+import { countFinite, SeriesInput, withExcluded } from './series/series';
 import { difference } from './differencing';
 import { Coefficient } from './arma/fit';
 

@@ -2,7 +2,7 @@
 import taylor from './fixtures/taylor-hourly.json';
 import { rollingStats } from './rolling';
 import { stationarityReport } from './stationarity';
-import { meanFinite, varianceFinite } from './series';
+import { meanFinite, varianceFinite } from './series/series';
 
 describe('rolling mean and variance', () => {
   it('matches a direct computation on every window, with missing hours skipped', () => {

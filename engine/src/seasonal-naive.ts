@@ -6,7 +6,7 @@
  * √k times the standard deviation of y_t − y_{t−168} over the history.
  */
 import { IntervalForecast, Z80, Z95 } from './forecast';
-import { meanFinite } from './series';
+import { meanFinite } from './series/series';
 
 export const WEEK = 168;
 export const DAY = 24;

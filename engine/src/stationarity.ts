@@ -6,12 +6,12 @@
  * both tests, e.g. Maddala & Kim 1998, §4.5); a daily or weekly pattern is reported when the ACF
  * at lag 24 or 168 exceeds 0.3.
  */
-import { acf } from './acf';
+import { acf } from './series/acf';
 import { adfTest, AdfResult } from './adf';
 import { describeDifferencing, difference } from './differencing';
 import { kpssTest, KpssResult } from './kpss';
 import { rollingStats } from './rolling';
-import { meanFinite } from './series';
+import { meanFinite } from './series/series';
 
 export interface SeriesCheck {
   label: string;

@@ -10,6 +10,7 @@ import { AuthModule } from './auth/auth.module';
 import { configFactory, type AppConfig } from './config/configuration';
 import { ormConfig } from './database/mikro-orm.config';
 import { DeskModule } from './desk/desk.module';
+import { EventsModule } from './events/events.module';
 import { FeedsModule } from './feeds/feeds.module';
 import { HandoverModule } from './handover/handover.module';
 import { ForecastsModule } from './forecasts/forecasts.module';
@@ -31,6 +32,7 @@ import { ZonesModule } from './zones/zones.module';
       useFactory: (config: ConfigService) => ormConfig(config.getOrThrow<AppConfig>('app')),
     }),
     ScheduleModule.forRoot(),
+    EventsModule,
     AuditModule,
     AuthModule,
     UsersModule,

@@ -26,7 +26,7 @@ import { armaStateSpace, ArmaStateSpace } from './state-space';
 import { SteadyPass, steadyStateScore } from './steady-score';
 import { stateSpaceWithTangents } from './state-space-tangents';
 import { fromInvertible, fromStationary, toInvertible, toStationary, toStationaryInto } from './transform';
-import { countFinite, meanFinite, toSeries, varianceFinite } from '../series';
+import { countFinite, meanFinite, toSeries, varianceFinite } from '../series/series';
 
 export interface ArmaSpec {
   p: number;

@@ -8,7 +8,7 @@
  * values). Estimates outside the stationary / invertible region are shrunk back into it.
  */
 import { Matrix, solve } from 'ml-matrix';
-import { acf, yuleWalker } from '../acf';
+import { acf, yuleWalker } from '../series/acf';
 import { isInvertible, isStationary } from './transform';
 
 export interface HrOrders {

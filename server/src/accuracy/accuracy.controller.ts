@@ -1,7 +1,7 @@
 import { Controller, Get, Query } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import { PERMISSIONS, type AccuracyReportDto } from '@morrowline/shared';
-import { Roles } from '../auth/roles.decorator';
+import { Roles } from '../common/decorators/roles.decorator';
 import { AccuracyQueryDto } from './dto/accuracy-query.dto';
 import { AccuracyService } from './accuracy.service';
 

@@ -1,14 +1,15 @@
 import { EntityManager } from '@mikro-orm/mariadb';
-import { ConflictException, Inject, Injectable, Logger, NotFoundException, type OnModuleInit } from '@nestjs/common';
-import { DESK_EVENTS, HOUR_MS, type AlertDto, type AlertState } from '@morrowline/shared';
+import { ConflictException, Injectable, Logger, NotFoundException } from '@nestjs/common';
+import { OnEvent } from '@nestjs/event-emitter';
+import { HOUR_MS, type AlertDto, type AlertState } from '@morrowline/shared';
 import { AuditService, type Actor } from '../audit/audit.service';
-import { DeskGateway } from '../desk/desk.gateway';
-import type { StoredRow } from '../readings/readings.repository';
+import { DOMAIN_EVENTS, type ReadingsStored } from '../events/domain-events';
+import { DomainEventsPublisher } from '../events/domain-events.publisher';
+import { StoredForecastLookup } from '../forecasts/stored-forecast.lookup';
 import { ReadingsService } from '../readings/readings.service';
 import { Zone } from '../zones/entities/zone.entity';
 import { deviationRuns } from './deviation';
 import { DeviationAlert } from './entities/deviation-alert.entity';
-import { FORECAST_LOOKUP, type ForecastLookup } from './forecast-lookup';
 
 /**
  * Only hours this recent raise alerts: an alert is for the desk on shift, not for a backfill of
@@ -34,12 +35,13 @@ export function toAlertDto(alert: DeviationAlert): AlertDto {
 }
 
 /**
- * Deviation alerts. After each stored batch the hours it touched are compared with the current
- * forecast (ForecastLookup); a run of the zone's N consecutive hours beyond its threshold raises
- * an alert, pushed to desks at once. Evaluations run one at a time, off the ingest path.
+ * Deviation alerts. After each stored batch (the readings-stored event) the hours it touched are
+ * compared with the current forecast (StoredForecastLookup); a run of the zone's N consecutive
+ * hours beyond its threshold raises an alert, announced at once. Evaluations run one at a time,
+ * off the ingest path.
  */
 @Injectable()
-export class AlertsService implements OnModuleInit {
+export class AlertsService {
   private readonly logger = new Logger(AlertsService.name);
   private readonly pending = new Map<number, Set<number>>();
   private running: Promise<void> | null = null;
@@ -48,22 +50,25 @@ export class AlertsService implements OnModuleInit {
     private readonly em: EntityManager,
     private readonly readings: ReadingsService,
     private readonly audit: AuditService,
-    private readonly desks: DeskGateway,
-    @Inject(FORECAST_LOOKUP) private readonly forecasts: ForecastLookup,
+    private readonly events: DomainEventsPublisher,
+    private readonly forecasts: StoredForecastLookup,
   ) {}
 
-  onModuleInit(): void {
-    this.readings.onStored((rows) => this.enqueue(rows));
-  }
-
-  /** Notes the hours to look at; the evaluation follows as soon as the previous one is done. */
-  enqueue(rows: readonly StoredRow[]): void {
+  /**
+   * Notes the hours of a stored batch to look at; the evaluation follows as soon as the previous
+   * one is done. Called while the readings are published, so it only queues.
+   */
+  @OnEvent(DOMAIN_EVENTS.readingsStored)
+  enqueue(stored: ReadingsStored): void {
     const since = Math.floor(Date.now() / HOUR_MS) * HOUR_MS - ALERT_LOOKBACK_HOURS * HOUR_MS;
-    for (const row of rows) {
-      if (row.hourStart < since) continue;
-      let hours = this.pending.get(row.zoneId);
-      if (!hours) this.pending.set(row.zoneId, (hours = new Set()));
-      hours.add(row.hourStart);
+    for (const zone of stored.zones) {
+      for (const hour of zone.hours) {
+        const hourStart = Date.parse(hour);
+        if (hourStart < since) continue;
+        let hours = this.pending.get(zone.zoneId);
+        if (!hours) this.pending.set(zone.zoneId, (hours = new Set()));
+        hours.add(hourStart);
+      }
     }
     if (this.pending.size > 0 && !this.running) this.running = this.drain();
   }
@@ -135,7 +140,7 @@ export class AlertsService implements OnModuleInit {
       this.audit.stage(tx, null, { action: 'alert.raise', subjectType: 'alert', subjectId: created.id, after: toAlertDto(created) });
       return created;
     });
-    if (alert) this.desks.broadcast(DESK_EVENTS.alertRaised, toAlertDto(alert));
+    if (alert) this.events.publish(DOMAIN_EVENTS.alertRaised, toAlertDto(alert));
   }
 
   async list(state?: AlertState, zone?: string, limit = 200): Promise<AlertDto[]> {
@@ -161,7 +166,7 @@ export class AlertsService implements OnModuleInit {
       this.audit.stage(tx, actor, { action: 'alert.acknowledge', subjectType: 'alert', subjectId: alert.id, before, after, reason: alert.comment });
       return after;
     });
-    this.desks.broadcast(DESK_EVENTS.alertAcknowledged, dto);
+    this.events.publish(DOMAIN_EVENTS.alertAcknowledged, dto);
     return dto;
   }
 }

@@ -2,13 +2,13 @@ import { Body, Controller, Get, HttpCode, Ip, Post, UseGuards } from '@nestjs/co
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import { Throttle } from '@nestjs/throttler';
 import type { LoginResponse, UserDto } from '@morrowline/shared';
+import type { AuthUser } from '../common/auth-user';
+import { CurrentUser } from '../common/decorators/current-user.decorator';
+import { Public, SignedIn } from '../common/decorators/roles.decorator';
 import { UsersService, toUserDto } from '../users/users.service';
-import type { AuthUser } from './auth-user';
 import { AuthService } from './auth.service';
-import { CurrentUser } from './current-user.decorator';
 import { LoginDto } from './dto/login.dto';
 import { LoginThrottlerGuard } from './guards/login-throttler.guard';
-import { Public, SignedIn } from './roles.decorator';
 
 @ApiTags('auth')
 @Controller('auth')

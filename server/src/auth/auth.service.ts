@@ -3,10 +3,10 @@ import { ConfigService } from '@nestjs/config';
 import { JwtService } from '@nestjs/jwt';
 import type { LoginResponse } from '@morrowline/shared';
 import { AuditService } from '../audit/audit.service';
+import type { AccessTokenPayload, AuthUser } from '../common/auth-user';
 import type { AppConfig } from '../config/configuration';
+import { decoyHash, verifyPassword } from '../users/password';
 import { toUserDto, UsersService } from '../users/users.service';
-import type { AccessTokenPayload, AuthUser } from './auth-user';
-import { decoyHash, verifyPassword } from './password';
 
 /** One answer for every failed sign-in: it never says whether the e-mail or the password was wrong. */
 const BAD_CREDENTIALS = 'E-mail or password is not right';

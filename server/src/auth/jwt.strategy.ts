@@ -2,9 +2,9 @@ import { Injectable, UnauthorizedException } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { PassportStrategy } from '@nestjs/passport';
 import { ExtractJwt, Strategy } from 'passport-jwt';
+import type { AccessTokenPayload, AuthUser } from '../common/auth-user';
 import type { AppConfig } from '../config/configuration';
 import { UsersService } from '../users/users.service';
-import type { AccessTokenPayload, AuthUser } from './auth-user';
 
 /**
  * Bearer tokens signed with JWT_SECRET. The user is re-read on each request so that a

@@ -1,8 +1,8 @@
 import { Injectable } from '@nestjs/common';
 import { JwtService } from '@nestjs/jwt';
 import type { Role } from '@morrowline/shared';
+import type { AccessTokenPayload, AuthUser } from '../common/auth-user';
 import { UsersService } from '../users/users.service';
-import type { AccessTokenPayload, AuthUser } from './auth-user';
 
 /**
  * Checks the access token a desk presents when its socket connects (handshake `auth.token`).

@@ -29,10 +29,12 @@ export function batchPoolSize(cores = availableParallelism(), env: NodeJS.Proces
 }
 
 /**
- * The file piscina loads in each thread: the compiled worker next to this file when there is
- * one (node dist/main.js), otherwise the bootstrap that registers tsx for the TypeScript source.
+ * The file piscina loads in each thread, the worker entry at the top of the source tree (it
+ * imports the features' task tables, so the pool refers to it by name only): the compiled worker
+ * when there is one (node dist/main.js), otherwise the bootstrap that registers tsx for the
+ * TypeScript source.
  */
-export function workerFilename(dir = __dirname): string {
+export function workerFilename(dir = path.join(__dirname, '..')): string {
   const compiled = path.join(dir, 'compute.worker.js');
   if (existsSync(compiled)) return compiled;
   return path.join(dir, 'compute.worker.bootstrap.js');

@@ -1,4 +1,4 @@
-import { DEFAULT_JWT_SECRET, loadConfig } from './configuration';
+import { DEFAULT_JWT_SECRET, loadConfig, parseShiftStarts } from './configuration';
 
 describe('loadConfig', () => {
   it('has safe development defaults: loopback, CORS closed', () => {
@@ -27,5 +27,13 @@ describe('loadConfig', () => {
       'https://a.example',
       'https://b.example',
     ]);
+  });
+});
+
+describe('shift pattern', () => {
+  it('validates the configured pattern', () => {
+    expect(parseShiftStarts('14:00, 06:00,22:00')).toEqual(['06:00', '14:00', '22:00']);
+    expect(() => parseShiftStarts('6am')).toThrow(/not HH:mm/);
+    expect(() => parseShiftStarts('06:00,06:00')).toThrow(/repeats/);
   });
 });

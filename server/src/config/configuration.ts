@@ -1,5 +1,4 @@
 import { IANAZone } from 'luxon';
-import { parseShiftStarts } from '../handover/shifts';
 
 /**
  * Configuration, read from the environment once at start-up and validated. Every variable has a
@@ -38,6 +37,18 @@ function timeZone(env: NodeJS.ProcessEnv, key: string, fallback: string): string
   const value = env[key] ?? fallback;
   if (!IANAZone.isValidZone(value)) throw new Error(`Configuration: ${key} must be an IANA time zone, got "${value}"`);
   return value;
+}
+
+/** The shift pattern's local start times ("06:00,14:00,22:00"), sorted. */
+export function parseShiftStarts(raw: string): string[] {
+  const starts = raw.split(',').map((s) => s.trim()).filter(Boolean);
+  if (starts.length === 0) throw new Error('Configuration: SHIFT_STARTS needs at least one HH:mm time');
+  for (const start of starts) {
+    if (!/^([01]\d|2[0-3]):[0-5]\d$/.test(start)) throw new Error(`Configuration: SHIFT_STARTS has "${start}", which is not HH:mm`);
+  }
+  const sorted = [...starts].sort();
+  if (new Set(sorted).size !== sorted.length) throw new Error('Configuration: SHIFT_STARTS repeats a time');
+  return sorted;
 }
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {

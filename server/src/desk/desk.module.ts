@@ -1,8 +1,7 @@
-import { Global, Module } from '@nestjs/common';
+import { Module } from '@nestjs/common';
 import { AuthModule } from '../auth/auth.module';
 import { DeskGateway } from './desk.gateway';
 
-/** Global: features push to desks through DeskGateway.broadcast. */
-@Global()
-@Module({ imports: [AuthModule], providers: [DeskGateway], exports: [DeskGateway] })
+/** The desks' socket: it hears the domain events and pushes them to desks (nothing injects it). */
+@Module({ imports: [AuthModule], providers: [DeskGateway] })
 export class DeskModule {}

@@ -1,9 +1,9 @@
 import { Body, Controller, Get, HttpCode, Param, ParseIntPipe, Post } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import { PERMISSIONS, type CreatedFeedKey, type FeedKeyDto } from '@morrowline/shared';
-import type { AuthUser } from '../auth/auth-user';
-import { CurrentUser } from '../auth/current-user.decorator';
-import { Roles } from '../auth/roles.decorator';
+import type { AuthUser } from '../common/auth-user';
+import { CurrentUser } from '../common/decorators/current-user.decorator';
+import { Roles } from '../common/decorators/roles.decorator';
 import { CreateFeedKeyDto, RevokeFeedKeyDto } from './dto/feed-key.dto';
 import { FeedKeysService } from './feed-keys.service';
 

@@ -1,7 +1,7 @@
 import { Controller, Get, Query } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import type { LatestForecastsDto } from '@morrowline/shared';
-import { SignedIn } from '../auth/roles.decorator';
+import { SignedIn } from '../common/decorators/roles.decorator';
 import { LatestForecastsQueryDto } from './dto/forecasts.dto';
 import { ForecastsService } from './forecasts.service';
 

@@ -1,7 +1,8 @@
 import { EntityManager } from '@mikro-orm/mariadb';
 import { Injectable } from '@nestjs/common';
-import { DESK_EVENTS, HOUR_MS, type ForecastRunDto, type LatestForecastsDto } from '@morrowline/shared';
-import { DeskGateway } from '../desk/desk.gateway';
+import { HOUR_MS, type ForecastRunDto, type LatestForecastsDto } from '@morrowline/shared';
+import { DOMAIN_EVENTS } from '../events/domain-events';
+import { DomainEventsPublisher } from '../events/domain-events.publisher';
 import { floorAtZero, seasonalNaive, type IntervalForecast } from '@morrowline/engine';
 import { OutagesService } from '../outages/outages.service';
 import { ReadingsService } from '../readings/readings.service';
@@ -49,7 +50,7 @@ export function toForecastRunDto(run: ForecastRun, zone: string, from?: number, 
 }
 
 /**
- * Forecast runs: stored by the refit jobs (inside their transaction), pushed to desks, and read
+ * Forecast runs: stored by the refit jobs (inside their transaction), then announced, and read
  * as "the latest per zone". A zone without a run gets the weekly seasonal-naive stand-in from its
  * readings, with outage hours left out.
  */
@@ -59,7 +60,7 @@ export class ForecastsService {
     private readonly em: EntityManager,
     private readonly readings: ReadingsService,
     private readonly outages: OutagesService,
-    private readonly desks: DeskGateway,
+    private readonly events: DomainEventsPublisher,
   ) {}
 
   /** Adds a run to a transaction's unit of work; the caller flushes and then calls `announce`. */
@@ -83,8 +84,9 @@ export class ForecastsService {
     return entity;
   }
 
+  /** Tells listeners of a stored run: call it after the transaction that staged the run has committed. */
   announce(run: ForecastRun, zone: string): void {
-    this.desks.broadcast(DESK_EVENTS.forecast, toForecastRunDto(run, zone));
+    this.events.publish(DOMAIN_EVENTS.forecastIssued, toForecastRunDto(run, zone));
   }
 
   async latestRun(zoneId: number): Promise<ForecastRun | null> {

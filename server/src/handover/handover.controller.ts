@@ -1,9 +1,9 @@
 import { Body, Controller, Get, Param, ParseIntPipe, Post, Query } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import { PERMISSIONS, type CurrentShiftDto, type HandoverDraftDto, type HandoverNoteDto, type HandoverNoteWithEventsDto, type Page } from '@morrowline/shared';
-import type { AuthUser } from '../auth/auth-user';
-import { CurrentUser } from '../auth/current-user.decorator';
-import { Roles, SignedIn } from '../auth/roles.decorator';
+import type { AuthUser } from '../common/auth-user';
+import { CurrentUser } from '../common/decorators/current-user.decorator';
+import { Roles, SignedIn } from '../common/decorators/roles.decorator';
 import { AcknowledgeHandoverDto, CreateHandoverDto, HandoverSearchDto } from './dto/create-handover.dto';
 import { HandoverService } from './handover.service';
 

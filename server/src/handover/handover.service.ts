@@ -12,7 +12,7 @@ import {
   type Page,
 } from '@morrowline/shared';
 import { AuditService } from '../audit/audit.service';
-import type { AuthUser } from '../auth/auth-user';
+import type { AuthUser } from '../common/auth-user';
 import type { AppConfig } from '../config/configuration';
 import { User } from '../users/entities/user.entity';
 import { HandoverItem } from './entities/handover-item.entity';

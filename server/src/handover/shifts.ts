@@ -16,17 +16,6 @@ const SHIFT_NAMES_BY_COUNT: Record<number, string[]> = {
   3: ['Early', 'Late', 'Night'],
 };
 
-export function parseShiftStarts(raw: string): string[] {
-  const starts = raw.split(',').map((s) => s.trim()).filter(Boolean);
-  if (starts.length === 0) throw new Error('Configuration: SHIFT_STARTS needs at least one HH:mm time');
-  for (const start of starts) {
-    if (!/^([01]\d|2[0-3]):[0-5]\d$/.test(start)) throw new Error(`Configuration: SHIFT_STARTS has "${start}", which is not HH:mm`);
-  }
-  const sorted = [...starts].sort();
-  if (new Set(sorted).size !== sorted.length) throw new Error('Configuration: SHIFT_STARTS repeats a time');
-  return sorted;
-}
-
 function shiftName(pattern: ShiftPattern, index: number): string {
   return SHIFT_NAMES_BY_COUNT[pattern.starts.length]?.[index] ?? `Shift ${index + 1}`;
 }

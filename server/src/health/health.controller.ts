@@ -2,7 +2,7 @@ import { EntityManager } from '@mikro-orm/mariadb';
 import { Controller, Get } from '@nestjs/common';
 import { ApiTags } from '@nestjs/swagger';
 import type { HealthDto } from '@morrowline/shared';
-import { Public } from '../auth/roles.decorator';
+import { Public } from '../common/decorators/roles.decorator';
 
 const VERSION: string = (require('../../package.json') as { version: string }).version;
 

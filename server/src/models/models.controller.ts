@@ -1,9 +1,9 @@
 import { Body, Controller, Get, HttpCode, Param, ParseIntPipe, Post, Query } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import { PERMISSIONS, type ModelCompareDto, type ModelVersionDto, type RefitJobDto } from '@morrowline/shared';
-import type { AuthUser } from '../auth/auth-user';
-import { CurrentUser } from '../auth/current-user.decorator';
-import { Roles, SignedIn } from '../auth/roles.decorator';
+import type { AuthUser } from '../common/auth-user';
+import { CurrentUser } from '../common/decorators/current-user.decorator';
+import { Roles, SignedIn } from '../common/decorators/roles.decorator';
 import { ModelsQueryDto, PromoteModelDto, RefitsQueryDto, StartRefitDto } from './dto/models.dto';
 import { ModelsService } from './models.service';
 import { RefitsService } from './refits.service';

@@ -3,11 +3,12 @@ import { BadRequestException, Injectable, Logger, NotFoundException, type OnAppl
 import { ConfigService } from '@nestjs/config';
 import { SchedulerRegistry } from '@nestjs/schedule';
 import { CronJob } from 'cron';
-import { DESK_EVENTS, HOUR_MS, type RefitJobDto, type RefitJobState, type RefitTrigger } from '@morrowline/shared';
+import { HOUR_MS, type RefitJobDto, type RefitJobState, type RefitTrigger } from '@morrowline/shared';
 import { AuditService, type Actor } from '../audit/audit.service';
 import { ComputeService } from '../compute/compute.service';
 import type { AppConfig } from '../config/configuration';
-import { DeskGateway } from '../desk/desk.gateway';
+import { DOMAIN_EVENTS } from '../events/domain-events';
+import { DomainEventsPublisher } from '../events/domain-events.publisher';
 import { forecastHorizon } from '../forecasts/forecast-horizon';
 import { ForecastsService } from '../forecasts/forecasts.service';
 import { Reading } from '../readings/entities/reading.entity';
@@ -55,7 +56,7 @@ export class RefitsService implements OnApplicationBootstrap, OnApplicationShutd
     private readonly em: EntityManager,
     private readonly audit: AuditService,
     private readonly compute: ComputeService,
-    private readonly desks: DeskGateway,
+    private readonly events: DomainEventsPublisher,
     private readonly forecasts: ForecastsService,
     private readonly history: ZoneHistoryLoader,
     private readonly scheduler: SchedulerRegistry,
@@ -207,7 +208,7 @@ export class RefitsService implements OnApplicationBootstrap, OnApplicationShutd
   }
 
   private broadcast(job: RefitJob): void {
-    this.desks.broadcast(DESK_EVENTS.refitProgress, toRefitJobDto(job));
+    this.events.publish(DOMAIN_EVENTS.refitProgress, toRefitJobDto(job));
   }
 
   private async step(job: RefitJob, progress: number, stage: string, state: RefitJobState = 'running'): Promise<void> {

@@ -1,9 +1,9 @@
 import { Body, Controller, Get, HttpCode, Param, ParseIntPipe, Patch, Post, Query } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import { PERMISSIONS, type OutageDto } from '@morrowline/shared';
-import type { AuthUser } from '../auth/auth-user';
-import { CurrentUser } from '../auth/current-user.decorator';
-import { Roles, SignedIn } from '../auth/roles.decorator';
+import type { AuthUser } from '../common/auth-user';
+import { CurrentUser } from '../common/decorators/current-user.decorator';
+import { Roles, SignedIn } from '../common/decorators/roles.decorator';
 import { CloseOutageDto, CreateOutageDto, OutagesQueryDto, UpdateOutageDto } from './dto/outage.dto';
 import { OutagesService } from './outages.service';
 

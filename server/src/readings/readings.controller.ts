@@ -2,9 +2,9 @@ import { BadRequestException, Controller, Get, Header, Post, Query, UploadedFile
 import { FileInterceptor } from '@nestjs/platform-express';
 import { ApiBearerAuth, ApiConsumes, ApiTags } from '@nestjs/swagger';
 import { CSV_MAX_BYTES, PERMISSIONS, type CsvUploadReport, type FeedStatusDto, type ReadingSeriesDto } from '@morrowline/shared';
-import type { AuthUser } from '../auth/auth-user';
-import { CurrentUser } from '../auth/current-user.decorator';
-import { Roles, SignedIn } from '../auth/roles.decorator';
+import type { AuthUser } from '../common/auth-user';
+import { CurrentUser } from '../common/decorators/current-user.decorator';
+import { Roles, SignedIn } from '../common/decorators/roles.decorator';
 import { ReadingsExportQueryDto, ReadingsQueryDto, ReadingsUploadQueryDto } from './dto/readings-query.dto';
 import { ReadingsCsvService } from './readings-csv.service';
 import { ReadingsService } from './readings.service';

@@ -1,15 +1,8 @@
 import { EntityManager } from '@mikro-orm/mariadb';
-import { BadRequestException, Injectable, Logger } from '@nestjs/common';
-import {
-  DESK_EVENTS,
-  HOUR_MS,
-  STALE_AFTER_HOURS,
-  type DeskReadings,
-  type FeedStatusDto,
-  type ReadingRejection,
-  type ReadingSeriesDto,
-} from '@morrowline/shared';
-import { DeskGateway } from '../desk/desk.gateway';
+import { BadRequestException, Injectable } from '@nestjs/common';
+import { HOUR_MS, STALE_AFTER_HOURS, type FeedStatusDto, type ReadingRejection, type ReadingSeriesDto } from '@morrowline/shared';
+import { DOMAIN_EVENTS, type ReadingsStored } from '../events/domain-events';
+import { DomainEventsPublisher } from '../events/domain-events.publisher';
 import { Zone } from '../zones/entities/zone.entity';
 import { validateBatch, type ZoneLimits } from './reading-validation';
 import { ReadingsRepository, type StoredRow } from './readings.repository';
@@ -32,28 +25,19 @@ export interface IngestResult {
   rejected: ReadingRejection[];
 }
 
-/** Told of every stored batch: rows whose stored value is new or changed. */
-export type StoredListener = (rows: StoredRow[]) => void;
-
 /**
- * Readings: validation against the zones' settings, the idempotent keyed store, the live
- * broadcast to desks, and the series the live view reads.
+ * Readings: validation against the zones' settings, the idempotent keyed store, the
+ * readings-stored event (desks and deviation alerts listen), and the series the live view reads.
  */
 @Injectable()
 export class ReadingsService {
-  private readonly logger = new Logger(ReadingsService.name);
   private zoneCache: { at: number; byCode: Map<string, ZoneLimits>; byId: Map<number, ZoneLimits> } | null = null;
-  private readonly listeners: StoredListener[] = [];
 
   constructor(
     private readonly em: EntityManager,
     private readonly repository: ReadingsRepository,
-    private readonly desks: DeskGateway,
+    private readonly events: DomainEventsPublisher,
   ) {}
-
-  onStored(listener: StoredListener): void {
-    this.listeners.push(listener);
-  }
 
   async zones(refresh = false): Promise<{ byCode: Map<string, ZoneLimits>; byId: Map<number, ZoneLimits> }> {
     if (!refresh && this.zoneCache && Date.now() - this.zoneCache.at < ZONE_CACHE_MS) return this.zoneCache;
@@ -77,23 +61,16 @@ export class ReadingsService {
     return { stored: outcome.stored, revised: outcome.revised, rejected };
   }
 
+  /** Tells listeners of the rows just stored (the store has committed them). */
   private announce(rows: StoredRow[], byId: Map<number, ZoneLimits>): void {
-    const perZone = new Map<number, { zone: string; hours: string[]; mw: number[] }>();
+    const perZone = new Map<number, ReadingsStored['zones'][number]>();
     for (const row of rows) {
       let entry = perZone.get(row.zoneId);
-      if (!entry) perZone.set(row.zoneId, (entry = { zone: byId.get(row.zoneId)?.code ?? String(row.zoneId), hours: [], mw: [] }));
+      if (!entry) perZone.set(row.zoneId, (entry = { zoneId: row.zoneId, zone: byId.get(row.zoneId)?.code ?? String(row.zoneId), hours: [], mw: [] }));
       entry.hours.push(new Date(row.hourStart).toISOString());
       entry.mw.push(row.mw);
     }
-    const event: DeskReadings = { zones: [...perZone.values()], receivedAt: new Date().toISOString() };
-    this.desks.broadcast(DESK_EVENTS.readings, event);
-    for (const listener of this.listeners) {
-      try {
-        listener(rows);
-      } catch (error) {
-        this.logger.error(`a stored-readings listener failed: ${(error as Error).message}`);
-      }
-    }
+    this.events.publish(DOMAIN_EVENTS.readingsStored, { zones: [...perZone.values()], receivedAt: new Date().toISOString() });
   }
 
   /** Resolves zone codes (all active zones when none given); unknown codes are a 400. */

@@ -2,7 +2,7 @@ import { EntityManager } from '@mikro-orm/mariadb';
 import { Injectable } from '@nestjs/common';
 import type { ScheduleMailOutcome, ScheduleRevisionDto } from '@morrowline/shared';
 import { AuditService } from '../audit/audit.service';
-import type { AuthUser } from '../auth/auth-user';
+import type { AuthUser } from '../common/auth-user';
 import { ScheduleRevision } from './entities/schedule-revision.entity';
 import { ScheduleSubscriber } from './entities/schedule-subscriber.entity';
 import { publicationMail } from './schedule-export';

@@ -2,7 +2,7 @@ import { EntityManager } from '@mikro-orm/mariadb';
 import { BadRequestException, Injectable, NotFoundException } from '@nestjs/common';
 import type { CreateScheduleSubscriberRequest, ScheduleSubscriberDto } from '@morrowline/shared';
 import { AuditService } from '../audit/audit.service';
-import type { AuthUser } from '../auth/auth-user';
+import type { AuthUser } from '../common/auth-user';
 import { User } from '../users/entities/user.entity';
 import { Zone } from '../zones/entities/zone.entity';
 import { ScheduleSubscriber } from './entities/schedule-subscriber.entity';

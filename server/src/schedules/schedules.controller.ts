@@ -2,9 +2,9 @@ import { Body, Controller, Delete, Get, Header, Param, ParseIntPipe, Post, Query
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 import { PERMISSIONS, type AdjustmentResultDto, type DayScheduleDto, type ScheduleRevisionDto, type ScheduleSubscriberDto } from '@morrowline/shared';
-import type { AuthUser } from '../auth/auth-user';
-import { CurrentUser } from '../auth/current-user.decorator';
-import { Roles } from '../auth/roles.decorator';
+import type { AuthUser } from '../common/auth-user';
+import { CurrentUser } from '../common/decorators/current-user.decorator';
+import { Roles } from '../common/decorators/roles.decorator';
 import { CreateAdjustmentDto, CreateCorrectionDto, CreateSubscriberDto, DayQueryDto, ExportQueryDto, ReturnScheduleDto, SubmitScheduleDto } from './dto/schedules.dto';
 import { exportCsv, exportJson } from './schedule-export';
 import { ScheduleSubscribersService } from './schedule-subscribers.service';

@@ -2,7 +2,6 @@ import { LockMode, UniqueConstraintViolationException } from '@mikro-orm/core';
 import { EntityManager } from '@mikro-orm/mariadb';
 import { BadRequestException, ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
 import {
-  DESK_EVENTS,
   EDITABLE_SCHEDULE_STATES,
   gateClosureAt,
   isOperatingDay,
@@ -22,8 +21,9 @@ import {
   type ZoneScheduleDto,
 } from '@morrowline/shared';
 import { AuditService } from '../audit/audit.service';
-import type { AuthUser } from '../auth/auth-user';
-import { DeskGateway } from '../desk/desk.gateway';
+import type { AuthUser } from '../common/auth-user';
+import { DOMAIN_EVENTS } from '../events/domain-events';
+import { DomainEventsPublisher } from '../events/domain-events.publisher';
 import { ForecastsService } from '../forecasts/forecasts.service';
 import { User } from '../users/entities/user.entity';
 import { Zone } from '../zones/entities/zone.entity';
@@ -91,7 +91,7 @@ export class SchedulesService {
   constructor(
     private readonly em: EntityManager,
     private readonly audit: AuditService,
-    private readonly desks: DeskGateway,
+    private readonly events: DomainEventsPublisher,
     private readonly forecasts: ForecastsService,
     private readonly notifier: ScheduleNotifier,
   ) {}
@@ -121,7 +121,7 @@ export class SchedulesService {
   }
 
   private announce(action: DeskScheduleEvent['action'], r: ScheduleRevisionDto): void {
-    this.desks.broadcast<DeskScheduleEvent>(DESK_EVENTS.schedule, { action, zone: r.zone, operatingDay: r.operatingDay, revisionId: r.id, revision: r.revision, state: r.state });
+    this.events.publish(DOMAIN_EVENTS.scheduleChanged, { action, zone: r.zone, operatingDay: r.operatingDay, revisionId: r.id, revision: r.revision, state: r.state });
   }
 
   /** The latest forecast (stored run, or the seasonal-naive stand-in) laid onto the day's hours. */

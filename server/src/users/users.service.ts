@@ -2,8 +2,8 @@ import { EntityManager, UniqueConstraintViolationException } from '@mikro-orm/ma
 import { BadRequestException, ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import type { CreateUserRequest, UpdateUserRequest, UserDto } from '@morrowline/shared';
 import { AuditService, type Actor } from '../audit/audit.service';
-import { hashPassword } from '../auth/password';
 import { User } from './entities/user.entity';
+import { hashPassword } from './password';
 
 export function toUserDto(user: User): UserDto {
   return {

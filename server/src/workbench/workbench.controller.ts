@@ -1,7 +1,7 @@
 import { Body, Controller, Get, HttpCode, Param, Post, Query } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import { PERMISSIONS, type BacktestReportDto, type ModelReportDto, type StationarityReportDto } from '@morrowline/shared';
-import { Roles } from '../auth/roles.decorator';
+import { Roles } from '../common/decorators/roles.decorator';
 import { BacktestRequestDto, WorkbenchQueryDto } from './dto/workbench.dto';
 import { WorkbenchService } from './workbench.service';
 

@@ -10,10 +10,10 @@ import {
   WORKBENCH_MIN_HOURS,
 } from '@morrowline/shared';
 import { ComputeService } from '../compute/compute.service';
+import { OutagesService } from '../outages/outages.service';
 import { ReadingsService } from '../readings/readings.service';
 import { ZonesService } from '../zones/zones.service';
 import { toWire } from './analysis/stationarity-analysis';
-import { ExclusionsLookup } from './exclusions.lookup';
 
 /** Results are kept this long for the same zone, range and latest reading. */
 export const WORKBENCH_CACHE_MS = 5 * 60_000;
@@ -45,7 +45,7 @@ export class WorkbenchService {
     private readonly zones: ZonesService,
     private readonly readings: ReadingsService,
     private readonly compute: ComputeService,
-    private readonly exclusions: ExclusionsLookup,
+    private readonly outages: OutagesService,
   ) {}
 
   async stationarity(code: string, weeks = WORKBENCH_DEFAULT_WEEKS): Promise<StationarityReportDto> {
@@ -135,7 +135,7 @@ export class WorkbenchService {
     const end = latest.lastHourMs + HOUR_MS;
     const [series, excludedSet] = await Promise.all([
       this.readings.series([latest.zone], new Date(firstHourMs), new Date(end)),
-      this.exclusions.excludedHours(latest.zone, firstHourMs, end),
+      this.outages.excludedHours(latest.zone, firstHourMs, end),
     ]);
     const mw = series.zones[0]?.mw ?? [];
     const values = new Float64Array(series.hours.length);

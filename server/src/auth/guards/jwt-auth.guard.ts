@@ -1,7 +1,7 @@
 import { type ExecutionContext, Injectable, UnauthorizedException } from '@nestjs/common';
 import { Reflector } from '@nestjs/core';
 import { AuthGuard } from '@nestjs/passport';
-import { PUBLIC_KEY } from '../roles.decorator';
+import { PUBLIC_KEY } from '../../common/decorators/roles.decorator';
 
 /** Applied to every route (APP_GUARD); @Public() opts a route out. */
 @Injectable()

@@ -1,8 +1,8 @@
 import { type CanActivate, type ExecutionContext, ForbiddenException, Injectable } from '@nestjs/common';
 import { Reflector } from '@nestjs/core';
 import type { Role } from '@morrowline/shared';
-import type { AuthUser } from '../auth-user';
-import { PUBLIC_KEY, ROLES_KEY } from '../roles.decorator';
+import type { AuthUser } from '../../common/auth-user';
+import { PUBLIC_KEY, ROLES_KEY } from '../../common/decorators/roles.decorator';
 
 /**
  * Every non-public route must say which roles may call it; a route that says nothing is refused,

@@ -2,9 +2,9 @@ import type { EntityManager } from '@mikro-orm/core';
 import { Seeder } from '@mikro-orm/seeder';
 import { DEMO_TIME_ZONE, DEMO_USERS, DEMO_ZONES } from '@morrowline/shared';
 import { AuditEntry } from '../../audit/entities/audit-entry.entity';
-import { hashPassword } from '../../auth/password';
 import { seedDemoSubscribers } from '../../schedules/demo-subscribers';
 import { User } from '../../users/entities/user.entity';
+import { hashPassword } from '../../users/password';
 import { Zone } from '../../zones/entities/zone.entity';
 
 /**

@@ -22,6 +22,7 @@ import {
   type ModelChoice,
   type ModelSummary,
 } from '@morrowline/engine';
+import type { StoredModel } from '../stored-model';
 
 
 /**
@@ -32,17 +33,6 @@ export const REFIT_SCREEN = 2;
 
 /** Days of the short backtest that scores each fit (kept short so refits stay fast). */
 export const REFIT_BACKTEST_DAYS = 7;
-
-export interface StoredModel {
-  diff: number[];
-  p: number;
-  q: number;
-  /** natural parameters: ar1.., ma1.. and σ² */
-  ar: number[];
-  ma: number[];
-  sigma2: number;
-  mean: number;
-}
 
 export interface RefitPayload {
   /** hourly MW, oldest first, NaN for missing hours; excluded hours may be NaN already */

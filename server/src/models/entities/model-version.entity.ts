@@ -1,7 +1,7 @@
 import { Entity, Enum, Index, ManyToOne, PrimaryKey, Property } from '@mikro-orm/core';
 import { MODEL_STATUSES, REFIT_TRIGGERS, type LjungBoxDto, type ModelCoefficientDto, type ModelStatus, type RefitTrigger } from '@morrowline/shared';
 import { Zone } from '../../zones/entities/zone.entity';
-import type { StoredModel } from '../analysis/refit';
+import type { StoredModel } from '../stored-model';
 
 /**
  * One fit of a zone's model, kept for good: what was fitted, on which hours, how well it did and
