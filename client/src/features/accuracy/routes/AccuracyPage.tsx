@@ -148,7 +148,7 @@ export function AccuracyPage() {
               </>
             )}
             <Text size="xs" c="dimmed">
-              Model forecast: the latest forecast run issued before each day&apos;s gate closure that covers the whole day. Published schedule: the latest published revision for the zone and day. Hours inside outage or bad-data windows are not scored. Latest reading {data.latestReadingHour ? data.latestReadingHour.replace('T', ' ').slice(0, 16) + ' UTC' : 'none'}.
+              Model forecast: the latest forecast run issued before each day&apos;s gate closure that covers the whole day; &ldquo;replayed&rdquo; marks a run worked out afterwards, at this installation&apos;s first start, not one the desk issued then. Published schedule: the latest published revision for the zone and day. Hours inside outage or bad-data windows are not scored. Latest reading {data.latestReadingHour ? data.latestReadingHour.replace('T', ' ').slice(0, 16) + ' UTC' : 'none'}.
             </Text>
           </>
         )}

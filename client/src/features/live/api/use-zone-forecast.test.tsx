@@ -34,7 +34,7 @@ describe('useZoneForecast', () => {
 
   it('uses the server’s run once it answers, laid out on the series’ hours', async () => {
     const run: ForecastRunDto = {
-      id: 3, zone: 'MILLRACE', issuedAt: '2026-05-08T23:10:00Z', basedOnHour: hours[168 + 23], method: 'arima', fallbackReason: null, modelVersionId: 9,
+      id: 3, zone: 'MILLRACE', issuedAt: '2026-05-08T23:10:00Z', basedOnHour: hours[168 + 23], origin: 'issued', method: 'arima', fallbackReason: null, modelVersionId: 9,
       hours: [hours[168 + 24], hours[168 + 25]], mean: [111, 112], lower80: [105, 106], upper80: [117, 118], lower95: [101, 102], upper95: [121, 122],
     };
     mockApi({ 'GET /api/forecasts/latest': () => ({ body: { zones: [run] } }) });
