@@ -1,48 +1,72 @@
 /**
  * `node dist/database/manage.js demo-replay [--zones A,B] [--wait-seconds N]`: the first start's
  * replay (DemoReplayService), run by scripts/start.sh beside the running server against the same
- * database. It boots only what the replay needs (no HTTP, no sockets, no refit schedule, no
- * start-up recovery of the server's refit jobs) and waits first, up to N seconds (default 180),
- * for the meter feeds to reach the present, since a day is replayed only from readings already
- * stored. Prints a short line per step; once done, later calls print one line and change nothing.
+ * database (from source: `npx tsx src/database/manage.ts demo-replay`). It builds only what the
+ * replay needs from the ORM, by hand rather than through Nest's injector, so it runs from the
+ * TypeScript source too (tsx emits no decorator metadata): no HTTP, no sockets, no refit
+ * schedule, no start-up recovery of the server's refit jobs. It first waits, up to N seconds
+ * (default 180), for the meter feeds to reach the present, since a day is replayed only from
+ * readings already stored. Prints a short line per step; once done, later calls print one line
+ * and change nothing.
  */
-import { MariaDbDriver } from '@mikro-orm/mariadb';
-import { MikroOrmModule } from '@mikro-orm/nestjs';
-import { Global, Module } from '@nestjs/common';
-import { ConfigModule, ConfigService } from '@nestjs/config';
-import { NestFactory } from '@nestjs/core';
+import { MikroORM } from '@mikro-orm/mariadb';
 import { parseArgs } from 'node:util';
-import { AuditModule } from '../audit/audit.module';
-import { configFactory, type AppConfig } from '../config/configuration';
+import { AuditService } from '../audit/audit.service';
+import { ComputeService } from '../compute/compute.service';
+import { loadConfig } from '../config/configuration';
 import { ormConfig } from '../database/mikro-orm.config';
-import { DeskGateway } from '../desk/desk.gateway';
+import type { DeskGateway } from '../desk/desk.gateway';
+import { ForecastsService } from '../forecasts/forecasts.service';
+import { loadRefitSchedule } from '../models/refit-schedule';
+import { OutagesService } from '../outages/outages.service';
+import { ReadingsRepository } from '../readings/readings.repository';
 import { ReadingsService } from '../readings/readings.service';
+import { ScheduleMailer } from '../schedules/schedule-mailer';
+import { ScheduleNotifier } from '../schedules/schedule-notifier';
+import { SchedulesService } from '../schedules/schedules.service';
 import { DemoReplayService, type DemoReplayOptions, type DemoReplayOutcome } from './demo-replay.service';
-import { ReplayModule } from './replay.module';
+import { DemoSchedulesService } from './demo-schedules.service';
+import { ForecastReplayService } from './forecast-replay.service';
 
 /** Desks are connected to the server, not to this process: what it would push, they read on their next query. */
-class UnconnectedDeskGateway {
-  broadcast(): void {}
+const unconnectedDesks = { broadcast: () => undefined } as unknown as DeskGateway;
+
+export interface DemoReplayParts {
+  replay: DemoReplayService;
+  forecasts: ForecastReplayService;
+  readings: ReadingsService;
+  close(): Promise<void>;
 }
 
-@Global()
-@Module({ providers: [{ provide: DeskGateway, useClass: UnconnectedDeskGateway }], exports: [DeskGateway] })
-class UnconnectedDeskModule {}
-
-@Module({
-  imports: [
-    ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, load: [configFactory] }),
-    MikroOrmModule.forRootAsync({
-      inject: [ConfigService],
-      driver: MariaDbDriver,
-      useFactory: (config: ConfigService) => ormConfig(config.getOrThrow<AppConfig>('app')),
-    }),
-    AuditModule,
-    UnconnectedDeskModule,
-    ReplayModule,
-  ],
-})
-export class DemoReplayCommandModule {}
+/** The replay's services on an ORM of their own (the composition the server's modules would make). */
+export async function openDemoReplay(): Promise<DemoReplayParts> {
+  const config = loadConfig();
+  const orm = await MikroORM.init(ormConfig(config));
+  const em = orm.em;
+  const schedule = loadRefitSchedule();
+  const audit = new AuditService(em);
+  const compute = new ComputeService();
+  const repository = new ReadingsRepository(em);
+  const readings = new ReadingsService(em, repository, unconnectedDesks);
+  const outages = new OutagesService(em, audit);
+  const forecasts = new ForecastsService(em, readings, outages, unconnectedDesks);
+  const schedules = new SchedulesService(em, audit, unconnectedDesks, forecasts, new ScheduleNotifier(em, audit, new ScheduleMailer()));
+  const forecastReplay = new ForecastReplayService(em, repository, outages, forecasts, compute, audit, {
+    updateMinute: schedule.updateMinute,
+    nightly: schedule.nightly,
+    deskTimeZone: config.shifts.timeZone,
+  });
+  const demoSchedules = new DemoSchedulesService(em, schedules, forecasts, repository, schedule.updateMinute);
+  return {
+    replay: new DemoReplayService(em, audit, forecastReplay, demoSchedules),
+    forecasts: forecastReplay,
+    readings,
+    close: async () => {
+      await compute.onModuleDestroy();
+      await orm.close(true);
+    },
+  };
+}
 
 export interface DemoReplayCommandOptions extends DemoReplayOptions {
   /** How long to wait for the feeds to reach the present before replaying what is there. */
@@ -55,15 +79,14 @@ const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
 
 export async function runDemoReplay(options: DemoReplayCommandOptions = {}): Promise<DemoReplayOutcome> {
   const log = options.log ?? ((line: string) => console.log(line));
-  const app = await NestFactory.createApplicationContext(DemoReplayCommandModule, { logger: ['error', 'warn'] });
+  const parts = await openDemoReplay();
   try {
-    const replay = app.get(DemoReplayService);
-    const at = await replay.doneAt();
+    const at = await parts.replay.doneAt();
     if (at) return { state: 'done-before', at };
-    await waitForFeeds(app.get(ReadingsService), options.zones, options.waitSeconds ?? 180, log);
-    return await replay.run({ ...options, log });
+    await waitForFeeds(parts.readings, options.zones, options.waitSeconds ?? 180, log);
+    return await parts.replay.run({ ...options, log });
   } finally {
-    await app.close();
+    await parts.close();
   }
 }
 
@@ -89,8 +112,9 @@ async function waitForFeeds(readings: ReadingsService, zones: readonly string[] 
 export async function demoReplayCommand(argv: readonly string[]): Promise<void> {
   const { values } = parseArgs({ args: [...argv], options: { zones: { type: 'string' }, 'wait-seconds': { type: 'string' } } });
   const wait = values['wait-seconds'] === undefined ? 180 : Number(values['wait-seconds']);
-  if (!Number.isInteger(wait) || wait < 0) throw new Error(`--wait-seconds must be a whole number of seconds, got "${values['wait-seconds']}"`);
+  if (!/^\d+$/.test(values['wait-seconds'] ?? '0') || !Number.isSafeInteger(wait)) throw new Error(`--wait-seconds must be a whole number of seconds, got "${values['wait-seconds']}"`);
   const zones = values.zones?.split(',').map((z) => z.trim()).filter(Boolean);
+  if (zones && zones.length === 0) throw new Error('--zones needs at least one zone code, e.g. --zones MILLRACE,HARROW');
   const started = Date.now();
   const outcome = await runDemoReplay({ zones, waitSeconds: wait });
   if (outcome.state === 'done-before') console.log(`demo replay: already done (${outcome.at}); nothing to do`);

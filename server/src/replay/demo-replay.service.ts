@@ -1,11 +1,10 @@
-import { EntityManager } from '@mikro-orm/mariadb';
-import { Injectable } from '@nestjs/common';
-import { AuditService } from '../audit/audit.service';
+import type { EntityManager } from '@mikro-orm/mariadb';
+import type { AuditService } from '../audit/audit.service';
 import { AuditEntry } from '../audit/entities/audit-entry.entity';
 import { Zone } from '../zones/entities/zone.entity';
 import { DEMO_SCHEDULE_STORIES, type DemoScheduleStory } from './demo-schedule-stories';
-import { DemoSchedulesService, type DemoScheduleOutcome } from './demo-schedules.service';
-import { ForecastReplayService, type ZoneReplaySummary } from './forecast-replay.service';
+import type { DemoScheduleOutcome, DemoSchedulesService } from './demo-schedules.service';
+import type { ForecastReplayService, ZoneReplaySummary } from './forecast-replay.service';
 
 /** The audit action that marks the first-start replay as done; it is never done again. */
 export const DEMO_REPLAY_ACTION = 'system.demo-replay';
@@ -35,7 +34,6 @@ export type DemoReplayOutcome =
  * it writes nothing and a later call tries again. Each forecast day and each schedule is kept as
  * soon as it is made, and a call after an interruption goes on from there.
  */
-@Injectable()
 export class DemoReplayService {
   constructor(
     private readonly em: EntityManager,

@@ -1,13 +1,11 @@
-import { EntityManager } from '@mikro-orm/mariadb';
-import { Injectable } from '@nestjs/common';
+import type { EntityManager } from '@mikro-orm/mariadb';
 import { DateTime } from 'luxon';
 import type { AuthUser } from '../auth/auth-user';
-import { toForecastRunDto, ForecastsService } from '../forecasts/forecasts.service';
-import { loadRefitSchedule } from '../models/refit-schedule';
-import { ReadingsRepository } from '../readings/readings.repository';
+import { toForecastRunDto, type ForecastsService } from '../forecasts/forecasts.service';
+import type { ReadingsRepository } from '../readings/readings.repository';
 import { ScheduleRevision } from '../schedules/entities/schedule-revision.entity';
 import { gateClosureAt, operatingDayBounds } from '../schedules/operating-day';
-import { SchedulesService } from '../schedules/schedules.service';
+import type { SchedulesService } from '../schedules/schedules.service';
 import { User } from '../users/entities/user.entity';
 import { Zone } from '../zones/entities/zone.entity';
 import { adjustmentValue, type DemoScheduleStory } from './demo-schedule-stories';
@@ -31,15 +29,14 @@ export interface DemoScheduleOutcome {
  * day before the operating day, so the revisions, the audit trail and Accuracy read them as the
  * operators' and supervisors' work. A zone and day that already has a schedule is left alone.
  */
-@Injectable()
 export class DemoSchedulesService {
-  private readonly updateMinute = loadRefitSchedule().updateMinute;
-
   constructor(
     private readonly em: EntityManager,
     private readonly schedules: SchedulesService,
     private readonly forecasts: ForecastsService,
     private readonly readings: ReadingsRepository,
+    /** Minute past the hour of the desk's forecast update (FORECAST_UPDATE_MINUTE). */
+    private readonly updateMinute: number,
   ) {}
 
   async make(stories: readonly DemoScheduleStory[], now: number, log: (line: string) => void): Promise<DemoScheduleOutcome[]> {

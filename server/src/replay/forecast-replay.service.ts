@@ -1,17 +1,13 @@
-import { EntityManager } from '@mikro-orm/mariadb';
-import { Injectable } from '@nestjs/common';
-import { ConfigService } from '@nestjs/config';
-import { AuditService } from '../audit/audit.service';
-import { ComputeService } from '../compute/compute.service';
-import type { AppConfig } from '../config/configuration';
+import type { EntityManager } from '@mikro-orm/mariadb';
+import type { AuditService } from '../audit/audit.service';
+import type { ComputeService } from '../compute/compute.service';
 import { ForecastRun } from '../forecasts/entities/forecast-run.entity';
 import { MAX_HORIZON_HOURS } from '../forecasts/forecast-horizon';
-import { ForecastsService } from '../forecasts/forecasts.service';
-import { loadRefitSchedule } from '../models/refit-schedule';
+import type { ForecastsService } from '../forecasts/forecasts.service';
 import { FIRST_MODEL_MIN_HOURS } from '../models/refits.service';
 import { TRAINING_HOURS } from '../models/zone-history';
-import { OutagesService } from '../outages/outages.service';
-import { ReadingsRepository } from '../readings/readings.repository';
+import type { OutagesService } from '../outages/outages.service';
+import type { ReadingsRepository } from '../readings/readings.repository';
 import { operatingDaySlots } from '../schedules/operating-day';
 import { Zone } from '../zones/entities/zone.entity';
 import { ReadingsTimeline } from './history-cut';
@@ -44,10 +40,7 @@ type IssuedSpan = { issuedAt: number; from: number; to: number };
  * replayed run, or a run the desk really issued before its gate closure, is left as it is, so a
  * replay that was interrupted can run again and an installation with its own history keeps it.
  */
-@Injectable()
 export class ForecastReplayService {
-  private readonly routine: ReplayRoutine;
-
   constructor(
     private readonly em: EntityManager,
     private readonly readings: ReadingsRepository,
@@ -55,11 +48,8 @@ export class ForecastReplayService {
     private readonly forecasts: ForecastsService,
     private readonly compute: ComputeService,
     private readonly audit: AuditService,
-    config: ConfigService,
-  ) {
-    const schedule = loadRefitSchedule();
-    this.routine = { updateMinute: schedule.updateMinute, nightly: schedule.nightly, deskTimeZone: config.getOrThrow<AppConfig>('app').shifts.timeZone };
-  }
+    private readonly routine: ReplayRoutine,
+  ) {}
 
   /** The zones' replays, two (the batch pool's threads) at a time; `log` gets a line per zone and week. */
   async replay(zones: readonly Zone[], now: number, log: (line: string) => void): Promise<ZoneReplaySummary[]> {
@@ -85,14 +75,6 @@ export class ForecastReplayService {
     if (steps.length === 0) return summary;
     const excluded = await this.outages.excludedHours(zone.code, rows[0].hourStart, until);
     const timeline = new ReadingsTimeline(rows, excluded);
-    const { replayed, issued } = await this.storedRuns(zone, steps);
-    const covered = (step: ReplayStep) => issued.some((r) => r.issuedAt < step.gateClosureAt && coversDay(r, zone, step.day));
-    const open = steps.filter((s) => !replayed.has(s.issuedAt) && !covered(s));
-    summary.kept = steps.length - open.length;
-    if (open.length === 0) {
-      log(`  ${zone.code}: already replayed (${steps.length} days)`);
-      return summary;
-    }
     // the replay starts where the zone first had enough readings for a model
     const firstFit = steps.findIndex((s) => timeline.countAt(s.issuedAt) >= FIRST_MODEL_MIN_HOURS);
     if (firstFit < 0) {
@@ -100,6 +82,14 @@ export class ForecastReplayService {
       return summary;
     }
     const todo = steps.slice(firstFit);
+    const { replayed, issued } = await this.storedRuns(zone, todo);
+    const covered = (step: ReplayStep) => issued.some((r) => r.issuedAt < step.gateClosureAt && coversDay(r, zone, step.day));
+    const open = todo.filter((s) => !replayed.has(s.issuedAt) && !covered(s));
+    summary.kept = todo.length - open.length;
+    if (open.length === 0) {
+      log(`  ${zone.code}: already replayed (${todo.length} days)`);
+      return summary;
+    }
     log(`  ${zone.code}: replaying ${todo.length} operating days, ${todo[0].day} to ${todo[todo.length - 1].day}`);
     let done = 0;
     await replayZone({ timeline, timeZone: zone.timeZone, steps: todo, minHours: FIRST_MODEL_MIN_HOURS }, (payload) => this.compute.runBatch('models.refit', payload), async (step, forecast) => {
