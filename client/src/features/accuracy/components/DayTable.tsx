@@ -28,10 +28,10 @@ export function DayTable({ subject }: { subject: AccuracyZoneDto }) {
           {subject.days.map((d) => (
             <Table.Tr key={d.operatingDay}>
               <Table.Td>{d.operatingDay}</Table.Td>
-              <Table.Td ta="right">
+              <Table.Td ta="right" style={{ whiteSpace: 'nowrap' }}>
                 {d.model?.replayed ? (
                   <Group gap={6} justify="flex-end" wrap="nowrap">
-                    <Badge size="xs" variant="light" color="grape" ff="text" data-testid="accuracy-replayed-badge" title={REPLAYED_TITLE}>
+                    <Badge size="xs" variant="light" color="grape" ff="text" style={{ flexShrink: 0 }} data-testid="accuracy-replayed-badge" title={REPLAYED_TITLE}>
                       replayed
                     </Badge>
                     {pct(d.model?.score?.mape)}

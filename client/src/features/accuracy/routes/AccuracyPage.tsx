@@ -35,7 +35,7 @@ function Charts({ subject }: { subject: AccuracyZoneDto }) {
   return (
     <SimpleGrid cols={{ base: 1, lg: 2 }} spacing="lg">
       <Card withBorder padding="md">
-        <BarChart title="MAPE per operating day" data={daily} series={SERIES} xLabel={dayLabel} xName="Day" unit="%" testId="accuracy-daily-chart" caption="A day without bars had no actuals, or no model forecast or published schedule for it (see the table below)." />
+        <BarChart title="MAPE per operating day" data={daily} series={SERIES} xLabel={dayLabel} xName="Day" unit="%" testId="accuracy-daily-chart" caption={`A day without bars had no actuals, or no model forecast or published schedule for it (see the table below).${subject.daysReplayed > 0 ? ' The model bars of days marked “replayed” below are replayed forecasts, not ones the desk issued.' : ''}`} />
       </Card>
       <Card withBorder padding="md">
         <Group justify="space-between" mb={4}>
