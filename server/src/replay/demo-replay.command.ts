@@ -10,6 +10,7 @@
  * and change nothing.
  */
 import { MikroORM } from '@mikro-orm/mariadb';
+import { Logger } from '@nestjs/common';
 import { parseArgs } from 'node:util';
 import { AuditService } from '../audit/audit.service';
 import { ComputeService } from '../compute/compute.service';
@@ -73,8 +74,12 @@ export interface DemoReplayCommandOptions extends DemoReplayOptions {
   waitSeconds?: number;
 }
 
-/** Feeds count as current when their latest hour is at most this far behind. */
-const CURRENT_HOURS = 2;
+/**
+ * Feeds count as current when their latest hour is the last complete one: a day is replayed only
+ * once the readings up to its forecast update are stored, and the simulator's fast replay of the
+ * last two days reaches the present within a minute of its backfill.
+ */
+const CURRENT_HOURS = 0;
 const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
 
 export async function runDemoReplay(options: DemoReplayCommandOptions = {}): Promise<DemoReplayOutcome> {
@@ -95,6 +100,7 @@ async function waitForFeeds(readings: ReadingsService, zones: readonly string[] 
   let said = 0;
   for (;;) {
     const behind = (await readings.status()).filter((s) => (!zones || zones.includes(s.zone)) && s.lastHour !== null && (s.hoursBehind ?? 0) > CURRENT_HOURS);
+    // (a zone without any reading has nothing to wait for: it is simply not replayed)
     if (behind.length === 0) return;
     if (Date.now() >= deadline) {
       log(`feeds still behind (${behind.map((s) => `${s.zone} ${s.hoursBehind} h`).join(', ')}); replaying what is stored`);
@@ -115,6 +121,8 @@ export async function demoReplayCommand(argv: readonly string[]): Promise<void> 
   if (!/^\d+$/.test(values['wait-seconds'] ?? '0') || !Number.isSafeInteger(wait)) throw new Error(`--wait-seconds must be a whole number of seconds, got "${values['wait-seconds']}"`);
   const zones = values.zones?.split(',').map((z) => z.trim()).filter(Boolean);
   if (zones && zones.length === 0) throw new Error('--zones needs at least one zone code, e.g. --zones MILLRACE,HARROW');
+  // the services' own log lines (pool sizes, mail failures) only when something is wrong
+  Logger.overrideLogger(['error', 'warn']);
   const started = Date.now();
   const outcome = await runDemoReplay({ zones, waitSeconds: wait });
   if (outcome.state === 'done-before') console.log(`demo replay: already done (${outcome.at}); nothing to do`);

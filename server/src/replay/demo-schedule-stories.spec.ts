@@ -13,6 +13,19 @@ describe('the demo scenario’s schedules', () => {
     expect(new Set(DEMO_SCHEDULE_STORIES.map((s) => s.zone)).size).toBeGreaterThanOrEqual(3);
   });
 
+  it('publish every demo zone on each of the last three days (so the system total compares too), one schedule each', () => {
+    for (const daysAgo of [1, 2, 3]) {
+      const zones = DEMO_SCHEDULE_STORIES.filter((s) => s.daysAgo === daysAgo).map((s) => s.zone);
+      expect([...zones].sort()).toEqual(DEMO_ZONES.map((z) => z.code).sort());
+    }
+    expect(DEMO_SCHEDULE_STORIES).toHaveLength(15);
+    // adjusted on some days, with fixed and with weather-led changes
+    const adjusted = DEMO_SCHEDULE_STORIES.filter((s) => s.adjustments.length > 0);
+    expect(adjusted.length).toBeGreaterThanOrEqual(4);
+    expect(adjusted.some((s) => s.adjustments.some((a) => 'mw' in a.change))).toBe(true);
+    expect(adjusted.some((s) => s.adjustments.some((a) => 'toward' in a.change))).toBe(true);
+  });
+
   it('happen in order within the 55 minutes between the 09:05 forecast update and the 10:00 gate closure', () => {
     for (const story of DEMO_SCHEDULE_STORIES) {
       const times = [story.draftMinute, ...story.adjustments.map((a) => a.minute), story.submit.minute, story.approveMinute];

@@ -2,11 +2,11 @@ import type { ScheduleAdjustmentKind } from '@morrowline/shared';
 
 /**
  * The demo scenario's published schedules (Tallowmere Valley Electric Cooperative, invented):
- * recent operating days on which operators adjusted the model forecast for a reason of their own
- * and a supervisor approved. Times are minutes after the day's forecast update, all before the
- * gate closure. Some adjustments follow what the load then did (the weather desk was right), one
- * does not (the smelter came back sooner than its control room said), so the Accuracy screen's
- * "did the adjustments help" has both kinds of day to weigh.
+ * the last three operating days, on which operators published each zone's schedule, adjusting the
+ * model forecast for a reason of their own on some, and a supervisor approved. Times are minutes
+ * after the day's forecast update, all before the gate closure. Some adjustments follow what the load then did (the weather desk and the mill were
+ * right), some need not (the smelter came back sooner than its control room said; the night market
+ * drew what it drew), so the Accuracy screen's "did the adjustments help" has both kinds of day.
  */
 
 /** A fixed change, or one that moves `share` of the way from the model to what the load did. */
@@ -49,7 +49,17 @@ function weather(part: string, heating: string, cooling: string): DemoAdjustment
       : `Weather desk: ${part} ${up ? 'hotter' : 'cooler'} than the model's weather (${up ? 'about 3 °C above' : 'about 3 °C below'}); ${up ? 'more' : 'less'} ${cooling}`;
 }
 
+/** The zone's schedule published as the model gave it: most days, the forecast stands. */
+function asTheModel(zone: string, daysAgo: number, operator: string, approver: string, minute: number): DemoScheduleStory {
+  return { zone, daysAgo, operator, approver, draftMinute: minute, adjustments: [], submit: { minute: minute + 6, comment: 'Model forecast as issued; nothing to add.' }, approveMinute: minute + 18 };
+}
+
+/**
+ * Three operating days, every zone published on each (so the system total compares too), six of
+ * the fifteen with an operator's adjustment.
+ */
 export const DEMO_SCHEDULE_STORIES: readonly DemoScheduleStory[] = [
+  // three days ago: a weather correction in Millrace
   {
     zone: 'MILLRACE',
     daysAgo: 3,
@@ -60,6 +70,11 @@ export const DEMO_SCHEDULE_STORIES: readonly DemoScheduleStory[] = [
     submit: { minute: 22, comment: 'Evening weather correction; the rest as the model.' },
     approveMinute: 37,
   },
+  asTheModel('COPPERLINE', 3, TOMAS, NORA, 6),
+  asTheModel('HARROW', 3, INES, HAL, 10),
+  asTheModel('LANTERN', 3, TOMAS, NORA, 12),
+  asTheModel('QUARRY', 3, INES, NORA, 15),
+  // two days ago: the smelter's potline trip, and Harrow's weather
   {
     zone: 'COPPERLINE',
     daysAgo: 2,
@@ -91,6 +106,10 @@ export const DEMO_SCHEDULE_STORIES: readonly DemoScheduleStory[] = [
     submit: { minute: 28, comment: 'Weather corrections from the 08:30 weather briefing.' },
     approveMinute: 44,
   },
+  asTheModel('MILLRACE', 2, INES, HAL, 8),
+  asTheModel('LANTERN', 2, TOMAS, NORA, 11),
+  asTheModel('QUARRY', 2, TOMAS, HAL, 14),
+  // yesterday: the Lanternside night market, and the feed mill at Quarry Hill
   {
     zone: 'LANTERN',
     daysAgo: 1,
@@ -109,6 +128,27 @@ export const DEMO_SCHEDULE_STORIES: readonly DemoScheduleStory[] = [
     submit: { minute: 24, comment: 'Night market load per the events office.' },
     approveMinute: 40,
   },
+  {
+    zone: 'QUARRY',
+    daysAgo: 1,
+    operator: INES,
+    approver: HAL,
+    draftMinute: 7,
+    adjustments: [
+      {
+        minute: 13,
+        from: 'HE07',
+        to: 'HE16',
+        change: { kind: 'add', toward: 0.7 },
+        reason: (up) => (up ? 'Feed mill at Quarry Hill running a second shift this week (the mill called at 08:15)' : 'Feed mill at Quarry Hill down for maintenance until the evening (the mill called at 08:15)'),
+      },
+    ],
+    submit: { minute: 20, comment: 'Feed mill per its call.' },
+    approveMinute: 33,
+  },
+  asTheModel('MILLRACE', 1, INES, NORA, 9),
+  asTheModel('COPPERLINE', 1, TOMAS, HAL, 11),
+  asTheModel('HARROW', 1, TOMAS, HAL, 13),
 ];
 
 /**

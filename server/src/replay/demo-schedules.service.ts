@@ -47,7 +47,7 @@ export class DemoSchedulesService {
       log(
         outcome.revisionId === null
           ? `  schedule ${story.zone} ${outcome.operatingDay}: left out (${outcome.skipped})`
-          : `  schedule ${story.zone} ${outcome.operatingDay}: published with ${outcome.adjustments} adjustment${outcome.adjustments === 1 ? '' : 's'}`,
+          : `  schedule ${story.zone} ${outcome.operatingDay}: published ${outcome.adjustments ? `with ${outcome.adjustments} adjustment${outcome.adjustments === 1 ? '' : 's'}` : 'as the model'}`,
       );
     }
     return out;
