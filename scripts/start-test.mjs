@@ -205,6 +205,15 @@ await test('npm start from a fresh clone: installs, builds, serves, signs in, fi
     assert(page.includes('<div id="root">') && /<script[^>]+src="\/assets\//.test(page), `GET / did not return the built app's HTML:\n${page.slice(0, 300)}`);
     const zones = await json(`${base}/api/zones`, { headers: { authorization: `Bearer ${login.accessToken}` } });
     assert(Array.isArray(zones) && zones.length >= 5, `the demo scenario's zones are missing: ${JSON.stringify(zones).slice(0, 200)}`);
+    // The demo desk is full from the first minute: Accuracy scores replayed model forecasts for
+    // the last week at once, and says they are replays.
+    const day = (offset) => new Date(Date.now() + offset * 86_400_000).toISOString().slice(0, 10);
+    const report = await json(`${base}/api/accuracy?from=${day(-8)}&to=${day(-2)}`, { headers: { authorization: `Bearer ${login.accessToken}` } });
+    for (const zone of report.zones) {
+      assert(zone.daysScored >= 5, `Accuracy scored only ${zone.daysScored} days of ${zone.zone} after the first start`);
+      assert(zone.daysReplayed >= zone.daysScored, `${zone.zone}: ${zone.daysScored} days scored but only ${zone.daysReplayed} marked as replayed`);
+    }
+    assert(/demo history/.test(run.text), 'npm start did not say it was replaying the demo history');
   } finally {
     if (run.code === undefined) await stopAndCheck(run, 'SIGINT', true, clone, [PORTS.app, PORTS.db, PORTS.smtp]);
   }

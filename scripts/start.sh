@@ -4,7 +4,7 @@
 #   data directory .data/dev, 127.0.0.1:$DB_PORT) · build (skipped when nothing changed) ·
 #   migrations · demo scenario (once) · server on http://127.0.0.1:$PORT · SMTP fake · meter-feed
 #   simulator (six weeks backfilled) · the demo history replayed once (forecasts as the desk would
-#   have issued them, a few published schedules).
+#   have issued them, marked as replayed; the last days' published schedules).
 # Ports: PORT (3000), DB_PORT (3307), SMTP_PORT (2525). Ctrl-C or SIGTERM stops everything it started
 # and exits 0.
 set -uo pipefail
@@ -92,6 +92,13 @@ if grep -aq '^backfill done' "$sim_log"; then
 else
   log "the simulator did not finish its backfill (see .data/simulator.log); the desk runs on what arrived"
 fi
+
+# The first start replays the desk's own daily work over the backfilled weeks (forecasts issued
+# at each day's forecast update before gate closure, from the readings stored by then, marked as
+# replayed) and publishes the demo's recent schedules; later starts find it done and say so.
+step "demo history: replaying the desk's daily forecasts over the backfilled weeks (first start only)"
+(cd server && node dist/database/manage.js demo-replay) 2>&1 | sed 's/^/    /'
+[ "${PIPESTATUS[0]}" = 0 ] || log "the demo replay did not finish (see above); the desk runs without it and the next start tries again"
 
 cat <<MSG
 

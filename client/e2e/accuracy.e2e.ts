@@ -118,4 +118,30 @@ describe('accuracy', () => {
     await page.addStyleTag({ content: 'header { position: static !important; }' });
     await screenshot(page, 'accuracy-scored-day');
   }, 120_000);
+
+  it('labels a day scored against a replayed forecast as replayed, never as issued', async () => {
+    // The day before yesterday, with a run replayed as of 09:05 on the day before it (the last
+    // forecast update before the 10:00 gate closure), 3 % under every actual hour.
+    const day = DateTime.now().setZone(TIME_ZONE).startOf('day').minus({ days: 2 });
+    const start = day.toMillis();
+    const end = day.plus({ days: 1 }).toMillis();
+    const mean: number[] = [];
+    for (let at = start; at < end; at += HOUR) mean.push(Math.round(actuals.get(at)! * 0.97 * 1000) / 1000);
+    const issuedAt = day.minus({ days: 1 }).set({ hour: 9, minute: 5 }).toJSDate();
+    await insertPastForecastRun({ zone: ZONE, issuedAt, firstHour: new Date(start), mean, origin: 'replayed' });
+
+    const page = desk.page;
+    const date = day.toFormat('yyyy-LL-dd');
+    await page.goto(`/accuracy?zone=${ZONE}&from=${day.minus({ days: 5 }).toFormat('yyyy-LL-dd')}&to=${day.plus({ days: 1 }).toFormat('yyyy-LL-dd')}`);
+    const row = page.getByTestId('accuracy-days').getByRole('row').filter({ hasText: date });
+    await row.getByTestId('accuracy-replayed-badge').waitFor({ timeout: 30_000 });
+    expect(await row.innerText()).toMatch(/replayed\s*3\.00 %/i);
+    // yesterday's run was issued: no badge on its row
+    const yesterday = page.getByTestId('accuracy-days').getByRole('row').filter({ hasText: day.plus({ days: 1 }).toFormat('yyyy-LL-dd') });
+    expect(await yesterday.getByTestId('accuracy-replayed-badge').count()).toBe(0);
+    expect(await page.getByTestId('accuracy-replayed-note').innerText()).toMatch(/1 of the 7 days are scored against replayed model forecasts[\s\S]*not forecasts the desk issued at the time/);
+    expect(await page.getByTestId('accuracy-zone-replayed').innerText()).toBe('1 of 7 days');
+    await page.addStyleTag({ content: 'header { position: static !important; }' });
+    await screenshot(page, 'accuracy-replayed-day');
+  }, 120_000);
 });

@@ -13,7 +13,9 @@
  *   (HE01..HE24, no HE02 on the spring day, HE25 on the autumn day).
  * - Actuals: the stored hourly readings, less hours inside an outage or bad-data window.
  * - Model forecast for a day: the latest stored forecast run issued before the day's gate closure
- *   (the zone's gateClosure, local time on the day before) whose hours cover the whole day.
+ *   (the zone's gateClosure, local time on the day before) whose hours cover the whole day. That
+ *   run may be a replay (ForecastOrigin 'replayed': worked out at the installation's first start
+ *   as the desk would have issued it then); such days say so (`replayed`, `daysReplayed`).
  * - Published schedule for a day: the revision in force for the zone and day, that is the latest
  *   published revision (state published, or superseded only when no later one was published).
  *   Its adjusted MW are compared; hours without a schedule value are not scored.
@@ -65,6 +67,8 @@ export interface AccuracyDaySourceDto {
   at: string;
   /** Schedule revision number (null for the model). */
   revision: number | null;
+  /** A replayed model forecast, not one the desk issued at the time (always false for schedules). */
+  replayed: boolean;
   /** Null when the day is not scored (see AccuracyDayDto.actuals). */
   score: AccuracyScore | null;
   /** The day's peak-hour label (hour-ending) when scored. */
@@ -121,6 +125,8 @@ export interface AccuracyZoneDto {
   daysWithoutActuals: number;
   daysWithoutForecast: number;
   daysWithoutSchedule: number;
+  /** Days whose model forecast is a replay (see AccuracyDaySourceDto.replayed). */
+  daysReplayed: number;
 }
 
 export interface AccuracyReportDto {

@@ -6,12 +6,23 @@
 
 export type ForecastMethod = 'arima' | 'seasonal-naive';
 
+/**
+ * issued: made by the desk at `issuedAt`, as the desk saw it then. replayed: made afterwards, at an
+ * installation's first start, by replaying the desk's daily work over the history it was given
+ * (the forecast the desk would have issued at `issuedAt` from the readings that existed then). A
+ * replay is never what was issued: every screen that shows one says so.
+ */
+export const FORECAST_ORIGINS = ['issued', 'replayed'] as const;
+export type ForecastOrigin = (typeof FORECAST_ORIGINS)[number];
+
 export interface ForecastRunDto {
   id: number | null;
   zone: string;
   /** When it was made, and the last reading hour (UTC start) it used. */
   issuedAt: string;
   basedOnHour: string | null;
+  /** Whether the desk issued it at `issuedAt` or it was replayed afterwards (see FORECAST_ORIGINS). */
+  origin: ForecastOrigin;
   method: ForecastMethod;
   /** Set when the model could not be used and the seasonal-naive forecast stands in. */
   fallbackReason: string | null;
@@ -27,8 +38,9 @@ export interface ForecastRunDto {
 }
 
 /**
- * GET /api/forecasts/latest?zone=A,B&from=&to= — the newest run per zone, cut to [from, to).
- * A zone with no stored run gets the seasonal-naive stand-in computed from its readings.
+ * GET /api/forecasts/latest?zone=A,B&from=&to= — the newest issued run per zone, cut to [from, to)
+ * (replayed runs are history and never serve the live desk). A zone with no issued run gets the
+ * seasonal-naive stand-in computed from its readings.
  */
 export interface LatestForecastsDto {
   zones: ForecastRunDto[];

@@ -144,6 +144,8 @@ export interface ScheduleRevisionDto {
   state: ScheduleState;
   forecastRunId: number | null;
   forecastIssuedAt: string | null;
+  /** The model values came from a replayed forecast run (see FORECAST_ORIGINS), not an issued one. */
+  forecastReplayed: boolean;
   hours: ScheduleHourDto[];
   /** Every adjustment, in the order made, undone ones included (undoneAt set). */
   adjustments: ScheduleAdjustmentDto[];

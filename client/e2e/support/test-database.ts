@@ -3,7 +3,8 @@ import { createConnection } from 'mariadb';
 /**
  * Direct access to the browser tests' own MariaDB (`npm test` starts it and passes DB_PORT,
  * DB_NAME, DB_USER and DB_PASSWORD). Only for what no API can make: a forecast run issued on an
- * earlier day, which the server, issuing at the present time, never writes.
+ * earlier day, which the server, issuing at the present time, never writes (nor replays, outside
+ * the first start's `manage.js demo-replay`).
  */
 function connect() {
   return createConnection({
@@ -20,6 +21,8 @@ export interface PastForecastRun {
   issuedAt: Date;
   firstHour: Date;
   mean: number[];
+  /** issued (default) or replayed: worked out afterwards as of issuedAt. */
+  origin?: 'issued' | 'replayed';
 }
 
 /** Stores a model forecast run as if it had been issued at `issuedAt` (bands ±3 % and ±5 %). */
@@ -30,8 +33,8 @@ export async function insertPastForecastRun(run: PastForecastRun): Promise<void>
     if (!zone) throw new Error(`no zone ${run.zone} in the test database`);
     const band = (f: number) => JSON.stringify(run.mean.map((v) => Math.round(v * f * 1000) / 1000));
     await db.query(
-      'insert into forecast_runs (zone_id, issued_at, based_on_hour, method, fallback_reason, model_version_id, first_hour, mean, lower80, upper80, lower95, upper95) values (?, ?, ?, ?, null, null, ?, ?, ?, ?, ?, ?)',
-      [zone.id, run.issuedAt, new Date(run.firstHour.getTime() - 3_600_000), 'arima', run.firstHour, JSON.stringify(run.mean), band(0.97), band(1.03), band(0.95), band(1.05)],
+      'insert into forecast_runs (zone_id, issued_at, origin, based_on_hour, method, fallback_reason, model_version_id, first_hour, mean, lower80, upper80, lower95, upper95) values (?, ?, ?, ?, ?, null, null, ?, ?, ?, ?, ?, ?)',
+      [zone.id, run.issuedAt, run.origin ?? 'issued', new Date(run.firstHour.getTime() - 3_600_000), 'arima', run.firstHour, JSON.stringify(run.mean), band(0.97), band(1.03), band(0.95), band(1.05)],
     );
   } finally {
     await db.end();

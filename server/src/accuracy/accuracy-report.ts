@@ -7,6 +7,8 @@ export interface DaySource {
   at: number;
   revision: number | null;
   values: (number | null)[];
+  /** A replayed model run (ForecastRun.origin), not one the desk issued at the time. */
+  replayed?: boolean;
 }
 
 export interface ZoneInput {
@@ -83,7 +85,7 @@ export function zoneAccuracy(input: ZoneInput, now: number): AccuracyZoneDto {
 
     const sourceDto = (source: DaySource | null, kind: 'model' | 'schedule'): AccuracyDaySourceDto | null => {
       if (!source) return null;
-      const out: AccuracyDaySourceDto = { id: source.id, at: new Date(source.at).toISOString(), revision: source.revision, score: null, peakHourEnding: null };
+      const out: AccuracyDaySourceDto = { id: source.id, at: new Date(source.at).toISOString(), revision: source.revision, replayed: source.replayed ?? false, score: null, peakHourEnding: null };
       if (!scored) return out;
       const forecast = toNaN(source.values);
       const s = score(actual, forecast, true);
@@ -140,6 +142,7 @@ export function zoneAccuracy(input: ZoneInput, now: number): AccuracyZoneDto {
     daysWithoutActuals,
     daysWithoutForecast: days.filter((d) => d.model === null).length,
     daysWithoutSchedule: days.filter((d) => d.schedule === null).length,
+    daysReplayed: days.filter((d) => d.model?.replayed).length,
   };
 }
 
@@ -169,7 +172,8 @@ export function systemInput(zones: readonly ZoneInput[], days: OperatingDay[]): 
     const all = hours.map((t) => maps.map((map) => map.get(t)?.[key] ?? null));
     if (maps.length === 0 || all.some((row) => row.some((x) => x === null))) return null;
     const at = Math.max(...all.flat().map((x) => x!.at));
-    return { id: 0, at, revision: null, values: hours.map((t) => sum(t, value)) };
+    // the total is a replay as soon as one zone's part of it is
+    return { id: 0, at, revision: null, values: hours.map((t) => sum(t, value)), replayed: all.flat().some((x) => x!.replayed === true) };
   };
   return {
     code: 'SYSTEM',

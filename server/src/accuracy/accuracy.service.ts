@@ -9,7 +9,7 @@ import { Zone } from '../zones/entities/zone.entity';
 import { systemInput, zoneAccuracy, type DaySource, type ZoneInput } from './accuracy-report';
 import { ScheduleInForce } from './schedule-in-force';
 
-type RunValues = Pick<ForecastRun, 'id' | 'issuedAt' | 'firstHour' | 'mean'>;
+type RunValues = Pick<ForecastRun, 'id' | 'issuedAt' | 'firstHour' | 'mean' | 'origin'>;
 /** Reports kept; a changed key (new reading hour, run or publication) makes a new entry. */
 const CACHE_ENTRIES = 64;
 /** A revised older reading does not move the latest hour, so entries also age out. */
@@ -120,7 +120,7 @@ export class AccuracyService {
         issuedAt: { $lt: new Date(gateClosureAt(last.date, zone.timeZone, zone.gateClosure)) },
         firstHour: { $lte: new Date(last.start), $gte: new Date(first.start - MAX_HORIZON_HOURS * HOUR_MS) },
       },
-      { fields: ['id', 'issuedAt', 'firstHour', 'mean'], orderBy: { issuedAt: 'desc', id: 'desc' } },
+      { fields: ['id', 'issuedAt', 'firstHour', 'mean', 'origin'], orderBy: { issuedAt: 'desc', id: 'desc' } },
     );
   }
 }
@@ -132,7 +132,13 @@ export function modelFor(day: OperatingDay, runsNewestFirst: readonly RunValues[
     const first = run.firstHour.getTime();
     const offset = (day.start - first) / HOUR_MS;
     if (offset < 0 || offset + day.labels.length > run.mean.length) continue;
-    return { id: run.id, at: run.issuedAt.getTime(), revision: null, values: run.mean.slice(offset, offset + day.labels.length).map((v) => (Number.isFinite(v) ? v : null)) };
+    return {
+      id: run.id,
+      at: run.issuedAt.getTime(),
+      revision: null,
+      values: run.mean.slice(offset, offset + day.labels.length).map((v) => (Number.isFinite(v) ? v : null)),
+      replayed: run.origin === 'replayed',
+    };
   }
   return null;
 }

@@ -16,6 +16,8 @@ export interface AuditRecord {
   before?: unknown;
   after?: unknown;
   reason?: string | null;
+  /** When it happened, if not now: only work replayed as of a past time passes it (src/replay). */
+  at?: Date;
 }
 
 export interface AuditQuery {
@@ -40,7 +42,7 @@ export class AuditService {
   /** Adds an entry to the unit of work of `em` (flushed by the caller's transaction). */
   stage(em: EntityManager, actor: Actor | null, record: AuditRecord): AuditEntry {
     const entry = em.create(AuditEntry, {
-      at: new Date(),
+      at: record.at ?? new Date(),
       actorId: actor?.id ?? null,
       actorEmail: actor?.email ?? null,
       action: record.action,

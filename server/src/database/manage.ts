@@ -4,11 +4,16 @@
  *   node dist/database/manage.js seed      load the demo scenario into an empty database
  *   node dist/database/manage.js feed-key NAME
  *                                          create (or rotate) the meter-feed key NAME; prints only the key
+ *   node dist/database/manage.js demo-replay [--zones A,B] [--wait-seconds N]
+ *                                          the first start's replay of the desk's daily work over the
+ *                                          backfilled history and the demo's published schedules (once;
+ *                                          see src/database/demo-replay.command.ts)
  */
 import 'reflect-metadata';
 import { MikroORM } from '@mikro-orm/mariadb';
 import { AuditService } from '../audit/audit.service';
 import { FeedKeysService } from '../feeds/feed-keys.service';
+import { demoReplayCommand } from './demo-replay.command';
 import { ormConfig } from './mikro-orm.config';
 import { DatabaseSeeder } from './seeders/DatabaseSeeder';
 
@@ -18,6 +23,7 @@ export async function migrate(orm: MikroORM): Promise<string[]> {
 }
 
 async function main(command: string | undefined): Promise<void> {
+  if (command === 'demo-replay') return demoReplayCommand(process.argv.slice(3));
   const orm = await MikroORM.init(ormConfig());
   try {
     if (command === 'migrate') {
@@ -32,7 +38,7 @@ async function main(command: string | undefined): Promise<void> {
       const em = orm.em.fork();
       console.log(await new FeedKeysService(em, new AuditService(em)).rotate(name));
     } else {
-      throw new Error('usage: manage migrate|seed|feed-key NAME');
+      throw new Error('usage: manage migrate|seed|feed-key NAME|demo-replay');
     }
   } finally {
     await orm.close(true);

@@ -21,6 +21,8 @@ export interface NewForecastRun {
   modelVersionId: number | null;
   firstHour: number;
   forecast: IntervalForecast;
+  /** Only for a replayed run: when the desk would have issued it (default: now, issued). */
+  replayedAt?: number;
 }
 
 /** A stored number must never be NaN or negative load. */
@@ -36,6 +38,7 @@ export function toForecastRunDto(run: ForecastRun, zone: string, from?: number, 
     id: run.id ?? null,
     zone,
     issuedAt: run.issuedAt.toISOString(),
+    origin: run.origin,
     basedOnHour: run.basedOnHour ? run.basedOnHour.toISOString() : null,
     method: run.method,
     fallbackReason: run.fallbackReason,
@@ -68,7 +71,8 @@ export class ForecastsService {
     const f = floorAtZero(run.forecast);
     const entity = tx.create(ForecastRun, {
       zone: run.zone,
-      issuedAt: new Date(),
+      issuedAt: run.replayedAt === undefined ? new Date() : new Date(run.replayedAt),
+      origin: run.replayedAt === undefined ? 'issued' : 'replayed',
       basedOnHour: run.basedOnHour === null ? null : new Date(run.basedOnHour),
       method: run.method,
       fallbackReason: run.fallbackReason,
@@ -89,8 +93,17 @@ export class ForecastsService {
     this.events.publish(DOMAIN_EVENTS.forecastIssued, toForecastRunDto(run, zone));
   }
 
+  /** The newest run the desk issued; replayed runs are history and never the live forecast. */
   async latestRun(zoneId: number): Promise<ForecastRun | null> {
-    return this.em.fork().findOne(ForecastRun, { zone: zoneId }, { orderBy: { issuedAt: 'desc', id: 'desc' } });
+    return this.em.fork().findOne(ForecastRun, { zone: zoneId, origin: 'issued' }, { orderBy: { issuedAt: 'desc', id: 'desc' } });
+  }
+
+  /**
+   * The newest run of any origin issued at or before `at` (what the desk had then): only for work
+   * replayed as of a past time (src/replay), never for the live desk.
+   */
+  async runAsOf(zoneId: number, at: Date): Promise<ForecastRun | null> {
+    return this.em.fork().findOne(ForecastRun, { zone: zoneId, issuedAt: { $lte: at } }, { orderBy: { issuedAt: 'desc', id: 'desc' } });
   }
 
   async latest(codes: readonly string[] | undefined, from?: Date, to?: Date): Promise<LatestForecastsDto> {

@@ -19,6 +19,7 @@ const PHRASES: Record<string, string> = {
   'refit.fail': 'Refit failed',
   'model.promote': 'Model promoted into service',
   'model.rollback': 'Model rolled back',
+  'forecast.replay': 'Forecasts replayed over the stored history (marked replayed, not issued)',
   'schedule.submit': 'Schedule submitted',
   'schedule.approve': 'Schedule approved',
   'schedule.publish': 'Schedule published',

@@ -26,7 +26,7 @@ export const INTERRUPTED = 'interrupted by a server restart';
 /** How long after start the first check for zones without a model runs (feeds backfill first). */
 const FIRST_MODEL_DELAY_MS = 3 * 60_000;
 /** Three weeks of hourly readings: what the weekly differencing and a short backtest need. */
-const FIRST_MODEL_MIN_HOURS = 21 * 24;
+export const FIRST_MODEL_MIN_HOURS = 21 * 24;
 
 type JobMode = RefitJob['mode'];
 

@@ -24,7 +24,7 @@ import { AuditService } from '../audit/audit.service';
 import type { AuthUser } from '../common/auth-user';
 import { DOMAIN_EVENTS } from '../events/domain-events';
 import { DomainEventsPublisher } from '../events/domain-events.publisher';
-import { ForecastsService } from '../forecasts/forecasts.service';
+import { ForecastsService, toForecastRunDto } from '../forecasts/forecasts.service';
 import { User } from '../users/entities/user.entity';
 import { Zone } from '../zones/entities/zone.entity';
 import { ScheduleAdjustment } from './entities/schedule-adjustment.entity';
@@ -62,6 +62,7 @@ export function toRevisionDto(r: ScheduleRevision, adjustments: ScheduleAdjustme
     state: r.state,
     forecastRunId: r.forecastRunId,
     forecastIssuedAt: iso(r.forecastIssuedAt),
+    forecastReplayed: r.forecastReplayed,
     hours: r.hours,
     adjustments: adjustments.filter((a) => a.revision.id === r.id).map(toAdjustmentDto),
     createdBy: { id: r.createdBy.id, name: r.createdBy.name },
@@ -124,10 +125,15 @@ export class SchedulesService {
     this.events.publish(DOMAIN_EVENTS.scheduleChanged, { action, zone: r.zone, operatingDay: r.operatingDay, revisionId: r.id, revision: r.revision, state: r.state });
   }
 
-  /** The latest forecast (stored run, or the seasonal-naive stand-in) laid onto the day's hours. */
-  private async forecastHours(zone: Zone, day: string, slots: ScheduleHourSlot[]): Promise<{ runId: number | null; issuedAt: string; hours: ScheduleHourDto[] }> {
+  /**
+   * The latest forecast (stored run, or the seasonal-naive stand-in) laid onto the day's hours; with
+   * `asOf` (work replayed as of a past time, never HTTP) the run the desk had then.
+   */
+  private async forecastHours(zone: Zone, day: string, slots: ScheduleHourSlot[], asOf?: Date): Promise<{ runId: number | null; issuedAt: string; replayed: boolean; hours: ScheduleHourDto[] }> {
     const { from, to } = operatingDayBounds(day, zone.timeZone);
-    const run = (await this.forecasts.latest([zone.code], new Date(from), new Date(to))).zones[0];
+    const past = asOf ? await this.forecasts.runAsOf(zone.id, asOf) : null;
+    if (asOf && !past) throw new ConflictException(`No forecast run of ${zone.code} had been stored by ${asOf.toISOString()}`);
+    const run = past ? toForecastRunDto(past, zone.code, from, to) : (await this.forecasts.latest([zone.code], new Date(from), new Date(to))).zones[0];
     const at = new Map(run.hours.map((h, i) => [Date.parse(h), i]));
     const hours = slots.map((s) => {
       const i = at.get(Date.parse(s.intervalStartUtc));
@@ -135,7 +141,7 @@ export class SchedulesService {
       const modelMw = v(run.mean);
       return { ...s, modelMw, lower80: v(run.lower80), upper80: v(run.upper80), lower95: v(run.lower95), upper95: v(run.upper95), startMw: modelMw, adjustedMw: modelMw };
     });
-    return { runId: run.id, issuedAt: run.issuedAt, hours };
+    return { runId: run.id, issuedAt: run.issuedAt, replayed: run.origin === 'replayed', hours };
   }
 
   async day(day: string, codes: readonly string[] | undefined, now = new Date()): Promise<DayScheduleDto> {
@@ -164,7 +170,7 @@ export class SchedulesService {
         gateClosureAt: gate.toISOString(),
         secondsToGateClosure: Math.round((gate.getTime() - now.getTime()) / 1000),
         gateClosed: now >= gate,
-        forecast: forecast.hours.some((h) => h.modelMw !== null) ? forecast : null,
+        forecast: forecast.hours.some((h) => h.modelMw !== null) ? { runId: forecast.runId, issuedAt: forecast.issuedAt, hours: forecast.hours } : null,
         working: working ? toRevisionDto(working, adjustments) : null,
         published: published ? toRevisionDto(published, adjustments) : null,
       });
@@ -172,8 +178,12 @@ export class SchedulesService {
     return { operatingDay: day, serverTime: now.toISOString(), caution: SCHEDULE_CAUTION, zones: out };
   }
 
-  /** Starts the zone/day's draft from the latest forecast; answers the working revision if there is one. */
-  async createDraft(user: AuthUser, day: string, code: string): Promise<ScheduleRevisionDto> {
+  /**
+   * Starts the zone/day's draft from the latest forecast; answers the working revision if there is one.
+   * `asOf` is only for work replayed as of a past time (src/replay): the draft is made then, from the
+   * forecast the desk had then. HTTP callers never pass it.
+   */
+  async createDraft(user: AuthUser, day: string, code: string, asOf?: Date): Promise<ScheduleRevisionDto> {
     this.checkDay(day);
     const em = this.em.fork();
     const [zone] = await this.zones(em, [code]);
@@ -183,7 +193,7 @@ export class SchedulesService {
       throw new ConflictException(`The ${code} schedule for ${day} is published; a change is a correction (a new revision with a reason)`);
     }
     const slots = operatingDaySlots(day, zone.timeZone);
-    const forecast = await this.forecastHours(zone, day, slots);
+    const forecast = await this.forecastHours(zone, day, slots, asOf);
     try {
       const dto = await em.transactional(async (tx) => {
         const last = await tx.findOne(ScheduleRevision, { zone: zone.id, operatingDay: day }, { orderBy: { revision: 'desc' } });
@@ -196,9 +206,10 @@ export class SchedulesService {
           publishedKey: null,
           forecastRunId: forecast.runId,
           forecastIssuedAt: new Date(forecast.issuedAt),
+          forecastReplayed: forecast.replayed,
           hours: forecast.hours,
           createdBy: tx.getReference(User, user.id),
-          createdAt: new Date(),
+          createdAt: asOf ?? new Date(),
           late: false,
         });
         await tx.flush();
@@ -207,6 +218,7 @@ export class SchedulesService {
           subjectType: 'schedule',
           subjectId: revision.id,
           after: { zone: code, operatingDay: day, revision: revision.revision, forecastRunId: forecast.runId, hoursWithoutForecast: forecast.hours.filter((h) => h.modelMw === null).length },
+          at: asOf,
         });
         await tx.flush();
         return this.dto(tx, revision);
@@ -235,7 +247,8 @@ export class SchedulesService {
     revision.hours = revision.hours.map((h, i) => ({ ...h, adjustedMw: result.values[i] }));
   }
 
-  async adjust(user: AuthUser, day: string, request: CreateScheduleAdjustmentRequest): Promise<AdjustmentResultDto> {
+  /** `asOf`: only for work replayed as of a past time (src/replay); HTTP callers never pass it. */
+  async adjust(user: AuthUser, day: string, request: CreateScheduleAdjustmentRequest, asOf?: Date): Promise<AdjustmentResultDto> {
     this.checkDay(day);
     const codes = [...new Set(request.zones)];
     if (request.fromHour > request.toHour) throw new BadRequestException('fromHour must not be after toHour');
@@ -267,7 +280,7 @@ export class SchedulesService {
           value: request.value,
           reason: request.reason,
           by: tx.getReference(User, user.id),
-          at: new Date(),
+          at: asOf ?? new Date(),
         });
         await tx.flush();
         this.audit.stage(tx, user, {
@@ -284,6 +297,7 @@ export class SchedulesService {
             value: request.value,
           },
           reason: request.reason,
+          at: asOf,
         });
         made.push(adjustment);
         revisions.push(revision);
@@ -353,6 +367,7 @@ export class SchedulesService {
         subjectId: id,
         after: { zone: revision.zone.code, operatingDay: revision.operatingDay, revision: revision.revision, late, gateClosureAt: gate.toISOString() },
         reason: revision.submitComment,
+        at: now,
       });
       await tx.flush();
       return this.dto(tx, revision);
@@ -377,8 +392,11 @@ export class SchedulesService {
     return dto;
   }
 
-  /** Approval publishes; the e-mails go out after the publication has committed and cannot undo it. */
-  async approve(user: AuthUser, id: number): Promise<ScheduleRevisionDto> {
+  /**
+   * Approval publishes; the e-mails go out after the publication has committed and cannot undo it.
+   * `asOf`: only for work replayed as of a past time (src/replay); HTTP callers never pass it.
+   */
+  async approve(user: AuthUser, id: number, asOf?: Date): Promise<ScheduleRevisionDto> {
     const { dto, zoneName } = await this.em.fork().transactional(async (tx) => {
       const revision = await this.lockRevision(tx, id);
       if (revision.state !== 'submitted') {
@@ -391,7 +409,7 @@ export class SchedulesService {
       if (revision.submittedBy?.id === user.id) throw new ForbiddenException('A supervisor cannot approve a schedule they submitted; another supervisor must approve it');
       const k = key(revision.zone, revision.operatingDay);
       const previous = await tx.findOne(ScheduleRevision, { publishedKey: k }, { lockMode: LockMode.PESSIMISTIC_WRITE });
-      const now = new Date();
+      const now = asOf ?? new Date();
       if (previous) {
         previous.state = 'superseded';
         previous.publishedKey = null;
@@ -404,8 +422,8 @@ export class SchedulesService {
       revision.publishedBy = tx.getReference(User, user.id);
       revision.publishedAt = now;
       const after = { zone: revision.zone.code, operatingDay: revision.operatingDay, revision: revision.revision, late: revision.late, supersedes: previous?.revision ?? null };
-      this.audit.stage(tx, user, { action: 'schedule.approve', subjectType: 'schedule', subjectId: id, after, reason: revision.correctionReason });
-      this.audit.stage(tx, user, { action: 'schedule.publish', subjectType: 'schedule', subjectId: id, after, reason: revision.correctionReason });
+      this.audit.stage(tx, user, { action: 'schedule.approve', subjectType: 'schedule', subjectId: id, after, reason: revision.correctionReason, at: asOf });
+      this.audit.stage(tx, user, { action: 'schedule.publish', subjectType: 'schedule', subjectId: id, after, reason: revision.correctionReason, at: asOf });
       await tx.flush();
       return { dto: await this.dto(tx, revision), zoneName: revision.zone.name };
     });
@@ -434,6 +452,7 @@ export class SchedulesService {
           publishedKey: null,
           forecastRunId: published.forecastRunId,
           forecastIssuedAt: published.forecastIssuedAt,
+          forecastReplayed: published.forecastReplayed,
           hours: published.hours.map((h) => ({ ...h, startMw: h.adjustedMw })),
           createdBy: tx.getReference(User, user.id),
           createdAt: new Date(),

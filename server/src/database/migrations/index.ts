@@ -4,6 +4,7 @@ import { Migration20261201192644 } from './Migration20261201192644';
 import { Migration20261201200000 } from './Migration20261201200000';
 import { Migration20261201201000 } from './Migration20261201201000';
 import { Migration20261201203510 } from './Migration20261201203510';
+import { Migration20261202170000 } from './Migration20261202170000';
 
 export const MIGRATIONS = [
   { name: 'Migration20261201192005', class: Migration20261201192005 },
@@ -11,4 +12,5 @@ export const MIGRATIONS = [
   { name: 'Migration20261201200000', class: Migration20261201200000 },
   { name: 'Migration20261201201000', class: Migration20261201201000 },
   { name: 'Migration20261201203510', class: Migration20261201203510 },
+  { name: 'Migration20261202170000', class: Migration20261202170000 },
 ];

@@ -1,5 +1,5 @@
-import { Entity, Enum, Index, ManyToOne, PrimaryKey, Property } from '@mikro-orm/core';
-import type { ForecastMethod } from '@morrowline/shared';
+import { Entity, Enum, Index, ManyToOne, PrimaryKey, Property, type Opt } from '@mikro-orm/core';
+import { FORECAST_ORIGINS, type ForecastMethod, type ForecastOrigin } from '@morrowline/shared';
 import { Zone } from '../../zones/entities/zone.entity';
 
 /**
@@ -19,6 +19,13 @@ export class ForecastRun {
 
   @Property({ type: 'datetime', length: 3 })
   issuedAt: Date = new Date();
+
+  /**
+   * issued: the desk made it at issuedAt. replayed: made at the installation's first start as the
+   * desk would have issued it at issuedAt (src/replay); never served as the live forecast.
+   */
+  @Enum({ items: [...FORECAST_ORIGINS], type: 'string', length: 16, default: 'issued' })
+  origin: Opt<ForecastOrigin> = 'issued';
 
   /** The last reading hour (UTC start) the run used. */
   @Property({ type: 'datetime', length: 0, nullable: true })

@@ -1,4 +1,4 @@
-import { Entity, Enum, Index, ManyToOne, PrimaryKey, Property, Unique } from '@mikro-orm/core';
+import { Entity, Enum, Index, ManyToOne, PrimaryKey, Property, Unique, type Opt } from '@mikro-orm/core';
 import { SCHEDULE_STATES, type ScheduleHourDto, type ScheduleMailOutcome, type ScheduleState } from '@morrowline/shared';
 import { User } from '../../users/entities/user.entity';
 import { Zone } from '../../zones/entities/zone.entity';
@@ -41,6 +41,10 @@ export class ScheduleRevision {
 
   @Property({ type: 'datetime', length: 3, nullable: true })
   forecastIssuedAt: Date | null = null;
+
+  /** The model values came from a replayed forecast run (ForecastRun.origin), not an issued one. */
+  @Property({ type: 'boolean', default: false })
+  forecastReplayed: Opt<boolean> = false;
 
   @Property({ type: 'json' })
   hours!: ScheduleHourDto[];

@@ -11,7 +11,7 @@ const zone: AccuracyZoneDto = {
   zoneName: 'Millrace',
   timeZone: 'America/Denver',
   days: [
-    { operatingDay: '2026-03-08', hours: 23, actualHours: 23, actuals: 'complete', model: { id: 1, at: '', revision: null, score: s(20, -40), peakHourEnding: 'HE19' }, schedule: { id: 5, at: '', revision: 2, score: s(10, -20), peakHourEnding: 'HE19' }, adjustmentEffect: -10 },
+    { operatingDay: '2026-03-08', hours: 23, actualHours: 23, actuals: 'complete', model: { id: 1, at: '', revision: null, replayed: false, score: s(20, -40), peakHourEnding: 'HE19' }, schedule: { id: 5, at: '', revision: 2, replayed: false, score: s(10, -20), peakHourEnding: 'HE19' }, adjustmentEffect: -10 },
     { operatingDay: '2026-03-09', hours: 24, actualHours: 0, actuals: 'none', model: null, schedule: null, adjustmentEffect: null },
   ],
   byHour: [],
@@ -22,6 +22,7 @@ const zone: AccuracyZoneDto = {
   daysWithoutActuals: 1,
   daysWithoutForecast: 1,
   daysWithoutSchedule: 1,
+  daysReplayed: 0,
 };
 
 describe('accuracy summary and day table', () => {

@@ -1,6 +1,6 @@
 import { Alert, Card, Group, Table, Text } from '@mantine/core';
 import { adjustmentVerdict, type AccuracyZoneDto } from '@morrowline/shared';
-import { summaryRows } from '../model/accuracy-data';
+import { replayedNote, summaryRows } from '../model/accuracy-data';
 
 /** Model against schedule for one zone or the system total, and whether the adjustments helped. */
 export function AccuracySummary({ subject }: { subject: AccuracyZoneDto }) {
@@ -36,6 +36,11 @@ export function AccuracySummary({ subject }: { subject: AccuracyZoneDto }) {
       <Alert mt="sm" variant="light" color={color} data-testid="accuracy-verdict">
         {adjustmentVerdict(c)}
       </Alert>
+      {subject.daysReplayed > 0 && (
+        <Alert mt="sm" variant="light" color="grape" title="Replayed model forecasts" data-testid="accuracy-replayed-note">
+          {replayedNote(subject.daysReplayed, subject.days.length)}
+        </Alert>
+      )}
       <Text size="xs" c="dimmed" mt="xs">
         Bias is the mean of forecast minus actual: positive means the forecast was too high (over-forecast), negative too low. Peak-hour error is the error at the hour of each day&apos;s highest actual load.
       </Text>

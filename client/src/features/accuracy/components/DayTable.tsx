@@ -1,8 +1,11 @@
-import { Table } from '@mantine/core';
+import { Badge, Group, Table } from '@mantine/core';
 import type { AccuracyZoneDto } from '@morrowline/shared';
 import { dayStatus, signedMw } from '../model/accuracy-data';
 
 const pct = (v: number | null | undefined) => (v === null || v === undefined ? '—' : `${v.toFixed(2)} %`);
+
+/** What the badge means, on hover: a replay is never to be read as the forecast the desk issued. */
+export const REPLAYED_TITLE = 'Replayed forecast: worked out when this installation first started, as the desk would have issued it before the gate closure from the readings it had then. Not a forecast the desk issued at the time.';
 
 /** Every day of the range, scored or not, with why not. */
 export function DayTable({ subject }: { subject: AccuracyZoneDto }) {
@@ -25,7 +28,18 @@ export function DayTable({ subject }: { subject: AccuracyZoneDto }) {
           {subject.days.map((d) => (
             <Table.Tr key={d.operatingDay}>
               <Table.Td>{d.operatingDay}</Table.Td>
-              <Table.Td ta="right">{pct(d.model?.score?.mape)}</Table.Td>
+              <Table.Td ta="right" style={{ whiteSpace: 'nowrap' }}>
+                {d.model?.replayed ? (
+                  <Group gap={6} justify="flex-end" wrap="nowrap">
+                    <Badge size="xs" variant="light" color="grape" ff="text" style={{ flexShrink: 0 }} data-testid="accuracy-replayed-badge" title={REPLAYED_TITLE}>
+                      replayed
+                    </Badge>
+                    {pct(d.model?.score?.mape)}
+                  </Group>
+                ) : (
+                  pct(d.model?.score?.mape)
+                )}
+              </Table.Td>
               <Table.Td ta="right">{pct(d.schedule?.score?.mape)}</Table.Td>
               <Table.Td ta="right">{signedMw(d.model?.score?.bias)}</Table.Td>
               <Table.Td ta="right">{signedMw(d.model?.score?.peakErrorMw)}</Table.Td>

@@ -22,6 +22,7 @@ export function ZoneTable({ zones, system }: { zones: AccuracyZoneDto[]; system:
             <Table.Th ta="right">Schedule bias</Table.Th>
             <Table.Th ta="right">Model peak error</Table.Th>
             <Table.Th ta="right">Adjustments (schedule − model)</Table.Th>
+            <Table.Th ta="right">Replayed model forecasts</Table.Th>
           </Table.Tr>
         </Table.Thead>
         <Table.Tbody ff="monospace">
@@ -42,6 +43,7 @@ export function ZoneTable({ zones, system }: { zones: AccuracyZoneDto[]; system:
                   {diff(z.comparison.difference)}
                 </Text>
               </Table.Td>
+              <Table.Td ta="right" data-testid="accuracy-zone-replayed">{z.daysReplayed === 0 ? '—' : `${z.daysReplayed} of ${z.days.length} days`}</Table.Td>
             </Table.Tr>
           ))}
         </Table.Tbody>

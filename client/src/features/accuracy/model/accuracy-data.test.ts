@@ -10,8 +10,8 @@ const day = (operatingDay: string, over: Partial<AccuracyDayDto> = {}): Accuracy
   hours: 24,
   actualHours: 24,
   actuals: 'complete',
-  model: { id: 1, at: '', revision: null, score: score(4), peakHourEnding: 'HE18' },
-  schedule: { id: 2, at: '', revision: 1, score: score(3), peakHourEnding: 'HE18' },
+  model: { id: 1, at: '', revision: null, replayed: false, score: score(4), peakHourEnding: 'HE18' },
+  schedule: { id: 2, at: '', revision: 1, replayed: false, score: score(3), peakHourEnding: 'HE18' },
   adjustmentEffect: -1,
   ...over,
 });

@@ -56,6 +56,12 @@ export function dayStatus(day: AccuracyDayDto): string {
   return parts.length ? parts.join(' · ') : 'scored';
 }
 
+/** Says how many days are scored against replayed forecasts, and what a replay is. */
+export function replayedNote(replayed: number, days: number): string {
+  const which = replayed === days ? `All ${days} days` : `${replayed} of the ${days} days`;
+  return `${which} are scored against replayed model forecasts (marked “replayed”): worked out when this installation first started, as the desk would have issued each before its gate closure from the readings it had then. They are not forecasts the desk issued at the time.`;
+}
+
 /** "+12.3 MW" / "−4.0 MW": signed, for bias and peak error. */
 export function signedMw(value: number | null | undefined): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '—';

@@ -34,7 +34,7 @@ function Charts({ subject }: { subject: AccuracyZoneDto }) {
   return (
     <SimpleGrid cols={{ base: 1, lg: 2 }} spacing="lg">
       <Card withBorder padding="md">
-        <BarChart title="MAPE per operating day" data={daily} series={SERIES} xLabel={dayLabel} xName="Day" unit="%" testId="accuracy-daily-chart" caption="A day without bars had no actuals, or no model forecast or published schedule for it (see the table below)." />
+        <BarChart title="MAPE per operating day" data={daily} series={SERIES} xLabel={dayLabel} xName="Day" unit="%" testId="accuracy-daily-chart" caption={`A day without bars had no actuals, or no model forecast or published schedule for it (see the table below).${subject.daysReplayed > 0 ? ' The model bars of days marked “replayed” below are replayed forecasts, not ones the desk issued.' : ''}`} />
       </Card>
       <Card withBorder padding="md">
         <Group justify="space-between" mb={4}>
@@ -147,7 +147,7 @@ export function AccuracyPage() {
               </>
             )}
             <Text size="xs" c="dimmed">
-              Model forecast: the latest forecast run issued before each day&apos;s gate closure that covers the whole day. Published schedule: the latest published revision for the zone and day. Hours inside outage or bad-data windows are not scored. Latest reading {data.latestReadingHour ? data.latestReadingHour.replace('T', ' ').slice(0, 16) + ' UTC' : 'none'}.
+              Model forecast: the latest forecast run issued before each day&apos;s gate closure that covers the whole day; &ldquo;replayed&rdquo; marks a run worked out afterwards, at this installation&apos;s first start, not one the desk issued then. Published schedule: the latest published revision for the zone and day. Hours inside outage or bad-data windows are not scored. Latest reading {data.latestReadingHour ? data.latestReadingHour.replace('T', ' ').slice(0, 16) + ' UTC' : 'none'}.
             </Text>
           </>
         )}

@@ -27,7 +27,7 @@ describe('useZoneForecast', () => {
     // The server's stand-in repeats the same hours one week earlier.
     const week = Array.from({ length: 24 }, (_, k) => mw[24 + k] as number);
     const standIn: ForecastRunDto = {
-      id: null, zone: 'MILLRACE', issuedAt: '2026-05-08T23:10:00Z', basedOnHour: null, method: 'seasonal-naive', fallbackReason: 'no model yet', modelVersionId: null,
+      id: null, zone: 'MILLRACE', issuedAt: '2026-05-08T23:10:00Z', basedOnHour: null, method: 'seasonal-naive', fallbackReason: 'no model yet', modelVersionId: null, origin: 'issued',
       hours: hours.slice(168 + 24, 168 + 48), mean: week, lower80: week, upper80: week, lower95: week, upper95: week,
     };
     mockApi({ 'GET /api/forecasts/latest': () => ({ body: { zones: [standIn] } }) });
@@ -49,7 +49,7 @@ describe('useZoneForecast', () => {
 
   it('uses the server’s run once it answers, laid out on the series’ hours', async () => {
     const run: ForecastRunDto = {
-      id: 3, zone: 'MILLRACE', issuedAt: '2026-05-08T23:10:00Z', basedOnHour: hours[168 + 23], method: 'arima', fallbackReason: null, modelVersionId: 9,
+      id: 3, zone: 'MILLRACE', issuedAt: '2026-05-08T23:10:00Z', basedOnHour: hours[168 + 23], origin: 'issued', method: 'arima', fallbackReason: null, modelVersionId: 9,
       hours: [hours[168 + 24], hours[168 + 25]], mean: [111, 112], lower80: [105, 106], upper80: [117, 118], lower95: [101, 102], upper95: [121, 122],
     };
     mockApi({ 'GET /api/forecasts/latest': () => ({ body: { zones: [run] } }) });

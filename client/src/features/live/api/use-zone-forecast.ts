@@ -44,7 +44,9 @@ export function runToLine(run: ForecastRunDto, series: ReadingSeriesDto, before?
   return line;
 }
 
-function describeRun(run: ForecastRunDto): string {
+export function describeRun(run: ForecastRunDto): string {
+  // The server serves only issued runs as the latest; should a replay ever arrive, it says so.
+  if (run.origin === 'replayed') return `Replayed forecast (worked out afterwards as of ${run.issuedAt.slice(0, 16).replace('T', ' ')} UTC; not issued by the desk then)`;
   if (run.method === 'arima') return `Model forecast issued ${run.issuedAt.slice(0, 16).replace('T', ' ')} UTC`;
   return run.fallbackReason ? `Seasonal-naive stand-in (${run.fallbackReason})` : 'Seasonal-naive stand-in: same hour one week earlier';
 }

@@ -63,7 +63,7 @@ describe('useLiveUpdates', () => {
   it('puts a new forecast run only into the cached queries that asked for its zone', () => {
     const { queryClient, server } = setup();
     const run: ForecastRunDto = {
-      id: 41, zone: 'LANTERN', issuedAt: '2026-05-01T02:00:05.000Z', basedOnHour: '2026-05-01T01:00:00.000Z', method: 'arima', fallbackReason: null,
+      id: 41, zone: 'LANTERN', issuedAt: '2026-05-01T02:00:05.000Z', basedOnHour: '2026-05-01T01:00:00.000Z', origin: 'issued', method: 'arima', fallbackReason: null,
       modelVersionId: 9, hours: ['2026-05-01T02:00:00.000Z'], mean: [188], lower80: [180], upper80: [196], lower95: [176], upper95: [200],
     };
     const standIn: ForecastRunDto = { ...run, id: null, method: 'seasonal-naive', fallbackReason: 'no model yet', modelVersionId: null };

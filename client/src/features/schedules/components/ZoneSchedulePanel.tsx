@@ -1,4 +1,4 @@
-import { Accordion, Group, Stack, Text, Title } from '@mantine/core';
+import { Accordion, Badge, Group, Stack, Text, Title } from '@mantine/core';
 import type { UserDto, ZoneScheduleDto } from '@morrowline/shared';
 import { useMemo } from 'react';
 import { formatMw } from '../../../lib/format';
@@ -34,6 +34,16 @@ export function ZoneSchedulePanel({ day, zone, user, caution, clockOffsetMs }: Z
             {rows.length} hours · {Math.round(total).toLocaleString('en-US')} MWh adjusted · peak {formatMw(Math.max(0, ...rows.map((r) => r.adjustedMw ?? 0)))} · {zone.timeZone}
             {zone.forecast && ` · forecast issued ${zone.forecast.issuedAt.slice(0, 16).replace('T', ' ')} UTC`}
           </Text>
+          {revision?.forecastReplayed && (
+            <Group gap={6} mt={4}>
+              <Badge size="sm" variant="light" color="grape" data-testid="schedule-replayed-forecast">
+                replayed forecast
+              </Badge>
+              <Text size="xs" c="dimmed">
+                Its model values come from a forecast replayed at this installation&apos;s first start (as of {revision.forecastIssuedAt?.slice(0, 16).replace('T', ' ')} UTC), not one the desk issued then.
+              </Text>
+            </Group>
+          )}
         </Stack>
         <GateCountdownBadge gateClosureAt={zone.gateClosureAt} timeZone={zone.timeZone} clockOffsetMs={clockOffsetMs} />
       </Group>
