@@ -5,7 +5,7 @@
 #   + playwright-core + Debian Chromium) · start (a clean clone of HEAD through npm run dev,
 #   bench:ingest and npm start, twice)
 # Ends with one line "N passed, N failed" and a non-zero exit if anything failed.
-# Run one suite alone: scripts/test.sh engine|shared|unit|integration|simulators|client|e2e|start
+# Run one suite alone: scripts/test.sh engine|shared|unit|integration|simulators|client|e2e|lint|start
 # (unit includes shared: the operating-day, role and zone-code rules the server and the desk both use)
 set -uo pipefail
 source "$(dirname "$0")/lib.sh"
@@ -97,6 +97,13 @@ if want e2e; then
   else
     failures+=(build)
   fi
+fi
+
+if want lint; then
+  # eslint (the engine's boundary) and the folder-cycle check, counted as one test.
+  log "suite: lint"
+  if npm run -s lint; then echo '{"numPassedTests":1,"numFailedTests":0}' >"$reports/lint.json"
+  else echo '{"numPassedTests":0,"numFailedTests":1}' >"$reports/lint.json"; failures+=(lint); fi
 fi
 
 if want start; then
