@@ -1,13 +1,14 @@
 import { Module } from '@nestjs/common';
 import { OutagesModule } from '../outages/outages.module';
 import { ReadingsModule } from '../readings/readings.module';
+import { ZonesModule } from '../zones/zones.module';
 import { AccuracyController } from './accuracy.controller';
 import { AccuracyService } from './accuracy.service';
 import { ScheduleInForce } from './schedule-in-force';
 
 /** Accuracy of the model forecast and the published schedule against actuals (no tables). */
 @Module({
-  imports: [ReadingsModule, OutagesModule],
+  imports: [ReadingsModule, OutagesModule, ZonesModule],
   controllers: [AccuracyController],
   providers: [AccuracyService, ScheduleInForce],
 })

@@ -5,7 +5,8 @@ import { ForecastRun } from '../forecasts/entities/forecast-run.entity';
 import { MAX_HORIZON_HOURS } from '../forecasts/forecast-horizon';
 import { OutagesService } from '../outages/outages.service';
 import { ReadingsRepository } from '../readings/readings.repository';
-import { Zone } from '../zones/entities/zone.entity';
+import type { Zone } from '../zones/entities/zone.entity';
+import { ZonesRepository } from '../zones/zones.repository';
 import { systemInput, zoneAccuracy, type DaySource, type ZoneInput } from './accuracy-report';
 import { ScheduleInForce } from './schedule-in-force';
 
@@ -27,6 +28,7 @@ export class AccuracyService {
 
   constructor(
     private readonly em: EntityManager,
+    private readonly zones: ZonesRepository,
     private readonly readings: ReadingsRepository,
     private readonly outages: OutagesService,
     private readonly schedules: ScheduleInForce,
@@ -65,19 +67,9 @@ export class AccuracyService {
   }
 
   private async resolveZones(codes: readonly string[] | undefined): Promise<Zone[]> {
-    const em = this.em.fork();
-    if (!codes || codes.length === 0) {
-      const all = await em.find(Zone, { active: true }, { orderBy: { code: 'asc' } });
-      if (all.length === 0) throw new BadRequestException('There are no active zones');
-      return all;
-    }
-    const found = await em.find(Zone, { code: { $in: [...new Set(codes)] }, active: true });
-    const byCode = new Map(found.map((z) => [z.code, z]));
-    return [...new Set(codes)].map((code) => {
-      const zone = byCode.get(code);
-      if (!zone) throw new BadRequestException(`No active zone with code ${code}`);
-      return zone;
-    });
+    const zones = await this.zones.activeByCodes(codes && [...new Set(codes)]);
+    if (zones.length === 0) throw new BadRequestException('There are no active zones');
+    return zones;
   }
 
   /** Newest forecast run and schedule publication of the zones: part of the cache key. */
