@@ -8,7 +8,7 @@ import { forecastHorizon } from '../forecasts/forecast-horizon';
 import { ForecastsService } from '../forecasts/forecasts.service';
 import { ModelVersion } from './entities/model-version.entity';
 import { choiceOf, toModelVersionDto } from './model-dto';
-import { ZoneHistoryLoader } from './zone-history';
+import { ZoneHistoryLoader } from '../history/zone-history.loader';
 
 /**
  * Model versions: the list per zone, a candidate beside the model in service (both scored again

@@ -17,7 +17,7 @@ import { ModelVersion } from './entities/model-version.entity';
 import { RefitJob } from './entities/refit-job.entity';
 import { choiceOf, toRefitJobDto } from './model-dto';
 import { cronExpressions, loadRefitSchedule } from './refit-schedule';
-import { ZoneHistoryLoader, type ZoneHistory } from './zone-history';
+import { ZoneHistoryLoader, type ZoneHistory } from '../history/zone-history.loader';
 
 /** Jobs in flight at once: the pool's threads plus one reading or storing meanwhile. */
 const JOB_CONCURRENCY = 2;

@@ -1,16 +1,13 @@
 import { Module } from '@nestjs/common';
 import { ComputeModule } from '../compute/compute.module';
-import { OutageExclusionsLookup } from '../outages/outages-exclusions.lookup';
-import { OutagesModule } from '../outages/outages.module';
-import { ReadingsModule } from '../readings/readings.module';
+import { ZoneHistoryModule } from '../history/zone-history.module';
 import { ZonesModule } from '../zones/zones.module';
-import { ExclusionsLookup } from './exclusions.lookup';
 import { WorkbenchController } from './workbench.controller';
 import { WorkbenchService } from './workbench.service';
 
 @Module({
-  imports: [ComputeModule, ReadingsModule, ZonesModule, OutagesModule],
+  imports: [ComputeModule, ZoneHistoryModule, ZonesModule],
   controllers: [WorkbenchController],
-  providers: [WorkbenchService, { provide: ExclusionsLookup, useExisting: OutageExclusionsLookup }],
+  providers: [WorkbenchService],
 })
 export class WorkbenchModule {}
