@@ -1,12 +1,8 @@
 import { EntityManager, LockMode, UniqueConstraintViolationException } from '@mikro-orm/mariadb';
-import { BadRequestException, Injectable, Logger, NotFoundException, type OnApplicationBootstrap, type OnApplicationShutdown } from '@nestjs/common';
-import { ConfigService } from '@nestjs/config';
-import { SchedulerRegistry } from '@nestjs/schedule';
-import { CronJob } from 'cron';
+import { BadRequestException, Injectable, Logger, NotFoundException, type OnApplicationShutdown } from '@nestjs/common';
 import { DESK_EVENTS, HOUR_MS, type RefitJobDto, type RefitJobState, type RefitTrigger } from '@morrowline/shared';
 import { AuditService, type Actor } from '../audit/audit.service';
 import { ComputeService } from '../compute/compute.service';
-import type { AppConfig } from '../config/configuration';
 import { DeskGateway } from '../desk/desk.gateway';
 import { forecastHorizon } from '../forecasts/forecast-horizon';
 import { ForecastsService } from '../forecasts/forecasts.service';
@@ -16,14 +12,14 @@ import { REFIT_BACKTEST_DAYS, type RefitPayload, type RefitResult } from './anal
 import { ModelVersion } from './entities/model-version.entity';
 import { RefitJob } from './entities/refit-job.entity';
 import { choiceOf, toRefitJobDto } from './model-dto';
-import { cronExpressions, loadRefitSchedule } from './refit-schedule';
+import { modelVersionFields } from './model-version-fields';
+import { decidePromotion } from './promotion-policy';
+import { RefitQueue } from './refit-queue';
 import { ZoneHistoryLoader, type ZoneHistory } from '../history/zone-history.loader';
 
 /** Jobs in flight at once: the pool's threads plus one reading or storing meanwhile. */
 const JOB_CONCURRENCY = 2;
 export const INTERRUPTED = 'interrupted by a server restart';
-/** How long after start the first check for zones without a model runs (feeds backfill first). */
-const FIRST_MODEL_DELAY_MS = 3 * 60_000;
 /** Three weeks of hourly readings: what the weekly differencing and a short backtest need. */
 const FIRST_MODEL_MIN_HOURS = 21 * 24;
 
@@ -37,19 +33,14 @@ type JobMode = RefitJob['mode'];
  * restart mid-job leaves the model in service as it was; on start, jobs left queued or running
  * are marked failed.
  *
- * Promotion: the first model of a zone goes into service; the nightly refit promotes its
- * candidate only when the candidate's backtest MAPE beats the model in service's on the same
- * days; an operator's refit leaves a candidate for the operator to compare and promote; the
- * hourly update (orders kept, coefficients re-estimated) replaces the model in service.
+ * Whether a new model goes into service is the promotion policy (promotion-policy.ts); what a
+ * version stores, model-version-fields.ts; when jobs start by themselves, RefitScheduler; the
+ * in-process queue, RefitQueue.
  */
 @Injectable()
-export class RefitsService implements OnApplicationBootstrap, OnApplicationShutdown {
+export class RefitsService implements OnApplicationShutdown {
   private readonly logger = new Logger(RefitsService.name);
-  private readonly queue: number[] = [];
-  private readonly inFlight = new Set<Promise<void>>();
-  private stopping = false;
-  private firstModelTimer: NodeJS.Timeout | null = null;
-  private readonly deskTimeZone: string;
+  private readonly queue = new RefitQueue((id) => this.run(id), JOB_CONCURRENCY, this.logger);
 
   constructor(
     private readonly em: EntityManager,
@@ -58,33 +49,10 @@ export class RefitsService implements OnApplicationBootstrap, OnApplicationShutd
     private readonly desks: DeskGateway,
     private readonly forecasts: ForecastsService,
     private readonly history: ZoneHistoryLoader,
-    private readonly scheduler: SchedulerRegistry,
-    config: ConfigService,
-  ) {
-    this.deskTimeZone = config.getOrThrow<AppConfig>('app').shifts.timeZone;
-  }
-
-  async onApplicationBootstrap(): Promise<void> {
-    await this.recoverInterrupted();
-    const schedule = loadRefitSchedule();
-    if (!schedule.enabled) return;
-    const cron = cronExpressions(schedule);
-    const nightly = CronJob.from({ cronTime: cron.nightly, timeZone: this.deskTimeZone, start: true, onTick: () => void this.scheduled('full') });
-    const update = CronJob.from({ cronTime: cron.update, timeZone: this.deskTimeZone, start: true, onTick: () => void this.scheduled('update') });
-    this.scheduler.addCronJob('refit.nightly', nightly);
-    this.scheduler.addCronJob('refit.hourly-update', update);
-    this.logger.log(`nightly refit at ${cron.nightly}, forecast update at ${cron.update} (${this.deskTimeZone})`);
-    // A new installation should not wait for the night to get its first models: a little after
-    // start (time for the feeds to backfill), zones with enough history and no model are fitted.
-    this.firstModelTimer = setTimeout(() => void this.scheduled('update'), FIRST_MODEL_DELAY_MS);
-    this.firstModelTimer.unref();
-  }
+  ) {}
 
   async onApplicationShutdown(): Promise<void> {
-    if (this.firstModelTimer) clearTimeout(this.firstModelTimer);
-    this.stopping = true;
-    this.queue.length = 0;
-    await Promise.allSettled([...this.inFlight]);
+    await this.queue.stop();
   }
 
   /** Jobs left queued or running by a server that stopped: marked failed, nothing applied. */
@@ -155,7 +123,6 @@ export class RefitsService implements OnApplicationBootstrap, OnApplicationShutd
     job.zone = zone;
     this.broadcast(job);
     this.queue.push(job.id);
-    this.pump();
     return job;
   }
 
@@ -169,10 +136,11 @@ export class RefitsService implements OnApplicationBootstrap, OnApplicationShutd
 
   /** Resolves when no job is queued or running in this process (tests, shutdown). */
   async settled(): Promise<void> {
-    while (this.inFlight.size > 0 || this.queue.length > 0) await Promise.allSettled([...this.inFlight]);
+    await this.queue.settled();
   }
 
-  private async scheduled(mode: JobMode): Promise<void> {
+  /** What the scheduler starts: the nightly full refit, or the hourly update (and first models). */
+  async scheduled(mode: JobMode): Promise<void> {
     try {
       if (mode === 'full') {
         await this.request(null, undefined, 'nightly refit', 'schedule', 'full');
@@ -190,19 +158,6 @@ export class RefitsService implements OnApplicationBootstrap, OnApplicationShutd
       }
     } catch (error) {
       this.logger.error(`scheduled ${mode} refit could not start: ${(error as Error).message}`);
-    }
-  }
-
-  private pump(): void {
-    while (!this.stopping && this.inFlight.size < JOB_CONCURRENCY && this.queue.length > 0) {
-      const id = this.queue.shift()!;
-      const run: Promise<void> = this.run(id)
-        .catch((error: Error) => this.logger.error(`refit job ${id}: ${error.message}`))
-        .finally(() => {
-          this.inFlight.delete(run);
-          this.pump();
-        });
-      this.inFlight.add(run);
     }
   }
 
@@ -261,52 +216,16 @@ export class RefitsService implements OnApplicationBootstrap, OnApplicationShutd
       let why: string;
       let version: ModelVersion | null = null;
       if (result.model && result.stored) {
-        const cand = result.score?.mape ?? null;
-        const served = current && current.id === scoredInServiceId ? (result.inServiceScore?.mape ?? null) : null;
-        if (!current) [promoted, why] = [true, 'the first model of the zone goes into service'];
-        else if (job.mode === 'update') [promoted, why] = [true, 'hourly update: same orders, coefficients re-estimated'];
-        else if (job.trigger === 'schedule' && cand !== null && served !== null && cand < served)
-          [promoted, why] = [true, `scheduled refit: backtest MAPE ${cand.toFixed(2)} % beat ${served.toFixed(2)} % of version ${current.id}`];
-        else if (job.trigger === 'schedule') why = `kept version ${current.id} in service: the candidate (MAPE ${cand?.toFixed(2) ?? '–'} %) did not beat it (${served?.toFixed(2) ?? '–'} %)`;
-        else why = 'candidate stored; compare it with the model in service and promote it if it serves better';
-        const m = result.model;
-        const racf = m.residualAcf.slice(0, 48).map((x) => (Number.isFinite(x) ? x : 0));
+        ({ promoted, why } = decidePromotion({
+          inServiceId: current?.id ?? null,
+          mode: job.mode,
+          trigger: job.trigger,
+          candidateMape: result.score?.mape ?? null,
+          inServiceMape: current && current.id === scoredInServiceId ? (result.inServiceScore?.mape ?? null) : null,
+        }));
         version = tx.create(ModelVersion, {
           zone: tx.getReference(Zone, zone.id),
-          status: promoted ? 'in-service' : 'candidate',
-          trigger: job.trigger,
-          differencing: m.diff,
-          differencingLabel: m.label,
-          p: m.p,
-          q: m.q,
-          coefficients: m.coefficients.map((c) => ({ name: c.name, value: c.value, se: Number.isFinite(c.se) ? c.se : null })),
-          parameters: result.stored,
-          sigma2: m.sigma2,
-          loglik: m.loglik,
-          aic: m.aic,
-          aicc: Number.isFinite(m.aicc) ? m.aicc : m.aic,
-          bic: m.bic,
-          ljungBox: m.ljungBox.map((l) => ({ lag: l.lag, statistic: l.statistic, df: l.df, pValue: l.pValue })),
-          residualAcf: {
-            lags: racf,
-            band: m.residualAcfBand,
-            outside: racf.filter((x) => Math.abs(x) > m.residualAcfBand).length,
-            maxAbs: racf.reduce((a, x) => Math.max(a, Math.abs(x)), 0),
-          },
-          trainingFrom: new Date(history.firstHourMs),
-          trainingTo: new Date(history.lastHourMs + HOUR_MS),
-          trainingHours: history.values.length,
-          excludedHours: history.excluded.length,
-          backtestDays: result.score?.days ?? 0,
-          backtestMape: result.score?.mape ?? null,
-          baselineMape: result.score?.baselineMape ?? null,
-          warnings: result.warnings,
-          createdByEmail: job.requestedByEmail,
-          createdAt: now,
-          durationMs,
-          jobId: job.id,
-          promotedAt: promoted ? now : null,
-          retiredAt: null,
+          ...modelVersionFields({ ...result, model: result.model, stored: result.stored }, history, job, promoted, now, durationMs),
         });
         if (promoted && current) {
           current.status = 'retired';
