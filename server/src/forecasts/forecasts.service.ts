@@ -1,13 +1,15 @@
-import { EntityManager } from '@mikro-orm/mariadb';
+import type { EntityManager } from '@mikro-orm/mariadb';
 import { Injectable } from '@nestjs/common';
 import { DESK_EVENTS, HOUR_MS, type ForecastRunDto, type LatestForecastsDto } from '@morrowline/shared';
 import { DeskGateway } from '../desk/desk.gateway';
 import { floorAtZero, seasonalNaive, type IntervalForecast } from '@morrowline/engine';
 import { OutagesService } from '../outages/outages.service';
 import { ReadingsService } from '../readings/readings.service';
-import { Zone } from '../zones/entities/zone.entity';
+import type { Zone } from '../zones/entities/zone.entity';
+import { ZonesRepository } from '../zones/zones.repository';
 import { ForecastRun } from './entities/forecast-run.entity';
 import { forecastHorizon } from './forecast-horizon';
+import { ForecastRunsRepository } from './forecast-runs.repository';
 
 /** History the seasonal-naive stand-in looks back over (it needs the same hour weeks earlier). */
 export const STAND_IN_HISTORY_HOURS = 4 * 168;
@@ -56,7 +58,8 @@ export function toForecastRunDto(run: ForecastRun, zone: string, from?: number, 
 @Injectable()
 export class ForecastsService {
   constructor(
-    private readonly em: EntityManager,
+    private readonly runs: ForecastRunsRepository,
+    private readonly zoneRows: ZonesRepository,
     private readonly readings: ReadingsService,
     private readonly outages: OutagesService,
     private readonly desks: DeskGateway,
@@ -65,7 +68,7 @@ export class ForecastsService {
   /** Adds a run to a transaction's unit of work; the caller flushes and then calls `announce`. */
   stage(tx: EntityManager, run: NewForecastRun): ForecastRun {
     const f = floorAtZero(run.forecast);
-    const entity = tx.create(ForecastRun, {
+    return this.runs.add(tx, {
       zone: run.zone,
       issuedAt: new Date(),
       basedOnHour: run.basedOnHour === null ? null : new Date(run.basedOnHour),
@@ -79,8 +82,6 @@ export class ForecastsService {
       lower95: clean(f.lower95),
       upper95: clean(f.upper95),
     });
-    tx.persist(entity);
-    return entity;
   }
 
   announce(run: ForecastRun, zone: string): void {
@@ -88,7 +89,7 @@ export class ForecastsService {
   }
 
   async latestRun(zoneId: number): Promise<ForecastRun | null> {
-    return this.em.fork().findOne(ForecastRun, { zone: zoneId }, { orderBy: { issuedAt: 'desc', id: 'desc' } });
+    return this.runs.latestOf(zoneId);
   }
 
   async latest(codes: readonly string[] | undefined, from?: Date, to?: Date): Promise<LatestForecastsDto> {
@@ -104,8 +105,7 @@ export class ForecastsService {
 
   /** The weekly seasonal-naive forecast from a zone's stored readings (never stored). */
   async standIn(zoneId: number, code: string, from?: number, to?: number): Promise<ForecastRunDto> {
-    const em = this.em.fork();
-    const zone = await em.findOneOrFail(Zone, { id: zoneId });
+    const zone = await this.zoneRows.byIdOrFail(zoneId);
     const last = (await this.readings.status()).find((s) => s.zone === code)?.lastHour;
     const reason = 'no model forecast stored for this zone yet: weekly seasonal naive from its readings';
     if (!last) {

@@ -1,4 +1,4 @@
-import { EntityManager, LockMode, UniqueConstraintViolationException } from '@mikro-orm/mariadb';
+import { UniqueConstraintViolationException } from '@mikro-orm/mariadb';
 import { BadRequestException, Injectable, Logger, NotFoundException, type OnApplicationShutdown } from '@nestjs/common';
 import { DESK_EVENTS, HOUR_MS, type RefitJobDto, type RefitJobState, type RefitTrigger } from '@morrowline/shared';
 import { AuditService, type Actor } from '../audit/audit.service';
@@ -6,15 +6,18 @@ import { ComputeService } from '../compute/compute.service';
 import { DeskGateway } from '../desk/desk.gateway';
 import { forecastHorizon } from '../forecasts/forecast-horizon';
 import { ForecastsService } from '../forecasts/forecasts.service';
-import { Reading } from '../readings/entities/reading.entity';
+import { ReadingsRepository } from '../readings/readings.repository';
 import { Zone } from '../zones/entities/zone.entity';
+import { ZonesRepository } from '../zones/zones.repository';
 import { REFIT_BACKTEST_DAYS, type RefitPayload, type RefitResult } from './analysis/refit';
-import { ModelVersion } from './entities/model-version.entity';
-import { RefitJob } from './entities/refit-job.entity';
+import type { ModelVersion } from './entities/model-version.entity';
+import type { RefitJob } from './entities/refit-job.entity';
 import { choiceOf, toRefitJobDto } from './model-dto';
 import { modelVersionFields } from './model-version-fields';
+import { ModelVersionsRepository } from './model-versions.repository';
 import { decidePromotion } from './promotion-policy';
 import { RefitQueue } from './refit-queue';
+import { RefitJobsRepository } from './refit-jobs.repository';
 import { ZoneHistoryLoader, type ZoneHistory } from '../history/zone-history.loader';
 
 /** Jobs in flight at once: the pool's threads plus one reading or storing meanwhile. */
@@ -43,7 +46,10 @@ export class RefitsService implements OnApplicationShutdown {
   private readonly queue = new RefitQueue((id) => this.run(id), JOB_CONCURRENCY, this.logger);
 
   constructor(
-    private readonly em: EntityManager,
+    private readonly jobs: RefitJobsRepository,
+    private readonly versions: ModelVersionsRepository,
+    private readonly zones: ZonesRepository,
+    private readonly readings: ReadingsRepository,
     private readonly audit: AuditService,
     private readonly compute: ComputeService,
     private readonly desks: DeskGateway,
@@ -57,9 +63,8 @@ export class RefitsService implements OnApplicationShutdown {
 
   /** Jobs left queued or running by a server that stopped: marked failed, nothing applied. */
   async recoverInterrupted(): Promise<number> {
-    const em = this.em.fork();
-    return em.transactional(async (tx) => {
-      const stale = await tx.find(RefitJob, { state: { $in: ['queued', 'running'] } }, { populate: ['zone'] });
+    return this.jobs.fork().transactional(async (tx) => {
+      const stale = await this.jobs.unfinished(tx);
       for (const job of stale) {
         job.state = 'failed';
         job.message = INTERRUPTED;
@@ -75,26 +80,25 @@ export class RefitsService implements OnApplicationShutdown {
 
   /** Starts (or finds) a job per zone; all active zones when no code is given. */
   async request(actor: Actor | null, zoneCode: string | undefined, reason: string | null, trigger: RefitTrigger = 'operator', mode: JobMode = 'full'): Promise<RefitJobDto[]> {
-    const em = this.em.fork();
     let zones: Zone[];
     if (zoneCode) {
-      const zone = await em.findOne(Zone, { code: zoneCode });
+      const zone = await this.zones.byCode(zoneCode);
       if (!zone) throw new NotFoundException(`No zone with code ${zoneCode}`);
       if (!zone.active) throw new BadRequestException(`Zone ${zoneCode} is not active`);
       zones = [zone];
-    } else zones = await em.find(Zone, { active: true }, { orderBy: { code: 'asc' } });
+    } else zones = await this.zones.active();
     const out: RefitJobDto[] = [];
     for (const zone of zones) out.push(toRefitJobDto(await this.enqueue(zone, actor, reason, trigger, mode)));
     return out;
   }
 
   private async enqueue(zone: Zone, actor: Actor | null, reason: string | null, trigger: RefitTrigger, mode: JobMode): Promise<RefitJob> {
-    const existing = await this.em.fork().findOne(RefitJob, { activeZoneId: zone.id }, { populate: ['zone'] });
+    const existing = await this.jobs.activeFor(zone.id);
     if (existing) return existing;
     let job: RefitJob;
     try {
-      job = await this.em.fork().transactional(async (tx) => {
-        const created = tx.create(RefitJob, {
+      job = await this.jobs.fork().transactional(async (tx) => {
+        const created = this.jobs.add(tx, {
           zone: tx.getReference(Zone, zone.id),
           activeZoneId: zone.id,
           trigger,
@@ -115,7 +119,7 @@ export class RefitsService implements OnApplicationShutdown {
     } catch (error) {
       // another request for the zone won the race: answer its job
       if (error instanceof UniqueConstraintViolationException) {
-        const winner = await this.em.fork().findOne(RefitJob, { activeZoneId: zone.id }, { populate: ['zone'] });
+        const winner = await this.jobs.activeFor(zone.id);
         if (winner) return winner;
       }
       throw error;
@@ -127,10 +131,7 @@ export class RefitsService implements OnApplicationShutdown {
   }
 
   async list(state: RefitJobState | undefined, zone: string | undefined, limit = 100): Promise<RefitJobDto[]> {
-    const where: Record<string, unknown> = {};
-    if (state) where.state = state;
-    if (zone) where.zone = { code: zone };
-    const jobs = await this.em.fork().find(RefitJob, where, { populate: ['zone'], orderBy: { id: 'desc' }, limit });
+    const jobs = await this.jobs.list(state, zone, limit);
     return jobs.map(toRefitJobDto);
   }
 
@@ -146,14 +147,13 @@ export class RefitsService implements OnApplicationShutdown {
         await this.request(null, undefined, 'nightly refit', 'schedule', 'full');
         return;
       }
-      const em = this.em.fork();
-      const inService = await em.find(ModelVersion, { status: 'in-service', zone: { active: true } }, { populate: ['zone'] });
+      const inService = await this.versions.inServiceOfActiveZones();
       for (const v of inService) await this.enqueue(v.zone, null, 'hourly forecast update', 'update', 'update');
       // Zones with no model yet get a full refit instead, once they have enough history for one.
       const served = new Set(inService.map((v) => v.zone.id));
-      for (const zone of await em.find(Zone, { active: true })) {
+      for (const zone of await this.zones.active()) {
         if (served.has(zone.id)) continue;
-        if ((await em.count(Reading, { zone: zone.id })) < FIRST_MODEL_MIN_HOURS) continue;
+        if ((await this.readings.countOf(zone.id)) < FIRST_MODEL_MIN_HOURS) continue;
         await this.enqueue(zone, null, 'first model of the zone', 'schedule', 'full');
       }
     } catch (error) {
@@ -166,22 +166,21 @@ export class RefitsService implements OnApplicationShutdown {
   }
 
   private async step(job: RefitJob, progress: number, stage: string, state: RefitJobState = 'running'): Promise<void> {
-    const em = this.em.fork();
     const fields: Partial<RefitJob> = { progress, stage, state };
     if (state === 'running' && !job.startedAt) fields.startedAt = new Date();
-    await em.nativeUpdate(RefitJob, { id: job.id, state: { $in: ['queued', 'running'] } }, fields);
+    await this.jobs.progress(job.id, fields);
     Object.assign(job, fields);
     this.broadcast(job);
   }
 
   private async run(id: number): Promise<void> {
-    const job = await this.em.fork().findOne(RefitJob, { id }, { populate: ['zone'] });
+    const job = await this.jobs.byId(id);
     if (!job || job.state !== 'queued') return;
     const started = Date.now();
     try {
       await this.step(job, 5, 'reading the history');
       const zone = job.zone;
-      const inService = await this.em.fork().findOne(ModelVersion, { zone: zone.id, status: 'in-service' });
+      const inService = await this.versions.inService(zone.id);
       if (job.mode === 'update' && !inService) throw new Error('no model in service to update; a full refit is needed first');
       const history = await this.history.load(zone);
       if (!history) throw new Error(`zone ${zone.code} has no readings yet`);
@@ -207,9 +206,9 @@ export class RefitsService implements OnApplicationShutdown {
 
   private async finish(job: RefitJob, history: ZoneHistory, result: RefitResult, scoredInServiceId: number | null, durationMs: number): Promise<void> {
     const zone = job.zone;
-    const announced = await this.em.fork().transactional(async (tx) => {
-      const current = await tx.findOne(ModelVersion, { zone: zone.id, status: 'in-service' }, { lockMode: LockMode.PESSIMISTIC_WRITE });
-      const row = await tx.findOneOrFail(RefitJob, { id: job.id }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+    const announced = await this.jobs.fork().transactional(async (tx) => {
+      const current = await this.versions.lockInService(tx, zone.id);
+      const row = await this.jobs.lockOrFail(tx, job.id);
       if (row.state !== 'running') throw new Error(`job is ${row.state}, not running`);
       const now = new Date();
       let promoted = false;
@@ -223,7 +222,7 @@ export class RefitsService implements OnApplicationShutdown {
           candidateMape: result.score?.mape ?? null,
           inServiceMape: current && current.id === scoredInServiceId ? (result.inServiceScore?.mape ?? null) : null,
         }));
-        version = tx.create(ModelVersion, {
+        version = this.versions.add(tx, {
           zone: tx.getReference(Zone, zone.id),
           ...modelVersionFields({ ...result, model: result.model, stored: result.stored }, history, job, promoted, now, durationMs),
         });
@@ -263,8 +262,8 @@ export class RefitsService implements OnApplicationShutdown {
   private async fail(job: RefitJob, message: string): Promise<void> {
     const now = new Date();
     try {
-      await this.em.fork().transactional(async (tx) => {
-        const row = await tx.findOne(RefitJob, { id: job.id }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+      await this.jobs.fork().transactional(async (tx) => {
+        const row = await this.jobs.lock(tx, job.id);
         if (!row || row.state === 'done' || row.state === 'failed') return;
         Object.assign(row, { state: 'failed', message, finishedAt: now, activeZoneId: null });
         this.audit.stage(tx, null, { action: 'refit.fail', subjectType: 'refit', subjectId: job.id, after: { zone: job.zone.code, message } });

@@ -184,6 +184,12 @@ export class ReadingsRepository {
     return last === null || last === undefined ? null : fromSqlDateTime(last);
   }
 
+  /** How many hours of a zone are stored. */
+  async countOf(zoneId: number): Promise<number> {
+    const rows = unwrap<{ n: number | string }>(await this.em.getKnex().raw('select count(*) as n from readings where zone_id = ?', [zoneId]));
+    return Number(rows[0]?.n ?? 0);
+  }
+
   /** The latest stored hour per zone and when it arrived. */
   async latest(): Promise<Map<number, { hourStart: number; receivedAt: number }>> {
     const rows = unwrap<{ zone_id: number; hour_start: unknown; received_at: unknown }>(

@@ -98,4 +98,18 @@ export class ScheduleRevisionsRepository {
   addAdjustment(tx: EntityManager, data: RequiredEntityData<ScheduleAdjustment>): ScheduleAdjustment {
     return tx.create(ScheduleAdjustment, data);
   }
+
+  /** Published (or since superseded) revisions of a zone for days in [fromDay, toDay]; by day, newest revision first. */
+  async publishedBetween(zoneId: number, fromDay: string, toDay: string): Promise<Pick<ScheduleRevision, 'id' | 'operatingDay' | 'revision' | 'publishedAt' | 'hours'>[]> {
+    return this.em.fork().find(
+      ScheduleRevision,
+      { zone: zoneId, operatingDay: { $gte: fromDay, $lte: toDay }, state: { $in: ['published', 'superseded'] }, publishedAt: { $ne: null } },
+      { fields: ['id', 'operatingDay', 'revision', 'publishedAt', 'hours'], orderBy: { operatingDay: 'asc', revision: 'desc' } },
+    );
+  }
+
+  /** The most recently published revision of any of the zones; null when none was published. */
+  async lastPublished(zoneIds: readonly number[]): Promise<Pick<ScheduleRevision, 'id' | 'publishedAt'> | null> {
+    return this.em.fork().findOne(ScheduleRevision, { zone: { $in: [...zoneIds] }, publishedAt: { $ne: null } }, { orderBy: { publishedAt: 'desc', id: 'desc' }, fields: ['id', 'publishedAt'] });
+  }
 }

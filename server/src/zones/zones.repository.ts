@@ -32,6 +32,11 @@ export class ZonesRepository {
     return em.findOne(Zone, { id });
   }
 
+  /** A zone by id; MikroORM's NotFoundError when there is none (an id the caller already holds). */
+  async byIdOrFail(id: number, em: EntityManager = this.em.fork()): Promise<Zone> {
+    return em.findOneOrFail(Zone, { id });
+  }
+
   async all(em: EntityManager = this.em.fork()): Promise<Zone[]> {
     return em.find(Zone, {}, { orderBy: { code: 'asc' } });
   }
