@@ -1,13 +1,16 @@
 import { Module } from '@nestjs/common';
+import { ForecastsModule } from '../forecasts/forecasts.module';
 import { OutagesModule } from '../outages/outages.module';
 import { ReadingsModule } from '../readings/readings.module';
+import { SchedulesModule } from '../schedules/schedules.module';
+import { ZonesModule } from '../zones/zones.module';
 import { AccuracyController } from './accuracy.controller';
 import { AccuracyService } from './accuracy.service';
 import { ScheduleInForce } from './schedule-in-force';
 
 /** Accuracy of the model forecast and the published schedule against actuals (no tables). */
 @Module({
-  imports: [ReadingsModule, OutagesModule],
+  imports: [ReadingsModule, OutagesModule, ZonesModule, ForecastsModule, SchedulesModule],
   controllers: [AccuracyController],
   providers: [AccuracyService, ScheduleInForce],
 })

@@ -1,15 +1,14 @@
-import { EntityManager } from '@mikro-orm/mariadb';
 import { BadRequestException, Injectable } from '@nestjs/common';
 import { ACCURACY_MAX_DAYS, dayCount, gateClosureAt, HOUR_MS, isOperatingDay, operatingDays, type AccuracyReportDto, type OperatingDay } from '@morrowline/shared';
-import { ForecastRun } from '../forecasts/entities/forecast-run.entity';
 import { MAX_HORIZON_HOURS } from '../forecasts/forecast-horizon';
+import { ForecastRunsRepository, type RunValues } from '../forecasts/forecast-runs.repository';
 import { OutagesService } from '../outages/outages.service';
 import { ReadingsRepository } from '../readings/readings.repository';
-import { Zone } from '../zones/entities/zone.entity';
+import type { Zone } from '../zones/entities/zone.entity';
+import { ZonesRepository } from '../zones/zones.repository';
 import { systemInput, zoneAccuracy, type DaySource, type ZoneInput } from './accuracy-report';
 import { ScheduleInForce } from './schedule-in-force';
 
-type RunValues = Pick<ForecastRun, 'id' | 'issuedAt' | 'firstHour' | 'mean' | 'origin'>;
 /** Reports kept; a changed key (new reading hour, run or publication) makes a new entry. */
 const CACHE_ENTRIES = 64;
 /** A revised older reading does not move the latest hour, so entries also age out. */
@@ -26,7 +25,8 @@ export class AccuracyService {
   private readonly cache = new Map<string, { at: number; report: AccuracyReportDto }>();
 
   constructor(
-    private readonly em: EntityManager,
+    private readonly forecastRuns: ForecastRunsRepository,
+    private readonly zones: ZonesRepository,
     private readonly readings: ReadingsRepository,
     private readonly outages: OutagesService,
     private readonly schedules: ScheduleInForce,
@@ -65,25 +65,14 @@ export class AccuracyService {
   }
 
   private async resolveZones(codes: readonly string[] | undefined): Promise<Zone[]> {
-    const em = this.em.fork();
-    if (!codes || codes.length === 0) {
-      const all = await em.find(Zone, { active: true }, { orderBy: { code: 'asc' } });
-      if (all.length === 0) throw new BadRequestException('There are no active zones');
-      return all;
-    }
-    const found = await em.find(Zone, { code: { $in: [...new Set(codes)] }, active: true });
-    const byCode = new Map(found.map((z) => [z.code, z]));
-    return [...new Set(codes)].map((code) => {
-      const zone = byCode.get(code);
-      if (!zone) throw new BadRequestException(`No active zone with code ${code}`);
-      return zone;
-    });
+    const zones = await this.zones.activeByCodes(codes && [...new Set(codes)]);
+    if (zones.length === 0) throw new BadRequestException('There are no active zones');
+    return zones;
   }
 
   /** Newest forecast run and schedule publication of the zones: part of the cache key. */
   private async changeStamp(zoneIds: number[]): Promise<string> {
-    const run = await this.em.fork().findOne(ForecastRun, { zone: { $in: zoneIds } }, { orderBy: { id: 'desc' }, fields: ['id'] });
-    return `${run?.id ?? 0}/${await this.schedules.stamp(zoneIds)}`;
+    return `${await this.forecastRuns.newestId(zoneIds)}/${await this.schedules.stamp(zoneIds)}`;
   }
 
   private async zoneInput(zone: Zone, from: string, to: string): Promise<ZoneInput> {
@@ -113,15 +102,7 @@ export class AccuracyService {
   private async runs(zone: Zone, days: OperatingDay[]): Promise<RunValues[]> {
     const first = days[0];
     const last = days[days.length - 1];
-    return this.em.fork().find(
-      ForecastRun,
-      {
-        zone: zone.id,
-        issuedAt: { $lt: new Date(gateClosureAt(last.date, zone.timeZone, zone.gateClosure)) },
-        firstHour: { $lte: new Date(last.start), $gte: new Date(first.start - MAX_HORIZON_HOURS * HOUR_MS) },
-      },
-      { fields: ['id', 'issuedAt', 'firstHour', 'mean', 'origin'], orderBy: { issuedAt: 'desc', id: 'desc' } },
-    );
+    return this.forecastRuns.issuedBefore(zone.id, new Date(gateClosureAt(last.date, zone.timeZone, zone.gateClosure)), new Date(first.start - MAX_HORIZON_HOURS * HOUR_MS), new Date(last.start));
   }
 }
 

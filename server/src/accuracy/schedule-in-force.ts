@@ -1,7 +1,6 @@
-import { EntityManager } from '@mikro-orm/mariadb';
 import { Injectable } from '@nestjs/common';
 import { HOUR_MS, type OperatingDay } from '@morrowline/shared';
-import { ScheduleRevision } from '../schedules/entities/schedule-revision.entity';
+import { ScheduleRevisionsRepository } from '../schedules/schedule-revisions.repository';
 import type { DaySource } from './accuracy-report';
 
 /**
@@ -11,17 +10,13 @@ import type { DaySource } from './accuracy-report';
  */
 @Injectable()
 export class ScheduleInForce {
-  constructor(private readonly em: EntityManager) {}
+  constructor(private readonly revisions: ScheduleRevisionsRepository) {}
 
   /** Per operating day (yyyy-MM-dd), the revision's adjusted MW aligned with the day's hours. */
   async forDays(zoneId: number, days: readonly OperatingDay[]): Promise<Map<string, DaySource>> {
     const out = new Map<string, DaySource>();
     if (days.length === 0) return out;
-    const revisions = await this.em.fork().find(
-      ScheduleRevision,
-      { zone: zoneId, operatingDay: { $gte: days[0].date, $lte: days[days.length - 1].date }, state: { $in: ['published', 'superseded'] }, publishedAt: { $ne: null } },
-      { fields: ['id', 'operatingDay', 'revision', 'publishedAt', 'hours'], orderBy: { operatingDay: 'asc', revision: 'desc' } },
-    );
+    const revisions = await this.revisions.publishedBetween(zoneId, days[0].date, days[days.length - 1].date);
     const byDay = new Map(days.map((d) => [d.date, d]));
     for (const r of revisions) {
       const day = byDay.get(r.operatingDay);
@@ -38,7 +33,7 @@ export class ScheduleInForce {
 
   /** Changes whenever a revision of these zones is published (part of the report cache key). */
   async stamp(zoneIds: readonly number[]): Promise<string> {
-    const last = await this.em.fork().findOne(ScheduleRevision, { zone: { $in: [...zoneIds] }, publishedAt: { $ne: null } }, { orderBy: { publishedAt: 'desc', id: 'desc' }, fields: ['id', 'publishedAt'] });
+    const last = await this.revisions.lastPublished(zoneIds);
     return last ? `${last.id}@${last.publishedAt!.getTime()}` : '0';
   }
 }

@@ -1,8 +1,9 @@
 import { Global, Module } from '@nestjs/common';
 import { AuditController } from './audit.controller';
+import { AuditRepository } from './audit.repository';
 import { AuditService } from './audit.service';
 
 /** Global: every feature writes to the trail. */
 @Global()
-@Module({ controllers: [AuditController], providers: [AuditService], exports: [AuditService] })
+@Module({ controllers: [AuditController], providers: [AuditService, AuditRepository], exports: [AuditService] })
 export class AuditModule {}

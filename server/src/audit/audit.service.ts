@@ -1,7 +1,8 @@
-import { EntityManager } from '@mikro-orm/mariadb';
+import type { EntityManager } from '@mikro-orm/mariadb';
 import { Injectable } from '@nestjs/common';
 import type { AuditEntryDto, Page } from '@morrowline/shared';
-import { AuditEntry } from './entities/audit-entry.entity';
+import { AuditRepository } from './audit.repository';
+import type { AuditEntry } from './entities/audit-entry.entity';
 
 /** Who did it; null for the system itself (schedules, start-up). */
 export interface Actor {
@@ -37,11 +38,11 @@ export interface AuditQuery {
  */
 @Injectable()
 export class AuditService {
-  constructor(private readonly em: EntityManager) {}
+  constructor(private readonly entries: AuditRepository) {}
 
   /** Adds an entry to the unit of work of `em` (flushed by the caller's transaction). */
   stage(em: EntityManager, actor: Actor | null, record: AuditRecord): AuditEntry {
-    const entry = em.create(AuditEntry, {
+    return this.entries.add(em, {
       at: record.at ?? new Date(),
       actorId: actor?.id ?? null,
       actorEmail: actor?.email ?? null,
@@ -52,25 +53,18 @@ export class AuditService {
       after: record.after ?? null,
       reason: record.reason ?? null,
     });
-    em.persist(entry);
-    return entry;
   }
 
   /** Writes one entry on its own. */
   async record(actor: Actor | null, record: AuditRecord): Promise<void> {
-    const em = this.em.fork();
+    const em = this.entries.fork();
     this.stage(em, actor, record);
     await em.flush();
   }
 
   /** Entries in [from, to) whose action starts with one of the prefixes (e.g. "alert."), oldest first. */
   async between(from: Date, to: Date, actionPrefixes: readonly string[]): Promise<AuditEntryDto[]> {
-    const entries = await this.em.fork().find(
-      AuditEntry,
-      { at: { $gte: from, $lt: to }, $or: actionPrefixes.map((prefix) => ({ action: { $like: `${prefix}%` } })) },
-      { orderBy: { at: 'asc', id: 'asc' }, limit: 2000 },
-    );
-    return entries.map(toAuditEntryDto);
+    return (await this.entries.between(from, to, actionPrefixes)).map(toAuditEntryDto);
   }
 
   async list(query: AuditQuery): Promise<Page<AuditEntryDto>> {
@@ -82,11 +76,7 @@ export class AuditService {
     if (query.from || query.to) {
       where.at = { ...(query.from ? { $gte: query.from } : {}), ...(query.to ? { $lt: query.to } : {}) };
     }
-    const [items, total] = await this.em.fork().findAndCount(AuditEntry, where, {
-      orderBy: { at: 'desc', id: 'desc' },
-      limit: query.limit,
-      offset: query.offset,
-    });
+    const [items, total] = await this.entries.page(where, query.limit, query.offset);
     return { items: items.map(toAuditEntryDto), total };
   }
 }

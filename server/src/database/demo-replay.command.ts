@@ -13,11 +13,13 @@ import { MikroORM } from '@mikro-orm/mariadb';
 import { Logger } from '@nestjs/common';
 import { EventEmitter2 } from '@nestjs/event-emitter';
 import { parseArgs } from 'node:util';
+import { AuditRepository } from '../audit/audit.repository';
 import { AuditService } from '../audit/audit.service';
 import { ComputeService } from '../compute/compute.service';
 import { loadConfig } from '../config/configuration';
 import { ormConfig } from './mikro-orm.config';
 import { DomainEventsPublisher } from '../events/domain-events.publisher';
+import { ForecastRunsRepository } from '../forecasts/forecast-runs.repository';
 import { ForecastsService } from '../forecasts/forecasts.service';
 import { loadRefitSchedule } from '../models/refit-schedule';
 import { OutagesService } from '../outages/outages.service';
@@ -25,7 +27,9 @@ import { ReadingsRepository } from '../readings/readings.repository';
 import { ReadingsService } from '../readings/readings.service';
 import { ScheduleMailer } from '../schedules/schedule-mailer';
 import { ScheduleNotifier } from '../schedules/schedule-notifier';
+import { ScheduleRevisionsRepository } from '../schedules/schedule-revisions.repository';
 import { SchedulesService } from '../schedules/schedules.service';
+import { ZonesRepository } from '../zones/zones.repository';
 import { DemoReplayService, type DemoReplayOptions, type DemoReplayOutcome } from '../replay/demo-replay.service';
 import { DemoSchedulesService } from '../replay/demo-schedules.service';
 import { ForecastReplayService } from '../replay/forecast-replay.service';
@@ -50,13 +54,14 @@ export async function openDemoReplay(): Promise<DemoReplayParts> {
   const em = orm.em;
   const schedule = loadRefitSchedule();
   const events = unheardEvents();
-  const audit = new AuditService(em);
+  const audit = new AuditService(new AuditRepository(em));
   const compute = new ComputeService();
+  const zones = new ZonesRepository(em);
   const repository = new ReadingsRepository(em);
-  const readings = new ReadingsService(em, repository, events);
+  const readings = new ReadingsService(zones, repository, events);
   const outages = new OutagesService(em, audit);
-  const forecasts = new ForecastsService(em, readings, outages, events);
-  const schedules = new SchedulesService(em, audit, events, forecasts, new ScheduleNotifier(em, audit, new ScheduleMailer()));
+  const forecasts = new ForecastsService(new ForecastRunsRepository(em), zones, readings, outages, events);
+  const schedules = new SchedulesService(new ScheduleRevisionsRepository(em), zones, audit, events, forecasts, new ScheduleNotifier(em, audit, new ScheduleMailer()));
   const forecastReplay = new ForecastReplayService(em, repository, outages, forecasts, compute, audit, {
     updateMinute: schedule.updateMinute,
     nightly: schedule.nightly,

@@ -11,6 +11,7 @@
  */
 import 'reflect-metadata';
 import { MikroORM } from '@mikro-orm/mariadb';
+import { AuditRepository } from '../audit/audit.repository';
 import { AuditService } from '../audit/audit.service';
 import { FeedKeysService } from '../feeds/feed-keys.service';
 import { demoReplayCommand } from './demo-replay.command';
@@ -36,7 +37,7 @@ async function main(command: string | undefined): Promise<void> {
       const name = process.argv[3];
       if (!name) throw new Error('usage: manage feed-key NAME');
       const em = orm.em.fork();
-      console.log(await new FeedKeysService(em, new AuditService(em)).rotate(name));
+      console.log(await new FeedKeysService(em, new AuditService(new AuditRepository(em))).rotate(name));
     } else {
       throw new Error('usage: manage migrate|seed|feed-key NAME|demo-replay');
     }

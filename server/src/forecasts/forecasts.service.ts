@@ -1,4 +1,4 @@
-import { EntityManager } from '@mikro-orm/mariadb';
+import type { EntityManager } from '@mikro-orm/mariadb';
 import { Injectable } from '@nestjs/common';
 import { HOUR_MS, type ForecastRunDto, type LatestForecastsDto } from '@morrowline/shared';
 import { DOMAIN_EVENTS } from '../events/domain-events';
@@ -6,9 +6,11 @@ import { DomainEventsPublisher } from '../events/domain-events.publisher';
 import { floorAtZero, seasonalNaive, type IntervalForecast } from '@morrowline/engine';
 import { OutagesService } from '../outages/outages.service';
 import { ReadingsService } from '../readings/readings.service';
-import { Zone } from '../zones/entities/zone.entity';
+import type { Zone } from '../zones/entities/zone.entity';
+import { ZonesRepository } from '../zones/zones.repository';
 import { ForecastRun } from './entities/forecast-run.entity';
 import { forecastHorizon } from './forecast-horizon';
+import { ForecastRunsRepository } from './forecast-runs.repository';
 
 /** History the seasonal-naive stand-in looks back over (it needs the same hour weeks earlier). */
 export const STAND_IN_HISTORY_HOURS = 4 * 168;
@@ -60,7 +62,8 @@ export function toForecastRunDto(run: ForecastRun, zone: string, from?: number, 
 @Injectable()
 export class ForecastsService {
   constructor(
-    private readonly em: EntityManager,
+    private readonly runs: ForecastRunsRepository,
+    private readonly zoneRows: ZonesRepository,
     private readonly readings: ReadingsService,
     private readonly outages: OutagesService,
     private readonly events: DomainEventsPublisher,
@@ -69,7 +72,7 @@ export class ForecastsService {
   /** Adds a run to a transaction's unit of work; the caller flushes and then calls `announce`. */
   stage(tx: EntityManager, run: NewForecastRun): ForecastRun {
     const f = floorAtZero(run.forecast);
-    const entity = tx.create(ForecastRun, {
+    return this.runs.add(tx, {
       zone: run.zone,
       issuedAt: run.replayedAt === undefined ? new Date() : new Date(run.replayedAt),
       origin: run.replayedAt === undefined ? 'issued' : 'replayed',
@@ -84,8 +87,6 @@ export class ForecastsService {
       lower95: clean(f.lower95),
       upper95: clean(f.upper95),
     });
-    tx.persist(entity);
-    return entity;
   }
 
   /** Tells listeners of a stored run: call it after the transaction that staged the run has committed. */
@@ -95,7 +96,7 @@ export class ForecastsService {
 
   /** The newest run the desk issued; replayed runs are history and never the live forecast. */
   async latestRun(zoneId: number): Promise<ForecastRun | null> {
-    return this.em.fork().findOne(ForecastRun, { zone: zoneId, origin: 'issued' }, { orderBy: { issuedAt: 'desc', id: 'desc' } });
+    return this.runs.latestOf(zoneId);
   }
 
   /**
@@ -103,7 +104,7 @@ export class ForecastsService {
    * replayed as of a past time (src/replay), never for the live desk.
    */
   async runAsOf(zoneId: number, at: Date): Promise<ForecastRun | null> {
-    return this.em.fork().findOne(ForecastRun, { zone: zoneId, issuedAt: { $lte: at } }, { orderBy: { issuedAt: 'desc', id: 'desc' } });
+    return this.runs.asOf(zoneId, at);
   }
 
   async latest(codes: readonly string[] | undefined, from?: Date, to?: Date): Promise<LatestForecastsDto> {
@@ -119,8 +120,7 @@ export class ForecastsService {
 
   /** The weekly seasonal-naive forecast from a zone's stored readings (never stored). */
   async standIn(zoneId: number, code: string, from?: number, to?: number): Promise<ForecastRunDto> {
-    const em = this.em.fork();
-    const zone = await em.findOneOrFail(Zone, { id: zoneId });
+    const zone = await this.zoneRows.byIdOrFail(zoneId);
     const last = (await this.readings.status()).find((s) => s.zone === code)?.lastHour;
     const reason = 'no model forecast stored for this zone yet: weekly seasonal naive from its readings';
     if (!last) {

@@ -1,18 +1,21 @@
 import { Module } from '@nestjs/common';
 import { ComputeModule } from '../compute/compute.module';
 import { ForecastsModule } from '../forecasts/forecasts.module';
-import { OutagesModule } from '../outages/outages.module';
+import { ZoneHistoryModule } from '../history/zone-history.module';
+import { ZonesModule } from '../zones/zones.module';
 import { ReadingsModule } from '../readings/readings.module';
 import { ModelsController } from './models.controller';
+import { ModelVersionsRepository } from './model-versions.repository';
 import { ModelsService } from './models.service';
+import { RefitJobsRepository } from './refit-jobs.repository';
+import { RefitScheduler } from './refit-scheduler';
 import { RefitsService } from './refits.service';
-import { ZoneHistoryLoader } from './zone-history';
 
 /** Refit jobs (scheduled and on demand, in the compute pool) and model versions. */
 @Module({
-  imports: [ComputeModule, ReadingsModule, OutagesModule, ForecastsModule],
+  imports: [ComputeModule, ReadingsModule, ZoneHistoryModule, ZonesModule, ForecastsModule],
   controllers: [ModelsController],
-  providers: [ModelsService, RefitsService, ZoneHistoryLoader],
+  providers: [ModelsService, RefitsService, RefitScheduler, ModelVersionsRepository, RefitJobsRepository],
   exports: [RefitsService, ModelsService],
 })
 export class ModelsModule {}

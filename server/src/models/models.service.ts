@@ -1,4 +1,3 @@
-import { EntityManager, LockMode } from '@mikro-orm/mariadb';
 import { ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import { HOUR_MS } from '@morrowline/shared';
 import type { ModelCompareDto, ModelVersionDto } from '@morrowline/shared';
@@ -6,9 +5,10 @@ import { AuditService, type Actor } from '../audit/audit.service';
 import { ComputeService } from '../compute/compute.service';
 import { forecastHorizon } from '../forecasts/forecast-horizon';
 import { ForecastsService } from '../forecasts/forecasts.service';
-import { ModelVersion } from './entities/model-version.entity';
+import type { ModelVersion } from './entities/model-version.entity';
 import { choiceOf, toModelVersionDto } from './model-dto';
-import { ZoneHistoryLoader } from './zone-history';
+import { ModelVersionsRepository } from './model-versions.repository';
+import { ZoneHistoryLoader } from '../history/zone-history.loader';
 
 /**
  * Model versions: the list per zone, a candidate beside the model in service (both scored again
@@ -18,7 +18,7 @@ import { ZoneHistoryLoader } from './zone-history';
 @Injectable()
 export class ModelsService {
   constructor(
-    private readonly em: EntityManager,
+    private readonly versions: ModelVersionsRepository,
     private readonly audit: AuditService,
     private readonly compute: ComputeService,
     private readonly forecasts: ForecastsService,
@@ -26,12 +26,12 @@ export class ModelsService {
   ) {}
 
   async list(zone: string | undefined, limit = 100): Promise<ModelVersionDto[]> {
-    const versions = await this.em.fork().find(ModelVersion, zone ? { zone: { code: zone } } : {}, { populate: ['zone'], orderBy: { id: 'desc' }, limit });
+    const versions = await this.versions.list(zone, limit);
     return versions.map(toModelVersionDto);
   }
 
   private async find(id: number): Promise<ModelVersion> {
-    const v = await this.em.fork().findOne(ModelVersion, { id }, { populate: ['zone'] });
+    const v = await this.versions.byId(id);
     if (!v) throw new NotFoundException(`No model version ${id}`);
     return v;
   }
@@ -42,7 +42,7 @@ export class ModelsService {
 
   async compare(id: number): Promise<ModelCompareDto> {
     const candidate = await this.find(id);
-    const served = await this.em.fork().findOne(ModelVersion, { zone: candidate.zone.id, status: 'in-service' }, { populate: ['zone'] });
+    const served = await this.versions.inService(candidate.zone.id, true);
     const inService = served && served.id !== candidate.id ? served : null;
     const history = await this.history.load(candidate.zone);
     let sameDays: ModelCompareDto['sameDays'] = { days: 0, from: null, to: null, candidateMape: null, inServiceMape: null, baselineMape: null };
@@ -64,10 +64,10 @@ export class ModelsService {
     const forecast = history
       ? (await this.compute.run('models.forecast', { values: history.values, excluded: history.excluded, horizon: forecastHorizon(history.lastHourMs, target.zone.timeZone), model: target.parameters })).forecast
       : null;
-    const { dto, run } = await this.em.fork().transactional(async (tx) => {
-      const v = await tx.findOneOrFail(ModelVersion, { id }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+    const { dto, run } = await this.versions.fork().transactional(async (tx) => {
+      const v = await this.versions.lockOrFail(tx, id);
       if (v.status === 'in-service') throw new ConflictException(`Version ${id} is already in service for ${target.zone.code}`);
-      const current = await tx.findOne(ModelVersion, { zone: target.zone.id, status: 'in-service' }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+      const current = await this.versions.lockInService(tx, target.zone.id);
       const action = v.status === 'retired' ? 'model.rollback' : 'model.promote';
       const now = new Date();
       if (current) {

@@ -1,30 +1,29 @@
-import { EntityManager, LockMode, UniqueConstraintViolationException } from '@mikro-orm/mariadb';
-import { BadRequestException, Injectable, Logger, NotFoundException, type OnApplicationBootstrap, type OnApplicationShutdown } from '@nestjs/common';
-import { ConfigService } from '@nestjs/config';
-import { SchedulerRegistry } from '@nestjs/schedule';
-import { CronJob } from 'cron';
+import { UniqueConstraintViolationException } from '@mikro-orm/mariadb';
+import { BadRequestException, Injectable, Logger, NotFoundException, type OnApplicationShutdown } from '@nestjs/common';
 import { HOUR_MS, type RefitJobDto, type RefitJobState, type RefitTrigger } from '@morrowline/shared';
 import { AuditService, type Actor } from '../audit/audit.service';
 import { ComputeService } from '../compute/compute.service';
-import type { AppConfig } from '../config/configuration';
 import { DOMAIN_EVENTS } from '../events/domain-events';
 import { DomainEventsPublisher } from '../events/domain-events.publisher';
 import { forecastHorizon } from '../forecasts/forecast-horizon';
 import { ForecastsService } from '../forecasts/forecasts.service';
-import { Reading } from '../readings/entities/reading.entity';
+import { ReadingsRepository } from '../readings/readings.repository';
 import { Zone } from '../zones/entities/zone.entity';
+import { ZonesRepository } from '../zones/zones.repository';
 import { REFIT_BACKTEST_DAYS, type RefitPayload, type RefitResult } from './analysis/refit';
-import { ModelVersion } from './entities/model-version.entity';
-import { RefitJob } from './entities/refit-job.entity';
+import type { ModelVersion } from './entities/model-version.entity';
+import type { RefitJob } from './entities/refit-job.entity';
 import { choiceOf, toRefitJobDto } from './model-dto';
-import { cronExpressions, loadRefitSchedule } from './refit-schedule';
-import { ZoneHistoryLoader, type ZoneHistory } from './zone-history';
+import { modelVersionFields } from './model-version-fields';
+import { ModelVersionsRepository } from './model-versions.repository';
+import { decidePromotion } from './promotion-policy';
+import { RefitQueue } from './refit-queue';
+import { RefitJobsRepository } from './refit-jobs.repository';
+import { ZoneHistoryLoader, type ZoneHistory } from '../history/zone-history.loader';
 
 /** Jobs in flight at once: the pool's threads plus one reading or storing meanwhile. */
 const JOB_CONCURRENCY = 2;
 export const INTERRUPTED = 'interrupted by a server restart';
-/** How long after start the first check for zones without a model runs (feeds backfill first). */
-const FIRST_MODEL_DELAY_MS = 3 * 60_000;
 /** Three weeks of hourly readings: what the weekly differencing and a short backtest need. */
 export const FIRST_MODEL_MIN_HOURS = 21 * 24;
 
@@ -38,61 +37,35 @@ type JobMode = RefitJob['mode'];
  * restart mid-job leaves the model in service as it was; on start, jobs left queued or running
  * are marked failed.
  *
- * Promotion: the first model of a zone goes into service; the nightly refit promotes its
- * candidate only when the candidate's backtest MAPE beats the model in service's on the same
- * days; an operator's refit leaves a candidate for the operator to compare and promote; the
- * hourly update (orders kept, coefficients re-estimated) replaces the model in service.
+ * Whether a new model goes into service is the promotion policy (promotion-policy.ts); what a
+ * version stores, model-version-fields.ts; when jobs start by themselves, RefitScheduler; the
+ * in-process queue, RefitQueue.
  */
 @Injectable()
-export class RefitsService implements OnApplicationBootstrap, OnApplicationShutdown {
+export class RefitsService implements OnApplicationShutdown {
   private readonly logger = new Logger(RefitsService.name);
-  private readonly queue: number[] = [];
-  private readonly inFlight = new Set<Promise<void>>();
-  private stopping = false;
-  private firstModelTimer: NodeJS.Timeout | null = null;
-  private readonly deskTimeZone: string;
+  private readonly queue = new RefitQueue((id) => this.run(id), JOB_CONCURRENCY, this.logger);
 
   constructor(
-    private readonly em: EntityManager,
+    private readonly jobs: RefitJobsRepository,
+    private readonly versions: ModelVersionsRepository,
+    private readonly zones: ZonesRepository,
+    private readonly readings: ReadingsRepository,
     private readonly audit: AuditService,
     private readonly compute: ComputeService,
     private readonly events: DomainEventsPublisher,
     private readonly forecasts: ForecastsService,
     private readonly history: ZoneHistoryLoader,
-    private readonly scheduler: SchedulerRegistry,
-    config: ConfigService,
-  ) {
-    this.deskTimeZone = config.getOrThrow<AppConfig>('app').shifts.timeZone;
-  }
-
-  async onApplicationBootstrap(): Promise<void> {
-    await this.recoverInterrupted();
-    const schedule = loadRefitSchedule();
-    if (!schedule.enabled) return;
-    const cron = cronExpressions(schedule);
-    const nightly = CronJob.from({ cronTime: cron.nightly, timeZone: this.deskTimeZone, start: true, onTick: () => void this.scheduled('full') });
-    const update = CronJob.from({ cronTime: cron.update, timeZone: this.deskTimeZone, start: true, onTick: () => void this.scheduled('update') });
-    this.scheduler.addCronJob('refit.nightly', nightly);
-    this.scheduler.addCronJob('refit.hourly-update', update);
-    this.logger.log(`nightly refit at ${cron.nightly}, forecast update at ${cron.update} (${this.deskTimeZone})`);
-    // A new installation should not wait for the night to get its first models: a little after
-    // start (time for the feeds to backfill), zones with enough history and no model are fitted.
-    this.firstModelTimer = setTimeout(() => void this.scheduled('update'), FIRST_MODEL_DELAY_MS);
-    this.firstModelTimer.unref();
-  }
+  ) {}
 
   async onApplicationShutdown(): Promise<void> {
-    if (this.firstModelTimer) clearTimeout(this.firstModelTimer);
-    this.stopping = true;
-    this.queue.length = 0;
-    await Promise.allSettled([...this.inFlight]);
+    await this.queue.stop();
   }
 
   /** Jobs left queued or running by a server that stopped: marked failed, nothing applied. */
   async recoverInterrupted(): Promise<number> {
-    const em = this.em.fork();
-    return em.transactional(async (tx) => {
-      const stale = await tx.find(RefitJob, { state: { $in: ['queued', 'running'] } }, { populate: ['zone'] });
+    return this.jobs.fork().transactional(async (tx) => {
+      const stale = await this.jobs.unfinished(tx);
       for (const job of stale) {
         job.state = 'failed';
         job.message = INTERRUPTED;
@@ -108,26 +81,25 @@ export class RefitsService implements OnApplicationBootstrap, OnApplicationShutd
 
   /** Starts (or finds) a job per zone; all active zones when no code is given. */
   async request(actor: Actor | null, zoneCode: string | undefined, reason: string | null, trigger: RefitTrigger = 'operator', mode: JobMode = 'full'): Promise<RefitJobDto[]> {
-    const em = this.em.fork();
     let zones: Zone[];
     if (zoneCode) {
-      const zone = await em.findOne(Zone, { code: zoneCode });
+      const zone = await this.zones.byCode(zoneCode);
       if (!zone) throw new NotFoundException(`No zone with code ${zoneCode}`);
       if (!zone.active) throw new BadRequestException(`Zone ${zoneCode} is not active`);
       zones = [zone];
-    } else zones = await em.find(Zone, { active: true }, { orderBy: { code: 'asc' } });
+    } else zones = await this.zones.active();
     const out: RefitJobDto[] = [];
     for (const zone of zones) out.push(toRefitJobDto(await this.enqueue(zone, actor, reason, trigger, mode)));
     return out;
   }
 
   private async enqueue(zone: Zone, actor: Actor | null, reason: string | null, trigger: RefitTrigger, mode: JobMode): Promise<RefitJob> {
-    const existing = await this.em.fork().findOne(RefitJob, { activeZoneId: zone.id }, { populate: ['zone'] });
+    const existing = await this.jobs.activeFor(zone.id);
     if (existing) return existing;
     let job: RefitJob;
     try {
-      job = await this.em.fork().transactional(async (tx) => {
-        const created = tx.create(RefitJob, {
+      job = await this.jobs.fork().transactional(async (tx) => {
+        const created = this.jobs.add(tx, {
           zone: tx.getReference(Zone, zone.id),
           activeZoneId: zone.id,
           trigger,
@@ -148,7 +120,7 @@ export class RefitsService implements OnApplicationBootstrap, OnApplicationShutd
     } catch (error) {
       // another request for the zone won the race: answer its job
       if (error instanceof UniqueConstraintViolationException) {
-        const winner = await this.em.fork().findOne(RefitJob, { activeZoneId: zone.id }, { populate: ['zone'] });
+        const winner = await this.jobs.activeFor(zone.id);
         if (winner) return winner;
       }
       throw error;
@@ -156,54 +128,37 @@ export class RefitsService implements OnApplicationBootstrap, OnApplicationShutd
     job.zone = zone;
     this.broadcast(job);
     this.queue.push(job.id);
-    this.pump();
     return job;
   }
 
   async list(state: RefitJobState | undefined, zone: string | undefined, limit = 100): Promise<RefitJobDto[]> {
-    const where: Record<string, unknown> = {};
-    if (state) where.state = state;
-    if (zone) where.zone = { code: zone };
-    const jobs = await this.em.fork().find(RefitJob, where, { populate: ['zone'], orderBy: { id: 'desc' }, limit });
+    const jobs = await this.jobs.list(state, zone, limit);
     return jobs.map(toRefitJobDto);
   }
 
   /** Resolves when no job is queued or running in this process (tests, shutdown). */
   async settled(): Promise<void> {
-    while (this.inFlight.size > 0 || this.queue.length > 0) await Promise.allSettled([...this.inFlight]);
+    await this.queue.settled();
   }
 
-  private async scheduled(mode: JobMode): Promise<void> {
+  /** What the scheduler starts: the nightly full refit, or the hourly update (and first models). */
+  async scheduled(mode: JobMode): Promise<void> {
     try {
       if (mode === 'full') {
         await this.request(null, undefined, 'nightly refit', 'schedule', 'full');
         return;
       }
-      const em = this.em.fork();
-      const inService = await em.find(ModelVersion, { status: 'in-service', zone: { active: true } }, { populate: ['zone'] });
+      const inService = await this.versions.inServiceOfActiveZones();
       for (const v of inService) await this.enqueue(v.zone, null, 'hourly forecast update', 'update', 'update');
       // Zones with no model yet get a full refit instead, once they have enough history for one.
       const served = new Set(inService.map((v) => v.zone.id));
-      for (const zone of await em.find(Zone, { active: true })) {
+      for (const zone of await this.zones.active()) {
         if (served.has(zone.id)) continue;
-        if ((await em.count(Reading, { zone: zone.id })) < FIRST_MODEL_MIN_HOURS) continue;
+        if ((await this.readings.countOf(zone.id)) < FIRST_MODEL_MIN_HOURS) continue;
         await this.enqueue(zone, null, 'first model of the zone', 'schedule', 'full');
       }
     } catch (error) {
       this.logger.error(`scheduled ${mode} refit could not start: ${(error as Error).message}`);
-    }
-  }
-
-  private pump(): void {
-    while (!this.stopping && this.inFlight.size < JOB_CONCURRENCY && this.queue.length > 0) {
-      const id = this.queue.shift()!;
-      const run: Promise<void> = this.run(id)
-        .catch((error: Error) => this.logger.error(`refit job ${id}: ${error.message}`))
-        .finally(() => {
-          this.inFlight.delete(run);
-          this.pump();
-        });
-      this.inFlight.add(run);
     }
   }
 
@@ -212,22 +167,21 @@ export class RefitsService implements OnApplicationBootstrap, OnApplicationShutd
   }
 
   private async step(job: RefitJob, progress: number, stage: string, state: RefitJobState = 'running'): Promise<void> {
-    const em = this.em.fork();
     const fields: Partial<RefitJob> = { progress, stage, state };
     if (state === 'running' && !job.startedAt) fields.startedAt = new Date();
-    await em.nativeUpdate(RefitJob, { id: job.id, state: { $in: ['queued', 'running'] } }, fields);
+    await this.jobs.progress(job.id, fields);
     Object.assign(job, fields);
     this.broadcast(job);
   }
 
   private async run(id: number): Promise<void> {
-    const job = await this.em.fork().findOne(RefitJob, { id }, { populate: ['zone'] });
+    const job = await this.jobs.byId(id);
     if (!job || job.state !== 'queued') return;
     const started = Date.now();
     try {
       await this.step(job, 5, 'reading the history');
       const zone = job.zone;
-      const inService = await this.em.fork().findOne(ModelVersion, { zone: zone.id, status: 'in-service' });
+      const inService = await this.versions.inService(zone.id);
       if (job.mode === 'update' && !inService) throw new Error('no model in service to update; a full refit is needed first');
       const history = await this.history.load(zone);
       if (!history) throw new Error(`zone ${zone.code} has no readings yet`);
@@ -253,61 +207,25 @@ export class RefitsService implements OnApplicationBootstrap, OnApplicationShutd
 
   private async finish(job: RefitJob, history: ZoneHistory, result: RefitResult, scoredInServiceId: number | null, durationMs: number): Promise<void> {
     const zone = job.zone;
-    const announced = await this.em.fork().transactional(async (tx) => {
-      const current = await tx.findOne(ModelVersion, { zone: zone.id, status: 'in-service' }, { lockMode: LockMode.PESSIMISTIC_WRITE });
-      const row = await tx.findOneOrFail(RefitJob, { id: job.id }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+    const announced = await this.jobs.fork().transactional(async (tx) => {
+      const current = await this.versions.lockInService(tx, zone.id);
+      const row = await this.jobs.lockOrFail(tx, job.id);
       if (row.state !== 'running') throw new Error(`job is ${row.state}, not running`);
       const now = new Date();
       let promoted = false;
       let why: string;
       let version: ModelVersion | null = null;
       if (result.model && result.stored) {
-        const cand = result.score?.mape ?? null;
-        const served = current && current.id === scoredInServiceId ? (result.inServiceScore?.mape ?? null) : null;
-        if (!current) [promoted, why] = [true, 'the first model of the zone goes into service'];
-        else if (job.mode === 'update') [promoted, why] = [true, 'hourly update: same orders, coefficients re-estimated'];
-        else if (job.trigger === 'schedule' && cand !== null && served !== null && cand < served)
-          [promoted, why] = [true, `scheduled refit: backtest MAPE ${cand.toFixed(2)} % beat ${served.toFixed(2)} % of version ${current.id}`];
-        else if (job.trigger === 'schedule') why = `kept version ${current.id} in service: the candidate (MAPE ${cand?.toFixed(2) ?? '–'} %) did not beat it (${served?.toFixed(2) ?? '–'} %)`;
-        else why = 'candidate stored; compare it with the model in service and promote it if it serves better';
-        const m = result.model;
-        const racf = m.residualAcf.slice(0, 48).map((x) => (Number.isFinite(x) ? x : 0));
-        version = tx.create(ModelVersion, {
-          zone: tx.getReference(Zone, zone.id),
-          status: promoted ? 'in-service' : 'candidate',
+        ({ promoted, why } = decidePromotion({
+          inServiceId: current?.id ?? null,
+          mode: job.mode,
           trigger: job.trigger,
-          differencing: m.diff,
-          differencingLabel: m.label,
-          p: m.p,
-          q: m.q,
-          coefficients: m.coefficients.map((c) => ({ name: c.name, value: c.value, se: Number.isFinite(c.se) ? c.se : null })),
-          parameters: result.stored,
-          sigma2: m.sigma2,
-          loglik: m.loglik,
-          aic: m.aic,
-          aicc: Number.isFinite(m.aicc) ? m.aicc : m.aic,
-          bic: m.bic,
-          ljungBox: m.ljungBox.map((l) => ({ lag: l.lag, statistic: l.statistic, df: l.df, pValue: l.pValue })),
-          residualAcf: {
-            lags: racf,
-            band: m.residualAcfBand,
-            outside: racf.filter((x) => Math.abs(x) > m.residualAcfBand).length,
-            maxAbs: racf.reduce((a, x) => Math.max(a, Math.abs(x)), 0),
-          },
-          trainingFrom: new Date(history.firstHourMs),
-          trainingTo: new Date(history.lastHourMs + HOUR_MS),
-          trainingHours: history.values.length,
-          excludedHours: history.excluded.length,
-          backtestDays: result.score?.days ?? 0,
-          backtestMape: result.score?.mape ?? null,
-          baselineMape: result.score?.baselineMape ?? null,
-          warnings: result.warnings,
-          createdByEmail: job.requestedByEmail,
-          createdAt: now,
-          durationMs,
-          jobId: job.id,
-          promotedAt: promoted ? now : null,
-          retiredAt: null,
+          candidateMape: result.score?.mape ?? null,
+          inServiceMape: current && current.id === scoredInServiceId ? (result.inServiceScore?.mape ?? null) : null,
+        }));
+        version = this.versions.add(tx, {
+          zone: tx.getReference(Zone, zone.id),
+          ...modelVersionFields({ ...result, model: result.model, stored: result.stored }, history, job, promoted, now, durationMs),
         });
         if (promoted && current) {
           current.status = 'retired';
@@ -345,8 +263,8 @@ export class RefitsService implements OnApplicationBootstrap, OnApplicationShutd
   private async fail(job: RefitJob, message: string): Promise<void> {
     const now = new Date();
     try {
-      await this.em.fork().transactional(async (tx) => {
-        const row = await tx.findOne(RefitJob, { id: job.id }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+      await this.jobs.fork().transactional(async (tx) => {
+        const row = await this.jobs.lock(tx, job.id);
         if (!row || row.state === 'done' || row.state === 'failed') return;
         Object.assign(row, { state: 'failed', message, finishedAt: now, activeZoneId: null });
         this.audit.stage(tx, null, { action: 'refit.fail', subjectType: 'refit', subjectId: job.id, after: { zone: job.zone.code, message } });

@@ -177,6 +177,19 @@ export class ReadingsRepository {
     return rows.map((row) => ({ zoneId: row.zone_id, hourStart: fromSqlDateTime(row.hour_start), mw: Number(row.mw), quality: row.quality }));
   }
 
+  /** The latest stored hour of one zone (the primary key's prefix answers it); null when it has none. */
+  async lastHour(zoneId: number): Promise<number | null> {
+    const rows = unwrap<{ last_hour: unknown }>(await this.em.getKnex().raw('select max(hour_start) as last_hour from readings where zone_id = ?', [zoneId]));
+    const last = rows[0]?.last_hour;
+    return last === null || last === undefined ? null : fromSqlDateTime(last);
+  }
+
+  /** How many hours of a zone are stored. */
+  async countOf(zoneId: number): Promise<number> {
+    const rows = unwrap<{ n: number | string }>(await this.em.getKnex().raw('select count(*) as n from readings where zone_id = ?', [zoneId]));
+    return Number(rows[0]?.n ?? 0);
+  }
+
   /** The latest stored hour per zone and when it arrived. */
   async latest(): Promise<Map<number, { hourStart: number; receivedAt: number }>> {
     const rows = unwrap<{ zone_id: number; hour_start: unknown; received_at: unknown }>(

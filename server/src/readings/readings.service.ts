@@ -1,9 +1,9 @@
-import { EntityManager } from '@mikro-orm/mariadb';
 import { BadRequestException, Injectable } from '@nestjs/common';
 import { HOUR_MS, STALE_AFTER_HOURS, type FeedStatusDto, type ReadingRejection, type ReadingSeriesDto } from '@morrowline/shared';
 import { DOMAIN_EVENTS, type ReadingsStored } from '../events/domain-events';
 import { DomainEventsPublisher } from '../events/domain-events.publisher';
-import { Zone } from '../zones/entities/zone.entity';
+import { pickActiveZones } from '../zones/active-zones';
+import { ZonesRepository } from '../zones/zones.repository';
 import { validateBatch, type ZoneLimits } from './reading-validation';
 import { ReadingsRepository, type StoredRow } from './readings.repository';
 
@@ -34,14 +34,14 @@ export class ReadingsService {
   private zoneCache: { at: number; byCode: Map<string, ZoneLimits>; byId: Map<number, ZoneLimits> } | null = null;
 
   constructor(
-    private readonly em: EntityManager,
+    private readonly zoneRows: ZonesRepository,
     private readonly repository: ReadingsRepository,
     private readonly events: DomainEventsPublisher,
   ) {}
 
   async zones(refresh = false): Promise<{ byCode: Map<string, ZoneLimits>; byId: Map<number, ZoneLimits> }> {
     if (!refresh && this.zoneCache && Date.now() - this.zoneCache.at < ZONE_CACHE_MS) return this.zoneCache;
-    const zones = await this.em.fork().find(Zone, { active: true }, { orderBy: { code: 'asc' } });
+    const zones = await this.zoneRows.active();
     const limits = zones.map((z) => ({ id: z.id, code: z.code, minPlausibleMw: z.minPlausibleMw, maxPlausibleMw: z.maxPlausibleMw }));
     this.zoneCache = { at: Date.now(), byCode: new Map(limits.map((z) => [z.code, z])), byId: new Map(limits.map((z) => [z.id, z])) };
     return this.zoneCache;
@@ -76,12 +76,7 @@ export class ReadingsService {
   /** Resolves zone codes (all active zones when none given); unknown codes are a 400. */
   async resolveZones(codes: readonly string[] | undefined): Promise<ZoneLimits[]> {
     const zones = await this.zones();
-    if (!codes || codes.length === 0) return [...zones.byCode.values()];
-    return codes.map((code) => {
-      const zone = zones.byCode.get(code) ?? null;
-      if (!zone) throw new BadRequestException(`No active zone with code ${code}`);
-      return zone;
-    });
+    return pickActiveZones([...zones.byCode.values()], codes);
   }
 
   /** Checks a requested [from, to) and rounds it out to whole hours. */

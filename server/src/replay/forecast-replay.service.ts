@@ -5,7 +5,7 @@ import { ForecastRun } from '../forecasts/entities/forecast-run.entity';
 import { MAX_HORIZON_HOURS } from '../forecasts/forecast-horizon';
 import type { ForecastsService } from '../forecasts/forecasts.service';
 import { FIRST_MODEL_MIN_HOURS } from '../models/refits.service';
-import { TRAINING_HOURS } from '../models/zone-history';
+import { TRAINING_HOURS } from '../history/zone-history.loader';
 import type { OutagesService } from '../outages/outages.service';
 import type { ReadingsRepository } from '../readings/readings.repository';
 import { operatingDaySlots } from '@morrowline/shared';

@@ -1,4 +1,4 @@
-import { TRAINING_HOURS, type ZoneHistory } from '../models/zone-history';
+import { TRAINING_HOURS, type ZoneHistory } from '../history/zone-history.loader';
 
 const HOUR_MS = 3_600_000;
 

@@ -1,5 +1,5 @@
 import { refitZone, type RefitPayload, type RefitResult } from '../models/analysis/refit';
-import { TRAINING_HOURS } from '../models/zone-history';
+import { TRAINING_HOURS } from '../history/zone-history.loader';
 import { ReadingsTimeline, type HourlyReading } from './history-cut';
 import { replaySteps, type ReplayRoutine, type ReplayStep } from './replay-timeline';
 import { replayZone, type ReplayedForecast } from './zone-replay';

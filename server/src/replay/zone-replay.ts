@@ -1,7 +1,7 @@
 import type { IntervalForecast, ModelChoice } from '@morrowline/engine';
 import { forecastHorizon } from '../forecasts/forecast-horizon';
 import { REFIT_BACKTEST_DAYS, type RefitPayload, type RefitResult } from '../models/analysis/refit';
-import type { ZoneHistory } from '../models/zone-history';
+import type { ZoneHistory } from '../history/zone-history.loader';
 import type { ReadingsTimeline } from './history-cut';
 import type { ReplayStep } from './replay-timeline';
 

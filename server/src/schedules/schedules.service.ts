@@ -1,8 +1,7 @@
-import { LockMode, UniqueConstraintViolationException } from '@mikro-orm/core';
-import { EntityManager } from '@mikro-orm/mariadb';
+import { UniqueConstraintViolationException } from '@mikro-orm/core';
+import type { EntityManager } from '@mikro-orm/mariadb';
 import { BadRequestException, ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
 import {
-  EDITABLE_SCHEDULE_STATES,
   gateClosureAt,
   isOperatingDay,
   may,
@@ -14,8 +13,6 @@ import {
   type CreateScheduleAdjustmentRequest,
   type DayScheduleDto,
   type DeskScheduleEvent,
-  type ScheduleAdjustmentDto,
-  type ScheduleHourDto,
   type ScheduleHourSlot,
   type ScheduleRevisionDto,
   type ZoneScheduleDto,
@@ -27,60 +24,17 @@ import { DomainEventsPublisher } from '../events/domain-events.publisher';
 import { ForecastsService, toForecastRunDto } from '../forecasts/forecasts.service';
 import { User } from '../users/entities/user.entity';
 import { Zone } from '../zones/entities/zone.entity';
-import { ScheduleAdjustment } from './entities/schedule-adjustment.entity';
-import { ScheduleRevision } from './entities/schedule-revision.entity';
+import { ZonesRepository } from '../zones/zones.repository';
+import type { ScheduleAdjustment } from './entities/schedule-adjustment.entity';
+import type { ScheduleRevision } from './entities/schedule-revision.entity';
+import { REVISION_RELATIONS, toAdjustmentDto, toRevisionDto } from './schedule-dto';
+import { layForecast, type LaidForecast } from './schedule-forecast-layout';
 import { ScheduleNotifier } from './schedule-notifier';
+import { revisionKey, ScheduleRevisionsRepository } from './schedule-revisions.repository';
+import { stateAfter, transitionRefusal, type ScheduleAction } from './schedule-transitions';
 
-const USERS = ['zone', 'createdBy', 'submittedBy', 'returnedBy', 'publishedBy'] as const;
-const ref = (u: User | null) => (u ? { id: u.id, name: u.name } : null);
-const iso = (d: Date | null) => (d ? d.toISOString() : null);
-const key = (zone: Zone, day: string) => `${zone.id}:${day}`;
-
-function toAdjustmentDto(a: ScheduleAdjustment): ScheduleAdjustmentDto {
-  return {
-    id: a.id,
-    revisionId: a.revision.id,
-    zone: a.zoneCode,
-    kind: a.kind,
-    fromHour: a.fromHour,
-    toHour: a.toHour,
-    value: a.value,
-    reason: a.reason,
-    by: { id: a.by.id, name: a.by.name },
-    at: a.at.toISOString(),
-    undoneAt: iso(a.undoneAt),
-    undoneBy: ref(a.undoneBy),
-  };
-}
-
-export function toRevisionDto(r: ScheduleRevision, adjustments: ScheduleAdjustment[]): ScheduleRevisionDto {
-  return {
-    id: r.id,
-    zone: r.zone.code,
-    operatingDay: r.operatingDay,
-    revision: r.revision,
-    state: r.state,
-    forecastRunId: r.forecastRunId,
-    forecastIssuedAt: iso(r.forecastIssuedAt),
-    forecastReplayed: r.forecastReplayed,
-    hours: r.hours,
-    adjustments: adjustments.filter((a) => a.revision.id === r.id).map(toAdjustmentDto),
-    createdBy: { id: r.createdBy.id, name: r.createdBy.name },
-    createdAt: r.createdAt.toISOString(),
-    submittedBy: ref(r.submittedBy),
-    submittedAt: iso(r.submittedAt),
-    submitComment: r.submitComment,
-    late: r.late,
-    returnedBy: ref(r.returnedBy),
-    returnedAt: iso(r.returnedAt),
-    returnComment: r.returnComment,
-    publishedBy: ref(r.publishedBy),
-    publishedAt: iso(r.publishedAt),
-    supersededAt: iso(r.supersededAt),
-    correctionReason: r.correctionReason,
-    mail: r.mailOutcome,
-  };
-}
+const key = (zone: Zone, day: string) => revisionKey(zone.id, day);
+const at = (r: ScheduleRevision) => ({ state: r.state, revision: r.revision, zone: r.zone.code, operatingDay: r.operatingDay });
 
 /**
  * The day-ahead schedule workflow: drafts from the latest forecast, adjustments (replayed from the
@@ -90,7 +44,8 @@ export function toRevisionDto(r: ScheduleRevision, adjustments: ScheduleAdjustme
 @Injectable()
 export class SchedulesService {
   constructor(
-    private readonly em: EntityManager,
+    private readonly revisionsRepo: ScheduleRevisionsRepository,
+    private readonly zoneRows: ZonesRepository,
     private readonly audit: AuditService,
     private readonly events: DomainEventsPublisher,
     private readonly forecasts: ForecastsService,
@@ -101,24 +56,13 @@ export class SchedulesService {
     if (!isOperatingDay(day)) throw new BadRequestException(`"${day}" is not an operating day (yyyy-MM-dd)`);
   }
 
-  private async zones(em: EntityManager, codes?: readonly string[]): Promise<Zone[]> {
-    if (!codes || codes.length === 0) return em.find(Zone, { active: true }, { orderBy: { code: 'asc' } });
-    const found = await em.find(Zone, { code: { $in: [...codes] }, active: true });
-    return codes.map((code) => {
-      const zone = found.find((z) => z.code === code);
-      if (!zone) throw new BadRequestException(`No active zone with code ${code}`);
-      return zone;
-    });
-  }
-
-  private async adjustmentsOf(em: EntityManager, revisions: ScheduleRevision[]): Promise<ScheduleAdjustment[]> {
-    if (revisions.length === 0) return [];
-    return em.find(ScheduleAdjustment, { revision: { $in: revisions.map((r) => r.id) } }, { populate: ['by', 'undoneBy'], orderBy: { id: 'asc' } });
+  private zones(em: EntityManager, codes?: readonly string[]): Promise<Zone[]> {
+    return this.zoneRows.activeByCodes(codes, em);
   }
 
   private async dto(em: EntityManager, revision: ScheduleRevision): Promise<ScheduleRevisionDto> {
-    await em.populate(revision, [...USERS]);
-    return toRevisionDto(revision, await this.adjustmentsOf(em, [revision]));
+    await em.populate(revision, [...REVISION_RELATIONS]);
+    return toRevisionDto(revision, await this.revisionsRepo.adjustmentsOf(em, [revision]));
   }
 
   private announce(action: DeskScheduleEvent['action'], r: ScheduleRevisionDto): void {
@@ -129,31 +73,20 @@ export class SchedulesService {
    * The latest forecast (stored run, or the seasonal-naive stand-in) laid onto the day's hours; with
    * `asOf` (work replayed as of a past time, never HTTP) the run the desk had then.
    */
-  private async forecastHours(zone: Zone, day: string, slots: ScheduleHourSlot[], asOf?: Date): Promise<{ runId: number | null; issuedAt: string; replayed: boolean; hours: ScheduleHourDto[] }> {
+  private async forecastHours(zone: Zone, day: string, slots: ScheduleHourSlot[], asOf?: Date): Promise<LaidForecast> {
     const { from, to } = operatingDayBounds(day, zone.timeZone);
     const past = asOf ? await this.forecasts.runAsOf(zone.id, asOf) : null;
     if (asOf && !past) throw new ConflictException(`No forecast run of ${zone.code} had been stored by ${asOf.toISOString()}`);
     const run = past ? toForecastRunDto(past, zone.code, from, to) : (await this.forecasts.latest([zone.code], new Date(from), new Date(to))).zones[0];
-    const at = new Map(run.hours.map((h, i) => [Date.parse(h), i]));
-    const hours = slots.map((s) => {
-      const i = at.get(Date.parse(s.intervalStartUtc));
-      const v = (a: number[]) => (i === undefined ? null : Math.round(a[i] * 10) / 10);
-      const modelMw = v(run.mean);
-      return { ...s, modelMw, lower80: v(run.lower80), upper80: v(run.upper80), lower95: v(run.lower95), upper95: v(run.upper95), startMw: modelMw, adjustedMw: modelMw };
-    });
-    return { runId: run.id, issuedAt: run.issuedAt, replayed: run.origin === 'replayed', hours };
+    return layForecast(run, slots);
   }
 
   async day(day: string, codes: readonly string[] | undefined, now = new Date()): Promise<DayScheduleDto> {
     this.checkDay(day);
-    const em = this.em.fork();
+    const em = this.revisionsRepo.fork();
     const zones = await this.zones(em, codes);
-    const revisions = await em.find(
-      ScheduleRevision,
-      { zone: { $in: zones.map((z) => z.id) }, operatingDay: day, $or: [{ workingKey: { $ne: null } }, { publishedKey: { $ne: null } }] },
-      { populate: [...USERS] },
-    );
-    const adjustments = await this.adjustmentsOf(em, revisions);
+    const revisions = await this.revisionsRepo.current(em, zones.map((z) => z.id), day);
+    const adjustments = await this.revisionsRepo.adjustmentsOf(em, revisions);
     const out: ZoneScheduleDto[] = [];
     for (const zone of zones) {
       const slots = operatingDaySlots(day, zone.timeZone);
@@ -185,22 +118,22 @@ export class SchedulesService {
    */
   async createDraft(user: AuthUser, day: string, code: string, asOf?: Date): Promise<ScheduleRevisionDto> {
     this.checkDay(day);
-    const em = this.em.fork();
+    const em = this.revisionsRepo.fork();
     const [zone] = await this.zones(em, [code]);
-    const existing = await em.findOne(ScheduleRevision, { workingKey: key(zone, day) });
+    const existing = await this.revisionsRepo.working(em, zone.id, day);
     if (existing) return this.dto(em, existing);
-    if (await em.count(ScheduleRevision, { publishedKey: key(zone, day) })) {
+    if (await this.revisionsRepo.isPublished(em, zone.id, day)) {
       throw new ConflictException(`The ${code} schedule for ${day} is published; a change is a correction (a new revision with a reason)`);
     }
     const slots = operatingDaySlots(day, zone.timeZone);
     const forecast = await this.forecastHours(zone, day, slots, asOf);
     try {
       const dto = await em.transactional(async (tx) => {
-        const last = await tx.findOne(ScheduleRevision, { zone: zone.id, operatingDay: day }, { orderBy: { revision: 'desc' } });
-        const revision = tx.create(ScheduleRevision, {
+        const last = await this.revisionsRepo.lastNumber(tx, zone.id, day);
+        const revision = this.revisionsRepo.add(tx, {
           zone: tx.getReference(Zone, zone.id),
           operatingDay: day,
-          revision: (last?.revision ?? 0) + 1,
+          revision: last + 1,
           state: 'draft',
           workingKey: key(zone, day),
           publishedKey: null,
@@ -227,17 +160,16 @@ export class SchedulesService {
       return dto;
     } catch (err) {
       if (!(err instanceof UniqueConstraintViolationException)) throw err;
-      const other = await this.em.fork().findOne(ScheduleRevision, { workingKey: key(zone, day) });
+      const other = await this.revisionsRepo.working(this.revisionsRepo.fork(), zone.id, day);
       if (!other) throw err;
-      return this.dto(this.em.fork(), other);
+      return this.dto(this.revisionsRepo.fork(), other);
     }
   }
 
-  private editable(revision: ScheduleRevision, what: string): void {
-    if (EDITABLE_SCHEDULE_STATES.includes(revision.state)) return;
-    const where = `revision ${revision.revision} of ${revision.zone.code} ${revision.operatingDay}`;
-    if (revision.state === 'submitted') throw new ConflictException(`Cannot ${what} ${where}: it is submitted; a supervisor must return it first`);
-    throw new ConflictException(`Cannot ${what} ${where}: it is ${revision.state} and cannot be changed; a change is a correction (a new revision)`);
+  /** Refuses (409) an action the workflow does not allow from the revision's state (schedule-transitions.ts). */
+  private allowed(revision: ScheduleRevision, action: ScheduleAction): void {
+    const refusal = transitionRefusal(action, at(revision));
+    if (refusal) throw new ConflictException(refusal);
   }
 
   /** Recomputes adjustedMw from startMw and the active adjustments; throws on an impossible result. */
@@ -252,26 +184,26 @@ export class SchedulesService {
     this.checkDay(day);
     const codes = [...new Set(request.zones)];
     if (request.fromHour > request.toHour) throw new BadRequestException('fromHour must not be after toHour');
-    const result = await this.em.fork().transactional(async (tx) => {
+    const result = await this.revisionsRepo.fork().transactional(async (tx) => {
       const zones = await this.zones(tx, codes);
       const made: ScheduleAdjustment[] = [];
       const revisions: ScheduleRevision[] = [];
       for (const zone of zones) {
-        const revision = await tx.findOne(ScheduleRevision, { zone: zone.id, operatingDay: day, workingKey: { $ne: null } }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+        const revision = await this.revisionsRepo.lockWorking(tx, zone.id, day);
         if (!revision) {
-          const published = await tx.count(ScheduleRevision, { publishedKey: key(zone, day) });
+          const published = await this.revisionsRepo.isPublished(tx, zone.id, day);
           throw published
             ? new ConflictException(`The ${zone.code} schedule for ${day} is published and cannot be changed; start a correction`)
             : new ConflictException(`There is no ${zone.code} draft for ${day}; start one first`);
         }
         await tx.populate(revision, ['zone']);
-        this.editable(revision, 'adjust');
+        this.allowed(revision, 'adjust');
         if (request.toHour >= revision.hours.length) {
           throw new BadRequestException(`${zone.code} ${day} has ${revision.hours.length} hours (0..${revision.hours.length - 1}); toHour ${request.toHour} is outside it`);
         }
-        const active = (await tx.find(ScheduleAdjustment, { revision: revision.id, undoneAt: null }, { orderBy: { id: 'asc' } })).map((a) => ({ ...a }));
+        const active = (await this.revisionsRepo.activeAdjustments(tx, revision.id)).map((a) => ({ ...a }));
         this.replay(revision, [...active, request], (m) => new BadRequestException(m));
-        const adjustment = tx.create(ScheduleAdjustment, {
+        const adjustment = this.revisionsRepo.addAdjustment(tx, {
           revision,
           zoneCode: zone.code,
           kind: request.kind,
@@ -313,14 +245,14 @@ export class SchedulesService {
   }
 
   async undo(user: AuthUser, id: number): Promise<ScheduleRevisionDto> {
-    const dto = await this.em.fork().transactional(async (tx) => {
-      const adjustment = await tx.findOne(ScheduleAdjustment, { id });
+    const dto = await this.revisionsRepo.fork().transactional(async (tx) => {
+      const adjustment = await this.revisionsRepo.adjustment(tx, id);
       if (!adjustment) throw new NotFoundException(`No schedule adjustment ${id}`);
-      const revision = await tx.findOneOrFail(ScheduleRevision, { id: adjustment.revision.id }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+      const revision = await this.revisionsRepo.lockOf(tx, adjustment);
       await tx.populate(revision, ['zone']);
-      this.editable(revision, 'undo an adjustment of');
+      this.allowed(revision, 'undo');
       if (adjustment.undoneAt) throw new ConflictException(`Adjustment ${id} is already undone`);
-      const rest = (await tx.find(ScheduleAdjustment, { revision: revision.id, undoneAt: null, id: { $ne: id } }, { orderBy: { id: 'asc' } })).map((a) => ({ ...a }));
+      const rest = (await this.revisionsRepo.activeAdjustments(tx, revision.id, id)).map((a) => ({ ...a }));
       this.replay(revision, rest, (m) => new ConflictException(`Undoing adjustment ${id} would leave ${m}; undo the later adjustment first`));
       adjustment.undoneAt = new Date();
       adjustment.undoneBy = tx.getReference(User, user.id);
@@ -339,16 +271,15 @@ export class SchedulesService {
   }
 
   private async lockRevision(tx: EntityManager, id: number): Promise<ScheduleRevision> {
-    const revision = await tx.findOne(ScheduleRevision, { id }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+    const revision = await this.revisionsRepo.lock(tx, id);
     if (!revision) throw new NotFoundException(`No schedule revision ${id}`);
-    await tx.populate(revision, [...USERS]);
     return revision;
   }
 
   async submit(user: AuthUser, id: number, comment: string | undefined, now = new Date()): Promise<ScheduleRevisionDto> {
-    const dto = await this.em.fork().transactional(async (tx) => {
+    const dto = await this.revisionsRepo.fork().transactional(async (tx) => {
       const revision = await this.lockRevision(tx, id);
-      this.editable(revision, 'submit');
+      this.allowed(revision, 'submit');
       const missing = revision.hours.filter((h) => h.adjustedMw === null).map((h) => h.hourEnding);
       if (missing.length) throw new BadRequestException(`${revision.zone.code} ${revision.operatingDay} has no value for ${missing.join(', ')}; set those hours first`);
       const gate = new Date(gateClosureAt(revision.operatingDay, revision.zone.timeZone, revision.zone.gateClosure));
@@ -356,7 +287,7 @@ export class SchedulesService {
       if (late && !may(user.role, 'supervise')) {
         throw new ForbiddenException(`Gate closure for ${revision.zone.code} ${revision.operatingDay} passed at ${gate.toISOString()}; only a supervisor may submit now, and it is marked late`);
       }
-      revision.state = 'submitted';
+      revision.state = stateAfter('submit', revision.state);
       revision.submittedBy = tx.getReference(User, user.id);
       revision.submittedAt = now;
       revision.submitComment = comment?.trim() || null;
@@ -377,10 +308,10 @@ export class SchedulesService {
   }
 
   async returnToOperators(user: AuthUser, id: number, comment: string): Promise<ScheduleRevisionDto> {
-    const dto = await this.em.fork().transactional(async (tx) => {
+    const dto = await this.revisionsRepo.fork().transactional(async (tx) => {
       const revision = await this.lockRevision(tx, id);
-      if (revision.state !== 'submitted') throw new ConflictException(`Only a submitted schedule can be returned; revision ${revision.revision} of ${revision.zone.code} ${revision.operatingDay} is ${revision.state}`);
-      revision.state = 'returned';
+      this.allowed(revision, 'return');
+      revision.state = stateAfter('return', revision.state);
       revision.returnedBy = tx.getReference(User, user.id);
       revision.returnedAt = new Date();
       revision.returnComment = comment;
@@ -397,26 +328,20 @@ export class SchedulesService {
    * `asOf`: only for work replayed as of a past time (src/replay); HTTP callers never pass it.
    */
   async approve(user: AuthUser, id: number, asOf?: Date): Promise<ScheduleRevisionDto> {
-    const { dto, zoneName } = await this.em.fork().transactional(async (tx) => {
+    const { dto, zoneName } = await this.revisionsRepo.fork().transactional(async (tx) => {
       const revision = await this.lockRevision(tx, id);
-      if (revision.state !== 'submitted') {
-        throw new ConflictException(
-          revision.state === 'published' || revision.state === 'superseded'
-            ? `Revision ${revision.revision} of ${revision.zone.code} ${revision.operatingDay} is already ${revision.state}; it cannot be changed`
-            : `Revision ${revision.revision} of ${revision.zone.code} ${revision.operatingDay} is ${revision.state}; it must be submitted before it is approved`,
-        );
-      }
+      this.allowed(revision, 'approve');
       if (revision.submittedBy?.id === user.id) throw new ForbiddenException('A supervisor cannot approve a schedule they submitted; another supervisor must approve it');
       const k = key(revision.zone, revision.operatingDay);
-      const previous = await tx.findOne(ScheduleRevision, { publishedKey: k }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+      const previous = await this.revisionsRepo.lockPublished(tx, revision.zone.id, revision.operatingDay);
       const now = asOf ?? new Date();
       if (previous) {
-        previous.state = 'superseded';
+        previous.state = stateAfter('supersede', previous.state);
         previous.publishedKey = null;
         previous.supersededAt = now;
         await tx.flush();
       }
-      revision.state = 'published';
+      revision.state = stateAfter('approve', revision.state);
       revision.workingKey = null;
       revision.publishedKey = k;
       revision.publishedBy = tx.getReference(User, user.id);
@@ -436,17 +361,17 @@ export class SchedulesService {
   async correction(user: AuthUser, day: string, code: string, reason: string): Promise<ScheduleRevisionDto> {
     this.checkDay(day);
     try {
-      const dto = await this.em.fork().transactional(async (tx) => {
+      const dto = await this.revisionsRepo.fork().transactional(async (tx) => {
         const [zone] = await this.zones(tx, [code]);
-        const published = await tx.findOne(ScheduleRevision, { publishedKey: key(zone, day) }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+        const published = await this.revisionsRepo.lockPublished(tx, zone.id, day);
         if (!published) throw new ConflictException(`There is no published ${code} schedule for ${day} to correct`);
-        const working = await tx.findOne(ScheduleRevision, { workingKey: key(zone, day) });
+        const working = await this.revisionsRepo.working(tx, zone.id, day);
         if (working) throw new ConflictException(`Revision ${working.revision} of ${code} ${day} is already being worked on (${working.state})`);
-        const last = await tx.findOneOrFail(ScheduleRevision, { zone: zone.id, operatingDay: day }, { orderBy: { revision: 'desc' } });
-        const revision = tx.create(ScheduleRevision, {
+        const last = await this.revisionsRepo.lastNumber(tx, zone.id, day);
+        const revision = this.revisionsRepo.add(tx, {
           zone: tx.getReference(Zone, zone.id),
           operatingDay: day,
-          revision: last.revision + 1,
+          revision: last + 1,
           state: 'draft',
           workingKey: key(zone, day),
           publishedKey: null,
@@ -480,24 +405,24 @@ export class SchedulesService {
 
   async revisions(day: string, code: string): Promise<ScheduleRevisionDto[]> {
     this.checkDay(day);
-    const em = this.em.fork();
+    const em = this.revisionsRepo.fork();
     const [zone] = await this.zones(em, [code]);
-    const rows = await em.find(ScheduleRevision, { zone: zone.id, operatingDay: day }, { populate: [...USERS], orderBy: { revision: 'desc' } });
-    const adjustments = await this.adjustmentsOf(em, rows);
+    const rows = await this.revisionsRepo.ofDay(em, zone.id, day);
+    const adjustments = await this.revisionsRepo.adjustmentsOf(em, rows);
     return rows.map((r) => toRevisionDto(r, adjustments));
   }
 
   async revision(id: number): Promise<ScheduleRevisionDto> {
-    const em = this.em.fork();
-    const revision = await em.findOne(ScheduleRevision, { id });
+    const em = this.revisionsRepo.fork();
+    const revision = await this.revisionsRepo.byId(em, id);
     if (!revision) throw new NotFoundException(`No schedule revision ${id}`);
     return this.dto(em, revision);
   }
 
   /** A revision for export, with the publisher's e-mail; only published (or since superseded) ones. */
   async forExport(id: number): Promise<{ revision: ScheduleRevisionDto; publishedByEmail: string }> {
-    const em = this.em.fork();
-    const revision = await em.findOne(ScheduleRevision, { id }, { populate: [...USERS] });
+    const em = this.revisionsRepo.fork();
+    const revision = await this.revisionsRepo.byId(em, id, true);
     if (!revision) throw new NotFoundException(`No schedule revision ${id}`);
     if (!revision.publishedBy || (revision.state !== 'published' && revision.state !== 'superseded')) {
       throw new ConflictException(`Revision ${revision.revision} of ${revision.zone.code} ${revision.operatingDay} is ${revision.state}; only published schedules are exported`);

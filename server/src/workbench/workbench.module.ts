@@ -1,13 +1,12 @@
 import { Module } from '@nestjs/common';
 import { ComputeModule } from '../compute/compute.module';
-import { OutagesModule } from '../outages/outages.module';
-import { ReadingsModule } from '../readings/readings.module';
+import { ZoneHistoryModule } from '../history/zone-history.module';
 import { ZonesModule } from '../zones/zones.module';
 import { WorkbenchController } from './workbench.controller';
 import { WorkbenchService } from './workbench.service';
 
 @Module({
-  imports: [ComputeModule, ReadingsModule, ZonesModule, OutagesModule],
+  imports: [ComputeModule, ZoneHistoryModule, ZonesModule],
   controllers: [WorkbenchController],
   providers: [WorkbenchService],
 })

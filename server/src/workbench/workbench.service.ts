@@ -10,8 +10,8 @@ import {
   WORKBENCH_MIN_HOURS,
 } from '@morrowline/shared';
 import { ComputeService } from '../compute/compute.service';
-import { OutagesService } from '../outages/outages.service';
-import { ReadingsService } from '../readings/readings.service';
+import { ZoneHistoryLoader } from '../history/zone-history.loader';
+import type { Zone } from '../zones/entities/zone.entity';
 import { ZonesService } from '../zones/zones.service';
 import { toWire } from './analysis/stationarity-analysis';
 
@@ -43,9 +43,8 @@ export class WorkbenchService {
 
   constructor(
     private readonly zones: ZonesService,
-    private readonly readings: ReadingsService,
+    private readonly histories: ZoneHistoryLoader,
     private readonly compute: ComputeService,
-    private readonly outages: OutagesService,
   ) {}
 
   async stationarity(code: string, weeks = WORKBENCH_DEFAULT_WEEKS): Promise<StationarityReportDto> {
@@ -118,47 +117,27 @@ export class WorkbenchService {
   }
 
   /** The zone (404 if unknown) and its latest stored hour (400 if it has no readings). */
-  private async latestHour(code: string): Promise<{ zone: string; timeZone: string; lastHourMs: number }> {
+  private async latestHour(code: string): Promise<{ zone: Zone; lastHourMs: number }> {
     const zone = await this.zones.getByCode(code);
-    const status = (await this.readings.status()).find((s) => s.zone === zone.code);
-    if (!status?.lastHour) {
+    const lastHourMs = await this.histories.lastHour(zone);
+    if (lastHourMs === null) {
       throw new BadRequestException(
         `Zone ${zone.code} has no readings yet; the workbench needs at least ${WORKBENCH_MIN_HOURS} hours (${WORKBENCH_MIN_HOURS / 168} weeks) of hourly load`,
       );
     }
-    return { zone: zone.code, timeZone: zone.timeZone, lastHourMs: Date.parse(status.lastHour) };
+    return { zone, lastHourMs };
   }
 
   /** `hours` hourly values ending at the latest reading, excluded hours as NaN; 400 when too few are usable. */
-  private async history(latest: { zone: string; timeZone: string; lastHourMs: number }, hours: number, span: string, needed = WORKBENCH_MIN_HOURS): Promise<History> {
-    const firstHourMs = latest.lastHourMs - (hours - 1) * HOUR_MS;
-    const end = latest.lastHourMs + HOUR_MS;
-    const [series, excludedSet] = await Promise.all([
-      this.readings.series([latest.zone], new Date(firstHourMs), new Date(end)),
-      this.outages.excludedHours(latest.zone, firstHourMs, end),
-    ]);
-    const mw = series.zones[0]?.mw ?? [];
-    const values = new Float64Array(series.hours.length);
-    const excluded: number[] = [];
-    let usable = 0;
-    series.hours.forEach((iso, i) => {
-      const at = Date.parse(iso);
-      const v = mw[i];
-      if (excludedSet.has(at)) {
-        excluded.push(i);
-        values[i] = NaN;
-      } else if (v === null || v === undefined) values[i] = NaN;
-      else {
-        values[i] = v;
-        usable++;
-      }
-    });
+  private async history(latest: { zone: Zone; lastHourMs: number }, hours: number, span: string, needed = WORKBENCH_MIN_HOURS): Promise<History> {
+    const { firstHourMs, values, excluded, usable } = await this.histories.ending(latest.zone, latest.lastHourMs, hours);
     if (usable < needed) {
       throw new BadRequestException(
-        `Not enough history for zone ${latest.zone}: ${usable} hours with readings in ${span} up to ${new Date(latest.lastHourMs).toISOString().slice(0, 13)}:00Z; the analysis needs at least ${needed} (${(needed / 24).toFixed(0)} days)`,
+        `Not enough history for zone ${latest.zone.code}: ${usable} hours with readings in ${span} up to ${new Date(latest.lastHourMs).toISOString().slice(0, 13)}:00Z; the analysis needs at least ${needed} (${(needed / 24).toFixed(0)} days)`,
       );
     }
-    return { zone: latest.zone, timeZone: latest.timeZone, firstHourMs, lastHourMs: latest.lastHourMs, times: series.hours, values, excluded, usable };
+    const times = Array.from({ length: values.length }, (_, i) => new Date(firstHourMs + i * HOUR_MS).toISOString());
+    return { zone: latest.zone.code, timeZone: latest.zone.timeZone, firstHourMs, lastHourMs: latest.lastHourMs, times, values, excluded, usable };
   }
 
   private cached<T>(key: string, compute: () => Promise<T>): Promise<T> {

@@ -1,7 +1,7 @@
 import { Injectable } from '@nestjs/common';
 import { HOUR_MS } from '@morrowline/shared';
 import { OutagesService } from '../outages/outages.service';
-import { ReadingsService } from '../readings/readings.service';
+import { ReadingsRepository } from '../readings/readings.repository';
 import type { Zone } from '../zones/entities/zone.entity';
 
 /** Hours each fit trains on: eight weeks, as the engine's backtest window. */
@@ -12,27 +12,43 @@ export interface ZoneHistory {
   lastHourMs: number;
   /** MW, NaN for missing and for excluded hours */
   values: Float64Array;
-  /** indices of outage / bad-data hours */
+  /** indices of outage / bad-data hours, ascending */
   excluded: number[];
   usable: number;
 }
 
-/** A zone's training history from the stored readings, with its outage hours marked. */
+/**
+ * A zone's hourly history from the stored readings, with its outage hours marked and taken out:
+ * the one loader the refits, the model comparison and the analysis workbench read.
+ */
 @Injectable()
 export class ZoneHistoryLoader {
   constructor(
-    private readonly readings: ReadingsService,
+    private readonly readings: ReadingsRepository,
     private readonly outages: OutagesService,
   ) {}
 
+  /**
+   * The zone's latest stored hour (its own query, not every zone's); null when it has none. An
+   * inactive zone counts as having none, as in the feed status: it is not analysed or refitted.
+   */
+  async lastHour(zone: Zone): Promise<number | null> {
+    if (!zone.active) return null;
+    return this.readings.lastHour(zone.id);
+  }
+
   /** The last `hours` hours up to the zone's latest reading; null when it has none. */
   async load(zone: Zone, hours = TRAINING_HOURS): Promise<ZoneHistory | null> {
-    const last = (await this.readings.status()).find((s) => s.zone === zone.code)?.lastHour;
-    if (!last) return null;
-    const lastHourMs = Date.parse(last);
+    const lastHourMs = await this.lastHour(zone);
+    if (lastHourMs === null) return null;
+    return this.ending(zone, lastHourMs, hours);
+  }
+
+  /** The `hours` hours ending with the hour that starts at `lastHourMs`. */
+  async ending(zone: Zone, lastHourMs: number, hours: number): Promise<ZoneHistory> {
     const firstHourMs = lastHourMs - (hours - 1) * HOUR_MS;
     const end = lastHourMs + HOUR_MS;
-    const [rows, excludedSet] = await Promise.all([this.readings.rows(zone.id, firstHourMs, end), this.outages.excludedHours(zone.code, firstHourMs, end)]);
+    const [rows, excludedSet] = await Promise.all([this.readings.range([zone.id], firstHourMs, end), this.outages.excludedHours(zone.code, firstHourMs, end)]);
     const values = new Float64Array(hours).fill(NaN);
     for (const row of rows) values[(row.hourStart - firstHourMs) / HOUR_MS] = row.mw;
     const excluded: number[] = [];
