@@ -68,6 +68,9 @@ describe('accuracy', () => {
     await page.keyboard.press('Escape');
     await page.waitForURL(/\/accuracy\?zone=COPPERLINE&from=\d{4}-\d\d-\d\d&to=\d{4}-\d\d-\d\d/);
 
+    // The all-zones report shows first and is replaced by Copperline's once its query answers:
+    // wait for Copperline's own day table before reading its rows.
+    await page.getByRole('heading', { name: /Per operating day · Copperline/ }).waitFor({ timeout: 30_000 });
     // The only stored run was issued just now: no past day had a forecast at its gate closure.
     const empty = page.getByTestId('accuracy-no-data');
     await empty.waitFor({ state: 'visible', timeout: 30_000 });
@@ -76,6 +79,7 @@ describe('accuracy', () => {
     expect(zones).toMatch(/Copperline \(COPPERLINE\)\s+0 \/ 14/);
     expect(zones).not.toMatch(/0\.00 %/);
     const days = page.getByTestId('accuracy-days');
+    await days.getByRole('row').nth(14).waitFor();
     const rows = await days.getByRole('row').allInnerTexts();
     expect(rows).toHaveLength(15);
     expect(rows.slice(1).every((r) => r.includes('no model forecast'))).toBe(true);
