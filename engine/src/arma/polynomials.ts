@@ -32,17 +32,6 @@ export function expandMa(theta: ArrayLike<number>, stheta: ArrayLike<number>, s:
   return out;
 }
 
-/** ψ_0..ψ_{h−1} of the ARMA with AR coefficients a (1 − Σ a B) and MA coefficients b (1 + Σ b B). */
-export function psiWeights(a: ArrayLike<number>, b: ArrayLike<number>, h: number): Float64Array {
-  const psi = new Float64Array(h);
-  for (let j = 0; j < h; j++) {
-    let s = j === 0 ? 1 : j - 1 < b.length ? b[j - 1] : 0;
-    for (let k = 1; k <= Math.min(j, a.length); k++) s += a[k - 1] * psi[j - k];
-    psi[j] = s;
-  }
-  return psi;
-}
-
 /** Product of two polynomials given by full coefficient vectors (index = power). */
 export function multiply(x: ArrayLike<number>, y: ArrayLike<number>): Float64Array {
   const out = new Float64Array(x.length + y.length - 1);

@@ -115,12 +115,3 @@ export function parseLoadCsv(text: string): HourlySeries {
 export function localDate(s: HourlySeries, i: number): string {
   return new Date(s.startMs + i * HOUR + s.offsets[i] * 60_000).toISOString().slice(0, 10);
 }
-
-/** ISO timestamp of hour index i in the file's own offset. */
-export function localTimestamp(s: HourlySeries, i: number): string {
-  const off = s.offsets[Math.min(i, s.offsets.length - 1)];
-  const local = new Date(s.startMs + i * HOUR + off * 60_000).toISOString().slice(0, 19);
-  if (off === 0) return `${local}Z`;
-  const a = Math.abs(off);
-  return `${local}${off < 0 ? '-' : '+'}${String(Math.floor(a / 60)).padStart(2, '0')}:${String(a % 60).padStart(2, '0')}`;
-}

@@ -3,19 +3,9 @@ import { HOUR_MS } from '@morrowline/shared';
 import { OutagesService } from '../outages/outages.service';
 import { ReadingsRepository } from '../readings/readings.repository';
 import type { Zone } from '../zones/entities/zone.entity';
+import { TRAINING_HOURS, zoneHistoryWindow, type ZoneHistory } from './zone-history';
 
-/** Hours each fit trains on: eight weeks, as the engine's backtest window. */
-export const TRAINING_HOURS = 8 * 168;
-
-export interface ZoneHistory {
-  firstHourMs: number;
-  lastHourMs: number;
-  /** MW, NaN for missing and for excluded hours */
-  values: Float64Array;
-  /** indices of outage / bad-data hours, ascending */
-  excluded: number[];
-  usable: number;
-}
+export { TRAINING_HOURS, type ZoneHistory } from './zone-history';
 
 /**
  * A zone's hourly history from the stored readings, with its outage hours marked and taken out:
@@ -48,18 +38,7 @@ export class ZoneHistoryLoader {
   async ending(zone: Zone, lastHourMs: number, hours: number): Promise<ZoneHistory> {
     const firstHourMs = lastHourMs - (hours - 1) * HOUR_MS;
     const end = lastHourMs + HOUR_MS;
-    const [rows, excludedSet] = await Promise.all([this.readings.range([zone.id], firstHourMs, end), this.outages.excludedHours(zone.code, firstHourMs, end)]);
-    const values = new Float64Array(hours).fill(NaN);
-    for (const row of rows) values[(row.hourStart - firstHourMs) / HOUR_MS] = row.mw;
-    const excluded: number[] = [];
-    for (const h of excludedSet) {
-      const i = (h - firstHourMs) / HOUR_MS;
-      excluded.push(i);
-      values[i] = NaN;
-    }
-    excluded.sort((a, b) => a - b);
-    let usable = 0;
-    for (const v of values) if (v === v) usable++;
-    return { firstHourMs, lastHourMs, values, excluded, usable };
+    const [rows, excluded] = await Promise.all([this.readings.range([zone.id], firstHourMs, end), this.outages.excludedHours(zone.code, firstHourMs, end)]);
+    return zoneHistoryWindow(lastHourMs, hours, rows, excluded);
   }
 }

@@ -1,11 +1,7 @@
-import { TRAINING_HOURS, type ZoneHistory } from '../history/zone-history.loader';
+import { HOUR_MS } from '@morrowline/shared';
+import { TRAINING_HOURS, zoneHistoryWindow, type HourlyReading, type ZoneHistory } from '../history/zone-history';
 
-const HOUR_MS = 3_600_000;
-
-export interface HourlyReading {
-  hourStart: number;
-  mw: number;
-}
+export type { HourlyReading };
 
 /**
  * Readings of a zone in time order, cut at any past moment: the history a fit would have had
@@ -37,20 +33,12 @@ export class ReadingsTimeline {
     const end = this.endAt(t);
     if (end === 0) return null;
     const lastHourMs = this.hours[end - 1];
-    const firstHourMs = lastHourMs - (hours - 1) * HOUR_MS;
-    const values = new Float64Array(hours).fill(NaN);
-    for (let i = end - 1; i >= 0 && this.hours[i] >= firstHourMs; i--) values[(this.hours[i] - firstHourMs) / HOUR_MS] = this.mw[i];
-    const excluded: number[] = [];
-    for (const h of this.excluded) {
-      if (h < firstHourMs || h > lastHourMs) continue;
-      const i = (h - firstHourMs) / HOUR_MS;
-      excluded.push(i);
-      values[i] = NaN;
-    }
-    excluded.sort((a, b) => a - b);
-    let usable = 0;
-    for (const v of values) if (v === v) usable++;
-    return { firstHourMs, lastHourMs, values, excluded, usable };
+    return zoneHistoryWindow(lastHourMs, hours, this.readingsBefore(end, lastHourMs - (hours - 1) * HOUR_MS), this.excluded);
+  }
+
+  /** The readings at indices below `end` whose hour starts at or after `firstHourMs`, newest first. */
+  private *readingsBefore(end: number, firstHourMs: number): Generator<HourlyReading> {
+    for (let i = end - 1; i >= 0 && this.hours[i] >= firstHourMs; i--) yield { hourStart: this.hours[i], mw: this.mw[i] };
   }
 
   /** Index after the last reading whose hour ended by `t` (binary search). */

@@ -129,21 +129,12 @@ export class SchedulesService {
     const forecast = await this.forecastHours(zone, day, slots, asOf);
     try {
       const dto = await em.transactional(async (tx) => {
-        const last = await this.revisionsRepo.lastNumber(tx, zone.id, day);
-        const revision = this.revisionsRepo.add(tx, {
-          zone: tx.getReference(Zone, zone.id),
-          operatingDay: day,
-          revision: last + 1,
-          state: 'draft',
-          workingKey: key(zone, day),
-          publishedKey: null,
+        const revision = await this.addDraft(tx, zone, day, user, {
           forecastRunId: forecast.runId,
           forecastIssuedAt: new Date(forecast.issuedAt),
           forecastReplayed: forecast.replayed,
           hours: forecast.hours,
-          createdBy: tx.getReference(User, user.id),
           createdAt: asOf ?? new Date(),
-          late: false,
         });
         await tx.flush();
         this.audit.stage(tx, user, {
@@ -167,6 +158,28 @@ export class SchedulesService {
   }
 
   /** Refuses (409) an action the workflow does not allow from the revision's state (schedule-transitions.ts). */
+  /** The next revision of the zone's day, as a draft on the given forecast (a first draft or a correction). */
+  private async addDraft(
+    tx: EntityManager,
+    zone: Zone,
+    day: string,
+    user: AuthUser,
+    source: Pick<ScheduleRevision, 'forecastRunId' | 'forecastIssuedAt' | 'forecastReplayed' | 'hours' | 'createdAt'> & { correctionReason?: string },
+  ): Promise<ScheduleRevision> {
+    const last = await this.revisionsRepo.lastNumber(tx, zone.id, day);
+    return this.revisionsRepo.add(tx, {
+      zone: tx.getReference(Zone, zone.id),
+      operatingDay: day,
+      revision: last + 1,
+      state: 'draft',
+      workingKey: key(zone, day),
+      publishedKey: null,
+      createdBy: tx.getReference(User, user.id),
+      late: false,
+      ...source,
+    });
+  }
+
   private allowed(revision: ScheduleRevision, action: ScheduleAction): void {
     const refusal = transitionRefusal(action, at(revision));
     if (refusal) throw new ConflictException(refusal);
@@ -367,21 +380,12 @@ export class SchedulesService {
         if (!published) throw new ConflictException(`There is no published ${code} schedule for ${day} to correct`);
         const working = await this.revisionsRepo.working(tx, zone.id, day);
         if (working) throw new ConflictException(`Revision ${working.revision} of ${code} ${day} is already being worked on (${working.state})`);
-        const last = await this.revisionsRepo.lastNumber(tx, zone.id, day);
-        const revision = this.revisionsRepo.add(tx, {
-          zone: tx.getReference(Zone, zone.id),
-          operatingDay: day,
-          revision: last + 1,
-          state: 'draft',
-          workingKey: key(zone, day),
-          publishedKey: null,
+        const revision = await this.addDraft(tx, zone, day, user, {
           forecastRunId: published.forecastRunId,
           forecastIssuedAt: published.forecastIssuedAt,
           forecastReplayed: published.forecastReplayed,
           hours: published.hours.map((h) => ({ ...h, startMw: h.adjustedMw })),
-          createdBy: tx.getReference(User, user.id),
           createdAt: new Date(),
-          late: false,
           correctionReason: reason,
         });
         await tx.flush();

@@ -67,9 +67,9 @@ export function validateZoneForm(values: ZoneFormValues, timeZones: readonly str
 }
 
 /** Only call after validateZoneForm found nothing: the numbers are then numbers. */
-export function formToCreateRequest(values: ZoneFormValues): CreateZoneRequest {
+/** The settings a zone is created and changed with, as the API takes them. */
+function formToSettings(values: ZoneFormValues): Omit<CreateZoneRequest, 'code'> {
   return {
-    code: values.code,
     name: values.name.trim(),
     timeZone: values.timeZone,
     alertThresholdPct: Number(values.alertThresholdPct),
@@ -81,17 +81,12 @@ export function formToCreateRequest(values: ZoneFormValues): CreateZoneRequest {
   };
 }
 
+export function formToCreateRequest(values: ZoneFormValues): CreateZoneRequest {
+  return { code: values.code, ...formToSettings(values) };
+}
+
 export function formToUpdateRequest(values: ZoneFormValues): UpdateZoneRequest {
-  const update: UpdateZoneRequest = {
-    name: values.name.trim(),
-    timeZone: values.timeZone,
-    alertThresholdPct: Number(values.alertThresholdPct),
-    alertConsecutiveHours: Number(values.alertConsecutiveHours),
-    gateClosure: values.gateClosure,
-    minPlausibleMw: Number(values.minPlausibleMw),
-    maxPlausibleMw: Number(values.maxPlausibleMw),
-    active: values.active,
-  };
+  const update: UpdateZoneRequest = formToSettings(values);
   const reason = values.reason.trim();
   return reason ? { ...update, reason } : update;
 }

@@ -1,15 +1,9 @@
-import { ApiPropertyOptional } from '@nestjs/swagger';
-import { Transform, Type } from 'class-transformer';
-import { ArrayMaxSize, IsArray, IsDate, IsOptional } from 'class-validator';
-import { IsZoneCode } from '../../common/validation/is-zone-code';
+import { Type } from 'class-transformer';
+import { IsDate, IsOptional } from 'class-validator';
+import { ZoneCodeList } from '../../common/validation/zone-code-list';
 
 export class LatestForecastsQueryDto {
-  @ApiPropertyOptional({ description: 'comma-separated zone codes; all active zones when omitted', example: 'MILLRACE,COPPERLINE' })
-  @IsOptional()
-  @Transform(({ value }) => (Array.isArray(value) ? value : String(value).split(',')).map((v: string) => v.trim()).filter(Boolean))
-  @IsArray()
-  @ArrayMaxSize(50)
-  @IsZoneCode({ each: true })
+  @ZoneCodeList('comma-separated zone codes; all active zones when omitted', 'MILLRACE,COPPERLINE')
   zone?: string[];
 
   @IsOptional() @Type(() => Date) @IsDate({ message: 'from must be a time' })

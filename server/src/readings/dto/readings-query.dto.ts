@@ -1,16 +1,12 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
-import { Transform, Type } from 'class-transformer';
-import { ArrayMaxSize, IsArray, IsDate, IsOptional } from 'class-validator';
+import { Type } from 'class-transformer';
+import { IsDate, IsOptional } from 'class-validator';
 import { IsZoneCode } from '../../common/validation/is-zone-code';
+import { ZoneCodeList } from '../../common/validation/zone-code-list';
 
 /** `zone` may repeat or be comma-separated; absent means every active zone. */
 export class ReadingsQueryDto {
-  @ApiPropertyOptional({ description: 'Zone code(s), comma-separated or repeated', example: 'MILLRACE,HARROW' })
-  @IsOptional()
-  @Transform(({ value }) => (Array.isArray(value) ? value : String(value).split(',')).map((v: string) => v.trim()).filter(Boolean))
-  @IsArray()
-  @ArrayMaxSize(50)
-  @IsZoneCode({ each: true })
+  @ZoneCodeList('Zone code(s), comma-separated or repeated', 'MILLRACE,HARROW')
   zone?: string[];
 
   @ApiPropertyOptional({ description: 'First hour (UTC, inclusive); default 7 days before `to`' })

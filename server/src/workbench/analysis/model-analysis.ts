@@ -3,7 +3,7 @@
  * engine (./forecasting/pipeline) on the zone's history, reshaped for the wire, with the
  * residual checks in plain words.
  */
-import type { ModelCandidateDto, ModelFitDto } from '@morrowline/shared';
+import type { ModelCandidateDto, ModelFitDto, ModelReportDto } from '@morrowline/shared';
 import { runPipeline } from '@morrowline/engine';
 import { num, toWire } from './stationarity-analysis';
 import { differencingLabel, residualVerdict } from './verdict';
@@ -15,16 +15,8 @@ export interface ModelInput {
   excluded: number[];
 }
 
-export interface ModelOutput {
-  method: 'arima' | 'seasonal-naive';
-  fallbackReason: string | null;
-  model: ModelFitDto | null;
-  candidates: ModelCandidateDto[];
-  baselineMape: number | null;
-  selectionDays: number;
-  warnings: string[];
-  summary: string;
-}
+/** The part of the wire's model report this analysis fills; the service adds the window and timing. */
+export type ModelOutput = Pick<ModelReportDto, 'method' | 'fallbackReason' | 'model' | 'candidates' | 'baselineMape' | 'selectionDays' | 'warnings' | 'summary'>;
 
 const sameLags = (a: readonly number[], b: readonly number[]) => a.length === b.length && a.every((v, i) => v === b[i]);
 
