@@ -24,18 +24,13 @@ import { seasonalNaive } from './seasonal-naive';
 import { Criterion, selectOrder } from './select';
 import { countFinite, SeriesInput, withExcluded } from './series/series';
 import { difference } from './differencing';
-import { Coefficient } from './arma/fit';
+import { Coefficient, type ArmaSpec } from './arma/fit';
 
 export const DEFAULT_CANDIDATES: number[][] = [[24], [168], [24, 168]];
 
-export interface ModelChoice {
+/** A model the pipeline may choose: the differencing lags and the ARMA on what they leave. */
+export interface ModelChoice extends ArmaSpec {
   diff: number[];
-  p: number;
-  q: number;
-  P?: number;
-  Q?: number;
-  period?: number;
-  includeMean?: boolean;
   /** starting values (natural parameters) for the final fit */
   start?: { ar?: ArrayLike<number>; ma?: ArrayLike<number>; sar?: ArrayLike<number>; sma?: ArrayLike<number> };
 }

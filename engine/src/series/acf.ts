@@ -59,36 +59,11 @@ export function acf(x: ArrayLike<number>, maxLag: number): Float64Array {
 }
 
 /**
- * Partial autocorrelations φ_kk for k = 1..maxLag (index 0 of the result is lag 1), by the
- * Durbin–Levinson recursion on the sample autocorrelations.
+ * The Durbin–Levinson recursion on the autocorrelations, run to order m: the AR(m) coefficients
+ * and the innovation variance ratio v = σ²/γ(0), with each order's last coefficient φ_kk (the
+ * partial autocorrelation at lag k) handed to `onOrder` as it is found.
  */
-export function pacfFromAcf(rho: ArrayLike<number>, maxLag: number): Float64Array {
-  const out = new Float64Array(maxLag);
-  let phi = new Float64Array(0);
-  let v = 1;
-  for (let k = 1; k <= maxLag; k++) {
-    let num = rho[k];
-    for (let j = 1; j < k; j++) num -= phi[j - 1] * rho[k - j];
-    const a = v > 0 ? num / v : 0;
-    const next = new Float64Array(k);
-    for (let j = 1; j < k; j++) next[j - 1] = phi[j - 1] - a * phi[k - j - 1];
-    next[k - 1] = a;
-    phi = next;
-    v *= 1 - a * a;
-    out[k - 1] = a;
-  }
-  return out;
-}
-
-export function pacf(x: ArrayLike<number>, maxLag: number): Float64Array {
-  return pacfFromAcf(acf(x, maxLag), maxLag);
-}
-
-/**
- * Yule–Walker AR(m) coefficients from the autocorrelations (the Durbin–Levinson recursion run
- * to order m), with the innovation variance ratio v = σ²/γ(0).
- */
-export function yuleWalker(rho: ArrayLike<number>, m: number): { phi: Float64Array; v: number } {
+function durbinLevinson(rho: ArrayLike<number>, m: number, onOrder?: (k: number, phiKK: number) => void): { phi: Float64Array; v: number } {
   let phi = new Float64Array(0);
   let v = 1;
   for (let k = 1; k <= m; k++) {
@@ -100,8 +75,25 @@ export function yuleWalker(rho: ArrayLike<number>, m: number): { phi: Float64Arr
     next[k - 1] = a;
     phi = next;
     v *= 1 - a * a;
+    onOrder?.(k, a);
   }
   return { phi, v };
+}
+
+/** Partial autocorrelations φ_kk for k = 1..maxLag (index 0 of the result is lag 1), by Durbin–Levinson. */
+export function pacfFromAcf(rho: ArrayLike<number>, maxLag: number): Float64Array {
+  const out = new Float64Array(maxLag);
+  durbinLevinson(rho, maxLag, (k, a) => (out[k - 1] = a));
+  return out;
+}
+
+export function pacf(x: ArrayLike<number>, maxLag: number): Float64Array {
+  return pacfFromAcf(acf(x, maxLag), maxLag);
+}
+
+/** Yule–Walker AR(m) coefficients from the autocorrelations, with the variance ratio v = σ²/γ(0). */
+export function yuleWalker(rho: ArrayLike<number>, m: number): { phi: Float64Array; v: number } {
+  return durbinLevinson(rho, m);
 }
 
 /** The ±1.96/√n band for a white-noise ACF, n counting the finite values. */
