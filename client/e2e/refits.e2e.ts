@@ -63,10 +63,12 @@ describe('refits', () => {
     };
     const versions = page.getByTestId('model-versions');
     await startRefit('after the Quarry Hill feeder outage');
-    const firstJob = page.locator('[data-testid^="refit-job-"]').first();
-    await firstJob.waitFor();
+    // The panel lists every zone's jobs: follow ours by its id, so another zone's finishing cannot stand in.
+    const ourJob = page.locator('[data-testid^="refit-job-"]', { hasText: 'after the Quarry Hill feeder outage' }).first();
+    await ourJob.waitFor();
+    const firstJob = page.getByTestId((await ourJob.getAttribute('data-testid'))!);
     await page.getByTestId('refit-panel').screenshot({ path: path.join(SCREENSHOTS, 'refits-progress.png') });
-    await page.locator('[data-testid^="refit-job-"][data-state="done"]').first().waitFor({ timeout: 180_000 });
+    await firstJob.and(page.locator('[data-state="done"]')).waitFor({ timeout: 180_000 });
     expect(await firstJob.innerText()).toMatch(/Quarry Hill[\s\S]*by hand[\s\S]*done[\s\S]*100 %[\s\S]*into service[\s\S]*feeder outage/i);
     const inService = versions.locator('[data-status="in-service"]');
     await inService.waitFor({ timeout: 30_000 });
