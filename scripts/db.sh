@@ -6,6 +6,9 @@
 #   scripts/db.sh reset NAME PORT   drop and recreate the application database (tests)
 # The application database and user are both "morrowline"; the password is DB_PASSWORD
 # (default morrowline-local). Only 127.0.0.1 is bound; nothing listens elsewhere.
+# Durable: every commit is flushed to disk before it returns (innodb_flush_log_at_trx_commit=1,
+# and sync_binlog=1 should a binary log be turned on), so an acknowledged reading survives a power
+# cut; ingest keeps its rate by committing whole batches, not by relaxing this.
 set -euo pipefail
 source "$(dirname "$0")/lib.sh"
 
@@ -49,7 +52,7 @@ start() {
     nohup mariadbd --no-defaults --datadir="$datadir" --socket="$sock" --port="$port" \
       --bind-address=127.0.0.1 --user="$(id -un)" --skip-name-resolve --pid-file="$pidfile" \
       --log-error="$dir/error.log" --innodb-buffer-pool-size=256M --max-connections=200 \
-      --innodb-flush-log-at-trx-commit=2 >/dev/null 2>&1 &
+      --innodb-flush-log-at-trx-commit=1 --sync-binlog=1 >/dev/null 2>&1 &
     for _ in $(seq 1 60); do
       mariadb-admin --no-defaults --socket="$sock" -uroot ping >/dev/null 2>&1 && break
       sleep 0.5

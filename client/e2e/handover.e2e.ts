@@ -65,7 +65,7 @@ describe('handing the desk to the next shift', () => {
     const note = page.getByTestId('pending-handovers').locator('[data-testid^="handover-note-"]', { hasText: marker });
     await note.waitFor();
     const noteText = await note.innerText();
-    expect(noteText).toContain('Outage in progress · QUARRY');
+    expect(noteText).toContain('Outage in progress · Quarry Hill');
     expect(noteText).toContain(itemText);
     expect(await note.locator('strong', { hasText: 'two shifts' }).count()).toBe(1);
     await note.getByLabel(/Reply to the outgoing shift/).fill('Got it, I have the desk. Will call the Q-7 crew at 16:00.');

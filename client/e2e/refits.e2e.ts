@@ -38,6 +38,10 @@ describe('refits', () => {
     await windows.getByRole('button', { name: 'Mark a window' }).click();
     const dialog = page.getByRole('dialog', { name: 'Mark a window on Quarry Hill' });
     await dialog.getByLabel(/^Start/).fill(`${day}T09:00`);
+    // the desk's clock rule: the zone's time with its abbreviation, UTC labelled, no raw ISO offset
+    const hint = await dialog.getByTestId('outage-time-hint').first().innerText();
+    expect(hint).toMatch(new RegExp(`^${day} 09:00 M[SD]T \\(\\d{4}-\\d{2}-\\d{2} 1[56]:00 UTC\\)`));
+    expect(hint).not.toMatch(/T09:00:00/);
     await dialog.getByLabel(/^End/).fill(`${day}T08:00`);
     await dialog.getByLabel(/^Note/).fill('Quarry Hill feeder 4 tripped at the pumping station');
     await dialog.getByRole('button', { name: 'Mark the window' }).click();

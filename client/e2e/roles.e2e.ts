@@ -16,7 +16,7 @@ const EXPECTED_NAVIGATION: Record<Role, string[]> = {
     'History',
     'Audit trail',
   ],
-  admin: ['Live load', 'Users', 'Zones', 'Audit trail'],
+  admin: ['Live load', 'Users', 'Zones', 'Feed keys', 'Audit trail'],
 };
 
 const ROLE_LABELS: Record<Role, string> = {

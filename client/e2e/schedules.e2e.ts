@@ -111,6 +111,13 @@ describe('day-ahead schedule', () => {
     expect(await caution.innerText()).toMatch(/reliability standards, market rules and local regulations/);
     await screenshot(page, 'schedule-approval');
     await page.getByRole('button', { name: 'Approve and publish' }).click();
+    // one click only asks: the revision is still waiting until the supervisor confirms
+    const confirm = page.getByRole('dialog');
+    await confirm.waitFor();
+    expect(await confirm.getByTestId('publish-summary').innerText()).toMatch(/24 hours/);
+    expect(await page.getByTestId('revision-state').first().innerText()).toMatch(/submitted, waiting for approval/i);
+    await screenshot(page, 'schedule-publish-confirm');
+    await confirm.getByRole('button', { name: 'Publish revision 1' }).click();
     await expect.poll(() => page.getByTestId('revision-state').first().innerText(), { timeout: 15_000 }).toMatch(/Approved and published by Hal Brennick/);
     expect(await page.getByRole('button', { name: 'Correct' }).count()).toBe(1);
     await screenshot(page, 'schedule-published');

@@ -35,6 +35,9 @@ describe('model workbench', () => {
       await page.getByTestId(chart).locator('canvas').first().waitFor({ state: 'attached' });
     }
     expect(await page.getByRole('table', { name: 'Unit-root and level tests' }).innerText()).toContain('KPSS, level');
+    // our own key under the lines, not the chart library's "time: -- load: --" legend
+    expect(await page.locator('.u-legend').count()).toBe(0);
+    expect(await page.getByTestId('chart-series').getByTestId('chart-key').innerText()).toMatch(/weekly mean/i);
     await mkdir(SCREENSHOTS, { recursive: true });
     // the fixed header would cover the top of each panel in its screenshot
     await page.addStyleTag({ content: 'header { position: static !important; }' });
@@ -58,6 +61,8 @@ describe('model workbench', () => {
     const scores = await page.getByRole('table', { name: 'Backtest scores' }).innerText();
     expect(scores).toMatch(/MAPE\s+\d+\.\d+ %\s+\d+\.\d+ %/);
     await page.getByTestId('chart-backtest-daily').locator('canvas').first().waitFor({ state: 'attached' });
+    expect(await page.getByTestId('chart-backtest-daily').locator('.u-legend').count()).toBe(0);
+    expect(await page.getByTestId('chart-backtest-daily').getByTestId('chart-key').innerText()).toMatch(/model MAPE %[\s\S]*same hour last week MAPE %/);
     await page.getByTestId('backtest-panel').screenshot({ path: path.join(SCREENSHOTS, 'workbench-backtest.png') });
   }, 240_000);
 });

@@ -6,6 +6,7 @@ import { ScheduleModule } from '@nestjs/schedule';
 import { AccuracyModule } from './accuracy/accuracy.module';
 import { AlertsModule } from './alerts/alerts.module';
 import { AuditModule } from './audit/audit.module';
+import { ClockModule } from './clock/clock.module';
 import { AuthModule } from './auth/auth.module';
 import { configFactory, type AppConfig } from './config/configuration';
 import { ormConfig } from './database/mikro-orm.config';
@@ -15,6 +16,7 @@ import { FeedsModule } from './feeds/feeds.module';
 import { HandoverModule } from './handover/handover.module';
 import { ForecastsModule } from './forecasts/forecasts.module';
 import { HealthModule } from './health/health.module';
+import { LiveModule } from './live/live.module';
 import { ModelsModule } from './models/models.module';
 import { OutagesModule } from './outages/outages.module';
 import { ReadingsModule } from './readings/readings.module';
@@ -38,11 +40,13 @@ import { ZonesModule } from './zones/zones.module';
     UsersModule,
     ZonesModule,
     HealthModule,
+    ClockModule,
     DeskModule,
     HandoverModule,
     ReadingsModule,
     FeedsModule,
     AlertsModule,
+    LiveModule,
     WorkbenchModule,
     OutagesModule,
     ForecastsModule,

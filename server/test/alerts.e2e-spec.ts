@@ -3,8 +3,9 @@ import { io } from 'socket.io-client';
 import request from 'supertest';
 import { DESK_EVENTS, DESK_NAMESPACE, type AlertDto, type AuditEntryDto, type Page } from '@morrowline/shared';
 import { AlertsService } from '../src/alerts/alerts.service';
+import { storeDayAheadRun } from './support/committed';
 import { connectFeed, connected, createFeedKey, createZone, hourIso, send } from './support/feeds';
-import { baseUrl, startTestApp, tokenFor } from './support/test-app';
+import { baseUrl, demoUser, startTestApp, tokenFor } from './support/test-app';
 
 jest.setTimeout(120_000);
 
@@ -35,8 +36,8 @@ describe('deviation alerts (real MariaDB)', () => {
     const base = Math.floor(Date.now() / HOUR) * HOUR - 12 * HOUR;
     const feed = connectFeed(app, apiKey);
     await connected(feed);
-    // Last week: a flat 100 MW, the seasonal-naive forecast for this week's hours.
-    await send(feed, Array.from({ length: 10 }, (_, i) => ({ zone, hour: hourIso(base - WEEK + i * HOUR), mw: 100 })));
+    // The day-ahead forecast issued before gate closure: a flat 100 MW over the days these hours fall on.
+    await storeDayAheadRun(app, zone, base - 24 * HOUR, 24 * 4, () => 100);
 
     const desk = io(`${baseUrl(app)}${DESK_NAMESPACE}`, { auth: { token: viewer }, transports: ['websocket'], reconnection: false });
     await new Promise((resolve) => desk.once(DESK_EVENTS.hello, resolve));
@@ -60,6 +61,8 @@ describe('deviation alerts (real MariaDB)', () => {
       start: hourIso(base + 4 * HOUR),
       end: hourIso(base + 7 * HOUR),
       peakDeviationPct: 20,
+      comparedWith: 'day-ahead',
+      committedMw: 100,
       thresholdPct: 5,
       consecutiveHours: 3,
       state: 'open',
@@ -74,7 +77,7 @@ describe('deviation alerts (real MariaDB)', () => {
       .set('Authorization', `Bearer ${operator}`)
       .send({ comment: 'Irrigation pumps started early' })
       .expect(200);
-    expect(acked.body).toMatchObject({ state: 'acknowledged', comment: 'Irrigation pumps started early', acknowledgedBy: 'ines.marlow@tallowmere.example' });
+    expect(acked.body).toMatchObject({ state: 'acknowledged', comment: 'Irrigation pumps started early', acknowledgedBy: 'ines.marlow@tallowmere.example', acknowledgedByName: demoUser('operator').name });
     await api().post(`/api/alerts/${alerts[0].id}/acknowledge`).set('Authorization', `Bearer ${supervisor}`).send({}).expect(409);
     expect((await api().get(`/api/alerts?state=open&zone=${zone}`).set('Authorization', `Bearer ${viewer}`).expect(200)).body).toEqual([]);
 
@@ -90,7 +93,7 @@ describe('deviation alerts (real MariaDB)', () => {
     const base = Math.floor(Date.now() / HOUR) * HOUR - 10 * HOUR;
     const feed = connectFeed(app, apiKey);
     await connected(feed);
-    await send(feed, Array.from({ length: 6 }, (_, i) => ({ zone, hour: hourIso(base - WEEK + i * HOUR), mw: 200 })));
+    await storeDayAheadRun(app, zone, base - 24 * HOUR, 24 * 4, () => 200);
     await send(feed, [0, 1].map((i) => ({ zone, hour: hourIso(base + i * HOUR), mw: 180 })));
     await app.get(AlertsService).settled();
     await send(feed, [{ zone, hour: hourIso(base + 2 * HOUR), mw: 170 }]);
@@ -98,6 +101,44 @@ describe('deviation alerts (real MariaDB)', () => {
     await app.get(AlertsService).settled();
     const open = await api().get(`/api/alerts?zone=${zone}`).set('Authorization', `Bearer ${viewer}`).expect(200);
     expect(open.body).toEqual([expect.objectContaining({ start: hourIso(base), end: hourIso(base + 3 * HOUR), peakDeviationPct: -15 })]);
+  });
+
+  it('lists acknowledged alerts as the history, newest acknowledgement first, with who acknowledged them', async () => {
+    const zone = await createZone(app, admin, { alertThresholdPct: 5, alertConsecutiveHours: 2 });
+    const { apiKey } = await createFeedKey(app, admin);
+    const base = Math.floor(Date.now() / HOUR) * HOUR - 10 * HOUR;
+    await storeDayAheadRun(app, zone, base - 24 * HOUR, 24 * 4, () => 100);
+    const feed = connectFeed(app, apiKey);
+    await connected(feed);
+    // Two alerts: hours 0-1 and 4-5 well above 100 MW, normal hours between.
+    await send(feed, [130, 130, 100, 100, 70, 70].map((mw, i) => ({ zone, hour: hourIso(base + i * HOUR), mw })));
+    feed.close();
+    await app.get(AlertsService).settled();
+    const open = (await api().get(`/api/alerts?state=open&zone=${zone}`).set('Authorization', `Bearer ${viewer}`).expect(200)).body as AlertDto[];
+    expect(open.map((a) => a.peakDeviationPct)).toEqual([-30, 30]);
+    await api().post(`/api/alerts/${open[1].id}/acknowledge`).set('Authorization', `Bearer ${operator}`).send({ comment: 'first' }).expect(200);
+    await api().post(`/api/alerts/${open[0].id}/acknowledge`).set('Authorization', `Bearer ${supervisor}`).send({}).expect(200);
+    const history = (await api().get(`/api/alerts?state=acknowledged&zone=${zone}`).set('Authorization', `Bearer ${viewer}`).expect(200)).body as AlertDto[];
+    expect(history.map((a) => [a.id, a.acknowledgedByName, a.comment])).toEqual([
+      [open[0].id, demoUser('supervisor').name, null],
+      [open[1].id, demoUser('operator').name, 'first'],
+    ]);
+  });
+
+  it('raises no alert where nothing was committed, however far the load is from last week’s', async () => {
+    const zone = await createZone(app, admin, { alertThresholdPct: 5, alertConsecutiveHours: 2 });
+    const { apiKey } = await createFeedKey(app, admin);
+    const base = Math.floor(Date.now() / HOUR) * HOUR - 8 * HOUR;
+    const feed = connectFeed(app, apiKey);
+    await connected(feed);
+    await send(feed, Array.from({ length: 4 }, (_, i) => ({ zone, hour: hourIso(base - WEEK + i * HOUR), mw: 100 })));
+    await send(feed, [200, 210, 220, 230].map((mw, i) => ({ zone, hour: hourIso(base + i * HOUR), mw })));
+    // A run issued after gate closure (an intraday update) is not the day-ahead forecast either.
+    await storeDayAheadRun(app, zone, base, 24, () => 100, 2 * HOUR);
+    await send(feed, [{ zone, hour: hourIso(base + 4 * HOUR), mw: 240 }]);
+    feed.close();
+    await app.get(AlertsService).settled();
+    expect((await api().get(`/api/alerts?zone=${zone}`).set('Authorization', `Bearer ${viewer}`).expect(200)).body).toEqual([]);
   });
 
   it('validates the alerts query', async () => {

@@ -2,8 +2,10 @@ import { EntityManager } from '@mikro-orm/mariadb';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { io } from 'socket.io-client';
 import request from 'supertest';
-import { DESK_EVENTS, DESK_NAMESPACE, type AuditEntryDto, type LatestForecastsDto, type ModelCompareDto, type ModelVersionDto, type OutageDto, type Page, type RefitJobDto } from '@morrowline/shared';
+import { DESK_EVENTS, DESK_NAMESPACE, operatingDayBounds, type AuditEntryDto, type LatestForecastsDto, type ModelCompareDto, type ModelVersionDto, type OutageDto, type Page, type RefitJobDto } from '@morrowline/shared';
 import { ComputeService } from '../src/compute/compute.service';
+import { ForecastRun } from '../src/forecasts/entities/forecast-run.entity';
+import { ModelVersion } from '../src/models/entities/model-version.entity';
 import { RefitJob } from '../src/models/entities/refit-job.entity';
 import { INTERRUPTED, RefitsService } from '../src/models/refits.service';
 import { ReadingsRepository } from '../src/readings/readings.repository';
@@ -61,7 +63,7 @@ describe('outages, refits, model versions and forecasts (real MariaDB)', () => {
   async function refit(code: string, token = operator, reason = 'test refit'): Promise<RefitJobDto> {
     const res = await api().post('/api/models/refits').set(as(token)).send({ zone: code, reason }).expect(202);
     await app.get(RefitsService).settled();
-    const jobs = (await api().get(`/api/models/refits?zone=${code}`).set(as(viewer)).expect(200)).body as RefitJobDto[];
+    const jobs = (await api().get(`/api/models/refits?zone=${code}`).set(as(operator)).expect(200)).body as RefitJobDto[];
     return jobs.find((j) => j.id === (res.body as RefitJobDto[])[0].id)!;
   }
 
@@ -99,7 +101,7 @@ describe('outages, refits, model versions and forecasts (real MariaDB)', () => {
     await seedHistory(zone, (t) => t >= dipStart && t < dipEnd);
     await api().post('/api/outages').set(as(operator)).send({ zone, kind: 'outage', start: new Date(dipStart).toISOString(), end: new Date(dipEnd).toISOString(), note: 'Substation transformer fault' }).expect(201);
 
-    const desk = io(`${baseUrl(app)}${DESK_NAMESPACE}`, { auth: { token: viewer }, transports: ['websocket'], reconnection: false });
+    const desk = io(`${baseUrl(app)}${DESK_NAMESPACE}`, { auth: { token: operator }, transports: ['websocket'], reconnection: false });
     await new Promise((resolve) => desk.once(DESK_EVENTS.hello, resolve));
     const progress: RefitJobDto[] = [];
     desk.on(DESK_EVENTS.refitProgress, (j: RefitJobDto) => j.zone === zone && progress.push(j));
@@ -112,7 +114,7 @@ describe('outages, refits, model versions and forecasts (real MariaDB)', () => {
     expect(progress.map((p) => p.state)).toEqual(expect.arrayContaining(['queued', 'running', 'done']));
     expect(progress.some((p) => p.state === 'running' && p.progress > 0 && p.progress < 100)).toBe(true);
 
-    const versions = (await api().get(`/api/models?zone=${zone}`).set(as(viewer)).expect(200)).body as ModelVersionDto[];
+    const versions = (await api().get(`/api/models?zone=${zone}`).set(as(operator)).expect(200)).body as ModelVersionDto[];
     expect(versions).toHaveLength(1);
     // the six dip hours and the four of the window marked in the first test
     expect(versions[0]).toMatchObject({ status: 'in-service', excludedHours: 6 + 4, trainingHours: HISTORY_HOURS, createdBy: 'ines.marlow@tallowmere.example' });
@@ -146,10 +148,10 @@ describe('outages, refits, model versions and forecasts (real MariaDB)', () => {
     const ids = [a, b, again].map((r) => (r.body as RefitJobDto[])[0].id);
     expect(new Set(ids).size).toBe(1);
     await app.get(RefitsService).settled();
-    const jobs = (await api().get(`/api/models/refits?zone=${zone}`).set(as(viewer)).expect(200)).body as RefitJobDto[];
+    const jobs = (await api().get(`/api/models/refits?zone=${zone}`).set(as(operator)).expect(200)).body as RefitJobDto[];
     expect(jobs.filter((j) => j.id >= ids[0])).toHaveLength(1);
     expect(jobs[0]).toMatchObject({ id: ids[0], state: 'done', promoted: false });
-    const versions = (await api().get(`/api/models?zone=${zone}`).set(as(viewer)).expect(200)).body as ModelVersionDto[];
+    const versions = (await api().get(`/api/models?zone=${zone}`).set(as(operator)).expect(200)).body as ModelVersionDto[];
     expect(versions.map((v) => v.status)).toEqual(['candidate', 'in-service']);
   });
 
@@ -158,13 +160,13 @@ describe('outages, refits, model versions and forecasts (real MariaDB)', () => {
     const real = compute.run.bind(compute);
     // the real pool runs a task that throws in the worker thread
     const spy = jest.spyOn(compute, 'run').mockImplementationOnce(() => real('no.such.task' as 'compute.echo', { value: 0 }) as never);
-    const before = (await api().get(`/api/models?zone=${zone}`).set(as(viewer)).expect(200)).body as ModelVersionDto[];
+    const before = (await api().get(`/api/models?zone=${zone}`).set(as(operator)).expect(200)).body as ModelVersionDto[];
     const runsBefore = (await api().get(`/api/forecasts/latest?zone=${zone}`).set(as(viewer)).expect(200)).body as LatestForecastsDto;
     const job = await refit(zone);
     spy.mockRestore();
     expect(job).toMatchObject({ state: 'failed', modelVersionId: null, forecastRunId: null });
     expect(job.message).toMatch(/No compute task named no.such.task/);
-    const after = (await api().get(`/api/models?zone=${zone}`).set(as(viewer)).expect(200)).body as ModelVersionDto[];
+    const after = (await api().get(`/api/models?zone=${zone}`).set(as(operator)).expect(200)).body as ModelVersionDto[];
     expect(after).toEqual(before);
     const runsAfter = (await api().get(`/api/forecasts/latest?zone=${zone}`).set(as(viewer)).expect(200)).body as LatestForecastsDto;
     expect(runsAfter.zones[0].id).toBe(runsBefore.zones[0].id);
@@ -177,14 +179,47 @@ describe('outages, refits, model versions and forecasts (real MariaDB)', () => {
   });
 
   it('compares a candidate with the model in service; promotion and rollback are for operators, audited', async () => {
-    const versions = (await api().get(`/api/models?zone=${zone}`).set(as(viewer)).expect(200)).body as ModelVersionDto[];
+    const versions = (await api().get(`/api/models?zone=${zone}`).set(as(operator)).expect(200)).body as ModelVersionDto[];
     const candidate = versions.find((v) => v.status === 'candidate')!;
-    const cmp = (await api().get(`/api/models/${candidate.id}/compare`).set(as(viewer)).expect(200)).body as ModelCompareDto;
+    const cmp = (await api().get(`/api/models/${candidate.id}/compare`).set(as(operator)).expect(200)).body as ModelCompareDto;
     expect(cmp.candidate.id).toBe(candidate.id);
     expect(cmp.inService?.id).toBe(firstVersion);
     expect(cmp.sameDays.days).toBeGreaterThan(0);
     expect(cmp.sameDays.candidateMape).toBeGreaterThan(0);
     expect(cmp.sameDays.inServiceMape).toBeGreaterThan(0);
+    // both scored on the same seven whole days, each forecast at the 10:00 gate closure the day before
+    expect(cmp.sameDays).toMatchObject({ days: 7, comparable: true, notComparable: null });
+    expect(cmp.sameDays.candidate?.perDay.map((d) => d.issuedAt)).toEqual(cmp.sameDays.inService?.perDay.map((d) => d.issuedAt));
+    expect(cmp.candidateBetter).toBe((cmp.sameDays.candidateMape as number) < (cmp.sameDays.inServiceMape as number));
+    expect(cmp.candidate.warnings.some((w) => w.startsWith('residuals still correlated'))).toBe(false);
+
+    // A version with the in-service orders and other coefficients scores differently on the same days
+    // (each with its own coefficients, never both re-estimated alike), and a forecast the version in
+    // service issued for a day is the one scored for that day.
+    const em = app.get(EntityManager).fork();
+    const served = await em.findOneOrFail(ModelVersion, { id: firstVersion }, { populate: ['zone'] });
+    const { id: _id, ...fields } = served;
+    void _id;
+    const twin = em.create(ModelVersion, { ...fields, status: 'candidate', parameters: { ...served.parameters, ar: served.parameters.ar.map((a) => a * 0.3), ma: served.parameters.ma.map((m) => m * 0.3) } });
+    const lastDay = cmp.sameDays.inService!.perDay[6];
+    const { from: dayFrom } = operatingDayBounds(lastDay.day, served.zone.timeZone);
+    const actual = await app.get(ReadingsRepository).range([served.zone.id], dayFrom, dayFrom + 24 * HOUR);
+    expect(actual).toHaveLength(24);
+    em.create(ForecastRun, {
+      zone: served.zone, issuedAt: new Date(Date.parse(lastDay.issuedAt) - 30 * 60_000), origin: 'issued', basedOnHour: null, method: 'arima', fallbackReason: null, modelVersionId: firstVersion,
+      firstHour: new Date(dayFrom), mean: actual.map((r) => r.mw * 1.1), lower80: actual.map((r) => r.mw * 0.9), upper80: actual.map((r) => r.mw * 1.2), lower95: actual.map((r) => r.mw * 0.8), upper95: actual.map((r) => r.mw * 1.3),
+    });
+    await em.flush();
+    const twinCmp = (await api().get(`/api/models/${twin.id}/compare`).set(as(viewer)).expect(200)).body as ModelCompareDto;
+    expect(twinCmp.candidate.differencingLabel).toBe(twinCmp.inService?.differencingLabel);
+    expect(twinCmp.sameDays.comparable).toBe(true);
+    expect(Math.abs((twinCmp.sameDays.candidateMape as number) - (twinCmp.sameDays.inServiceMape as number))).toBeGreaterThan(0.001);
+    expect(twinCmp.sameDays.inService?.issuedDays).toBe(1);
+    expect(twinCmp.sameDays.inService?.perDay[6]).toMatchObject({ source: 'issued', hours: 24 });
+    expect(twinCmp.sameDays.inService?.perDay[6].mape).toBeCloseTo(10, 6);
+    expect(twinCmp.sameDays.candidate?.perDay[6].source).toBe('re-forecast');
+    em.remove(twin);
+    await em.flush();
 
     await api().post(`/api/models/${candidate.id}/promote`).set(as(viewer)).send({ reason: 'x' }).expect(403);
     const noReason = await api().post(`/api/models/${candidate.id}/promote`).set(as(operator)).send({}).expect(400);
@@ -192,14 +227,14 @@ describe('outages, refits, model versions and forecasts (real MariaDB)', () => {
     const promoted = (await api().post(`/api/models/${candidate.id}/promote`).set(as(operator)).send({ reason: 'cleaner residuals' }).expect(200)).body as ModelVersionDto;
     expect(promoted.status).toBe('in-service');
     await api().post(`/api/models/${candidate.id}/promote`).set(as(operator)).send({ reason: 'again' }).expect(409);
-    let now = (await api().get(`/api/models?zone=${zone}`).set(as(viewer)).expect(200)).body as ModelVersionDto[];
+    let now = (await api().get(`/api/models?zone=${zone}`).set(as(operator)).expect(200)).body as ModelVersionDto[];
     expect(now.filter((v) => v.status === 'in-service').map((v) => v.id)).toEqual([candidate.id]);
     expect(now.find((v) => v.id === firstVersion)?.status).toBe('retired');
     const latest = (await api().get(`/api/forecasts/latest?zone=${zone}`).set(as(viewer)).expect(200)).body as LatestForecastsDto;
     expect(latest.zones[0].modelVersionId).toBe(candidate.id);
 
     await api().post(`/api/models/${firstVersion}/promote`).set(as(supervisor)).send({ reason: 'back to the version that served last week' }).expect(200);
-    now = (await api().get(`/api/models?zone=${zone}`).set(as(viewer)).expect(200)).body as ModelVersionDto[];
+    now = (await api().get(`/api/models?zone=${zone}`).set(as(operator)).expect(200)).body as ModelVersionDto[];
     expect(now.filter((v) => v.status === 'in-service').map((v) => v.id)).toEqual([firstVersion]);
     const audit = (await api().get('/api/audit?subjectType=model&limit=50').set(as(supervisor)).expect(200)).body as Page<AuditEntryDto>;
     const mine = audit.items.filter((e) => e.subjectId === String(candidate.id) || e.subjectId === String(firstVersion));
@@ -213,8 +248,11 @@ describe('outages, refits, model versions and forecasts (real MariaDB)', () => {
     const latest = (await api().get(`/api/forecasts/latest?zone=${other}`).set(as(viewer)).expect(200)).body as LatestForecastsDto;
     expect(latest.zones[0]).toMatchObject({ zone: other, id: null, method: 'seasonal-naive', modelVersionId: null, hours: [] });
     await api().get('/api/forecasts/latest?zone=nope').set(as(viewer)).expect(400);
-    await api().get('/api/models/refits?state=paused').set(as(viewer)).expect(400);
+    await api().get('/api/models/refits?state=paused').set(as(operator)).expect(400);
     await api().post('/api/models/refits').set(as(viewer)).send({ zone, reason: 'x' }).expect(403);
+    // model internals are the forecasting roles' (README's role table)
+    await api().get(`/api/models?zone=${zone}`).set(as(viewer)).expect(403);
+    await api().get(`/api/models/refits?zone=${zone}`).set(as(viewer)).expect(403);
     await api().post('/api/models/refits').set(as(operator)).send({ zone }).expect(400);
     await api().post('/api/models/refits').set(as(operator)).send({ zone: 'NOSUCHZONE', reason: 'x' }).expect(404);
   });
@@ -224,13 +262,13 @@ describe('outages, refits, model versions and forecasts (real MariaDB)', () => {
     const z = await em.findOneOrFail(Zone, { code: zone });
     const stale = em.create(RefitJob, { zone: z, activeZoneId: z.id, trigger: 'schedule', mode: 'full', reason: 'nightly refit', state: 'running', progress: 20, stage: 'choosing the differencing and ARMA orders', createdAt: new Date(), startedAt: new Date(), promoted: false });
     await em.flush();
-    const versionsBefore = (await api().get(`/api/models?zone=${zone}`).set(as(viewer)).expect(200)).body as ModelVersionDto[];
+    const versionsBefore = (await api().get(`/api/models?zone=${zone}`).set(as(operator)).expect(200)).body as ModelVersionDto[];
     await app.close();
     app = await startTestApp();
     viewer = await tokenFor(app, 'viewer');
-    const jobs = (await api().get(`/api/models/refits?zone=${zone}`).set(as(viewer)).expect(200)).body as RefitJobDto[];
+    const jobs = (await api().get(`/api/models/refits?zone=${zone}`).set(as(operator)).expect(200)).body as RefitJobDto[];
     expect(jobs.find((j) => j.id === stale.id)).toMatchObject({ state: 'failed', message: INTERRUPTED });
-    expect((await api().get(`/api/models?zone=${zone}`).set(as(viewer)).expect(200)).body).toEqual(versionsBefore);
+    expect((await api().get(`/api/models?zone=${zone}`).set(as(operator)).expect(200)).body).toEqual(versionsBefore);
   });
   it('gives a zone with enough history and no model its first model at the scheduled update, and leaves a zone with too little alone', async () => {
     const ready = await createZone(app, admin, { maxPlausibleMw: 2000 });
@@ -248,11 +286,25 @@ describe('outages, refits, model versions and forecasts (real MariaDB)', () => {
     await (app.get(RefitsService) as unknown as { scheduled(mode: 'update'): Promise<void> }).scheduled('update');
     await app.get(RefitsService).settled();
 
-    const readyJobs = (await api().get(`/api/models/refits?zone=${ready}`).set(as(viewer)).expect(200)).body as RefitJobDto[];
+    const readyJobs = (await api().get(`/api/models/refits?zone=${ready}`).set(as(operator)).expect(200)).body as RefitJobDto[];
     expect(readyJobs).toHaveLength(1);
     expect(readyJobs[0]).toMatchObject({ trigger: 'schedule', state: 'done' });
-    const versions = (await api().get(`/api/models?zone=${ready}`).set(as(viewer)).expect(200)).body as ModelVersionDto[];
+    const versions = (await api().get(`/api/models?zone=${ready}`).set(as(operator)).expect(200)).body as ModelVersionDto[];
     expect(versions.filter((v) => v.status === 'in-service')).toHaveLength(1);
-    expect((await api().get(`/api/models/refits?zone=${young}`).set(as(viewer)).expect(200)).body).toEqual([]);
+    expect((await api().get(`/api/models/refits?zone=${young}`).set(as(operator)).expect(200)).body).toEqual([]);
+
+    // Two hourly updates with no reading in between: the second re-estimates the same data to the
+    // same numbers and stores nothing new. (The private enqueue is what the hourly tick calls per zone.)
+    const refits = app.get(RefitsService) as unknown as { enqueue(zone: Zone, actor: null, reason: string, trigger: 'update', mode: 'update'): Promise<unknown>; settled(): Promise<void> };
+    const readyZone = await app.get(EntityManager).fork().findOneOrFail(Zone, { code: ready });
+    await refits.enqueue(readyZone, null, 'hourly forecast update', 'update', 'update');
+    await refits.settled();
+    const afterFirst = (await api().get(`/api/models?zone=${ready}`).set(as(operator)).expect(200)).body as ModelVersionDto[];
+    await refits.enqueue(readyZone, null, 'hourly forecast update', 'update', 'update');
+    await refits.settled();
+    const afterSecond = (await api().get(`/api/models?zone=${ready}`).set(as(operator)).expect(200)).body as ModelVersionDto[];
+    expect(afterSecond.map((v) => v.id)).toEqual(afterFirst.map((v) => v.id));
+    const unchanged = ((await api().get(`/api/models/refits?zone=${ready}`).set(as(operator)).expect(200)).body as RefitJobDto[]).find((j) => j.trigger === 'update' && j.state === 'done' && j.modelVersionId === null);
+    expect(unchanged?.message).toMatch(/^nothing changed since version \d+/);
   });
 });

@@ -5,7 +5,7 @@ import { join, resolve } from 'node:path';
 import { EntityManager } from '@mikro-orm/mariadb';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import request from 'supertest';
-import { DEMO_USERS, SCHEDULE_CAUTION, type DayScheduleDto, type ScheduleRevisionDto } from '@morrowline/shared';
+import { DEMO_USERS, SCHEDULE_CAUTION, type DayScheduleDto, type ForecastDiffDto, type ForecastRunSummaryDto, type ScheduleRevisionDto } from '@morrowline/shared';
 import { AuditEntry } from '../src/audit/entities/audit-entry.entity';
 import { ForecastRun } from '../src/forecasts/entities/forecast-run.entity';
 import { Zone } from '../src/zones/entities/zone.entity';
@@ -166,6 +166,9 @@ describe('day-ahead schedules (real MariaDB, SMTP fake)', () => {
     expect(mail.text).toMatch(/^HE02\s+140\.0$/m);
     expect(mail.text).toMatch(/^HE24\s+123\.0$/m);
     expect(mail.text).toContain('Nora Vance');
+    // the desk's clock rule: local time with the zone's abbreviation, UTC only labelled, no raw ISO
+    expect(mail.text).toMatch(/at \d{4}-\d{2}-\d{2} \d{2}:\d{2} M[SD]T \(\d{4}-\d{2}-\d{2} \d{2}:\d{2} UTC\)\./);
+    expect(mail.text).not.toMatch(/\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/);
     expect(mail.text.replace(/\s+/g, ' ')).toContain(SCHEDULE_CAUTION);
   });
 
@@ -195,11 +198,25 @@ describe('day-ahead schedules (real MariaDB, SMTP fake)', () => {
     await api().post(`/api/schedules/revisions/${rev1.id}/return`).set(as(viewer)).send({ comment: 'viewer' }).expect(403);
   });
 
-  it('a correction is revision 2 from the published values, and its publication supersedes revision 1', async () => {
+  it('a correction is revision 2 with the published values, carrying revision 1\'s adjustments and reasons forward, and its publication supersedes revision 1', async () => {
     await api().post(`/api/schedules/${DAY}/${ZONE}/corrections`).set(as(ines)).send({}).expect(400);
     const rev2 = (await api().post(`/api/schedules/${DAY}/${ZONE}/corrections`).set(as(ines)).send({ reason: 'Storm restoration moved to the afternoon' }).expect(201)).body as ScheduleRevisionDto;
     expect(rev2).toMatchObject({ revision: 2, state: 'draft', correctionReason: 'Storm restoration moved to the afternoon' });
-    expect(rev2.hours[1]).toMatchObject({ modelMw: 101, startMw: 140, adjustedMw: 140 });
+    // the values start as published: the model value with revision 1's adjustments, each carried with its reason
+    expect(rev2.hours[1]).toMatchObject({ modelMw: 101, startMw: 101, adjustedMw: 140 });
+    expect(rev2.adjustments.map((a) => [a.kind, a.value, a.reason, a.carriedFromRevision, a.by.name, a.undoneAt])).toEqual([
+      ['scale', 50, 'Smelter second shift', 1, expect.any(String), null],
+      ['set', 140, 'Supervisor asked for less in HE02', 1, expect.any(String), null],
+    ]);
+    // a carried adjustment can be undone like any other
+    const undoneCarried = (await api().delete(`/api/schedules/adjustments/${rev2.adjustments[1].id}`).set(as(ines)).expect(200)).body as ScheduleRevisionDto;
+    expect(undoneCarried.hours[1].adjustedMw).toBe(151.5);
+    // back to the model: every adjustment in force undone, kept in the list, the hours the model's
+    await api().post(`/api/schedules/revisions/${rev2.id}/back-to-model`).set(as(viewer)).expect(403);
+    const atModel = (await api().post(`/api/schedules/revisions/${rev2.id}/back-to-model`).set(as(ines)).expect(201)).body as ScheduleRevisionDto;
+    expect(atModel.hours.slice(0, 3).map((h) => h.adjustedMw)).toEqual([100, 101, 102]);
+    expect(atModel.adjustments.map((a) => a.undoneAt !== null)).toEqual([true, true]);
+    await api().post(`/api/schedules/revisions/${rev2.id}/back-to-model`).set(as(ines)).expect(409);
     await api().post(`/api/schedules/${DAY}/${ZONE}/corrections`).set(as(ines)).send({ reason: 'twice' }).expect(409);
     await api().get(`/api/schedules/revisions/${rev2.id}/export`).set(as(viewer)).expect(409);
     await api().post(`/api/schedules/${DAY}/adjustments`).set(as(ines)).send({ zones: [ZONE], fromHour: 12, toHour: 15, kind: 'add', value: -20, reason: 'Restoration crews' }).expect(201);
@@ -233,7 +250,7 @@ describe('day-ahead schedules (real MariaDB, SMTP fake)', () => {
   it('writes every step to the audit trail under schedule.*', async () => {
     const em = app.get(EntityManager).fork();
     const actions = (await em.find(AuditEntry, { action: { $like: 'schedule.%' }, at: { $gte: new Date(started) } })).map((e) => e.action);
-    for (const action of ['schedule.draft', 'schedule.adjust', 'schedule.adjust-undo', 'schedule.submit', 'schedule.return', 'schedule.approve', 'schedule.publish', 'schedule.correction', 'schedule.subscriber-add']) {
+    for (const action of ['schedule.draft', 'schedule.adjust', 'schedule.adjust-undo', 'schedule.submit', 'schedule.return', 'schedule.approve', 'schedule.publish', 'schedule.correction', 'schedule.back-to-model', 'schedule.subscriber-add']) {
       expect(actions).toContain(action);
     }
   });
@@ -244,5 +261,52 @@ describe('day-ahead schedules (real MariaDB, SMTP fake)', () => {
     await api().get('/api/schedules/subscribers').set(as(viewer)).expect(403);
     const removed = (await api().delete(`/api/schedules/subscribers/${other.id}`).set(as(nora)).expect(200)).body;
     expect(removed.active).toBe(false);
+  });
+
+  it('keeps each run with its issue time: a draft shows the run it started from, a newer run is flagged with the hour-by-hour change, and the draft can start again from it', async () => {
+    const DAY2 = '2030-06-13';
+    const em = app.get(EntityManager).fork();
+    const zone = await em.findOneOrFail(Zone, { code: ZONE });
+    const first = Date.parse('2030-06-12T06:00:00Z');
+    const run = (issuedAt: Date, level: number) => {
+      const mean = Array.from({ length: 48 }, (_, i) => level + i);
+      return em.create(ForecastRun, { zone, issuedAt, basedOnHour: new Date(first - HOUR_MS), method: 'arima', fallbackReason: null, modelVersionId: null, firstHour: new Date(first), mean, lower80: mean.map((m) => m - 5), upper80: mean.map((m) => m + 5), lower95: mean.map((m) => m - 9), upper95: mean.map((m) => m + 9) });
+    };
+    const older = run(new Date(), 200);
+    await em.flush();
+    const draft = (await api().post(`/api/schedules/${DAY2}/${ZONE}/draft`).set(as(ines)).expect(201)).body as ScheduleRevisionDto;
+    expect(draft).toMatchObject({ forecastRunId: older.id, forecastIssuedAt: older.issuedAt.toISOString() });
+    expect(draft.hours[0].modelMw).toBe(224);
+    await api().post(`/api/schedules/${DAY2}/adjustments`).set(as(ines)).send({ zones: [ZONE], fromHour: 0, toHour: 1, kind: 'add', value: 10, reason: 'County fair opening night' }).expect(201);
+    let day = (await api().get(`/api/schedules/${DAY2}?zone=${ZONE}`).set(as(viewer)).expect(200)).body as DayScheduleDto;
+    expect(day.zones[0].newerForecast).toBeNull();
+
+    const newer = run(new Date(older.issuedAt.getTime() + 1000), 190);
+    await em.flush();
+    day = (await api().get(`/api/schedules/${DAY2}?zone=${ZONE}`).set(as(viewer)).expect(200)).body as DayScheduleDto;
+    expect(day.zones[0].working?.forecastRunId).toBe(older.id);
+    expect(day.zones[0].newerForecast).toEqual({ runId: newer.id, issuedAt: newer.issuedAt.toISOString(), revisionRunId: older.id, revisionIssuedAt: older.issuedAt.toISOString() });
+
+    // the runs with their issue times, and the change hour by hour over the operating day
+    const runs = (await api().get(`/api/forecasts/runs?zone=${ZONE}`).set(as(viewer)).expect(200)).body as ForecastRunSummaryDto[];
+    expect(runs.slice(0, 2).map((r) => [r.id, r.issuedAt, r.hours])).toEqual([[newer.id, newer.issuedAt.toISOString(), 48], [older.id, older.issuedAt.toISOString(), 48]]);
+    const diff = (await api().get(`/api/forecasts/runs/${older.id}/diff?against=${newer.id}&from=2030-06-13T06:00:00Z&to=2030-06-14T06:00:00Z`).set(as(viewer)).expect(200)).body as ForecastDiffDto;
+    expect(diff.hours).toHaveLength(24);
+    expect(diff.hours[0]).toEqual({ hour: '2030-06-13T06:00:00.000Z', fromMw: 224, toMw: 214, changeMw: -10 });
+    expect(diff.largestChangeMw).toBe(-10);
+    await api().get(`/api/forecasts/runs/${older.id}/diff?against=abc`).set(as(viewer)).expect(400);
+    await api().get(`/api/forecasts/runs/${older.id}/diff?against=99999999`).set(as(viewer)).expect(404);
+    await api().get(`/api/forecasts/runs?zone=${ZONE}&limit=0`).set(as(viewer)).expect(400);
+
+    // start again from the latest run: its model values, the adjustments in force applied again
+    await api().post(`/api/schedules/revisions/${draft.id}/restart`).set(as(viewer)).expect(403);
+    const restarted = (await api().post(`/api/schedules/revisions/${draft.id}/restart`).set(as(ines)).expect(201)).body as ScheduleRevisionDto;
+    expect(restarted).toMatchObject({ forecastRunId: newer.id, forecastIssuedAt: newer.issuedAt.toISOString() });
+    expect(restarted.hours.slice(0, 3).map((h) => [h.modelMw, h.startMw, h.adjustedMw])).toEqual([[214, 214, 224], [215, 215, 225], [216, 216, 216]]);
+    await api().post(`/api/schedules/revisions/${draft.id}/restart`).set(as(ines)).expect(409);
+    day = (await api().get(`/api/schedules/${DAY2}?zone=${ZONE}`).set(as(viewer)).expect(200)).body as DayScheduleDto;
+    expect(day.zones[0].newerForecast).toBeNull();
+    const audit = await em.fork().find(AuditEntry, { action: 'schedule.restart', subjectId: String(draft.id) });
+    expect(audit).toHaveLength(1);
   });
 });

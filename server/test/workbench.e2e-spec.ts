@@ -1,8 +1,11 @@
+import { EntityManager } from '@mikro-orm/mariadb';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { DateTime } from 'luxon';
 import request from 'supertest';
 import type { BacktestReportDto, ModelReportDto, StationarityReportDto } from '@morrowline/shared';
+import { ModelVersion } from '../src/models/entities/model-version.entity';
 import { ReadingsService } from '../src/readings/readings.service';
+import { Zone } from '../src/zones/entities/zone.entity';
 import { createZone } from './support/feeds';
 import { startTestApp, tokenFor } from './support/test-app';
 
@@ -61,7 +64,7 @@ describe('workbench: stationarity, model and backtest of a zone (real MariaDB)',
   describe('stationarity', () => {
     let report: StationarityReportDto;
     beforeAll(async () => {
-      report = (await api().get(`/api/workbench/${zone}/stationarity?weeks=8`).set('Authorization', `Bearer ${viewer}`).expect(200)).body as StationarityReportDto;
+      report = (await api().get(`/api/workbench/${zone}/stationarity?weeks=8`).set('Authorization', `Bearer ${operator}`).expect(200)).body as StationarityReportDto;
     });
 
     it('answers the series, the rolling statistics and a check per differencing', () => {
@@ -105,6 +108,27 @@ describe('workbench: stationarity, model and backtest of a zone (real MariaDB)',
       expect(report.verdict.headline).toMatch(/\(1−B\^168\) removes it/);
     });
 
+    it('suggests the differencing the model in service uses, whatever the tests alone pick', async () => {
+      const em = app.get(EntityManager).fork();
+      const z = await em.findOneOrFail(Zone, { code: zone });
+      const stamp = new Date();
+      const v = em.create(ModelVersion, {
+        zone: z, status: 'in-service', trigger: 'operator', differencing: [24, 168], differencingLabel: '(1−B^24)(1−B^168)', p: 1, q: 0,
+        coefficients: [{ name: 'ar1', value: 0.5, se: 0.02 }], parameters: { diff: [24, 168], p: 1, q: 0, ar: [0.5], ma: [], sigma2: 16, mean: 0 },
+        sigma2: 16, loglik: -1, aic: 1, aicc: 1, bic: 1, ljungBox: [], residualAcf: { lags: [], band: 0.05, outside: 0, maxAbs: 0 },
+        trainingFrom: stamp, trainingTo: stamp, trainingHours: 1344, excludedHours: 0, backtestDays: 7, durationMs: 1, createdAt: stamp, promotedAt: stamp, warnings: [],
+      });
+      await em.flush();
+      try {
+        const withModel = (await api().get(`/api/workbench/${zone}/stationarity?weeks=8`).set('Authorization', `Bearer ${operator}`).expect(200)).body as StationarityReportDto;
+        expect(withModel.verdict).toMatchObject({ recommended: [24, 168], recommendedLabel: '(1−B^24)(1−B^168)', recommendedBy: 'model', inUse: { versionId: v.id }, testsPick: [168] });
+        expect(withModel.verdict.headline).toMatch(/The model in service \(version \d+\) uses \(1−B\^24\)\(1−B\^168\)/);
+      } finally {
+        em.remove(v);
+        await em.flush();
+      }
+    });
+
     it('answers from the cache while no new reading arrives', async () => {
       const again = (await api().get(`/api/workbench/${zone}/stationarity?weeks=8`).set('Authorization', `Bearer ${operator}`).expect(200)).body as StationarityReportDto;
       expect(again.computedAt).toBe(report.computedAt);
@@ -133,6 +157,8 @@ describe('workbench: stationarity, model and backtest of a zone (real MariaDB)',
 
   it('runs the backtest for an operator and refuses it to a viewer', async () => {
     await api().post(`/api/workbench/${zone}/backtest`).set('Authorization', `Bearer ${viewer}`).send({ days: 7 }).expect(403);
+    // the analyses are model internals: the forecasting roles only (README's role table)
+    await api().get(`/api/workbench/${zone}/stationarity?weeks=8`).set('Authorization', `Bearer ${viewer}`).expect(403);
     const body = (await api().post(`/api/workbench/${zone}/backtest`).set('Authorization', `Bearer ${operator}`).send({ days: 7 }).expect(200)).body as BacktestReportDto;
     expect(body.perDay).toHaveLength(7);
     for (const day of body.perDay) {
@@ -156,15 +182,15 @@ describe('workbench: stationarity, model and backtest of a zone (real MariaDB)',
 
   describe('errors', () => {
     it('404 for a zone that does not exist', async () => {
-      const res = await api().get('/api/workbench/NOSUCHZONE/stationarity').set('Authorization', `Bearer ${viewer}`).expect(404);
+      const res = await api().get('/api/workbench/NOSUCHZONE/stationarity').set('Authorization', `Bearer ${operator}`).expect(404);
       expect(res.body.message).toMatch(/No zone with code NOSUCHZONE/);
     });
     it('400 for a zone without readings', async () => {
-      const res = await api().get(`/api/workbench/${emptyZone}/model`).set('Authorization', `Bearer ${viewer}`).expect(400);
+      const res = await api().get(`/api/workbench/${emptyZone}/model`).set('Authorization', `Bearer ${operator}`).expect(400);
       expect(res.body.message).toMatch(/no readings yet.*504 hours/);
     });
     it('400 saying how much history there is and how much is needed', async () => {
-      const res = await api().get(`/api/workbench/${shortZone}/stationarity`).set('Authorization', `Bearer ${viewer}`).expect(400);
+      const res = await api().get(`/api/workbench/${shortZone}/stationarity`).set('Authorization', `Bearer ${operator}`).expect(400);
       expect(res.body.message).toMatch(/Not enough history .*: 100 hours .* at least 504/);
     });
     it('400 for a backtest longer than the history allows', async () => {
@@ -172,7 +198,7 @@ describe('workbench: stationarity, model and backtest of a zone (real MariaDB)',
       expect(res.body.message).toMatch(/100 hours .* at least 672/);
     });
     it('400 for weeks or days out of range', async () => {
-      await api().get(`/api/workbench/${zone}/stationarity?weeks=99`).set('Authorization', `Bearer ${viewer}`).expect(400);
+      await api().get(`/api/workbench/${zone}/stationarity?weeks=99`).set('Authorization', `Bearer ${operator}`).expect(400);
       await api().post(`/api/workbench/${zone}/backtest`).set('Authorization', `Bearer ${operator}`).send({ days: 3 }).expect(400);
       await api().post(`/api/workbench/${zone}/backtest`).set('Authorization', `Bearer ${operator}`).send({}).expect(400);
     });

@@ -55,4 +55,15 @@ describe('zones (real MariaDB)', () => {
     const unchanged = await api().get('/api/zones').set('Authorization', `Bearer ${admin}`).expect(200);
     expect((unchanged.body as { code: string; minPlausibleMw: number }[]).find((z) => z.code === zone.code)?.minPlausibleMw).toBe(0);
   });
+
+  it('refuses a second zone with a name already taken, whatever its case, on create and on rename', async () => {
+    const zone = { code: `DUPE${Date.now() % 100000}`, name: 'Dupe Hollow', timeZone: 'America/Denver', alertThresholdPct: 4, alertConsecutiveHours: 3, gateClosure: '09:30', minPlausibleMw: 0, maxPlausibleMw: 90 };
+    const first = await api().post('/api/zones').set('Authorization', `Bearer ${admin}`).send(zone).expect(201);
+    const twin = await api().post('/api/zones').set('Authorization', `Bearer ${admin}`).send({ ...zone, code: `${zone.code}B`, name: ' dupe hollow' }).expect(409);
+    expect(twin.body.message).toBe(`Zone ${zone.code} is already called "Dupe Hollow"; choose another name`);
+    const other = await api().post('/api/zones').set('Authorization', `Bearer ${admin}`).send({ ...zone, code: `${zone.code}C`, name: 'Dupe Ridge' }).expect(201);
+    await api().patch(`/api/zones/${other.body.id}`).set('Authorization', `Bearer ${admin}`).send({ name: 'DUPE HOLLOW', reason: 'rename' }).expect(409);
+    // a zone keeps its own name when saved again
+    await api().patch(`/api/zones/${first.body.id}`).set('Authorization', `Bearer ${admin}`).send({ name: 'Dupe Hollow', reason: 'unchanged' }).expect(200);
+  });
 });

@@ -94,3 +94,9 @@ export interface HealthDto {
   version: string;
   time: string;
 }
+
+/**
+ * The message of the 503 every route answers while the server cannot reach its database. The
+ * desk keeps its session and shows a banner while it sees this, instead of signing anyone out.
+ */
+export const DATABASE_UNAVAILABLE_MESSAGE = 'The server cannot reach its database; try again shortly';

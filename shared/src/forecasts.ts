@@ -45,3 +45,41 @@ export interface ForecastRunDto {
 export interface LatestForecastsDto {
   zones: ForecastRunDto[];
 }
+
+/** A stored run without its values: GET /api/forecasts/runs?zone=&limit= lists these, newest first. */
+export interface ForecastRunSummaryDto {
+  id: number;
+  zone: string;
+  issuedAt: string;
+  origin: ForecastOrigin;
+  basedOnHour: string | null;
+  method: ForecastMethod;
+  modelVersionId: number | null;
+  /** UTC start of the first hour, and how many hours it runs */
+  firstHour: string;
+  hours: number;
+}
+
+/** One hour of two runs side by side; null where a run does not reach the hour. */
+export interface ForecastDiffHourDto {
+  hour: string;
+  fromMw: number | null;
+  toMw: number | null;
+  /** toMw − fromMw, MW; null unless both reach the hour */
+  changeMw: number | null;
+}
+
+/**
+ * GET /api/forecasts/runs/:id/diff?against=:other&from=&to= — how the forecast moved from run
+ * `id` to run `against` (same zone), hour by hour over [from, to) (default: the hours either run covers).
+ */
+export interface ForecastDiffDto {
+  zone: string;
+  from: ForecastRunSummaryDto;
+  to: ForecastRunSummaryDto;
+  hours: ForecastDiffHourDto[];
+  /** the largest change in either direction, MW (null when no hour is shared) */
+  largestChangeMw: number | null;
+  /** the hour of the largest change */
+  largestChangeHour: string | null;
+}

@@ -1,5 +1,6 @@
 export * from './roles';
 export * from './hours';
+export * from './clock';
 export * from './operating-day';
 export * from './zone-code';
 export * from './api';
@@ -15,3 +16,6 @@ export * from './outages';
 export * from './models';
 export * from './schedules';
 export * from './accuracy';
+export * from './instant';
+export * from './numbers';
+export * from './committed';

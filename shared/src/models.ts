@@ -92,15 +92,68 @@ export interface ModelVersionDto {
   retiredAt: string | null;
 }
 
-/** GET /api/models/:id/compare — the version beside the one in service, scored on the same days. */
+/** One operating day of a version's score: how it was forecast and how it did. */
+export interface VersionDayScoreDto {
+  /** yyyy-MM-dd in the zone's time zone */
+  day: string;
+  /** the day's issue time: the zone's gate closure the day before */
+  issuedAt: string;
+  /** issued: the forecast the version issued then; re-forecast: made now as it would have been then; null: could not be made */
+  source: 'issued' | 're-forecast' | null;
+  hours: number;
+  mape: number | null;
+}
+
+/** A version scored as it forecast: each day at its issue time, with its own coefficients. */
+export interface VersionIssueScoreDto {
+  versionId: number;
+  days: number;
+  hours: number;
+  mape: number | null;
+  /** mean error, MW (positive: forecasts too high) */
+  bias: number | null;
+  /** share of hours inside the 80 % band, % */
+  coverage80: number | null;
+  /** days scored from forecasts the version actually issued (the rest were re-forecast) */
+  issuedDays: number;
+  /** scored days inside the version's own training window (partly in-sample for it) */
+  inSampleDays: number;
+  perDay: VersionDayScoreDto[];
+}
+
+/**
+ * GET /api/models/:id/compare — the version beside the one in service, both scored on the same
+ * latest operating days as they forecast them: each day at its issue time (the zone's gate
+ * closure) from the hours that had ended by then, with each version's own coefficients held
+ * (the forecast it issued where one is stored, otherwise a re-forecast; never re-estimated).
+ */
 export interface ModelCompareDto {
   zone: string;
+  /** the zone's time zone (the issue times are local gate closures) */
+  timeZone: string;
   candidate: ModelVersionDto;
   inService: ModelVersionDto | null;
-  /** Both scored now on the same latest days (null when a side could not be scored). */
-  sameDays: { days: number; from: string | null; to: string | null; candidateMape: number | null; inServiceMape: number | null; baselineMape: number | null };
-  /** candidate MAPE below in-service MAPE on the same days */
+  sameDays: {
+    days: number;
+    from: string | null;
+    to: string | null;
+    candidateMape: number | null;
+    inServiceMape: number | null;
+    /** the same hour one week earlier, from the history at each issue time */
+    baselineMape: number | null;
+    /** the issue time in words, e.g. "at the 10:00 gate closure the day before" */
+    issueTime: string;
+    candidate: VersionIssueScoreDto | null;
+    inService: VersionIssueScoreDto | null;
+    /** both scored on exactly the same days and hours */
+    comparable: boolean;
+    /** why not, when they are not */
+    notComparable: string | null;
+  };
+  /** candidate MAPE below in-service MAPE; null unless the two are comparable */
   candidateBetter: boolean | null;
+  /** What the scores mean for the operator, in plain words (band coverage, bias, in-sample days). */
+  diagnostics: string[];
 }
 
 /** POST /api/models/:id/promote — also the rollback (promote an earlier retired version). */

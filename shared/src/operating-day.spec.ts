@@ -105,6 +105,9 @@ describe('operating days', () => {
     expect(isOperatingDay('2026-02-28')).toBe(true);
     expect(isOperatingDay('2026-02-30')).toBe(false);
     expect(isOperatingDay('2026-2-3')).toBe(false);
+    expect(isOperatingDay('0000-01-01')).toBe(false);
+    expect(isOperatingDay('9999-12-31')).toBe(false);
+    expect(isOperatingDay('2100-12-31')).toBe(true);
     expect(() => operatingDay('2026-02-30', DENVER)).toThrow('"2026-02-30" is not a date (yyyy-MM-dd)');
     expect(operatingDays('2026-02-30', '2026-03-02', DENVER)).toEqual([]);
   });

@@ -11,6 +11,7 @@
  */
 import { DateTime } from 'luxon';
 import { HOUR_MS } from './hours';
+import { parseDay } from './instant';
 import type { ScheduleHourSlot } from './schedules';
 
 /** An hour by its UTC start: epoch ms, a Date, or ISO 8601 text. */
@@ -35,8 +36,6 @@ export interface OperatingDay {
   /** Hour-ending labels of the day's hours, in order. */
   labels: string[];
 }
-
-const DATE_PATTERN = /^\d{4}-\d{2}-\d{2}$/;
 
 function toMillis(hour: HourStart): number {
   if (typeof hour === 'number') return hour;
@@ -72,9 +71,12 @@ export function operatingDayOf(hour: HourStart, timeZone: string): string {
   return DateTime.fromMillis(toMillis(hour), { zone: timeZone }).toISODate() ?? '';
 }
 
-/** A date written yyyy-MM-dd that exists in the calendar (no 30 February). */
+/**
+ * A date written yyyy-MM-dd that exists in the calendar (no 30 February) and lies in the years
+ * every entry point accepts (instant.ts: 2000 to 2100).
+ */
 export function isOperatingDay(date: string): boolean {
-  return DATE_PATTERN.test(date) && DateTime.fromISO(date, { zone: 'utc' }).isValid;
+  return parseDay(date).ok;
 }
 
 /** Local midnight of a yyyy-MM-dd date in a time zone, or null when it is not a real date. */

@@ -33,10 +33,13 @@ export interface FeedStatusDto {
 
 export const STALE_AFTER_HOURS = 2;
 
+/** Why a CSV row was refused: a feed's reasons, or 'duplicate' for an hour that one file gives twice. */
+export type CsvRejectionReason = RejectionReason | 'duplicate';
+
 /** A CSV row refused by an upload, with its line in the file (1 = first line). */
 export interface CsvRowRejection {
   line: number;
-  reason: RejectionReason;
+  reason: CsvRejectionReason;
   message: string;
 }
 
@@ -44,6 +47,7 @@ export interface CsvRowRejection {
 export interface CsvUploadReport {
   fileName: string;
   rows: number;
+  /** Hours stored: each row accepted is one zone and hour (a file may not give an hour twice). */
   accepted: number;
   /** Of the accepted, how many replaced an earlier different value (a revision was kept). */
   revised: number;

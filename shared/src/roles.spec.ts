@@ -9,6 +9,10 @@ describe('who may do what', () => {
     expect(holders('supervise')).toEqual(['supervisor']);
   });
 
+  it('keeps the work in progress (drafts, handovers, model internals) from viewers and admin', () => {
+    expect(holders('readDeskWork')).toEqual(['operator', 'supervisor']);
+  });
+
   it('keeps admin (IT) out of forecasting decisions but gives it administration, live load and the audit trail', () => {
     expect(may('admin', 'forecast')).toBe(false);
     expect(may('admin', 'readForecasts')).toBe(false);

@@ -13,8 +13,13 @@ export type Role = (typeof ROLES)[number];
 export const PERMISSIONS = {
   /** Anyone signed in: live load and the desk's live updates. */
   signedIn: ROLES,
-  /** Read the forecasting work: schedules, accuracy, reading history, workbench reports. */
+  /** Read what the desk puts out: published schedules (and their exports), accuracy, reading history. */
   readForecasts: ['viewer', 'operator', 'supervisor'],
+  /**
+   * Read the work in progress behind it: schedule drafts and submissions, handover notes, model
+   * versions, refits and the workbench's analyses. Viewers see published schedules only.
+   */
+  readDeskWork: ['operator', 'supervisor'],
   /**
    * Do the forecasting work: analyses, refits and promotions, schedule drafts, adjustments and
    * submissions, alert acknowledgements, outage windows, shift notes, reading uploads.

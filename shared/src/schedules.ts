@@ -15,8 +15,8 @@
  * draft → submitted (operator or supervisor) → published (approved by a supervisor who is not the
  * submitter; the zone/day's previous published revision becomes superseded) or → returned with a
  * comment (editable again, then submitted again). A published revision is immutable (409 on any
- * change); a correction is a new draft revision n+1 started from the published values, with a
- * reason. After gate closure only a supervisor may submit, and the submission is marked late.
+ * change); a correction is a new draft revision n+1 with a reason, on the published revision's
+ * forecast run with its adjustments carried forward (each can be undone). After gate closure only a supervisor may submit, and the submission is marked late.
  * Viewers read and export; operators draft, adjust, submit; supervisors also approve, return and
  * keep the subscribers; admin takes no part (403).
  *
@@ -38,6 +38,8 @@
  *   POST   /revisions/:id/approve              ScheduleRevisionDto       (supervisor, not submitter) → published, e-mails sent
  *   POST   /revisions/:id/return               ScheduleRevisionDto       body ReturnScheduleRequest (supervisor)
  *   POST   /:day/:zone/corrections             ScheduleRevisionDto       body CreateScheduleCorrectionRequest
+ *   POST   /revisions/:id/back-to-model        ScheduleRevisionDto       undoes every adjustment in force (draft or returned)
+ *   POST   /revisions/:id/restart              ScheduleRevisionDto       start again from the latest forecast run, adjustments re-applied
  *   GET    /:day/:zone/revisions               ScheduleRevisionDto[]     history, newest first
  *   GET    /revisions/:id                      ScheduleRevisionDto
  *   GET    /revisions/:id/export?format=csv|json  file download (published or superseded revisions)
@@ -101,8 +103,9 @@ export interface ScheduleHourDto extends ScheduleHourSlot {
   lower95: number | null;
   upper95: number | null;
   /**
-   * What the adjustments start from: the model value on revision 1, the published revision's
-   * value on a correction (revision 2 and later).
+   * What the adjustments start from: the model value of the revision's forecast run. A correction
+   * keeps the run and the start values of the revision it corrects and carries that revision's
+   * adjustments forward (corrections made before that started from the published values).
    */
   startMw: number | null;
   /** `startMw` after the active adjustments, in order; what gets published. */
@@ -125,6 +128,8 @@ export interface ScheduleAdjustmentDto {
   /** Set when undone; undone adjustments no longer count. */
   undoneAt: string | null;
   undoneBy: ScheduleUserRef | null;
+  /** Carried forward by a correction from this earlier revision (reason, author and time as first made); null when made on this one. */
+  carriedFromRevision: number | null;
 }
 
 export interface ScheduleMailOutcome {
@@ -183,6 +188,11 @@ export interface ZoneScheduleDto {
   gateClosed: boolean;
   /** The latest forecast run's values for this day (modelMw etc.; adjustedMw = modelMw). */
   forecast: { runId: number | null; issuedAt: string; hours: ScheduleHourDto[] } | null;
+  /**
+   * A stored run issued after the one the working revision (or, with none, the published one)
+   * started from: the model has moved since. Null when the revision is on the latest run.
+   */
+  newerForecast: { runId: number; issuedAt: string; revisionRunId: number | null; revisionIssuedAt: string | null } | null;
   /** The revision being worked on: draft, submitted or returned; null if none. */
   working: ScheduleRevisionDto | null;
   /** The revision in force; null before the first publication. */
@@ -266,7 +276,7 @@ export interface ScheduleExportJson {
 
 /** Pushed as DESK_EVENTS.schedule on every state change and adjustment. */
 export interface DeskScheduleEvent {
-  action: 'draft' | 'adjust' | 'adjust-undo' | 'submit' | 'return' | 'publish' | 'correction' | 'mail';
+  action: 'draft' | 'adjust' | 'adjust-undo' | 'back-to-model' | 'restart' | 'submit' | 'return' | 'publish' | 'correction' | 'mail';
   zone: string;
   operatingDay: string;
   revisionId: number;

@@ -82,9 +82,19 @@ export interface StationarityVerdictDto {
   headline: string;
   /** What is not constant in the series as recorded. */
   problems: NonConstancy[];
-  /** The simplest candidate differencing that leaves nothing to remove, or null. */
+  /**
+   * The differencing the workbench marks suggested: the one the zone's model in service uses when
+   * it has one (the refit chose it by day-ahead error; one decision for the desk), otherwise the
+   * simplest candidate after which the tests find nothing left to remove, or null.
+   */
   recommended: DifferencingLags | null;
   recommendedLabel: string | null;
+  /** Who decided `recommended`: the model in service, or the tests alone (no model yet). */
+  recommendedBy?: 'model' | 'tests';
+  /** The model in service and its differencing; null when the zone has none. */
+  inUse?: { versionId: number; diff: DifferencingLags; label: string } | null;
+  /** The simplest candidate the tests alone find clean, or null. */
+  testsPick?: DifferencingLags | null;
 }
 
 export interface StationarityReportDto {

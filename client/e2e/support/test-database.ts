@@ -40,3 +40,34 @@ export async function insertPastForecastRun(run: PastForecastRun): Promise<void>
     await db.end();
   }
 }
+
+export interface PastPublishedSchedule {
+  zone: string;
+  /** yyyy-MM-dd in the zone's time zone. */
+  operatingDay: string;
+  /** The day's hours as a schedule lays them out, each with the MW published for it (null for none). */
+  hours: { index: number; intervalStartUtc: string; hourEnding: string; mw: number | null }[];
+  publishedAt: Date;
+  /** E-mail of the supervisor who published it. */
+  publishedBy: string;
+}
+
+/**
+ * Stores revision 1 of a zone's schedule as published at `publishedAt` (before the day's gate
+ * closure, so a day already under way can have one; the API publishes only at the present time).
+ */
+export async function insertPublishedSchedule(schedule: PastPublishedSchedule): Promise<void> {
+  const db = await connect();
+  try {
+    const [zone] = (await db.query('select id from zones where code = ?', [schedule.zone])) as { id: number }[];
+    const [user] = (await db.query('select id from users where email = ?', [schedule.publishedBy])) as { id: number }[];
+    if (!zone || !user) throw new Error(`no zone ${schedule.zone} or user ${schedule.publishedBy} in the test database`);
+    const hours = schedule.hours.map((h) => ({ index: h.index, intervalStartUtc: h.intervalStartUtc, hourEnding: h.hourEnding, modelMw: null, lower80: null, upper80: null, lower95: null, upper95: null, startMw: h.mw, adjustedMw: h.mw }));
+    await db.query(
+      "insert into schedule_revisions (zone_id, operating_day, revision, state, working_key, published_key, hours, created_by_id, created_at, submitted_by_id, submitted_at, published_by_id, published_at) values (?, ?, 1, 'published', null, ?, ?, ?, ?, ?, ?, ?, ?)",
+      [zone.id, schedule.operatingDay, `${zone.id}:${schedule.operatingDay}`, JSON.stringify(hours), user.id, schedule.publishedAt, user.id, schedule.publishedAt, user.id, schedule.publishedAt],
+    );
+  } finally {
+    await db.end();
+  }
+}

@@ -1,6 +1,7 @@
 import type { RouteObject } from 'react-router-dom';
 import { AccuracyPage } from '../features/accuracy';
 import { AuditPage } from '../features/audit';
+import { FeedKeysPage } from '../features/feed-keys';
 import { RequireSession, SignInPage } from '../features/auth';
 import { ShiftLogPage } from '../features/handover';
 import { HistoryPage } from '../features/history';
@@ -27,6 +28,7 @@ const SCREENS: Record<SectionId, () => React.JSX.Element> = {
   history: HistoryPage,
   users: UsersPage,
   zones: ZonesPage,
+  'feed-keys': FeedKeysPage,
   audit: AuditPage,
 };
 

@@ -44,6 +44,8 @@ export const theme = createTheme({
   cursorType: 'pointer',
   components: {
     Table: { defaultProps: { verticalSpacing: 'xs', highlightOnHover: true } },
-    Badge: { defaultProps: { variant: 'light', radius: 'sm' } },
+    // A badge is a status word: it keeps its full width in a narrow table cell instead of being
+    // cut to "RUN…" (the library's default clips the label with an ellipsis).
+    Badge: { defaultProps: { variant: 'light', radius: 'sm' }, styles: { root: { flexShrink: 0, minWidth: 'max-content', overflow: 'visible' }, label: { overflow: 'visible', textOverflow: 'clip' } } },
   },
 });

@@ -1,4 +1,4 @@
-import { Box, Text } from '@mantine/core';
+import { Box, Group, Text } from '@mantine/core';
 import { useElementSize } from '@mantine/hooks';
 import { useMemo } from 'react';
 import type uPlot from 'uplot';
@@ -29,12 +29,37 @@ interface UplotChartProps {
   height?: number;
   testId?: string;
   caption?: string;
+  /**
+   * Show a key of the lines under the chart (a swatch and a name each) in place of the chart
+   * library's own legend, whose "time: -- load: --" row reads as broken before the cursor moves.
+   */
+  seriesKey?: boolean;
+}
+
+/** The named lines of a chart, in the desk's type, under the chart. */
+function SeriesKey({ series }: { series: readonly uPlot.Series[] }) {
+  const named = series.slice(1).filter((s) => typeof s.label === 'string' && s.label !== '');
+  return (
+    <Group gap="md" mt={4} data-testid="chart-key" component="ul" p={0} m={0} style={{ listStyle: 'none' }}>
+      {named.map((s) => (
+        <Group key={String(s.label)} gap={6} component="li" wrap="nowrap">
+          <Box w={14} h={3} style={{ background: typeof s.stroke === 'string' ? s.stroke : CHART_COLORS.axis, borderRadius: 2 }} />
+          <Text size="xs" c="dimmed">
+            {String(s.label)}
+          </Text>
+        </Group>
+      ))}
+    </Group>
+  );
 }
 
 /** A uPlot chart sized to its container, with a title above it. */
-export function UplotChart({ title, options, data, height = 220, testId, caption }: UplotChartProps) {
+export function UplotChart({ title, options, data, height = 220, testId, caption, seriesKey = false }: UplotChartProps) {
   const { ref, width } = useElementSize();
-  const full = useMemo(() => ({ ...options, width: Math.max(200, Math.floor(width)), height }) as uPlot.Options, [options, width, height]);
+  const full = useMemo(
+    () => ({ ...options, ...(seriesKey ? { legend: { show: false } } : {}), width: Math.max(200, Math.floor(width)), height }) as uPlot.Options,
+    [options, width, height, seriesKey],
+  );
   return (
     <Box data-testid={testId} role="figure" aria-label={title}>
       <Text size="sm" fw={600} mb={4}>
@@ -43,6 +68,7 @@ export function UplotChart({ title, options, data, height = 220, testId, caption
       <Box ref={ref} style={{ minHeight: height }}>
         {width > 0 && <UplotReact options={full} data={data} />}
       </Box>
+      {seriesKey && <SeriesKey series={options.series} />}
       {caption && (
         <Text size="xs" c="dimmed" mt={2}>
           {caption}

@@ -2,6 +2,7 @@ import { beforeEach, describe, expect, it, vi } from 'vitest';
 import { apiError, mockApi } from '../test/mock-api';
 import { createApiClient } from './api-client';
 import { ApiRequestError, ApiUnreachableError } from './api-error';
+import { createServerStatusStore } from './server-status';
 import { createSessionStore, type SessionStore } from './session-store';
 
 describe('api client', () => {
@@ -103,5 +104,34 @@ describe('api client', () => {
     vi.stubGlobal('fetch', vi.fn().mockRejectedValue(new TypeError('Failed to fetch')));
     const api = createApiClient({ sessionStore });
     await expect(api.get('/health')).rejects.toBeInstanceOf(ApiUnreachableError);
+  });
+
+  it('keeps the session on a 503 "cannot reach its database" and reports the outage until an answer comes', async () => {
+    let down = true;
+    mockApi({
+      'GET /api/zones': () =>
+        down
+          ? { status: 503, body: apiError(503, 'Service Unavailable', 'The server cannot reach its database; try again shortly') }
+          : { body: [] },
+    });
+    sessionStore.start('good', 600);
+    const serverStatus = createServerStatusStore();
+    const api = createApiClient({ sessionStore, serverStatus });
+
+    await expect(api.get('/zones')).rejects.toMatchObject({ status: 503 });
+    expect(sessionStore.getSnapshot().session?.token).toBe('good');
+    expect(serverStatus.getSnapshot()).toBe('database-down');
+
+    down = false;
+    await expect(api.get('/zones')).resolves.toEqual([]);
+    expect(serverStatus.getSnapshot()).toBe('ok');
+  });
+
+  it('does not take another 503 (a busy sign-in) for a database outage', async () => {
+    mockApi({ 'POST /api/auth/login': () => ({ status: 503, body: apiError(503, 'Service Unavailable', 'The server is busy checking other sign-ins; try again in a moment') }) });
+    const serverStatus = createServerStatusStore();
+    const api = createApiClient({ sessionStore, serverStatus });
+    await expect(api.post('/auth/login', { email: 'a@b.c', password: 'x' }, { authenticated: false })).rejects.toMatchObject({ status: 503 });
+    expect(serverStatus.getSnapshot()).toBe('ok');
   });
 });

@@ -1,4 +1,6 @@
+import { DATABASE_UNAVAILABLE_MESSAGE } from '@morrowline/shared';
 import { isApiError, ApiRequestError, ApiUnreachableError } from './api-error';
+import { serverStatusStore as defaultServerStatus, type ServerStatusStore } from './server-status';
 import { sessionStore as defaultSessionStore, type SessionStore } from './session-store';
 
 export type QueryValue = string | number | boolean | null | undefined;
@@ -13,12 +15,14 @@ export interface RequestOptions {
 
 export interface ApiClientOptions {
   sessionStore?: SessionStore;
+  serverStatus?: ServerStatusStore;
   fetch?: typeof fetch;
   baseUrl?: string;
 }
 
 export function createApiClient({
   sessionStore = defaultSessionStore,
+  serverStatus = defaultServerStatus,
   fetch: fetchImpl,
   baseUrl = '/api',
 }: ApiClientOptions = {}) {
@@ -45,6 +49,11 @@ export function createApiClient({
     }
 
     const payload = await readJson(response);
+    // A 503 "cannot reach its database" is an outage, not a verdict on the session: it is
+    // shown as such and never ends the session. Any other answer means the database is back.
+    const databaseDown = response.status === 503 && isApiError(payload) && payload.message === DATABASE_UNAVAILABLE_MESSAGE;
+    if (databaseDown) serverStatus.databaseDown();
+    else serverStatus.reachable();
     if (response.ok) return payload as T;
 
     // A 401 on a request that carried a token means the server no longer accepts it (expired,

@@ -1,5 +1,5 @@
 import { DESK_EVENTS, DESK_NAMESPACE } from '@morrowline/shared';
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { fakeSocketFactory } from '../test/fake-socket';
 import { createDeskSocket } from './desk-socket';
 import { createSessionStore } from './session-store';
@@ -62,5 +62,36 @@ describe('createDeskSocket', () => {
     const desk = createDeskSocket({ sessionStore, connect: connect as never });
     desk.on(DESK_EVENTS.readings, () => {});
     expect(connect).not.toHaveBeenCalled();
+  });
+
+  it('ends the session when the server refuses the token at the handshake, but not over a database outage', () => {
+    const sessionStore = createSessionStore({ storage: memoryStorage() });
+    sessionStore.start('token-1', 3600);
+    const { connect, opened } = fakeSocketFactory();
+    const desk = createDeskSocket({ sessionStore, connect: connect as never, retryAfterRefusalMs: 60_000 });
+    desk.on(DESK_EVENTS.readings, () => undefined);
+    opened[0].socket.active = false;
+
+    opened[0].socket.fire('connect_error', new Error('The server cannot reach its database; try again shortly'));
+    expect(sessionStore.getSnapshot().session?.token).toBe('token-1');
+    expect(desk.state()).toBe('connecting');
+
+    opened[0].socket.fire('connect_error', new Error('Your session has ended; sign in again'));
+    expect(sessionStore.getSnapshot()).toEqual({ session: null, endReason: 'expired' });
+    desk.close();
+  });
+
+  it('tries again after the server closed the socket (a role change), with the token of the moment', async () => {
+    const sessionStore = createSessionStore({ storage: memoryStorage() });
+    sessionStore.start('token-1', 3600);
+    const { connect, opened } = fakeSocketFactory();
+    const desk = createDeskSocket({ sessionStore, connect: connect as never, retryAfterRefusalMs: 1 });
+    desk.on(DESK_EVENTS.readings, () => undefined);
+    let reconnected = false;
+    opened[0].socket.connect = () => ((reconnected = true), opened[0].socket);
+    opened[0].socket.fire('disconnect', 'io server disconnect');
+    expect(desk.state()).toBe('connecting');
+    await vi.waitFor(() => expect(reconnected).toBe(true));
+    desk.close();
   });
 });

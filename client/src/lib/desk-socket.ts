@@ -27,6 +27,9 @@ export type DeskEventName = keyof DeskEventPayloads;
 export type DeskConnectionState = 'offline' | 'connecting' | 'connected';
 
 type Connect = (uri: string, options: Partial<ManagerOptions & SocketOptions>) => Socket;
+
+/** Handshake refusals that mean the token is no longer good (the server's own sentences). */
+const SESSION_OVER = /session has (ended|expired)|no longer active|sign-in is not valid/i;
 type AnyHandler = (payload: unknown) => void;
 
 export interface DeskSocketOptions {
@@ -82,18 +85,35 @@ export function createDeskSocket({
     });
     socket = next;
     next.on('connect', () => setState('connected'));
-    next.on('disconnect', () => setState(sessionStore.token() ? 'connecting' : 'offline'));
-    next.on('connect_error', () => {
+    next.on('disconnect', (reason: string) => {
+      setState(sessionStore.token() ? 'connecting' : 'offline');
+      // The server closes a desk's socket when its session ends or its grounds change (sign-out
+      // elsewhere, deactivation, role change, expiry). socket.io does not come back on its own
+      // after that: try again, and the handshake says whether the token still holds.
+      if (reason === 'io server disconnect') retryLater(next);
+    });
+    next.on('connect_error', (error: Error | undefined) => {
+      // The server no longer takes this token (signed out, deactivated, expired): the session
+      // is over here too. A database outage is not that: its refusal is retried below.
+      if (SESSION_OVER.test(error?.message ?? '') && sessionStore.getSnapshot().session?.token === socketToken) {
+        sessionStore.end('expired');
+        return;
+      }
       // A refused handshake is not retried by socket.io itself; try again while the session lasts.
       if (next.active) return;
-      setState('connecting');
-      retryTimer = setTimeout(() => {
-        if (socket === next && sessionStore.token()) next.connect();
-      }, retryAfterRefusalMs);
+      retryLater(next);
     });
     next.onAny((event: string, payload: unknown) => {
       handlers.get(event)?.forEach((handler) => handler(payload));
     });
+  }
+
+  function retryLater(target: Socket) {
+    setState('connecting');
+    if (retryTimer !== undefined) clearTimeout(retryTimer);
+    retryTimer = setTimeout(() => {
+      if (socket === target && sessionStore.token()) target.connect();
+    }, retryAfterRefusalMs);
   }
 
   function listening(): boolean {

@@ -1,10 +1,12 @@
-import { DateTime } from 'luxon';
+import { formatLocalTime } from '@morrowline/shared';
 
-/** "2026-03-08 14:05" in the viewer's own zone, or in a zone given (operating days follow zones). */
+/**
+ * "2026-03-08 14:05 MDT": the desk's one clock rule (shared/src/clock.ts) in the zone given, a load
+ * zone's or the desk's (useDeskTimeZone). Until the desk's zone is known the browser's own zone
+ * stands in, still with its abbreviation, so no time is ever shown without saying which clock.
+ */
 export function formatDateTime(iso: string | null | undefined, timeZone?: string): string {
-  if (!iso) return '—';
-  const value = DateTime.fromISO(iso, { zone: timeZone ?? 'local' });
-  return value.isValid ? value.toFormat('yyyy-LL-dd HH:mm') : '—';
+  return formatLocalTime(iso, timeZone ?? Intl.DateTimeFormat().resolvedOptions().timeZone);
 }
 
 const mwFormat = new Intl.NumberFormat('en-US', { minimumFractionDigits: 1, maximumFractionDigits: 1 });

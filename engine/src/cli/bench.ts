@@ -1,6 +1,9 @@
 /**
  * Engine benchmark (not a test): `npm run bench`, which runs the compiled `dist/cli/bench.js` (the
  * code a server runs; under tsx the timings of the same fits varied several-fold between runs).
+ *  0. the real-series table first (bench-real.ts): the open demand series under each differencing
+ *     the pipeline considers, every order p, q ≤ 3 with and without a seasonal block at 24,
+ *     against R in the same run (`--real-only` runs this table alone, `--no-real` leaves it out);
  *  1. exact-ML ARMA fits (with standard errors) on 2,000 and 8,760 hourly points, median wall
  *     time, on simulated ARMA(2,1) series (φ = 0.6, −0.2; θ = 0.4), several orders;
  *  2. the automatic pipeline on eight weeks (1,344 h) of the real demand fixture;
@@ -17,6 +20,7 @@ import { cpus, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { accuracy, backtest, fitArma, median, runPipeline } from '@morrowline/engine';
 import { simulateArma21 as simulate } from './bench-series';
+import { printRealTable, realCases, RFitTiming, timeEngine } from './bench-real';
 
 // from src/cli (jest, tsx) or dist/cli (compiled, as `npm run bench` runs it): the fixtures stay in src
 const FIX = [join(__dirname, '../fixtures'), join(__dirname, '../../src/fixtures')].find((d) => existsSync(d)) ?? '';
@@ -47,7 +51,28 @@ function main(): void {
     }
   })();
   const rVersion = hasR();
-  console.log(`machine: ${cpu}, ${cpus().length} cores, Node ${process.version}${rVersion ? `, ${rVersion}` : ', R not found'}\n`);
+  console.log(`machine: ${cpu}, ${cpus().length} cores, Node ${process.version}${rVersion ? `, ${rVersion}` : ', R not found'}; ${new Date().toISOString().slice(0, 16)} UTC\n`);
+  const args = process.argv.slice(2);
+  const unknown = args.filter((a) => a !== '--real-only' && a !== '--no-real');
+  if (unknown.length) throw new Error(`bench: unknown argument ${unknown[0]} (known: --real-only, --no-real)`);
+  const taylorLoad = JSON.parse(readFileSync(join(FIX, 'taylor-hourly.json'), 'utf8')).load as number[];
+  if (!args.includes('--no-real')) {
+    const cases = realCases();
+    // warm the JIT on the first cases before any is timed (a long-running server is warm)
+    timeEngine(taylorLoad, cases.filter((c) => c.P === 0).slice(0, 16));
+    const rows = timeEngine(taylorLoad, cases);
+    if (rVersion) {
+      const out = runR({ real: { load: taylorLoad, cases: cases.map((c) => ({ id: c.id, diff: [c.diff], p: c.p, q: c.q, P: c.P, Q: c.Q })) } });
+      const byId = new Map((out.real as Array<{ id: string; cssMl: RFitTiming; ml: RFitTiming }>).map((r) => [r.id, r]));
+      for (const row of rows) {
+        const r = byId.get(row.id);
+        if (r) row.r = { cssMl: r.cssMl, ml: r.ml };
+      }
+    }
+    printRealTable(rows);
+    console.log('');
+    if (args.includes('--real-only')) return;
+  }
 
   // 1. fits
   const series: Record<string, number[]> = { n2000: simulate(2000, 42), n8760: simulate(8760, 4242) };

@@ -1,5 +1,5 @@
 import { BadRequestException, Injectable } from '@nestjs/common';
-import { ACCURACY_MAX_DAYS, dayCount, gateClosureAt, HOUR_MS, isOperatingDay, operatingDays, type AccuracyReportDto, type OperatingDay } from '@morrowline/shared';
+import { ACCURACY_MAX_DAYS, dayCount, gateClosureAt, HOUR_MS, operatingDays, parseDay, type AccuracyReportDto, type OperatingDay } from '@morrowline/shared';
 import { MAX_HORIZON_HOURS } from '../forecasts/forecast-horizon';
 import { ForecastRunsRepository, type RunValues } from '../forecasts/forecast-runs.repository';
 import { OutagesService } from '../outages/outages.service';
@@ -33,8 +33,11 @@ export class AccuracyService {
   ) {}
 
   async report(codes: readonly string[] | undefined, from: string, to: string, now = Date.now()): Promise<AccuracyReportDto> {
-    if (!isOperatingDay(from)) throw new BadRequestException('from must be an operating day, yyyy-MM-dd');
-    if (!isOperatingDay(to)) throw new BadRequestException('to must be an operating day, yyyy-MM-dd');
+    // The one day parser, here rather than in the DTO so that its message is the answer's own.
+    for (const [field, day] of [['from', from], ['to', to]] as const) {
+      const parsed = parseDay(day, field);
+      if (!parsed.ok) throw new BadRequestException(parsed.message);
+    }
     if (to < from) throw new BadRequestException(`from (${from}) must not be after to (${to})`);
     const span = dayCount(from, to);
     if (span > ACCURACY_MAX_DAYS) throw new BadRequestException(`The range may span at most ${ACCURACY_MAX_DAYS} days; ${from} to ${to} is ${span}`);

@@ -1,4 +1,4 @@
-import { Body, Controller, Get, HttpCode, Param, ParseIntPipe, Post, Query } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Param, Post, Query } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import { PERMISSIONS, type AlertDto } from '@morrowline/shared';
 import type { AuthUser } from '../common/auth-user';
@@ -6,6 +6,7 @@ import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { Roles, SignedIn } from '../common/decorators/roles.decorator';
 import { AlertsService } from './alerts.service';
 import { AcknowledgeAlertDto, AlertsQueryDto } from './dto/alerts.dto';
+import { ParseIdPipe } from '../common/pipes/parse-id.pipe';
 
 @ApiTags('alerts')
 @ApiBearerAuth()
@@ -22,7 +23,7 @@ export class AlertsController {
   @Post(':id/acknowledge')
   @HttpCode(200)
   @Roles(...PERMISSIONS.forecast)
-  acknowledge(@CurrentUser() actor: AuthUser, @Param('id', ParseIntPipe) id: number, @Body() body: AcknowledgeAlertDto): Promise<AlertDto> {
+  acknowledge(@CurrentUser() actor: AuthUser, @Param('id', ParseIdPipe) id: number, @Body() body: AcknowledgeAlertDto): Promise<AlertDto> {
     return this.alerts.acknowledge(actor, id, body.comment);
   }
 }

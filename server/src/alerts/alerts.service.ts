@@ -1,15 +1,17 @@
-import { EntityManager } from '@mikro-orm/mariadb';
 import { ConflictException, Injectable, Logger, NotFoundException } from '@nestjs/common';
 import { OnEvent } from '@nestjs/event-emitter';
-import { HOUR_MS, type AlertDto, type AlertState } from '@morrowline/shared';
-import { AuditService, type Actor } from '../audit/audit.service';
+import { HOUR_MS, type AlertDto, type AlertState, type CommittedBasis } from '@morrowline/shared';
+import { AuditService } from '../audit/audit.service';
+import type { AuthUser } from '../common/auth-user';
 import { DOMAIN_EVENTS, type ReadingsStored } from '../events/domain-events';
 import { DomainEventsPublisher } from '../events/domain-events.publisher';
-import { StoredForecastLookup } from '../forecasts/stored-forecast.lookup';
+import { CommittedLoadService } from '../live/committed-load.service';
 import { ReadingsService } from '../readings/readings.service';
-import { Zone } from '../zones/entities/zone.entity';
+import type { Zone } from '../zones/entities/zone.entity';
+import { ZonesRepository } from '../zones/zones.repository';
+import { AlertsRepository } from './alerts.repository';
 import { deviationRuns } from './deviation';
-import { DeviationAlert } from './entities/deviation-alert.entity';
+import type { DeviationAlert } from './entities/deviation-alert.entity';
 
 /**
  * Only hours this recent raise alerts: an alert is for the desk on shift, not for a backfill of
@@ -24,21 +26,32 @@ export function toAlertDto(alert: DeviationAlert): AlertDto {
     start: alert.start.toISOString(),
     end: alert.end.toISOString(),
     peakDeviationPct: Math.round(alert.peakDeviationPct * 100) / 100,
+    comparedWith: alert.comparedWith,
+    committedMw: alert.committedMw === null ? null : Math.round(alert.committedMw * 10) / 10,
     thresholdPct: alert.thresholdPct,
     consecutiveHours: alert.consecutiveHours,
     state: alert.state,
     raisedAt: alert.raisedAt.toISOString(),
     acknowledgedAt: alert.acknowledgedAt ? alert.acknowledgedAt.toISOString() : null,
     acknowledgedBy: alert.acknowledgedByEmail,
+    acknowledgedByName: alert.acknowledgedByName,
     comment: alert.comment,
   };
 }
 
+/** Where the peak of a run was measured against, and the committed MW there. */
+interface PeakHour {
+  basis: CommittedBasis | null;
+  committedMw: number | null;
+}
+
 /**
  * Deviation alerts. After each stored batch (the readings-stored event) the hours it touched are
- * compared with the current forecast (StoredForecastLookup); a run of the zone's N consecutive
- * hours beyond its threshold raises an alert, announced at once. Evaluations run one at a time,
- * off the ingest path.
+ * compared with what the zone committed to for them (CommittedLoadService: the published
+ * schedule, else the day-ahead forecast issued by gate closure); a run of the zone's N consecutive
+ * hours beyond its threshold raises an alert, announced at once. Hours with nothing committed
+ * raise none: a later run or last week's load is not what the desk promised. Evaluations run one
+ * at a time, off the ingest path.
  */
 @Injectable()
 export class AlertsService {
@@ -47,11 +60,12 @@ export class AlertsService {
   private running: Promise<void> | null = null;
 
   constructor(
-    private readonly em: EntityManager,
+    private readonly alerts: AlertsRepository,
+    private readonly zones: ZonesRepository,
     private readonly readings: ReadingsService,
     private readonly audit: AuditService,
     private readonly events: DomainEventsPublisher,
-    private readonly forecasts: StoredForecastLookup,
+    private readonly committed: CommittedLoadService,
   ) {}
 
   /**
@@ -95,8 +109,7 @@ export class AlertsService {
   }
 
   private async evaluate(zoneId: number, hours: number[]): Promise<void> {
-    const em = this.em.fork();
-    const zone = await em.findOne(Zone, { id: zoneId });
+    const zone = await this.zones.byId(zoneId);
     if (!zone || !zone.active) return;
     const n = zone.alertConsecutiveHours;
     const from = Math.min(...hours) - (n - 1) * HOUR_MS;
@@ -104,29 +117,36 @@ export class AlertsService {
     const count = (to - from) / HOUR_MS;
     const actual = new Array<number | null>(count).fill(null);
     for (const row of await this.readings.rows(zoneId, from, to)) actual[(row.hourStart - from) / HOUR_MS] = row.mw;
-    const forecast = await this.forecasts.forecast(zoneId, from, to);
-    for (const run of deviationRuns(actual, forecast, zone.alertThresholdPct, n)) {
-      await this.raise(zone, new Date(from + run.start * HOUR_MS), new Date(from + run.end * HOUR_MS), run.peakPct);
+    const committed = await this.committed.forZone(zone, from, to);
+    for (const run of deviationRuns(actual, committed.committed, zone.alertThresholdPct, n)) {
+      const peak = { basis: committed.basis[run.peakIndex], committedMw: committed.committed[run.peakIndex] };
+      await this.raise(zone, new Date(from + run.start * HOUR_MS), new Date(from + run.end * HOUR_MS), run.peakPct, peak);
     }
   }
 
   /** Opens an alert for the window, or widens the one it touches. */
-  private async raise(zone: Zone, start: Date, end: Date, peakPct: number): Promise<void> {
-    const alert = await this.em.fork().transactional(async (tx) => {
-      const existing = await tx.findOne(DeviationAlert, { zone: zone.id, start: { $lte: end }, end: { $gte: start } }, { populate: ['zone'], orderBy: { start: 'desc' } });
+  private async raise(zone: Zone, start: Date, end: Date, peakPct: number, peak: PeakHour): Promise<void> {
+    const alert = await this.alerts.transaction(async (tx) => {
+      const existing = await this.alerts.touching(tx, zone.id, start, end);
       if (existing) {
         const wider = start < existing.start || end > existing.end || Math.abs(peakPct) > Math.abs(existing.peakDeviationPct);
         if (!wider) return null;
         if (start < existing.start) existing.start = start;
         if (end > existing.end) existing.end = end;
-        if (Math.abs(peakPct) > Math.abs(existing.peakDeviationPct)) existing.peakDeviationPct = peakPct;
+        if (Math.abs(peakPct) > Math.abs(existing.peakDeviationPct)) {
+          existing.peakDeviationPct = peakPct;
+          existing.comparedWith = peak.basis;
+          existing.committedMw = peak.committedMw;
+        }
         return existing;
       }
-      const created = tx.create(DeviationAlert, {
+      const created = await this.alerts.add(tx, {
         zone,
         start,
         end,
         peakDeviationPct: peakPct,
+        comparedWith: peak.basis,
+        committedMw: peak.committedMw,
         thresholdPct: zone.alertThresholdPct,
         consecutiveHours: zone.alertConsecutiveHours,
         state: 'open',
@@ -134,26 +154,23 @@ export class AlertsService {
         acknowledgedAt: null,
         acknowledgedById: null,
         acknowledgedByEmail: null,
+        acknowledgedByName: null,
         comment: null,
       });
-      await tx.flush();
       this.audit.stage(tx, null, { action: 'alert.raise', subjectType: 'alert', subjectId: created.id, after: toAlertDto(created) });
       return created;
     });
     if (alert) this.events.publish(DOMAIN_EVENTS.alertRaised, toAlertDto(alert));
   }
 
+  /** Open alerts by their hours, newest first; acknowledged ones (the history) newest acknowledgement first. */
   async list(state?: AlertState, zone?: string, limit = 200): Promise<AlertDto[]> {
-    const where: Record<string, unknown> = {};
-    if (state) where.state = state;
-    if (zone) where.zone = { code: zone };
-    const alerts = await this.em.fork().find(DeviationAlert, where, { populate: ['zone'], orderBy: { start: 'desc', id: 'desc' }, limit });
-    return alerts.map(toAlertDto);
+    return (await this.alerts.list(state, zone, limit)).map(toAlertDto);
   }
 
-  async acknowledge(actor: Actor, id: number, comment?: string): Promise<AlertDto> {
-    const dto = await this.em.fork().transactional(async (tx) => {
-      const alert = await tx.findOne(DeviationAlert, { id }, { populate: ['zone'] });
+  async acknowledge(actor: AuthUser, id: number, comment?: string): Promise<AlertDto> {
+    const dto = await this.alerts.transaction(async (tx) => {
+      const alert = await this.alerts.lock(tx, id);
       if (!alert) throw new NotFoundException(`No alert with id ${id}`);
       if (alert.state === 'acknowledged') throw new ConflictException(`Alert ${id} was already acknowledged by ${alert.acknowledgedByEmail ?? 'someone'}`);
       const before = toAlertDto(alert);
@@ -161,6 +178,7 @@ export class AlertsService {
       alert.acknowledgedAt = new Date();
       alert.acknowledgedById = actor.id;
       alert.acknowledgedByEmail = actor.email;
+      alert.acknowledgedByName = actor.name;
       alert.comment = comment?.trim() || null;
       const after = toAlertDto(alert);
       this.audit.stage(tx, actor, { action: 'alert.acknowledge', subjectType: 'alert', subjectId: alert.id, before, after, reason: alert.comment });

@@ -11,7 +11,7 @@ describe('deviation alerts', () => {
   it('finds runs of at least N consecutive hours beyond the threshold', () => {
     const forecast = [100, 100, 100, 100, 100, 100, 100, 100];
     const actual = [100, 106, 100, 107, 94, 110, 100, 106];
-    expect(deviationRuns(actual, forecast, 5, 2)).toEqual([{ start: 3, end: 6, peakPct: expect.closeTo(10, 6) }]);
+    expect(deviationRuns(actual, forecast, 5, 2)).toEqual([{ start: 3, end: 6, peakPct: expect.closeTo(10, 6), peakIndex: 5 }]);
     expect(deviationRuns(actual, forecast, 5, 1).map((r) => [r.start, r.end])).toEqual([[1, 2], [3, 6], [7, 8]]);
     expect(deviationRuns(actual, forecast, 5, 4)).toEqual([]);
   });

@@ -34,7 +34,10 @@ export class AuthController {
     return toUserDto(await this.users.getById(user.id));
   }
 
-  /** Tokens are stateless; sign-out is the client dropping its token. Recorded for the shift log. */
+  /**
+   * Sign-out ends the user's sessions: the token (and any other the user holds) is refused from
+   * now on and open desk sockets close. Recorded for the shift log.
+   */
   @Post('logout')
   @SignedIn()
   @HttpCode(204)

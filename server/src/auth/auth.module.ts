@@ -9,6 +9,7 @@ import { UsersModule } from '../users/users.module';
 import { AuthController } from './auth.controller';
 import { AuthService } from './auth.service';
 import { JwtAuthGuard } from './guards/jwt-auth.guard';
+import { SIGN_IN_TRACKERS } from './guards/login-throttler.guard';
 import { RolesGuard } from './guards/roles.guard';
 import { JwtStrategy } from './jwt.strategy';
 import { SocketAuthService } from './socket-auth.service';
@@ -26,9 +27,14 @@ import { SocketAuthService } from './socket-auth.service';
     }),
     ThrottlerModule.forRootAsync({
       inject: [ConfigService],
-      useFactory: (config: ConfigService) => [
-        { name: 'login', ttl: 60_000, limit: config.getOrThrow<AppConfig>('app').loginAttemptsPerMinute },
-      ],
+      useFactory: (config: ConfigService) => {
+        const app = config.getOrThrow<AppConfig>('app');
+        return [
+          { name: 'login', ttl: 60_000, limit: app.loginAttemptsPerMinute, getTracker: SIGN_IN_TRACKERS['login'] },
+          { name: 'login-email', ttl: 60_000, limit: app.loginAttemptsPerMinute, getTracker: SIGN_IN_TRACKERS['login-email'] },
+          { name: 'login-address', ttl: 60_000, limit: app.loginAttemptsPerAddressPerMinute, getTracker: SIGN_IN_TRACKERS['login-address'] },
+        ];
+      },
     }),
   ],
   controllers: [AuthController],

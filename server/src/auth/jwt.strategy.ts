@@ -5,10 +5,12 @@ import { ExtractJwt, Strategy } from 'passport-jwt';
 import type { AccessTokenPayload, AuthUser } from '../common/auth-user';
 import type { AppConfig } from '../config/configuration';
 import { UsersService } from '../users/users.service';
+import { loadTokenUser, refusal, toAuthUser } from './token-check';
 
 /**
  * Bearer tokens signed with JWT_SECRET. The user is re-read on each request so that a
- * deactivation or a role change takes effect at once rather than when the token expires.
+ * deactivation, a role change or a sign-out takes effect at once rather than when the token
+ * expires. A database outage answers 503 (DatabaseUnavailableException), not 401.
  */
 @Injectable()
 export class JwtStrategy extends PassportStrategy(Strategy) {
@@ -25,8 +27,9 @@ export class JwtStrategy extends PassportStrategy(Strategy) {
   }
 
   async validate(payload: AccessTokenPayload): Promise<AuthUser> {
-    const user = await this.users.findActiveById(payload.sub);
-    if (!user) throw new UnauthorizedException('Your account is no longer active');
-    return { id: user.id, email: user.email, name: user.name, role: user.role };
+    const user = await loadTokenUser(payload, (id) => this.users.findActiveById(id));
+    const refused = refusal(payload, user);
+    if (refused || !user) throw new UnauthorizedException(refused);
+    return toAuthUser(user);
   }
 }

@@ -1,16 +1,19 @@
 /**
- * Ingest benchmark (run by scripts/bench-ingest.sh against a private MariaDB and server):
+ * Ingest benchmark (run by scripts/bench-ingest.sh against a private, durable MariaDB and server):
  *   (a) raw: the batched upsert straight through the mariadb driver, 1000 rows a transaction,
  *       into a copy of the readings table — what this database can do;
- *   (b) ingest: readings/s from a socket.io feed client through the /feeds gateway (validation,
- *       revision check, upsert, broadcast) until every batch is acknowledged, i.e. committed.
+ *   (b) ingest: versioned readings/s from a socket.io feed client through the /feeds gateway
+ *       (validation, ordered per socket, revision check, conditional upsert, one transaction per
+ *       batch, broadcast) until every batch is acknowledged, i.e. committed.
+ * Both run against the same server with innodb_flush_log_at_trx_commit=1 (checked): every commit,
+ * and so every ack, is on disk.
  * Last line: `ingest: N readings/s, raw M rows/s, ratio R`.
  * Environment: DB_PORT, DB_NAME, DB_USER, DB_PASSWORD, BENCH_URL, MORROWLINE_FEED_KEY,
  * BENCH_READINGS (default 200000).
  */
 import * as mariadb from 'mariadb';
 import { io } from 'socket.io-client';
-import { DEMO_ZONES, FEED_NAMESPACE, READINGS_EVENT, type FeedReading, type ReadingBatchAck } from '@morrowline/shared';
+import { DEMO_ZONES, FEED_NAMESPACE, READINGS_EVENT, VersionClock, type FeedReading, type ReadingBatchAck } from '@morrowline/shared';
 
 const HOUR = 3_600_000;
 const BATCH = 1000;
@@ -28,12 +31,13 @@ function sqlDateTime(ms: number): string {
 
 /** Readings for the demo zones, hour after hour back from `end`, values inside each zone's range. */
 function makeReadings(total: number, end: number, offsetHours: number): FeedReading[] {
+  const clock = new VersionClock();
   const out: FeedReading[] = [];
   for (let i = 0; out.length < total; i++) {
     for (const zone of DEMO_ZONES) {
       if (out.length >= total) break;
       const h = i + offsetHours;
-      out.push({ zone: zone.code, hour: new Date(end - h * HOUR).toISOString(), mw: Math.round(zone.peakMw * (0.6 + 0.3 * Math.sin(h / 3.8)) * 1000) / 1000 });
+      out.push({ zone: zone.code, hour: new Date(end - h * HOUR).toISOString(), mw: Math.round(zone.peakMw * (0.6 + 0.3 * Math.sin(h / 3.8)) * 1000) / 1000, version: clock.next() });
     }
   }
   return out;
@@ -49,11 +53,11 @@ async function rawRate(pool: mariadb.Pool, zoneIds: Map<string, number>, reading
     for (let i = 0; i < readings.length; i += BATCH) {
       const chunk = readings.slice(i, i + BATCH);
       const values: unknown[] = [];
-      for (const r of chunk) values.push(zoneIds.get(r.zone), sqlDateTime(Date.parse(r.hour)), r.mw, 'good', 'bench:raw', received);
+      for (const r of chunk) values.push(zoneIds.get(r.zone), sqlDateTime(Date.parse(r.hour)), r.mw, 'good', 'bench:raw', received, String(r.version));
       await conn.beginTransaction();
       await conn.query(
-        `insert into bench_raw_readings (zone_id, hour_start, mw, quality, source, received_at) values ${new Array(chunk.length).fill('(?,?,?,?,?,?)').join(',')}
-         on duplicate key update mw = values(mw), quality = values(quality), source = values(source), received_at = values(received_at)`,
+        `insert into bench_raw_readings (zone_id, hour_start, mw, quality, source, received_at, version) values ${new Array(chunk.length).fill('(?,?,?,?,?,?,?)').join(',')}
+         on duplicate key update mw = values(mw), quality = values(quality), source = values(source), received_at = values(received_at), version = values(version)`,
         values,
       );
       await conn.commit();
@@ -113,6 +117,15 @@ async function main(): Promise<void> {
     timezone: '+00:00',
   });
   try {
+    const [durability] = (await pool.query('select @@innodb_flush_log_at_trx_commit as flush, @@sync_binlog as sync_binlog, @@log_bin as log_bin')) as {
+      flush: number | bigint;
+      sync_binlog: number | bigint;
+      log_bin: number | bigint;
+    }[];
+    if (Number(durability.flush) !== 1 || (Number(durability.log_bin) === 1 && Number(durability.sync_binlog) !== 1)) {
+      throw new Error(`the bench database is not durable (innodb_flush_log_at_trx_commit=${durability.flush}, sync_binlog=${durability.sync_binlog}); restart it with scripts/db.sh`);
+    }
+    console.log(`durable database: innodb_flush_log_at_trx_commit=1, binary log ${Number(durability.log_bin) === 1 ? 'on with sync_binlog=1' : 'off'}`);
     const zones = (await pool.query('select id, code from zones')) as { id: number; code: string }[];
     const zoneIds = new Map(zones.map((z) => [z.code, z.id]));
     const end = Math.floor(Date.now() / HOUR) * HOUR - 72 * HOUR;

@@ -13,4 +13,8 @@ export interface AccessTokenPayload {
   sub: number;
   email: string;
   role: Role;
+  /** The user's session version at sign-in; a sign-out raises it and ends this token. */
+  sv: number;
+  /** Expiry, seconds since the epoch (set by the signer). */
+  exp?: number;
 }

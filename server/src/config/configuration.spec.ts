@@ -1,4 +1,4 @@
-import { DEFAULT_JWT_SECRET, loadConfig, parseShiftStarts } from './configuration';
+import { DEFAULT_JWT_SECRET, loadConfig, parseShiftStarts, parseTrustProxy } from './configuration';
 
 describe('loadConfig', () => {
   it('has safe development defaults: loopback, CORS closed', () => {
@@ -35,5 +35,19 @@ describe('shift pattern', () => {
     expect(parseShiftStarts('14:00, 06:00,22:00')).toEqual(['06:00', '14:00', '22:00']);
     expect(() => parseShiftStarts('6am')).toThrow(/not HH:mm/);
     expect(() => parseShiftStarts('06:00,06:00')).toThrow(/repeats/);
+  });
+});
+
+describe('TRUST_PROXY', () => {
+  it('believes no proxy unless told to', () => {
+    expect(loadConfig({}).trustProxy).toBe(false);
+    expect(parseTrustProxy('false')).toBe(false);
+  });
+
+  it('takes a hop count or named proxies, and refuses "true" and nonsense', () => {
+    expect(parseTrustProxy('1')).toBe(1);
+    expect(parseTrustProxy('loopback, 10.0.0.0/8')).toBe('loopback,10.0.0.0/8');
+    expect(() => parseTrustProxy('true')).toThrow(/would believe any X-Forwarded-For/);
+    expect(() => parseTrustProxy('my proxy')).toThrow(/TRUST_PROXY has "my proxy"/);
   });
 });

@@ -17,8 +17,18 @@ export interface AppConfig {
   clientDist: string;
   db: { host: string; port: number; name: string; user: string; password: string; debug: boolean };
   jwt: { secret: string; expiresInSeconds: number };
-  /** Sign-in attempts allowed per e-mail and address per minute before 429. */
+  /** Sign-in attempts allowed per minute before 429: for one e-mail from one address, and for one e-mail from anywhere. */
   loginAttemptsPerMinute: number;
+  /** Sign-in attempts allowed per minute from one address, whatever the e-mail (a control room signs in behind one address). */
+  loginAttemptsPerAddressPerMinute: number;
+  /** Password checks (argon2id) run at once, and how many more may wait, before sign-in answers 503. */
+  passwordChecks: { concurrency: number; queue: number };
+  /**
+   * Express's "trust proxy": which proxies' X-Forwarded-For is believed for the client address.
+   * false (the default) believes none; a number is a count of proxy hops; otherwise addresses,
+   * subnets or the names loopback, linklocal, uniquelocal, comma-separated.
+   */
+  trustProxy: false | number | string;
   /** The shift pattern: local start times in the desk's time zone. */
   shifts: { starts: string[]; timeZone: string };
 }
@@ -31,6 +41,21 @@ function int(env: NodeJS.ProcessEnv, key: string, fallback: number): number {
     throw new Error(`Configuration: ${key} must be a non-negative whole number, got "${raw}"`);
   }
   return value;
+}
+
+/** TRUST_PROXY: unset or "false" trusts no proxy; "true" (every proxy) is refused: name them. */
+export function parseTrustProxy(raw: string | undefined): false | number | string {
+  const value = (raw ?? '').trim();
+  if (value === '' || value === 'false') return false;
+  if (/^\d+$/.test(value)) return Number(value);
+  if (value === 'true') throw new Error('Configuration: TRUST_PROXY=true would believe any X-Forwarded-For; give the proxies\' addresses or a hop count');
+  const parts = value.split(',').map((s) => s.trim());
+  for (const part of parts) {
+    if (!/^(loopback|linklocal|uniquelocal|[0-9a-fA-F.:]+(\/\d{1,3})?)$/.test(part)) {
+      throw new Error(`Configuration: TRUST_PROXY has "${part}", which is not an address, subnet, loopback, linklocal or uniquelocal`);
+    }
+  }
+  return parts.join(',');
 }
 
 function timeZone(env: NodeJS.ProcessEnv, key: string, fallback: string): string {
@@ -79,6 +104,9 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     },
     jwt: { secret, expiresInSeconds: int(env, 'JWT_EXPIRES_IN', 8 * 3600) },
     loginAttemptsPerMinute: int(env, 'LOGIN_ATTEMPTS_PER_MINUTE', 10),
+    loginAttemptsPerAddressPerMinute: int(env, 'LOGIN_ATTEMPTS_PER_ADDRESS_PER_MINUTE', 60),
+    passwordChecks: { concurrency: Math.max(1, int(env, 'PASSWORD_CHECK_CONCURRENCY', 2)), queue: int(env, 'PASSWORD_CHECK_QUEUE', 8) },
+    trustProxy: parseTrustProxy(env.TRUST_PROXY),
     shifts: { starts: parseShiftStarts(env.SHIFT_STARTS ?? '06:00,14:00,22:00'), timeZone: timeZone(env, 'DESK_TIME_ZONE', 'America/Denver') },
   };
 }

@@ -22,6 +22,7 @@ import { DomainEventsPublisher } from '../events/domain-events.publisher';
 import { ForecastRunsRepository } from '../forecasts/forecast-runs.repository';
 import { ForecastsService } from '../forecasts/forecasts.service';
 import { loadRefitSchedule } from '../models/refit-schedule';
+import { OutagesRepository } from '../outages/outages.repository';
 import { OutagesService } from '../outages/outages.service';
 import { ReadingsRepository } from '../readings/readings.repository';
 import { ReadingsService } from '../readings/readings.service';
@@ -59,7 +60,7 @@ export async function openDemoReplay(): Promise<DemoReplayParts> {
   const zones = new ZonesRepository(em);
   const repository = new ReadingsRepository(em);
   const readings = new ReadingsService(zones, repository, events);
-  const outages = new OutagesService(em, audit);
+  const outages = new OutagesService(new OutagesRepository(em), audit);
   const forecasts = new ForecastsService(new ForecastRunsRepository(em), zones, readings, outages, events);
   const schedules = new SchedulesService(new ScheduleRevisionsRepository(em), zones, audit, events, forecasts, new ScheduleNotifier(em, audit, new ScheduleMailer()));
   const forecastReplay = new ForecastReplayService(em, repository, outages, forecasts, compute, audit, {

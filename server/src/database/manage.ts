@@ -13,7 +13,9 @@ import 'reflect-metadata';
 import { MikroORM } from '@mikro-orm/mariadb';
 import { AuditRepository } from '../audit/audit.repository';
 import { AuditService } from '../audit/audit.service';
+import { FeedKeysRepository } from '../feeds/feed-keys.repository';
 import { FeedKeysService } from '../feeds/feed-keys.service';
+import { ZonesRepository } from '../zones/zones.repository';
 import { demoReplayCommand } from './demo-replay.command';
 import { ormConfig } from './mikro-orm.config';
 import { DatabaseSeeder } from './seeders/DatabaseSeeder';
@@ -37,7 +39,7 @@ async function main(command: string | undefined): Promise<void> {
       const name = process.argv[3];
       if (!name) throw new Error('usage: manage feed-key NAME');
       const em = orm.em.fork();
-      console.log(await new FeedKeysService(em, new AuditService(new AuditRepository(em))).rotate(name));
+      console.log(await new FeedKeysService(new FeedKeysRepository(em), new ZonesRepository(em), new AuditService(new AuditRepository(em))).rotate(name));
     } else {
       throw new Error('usage: manage migrate|seed|feed-key NAME|demo-replay');
     }

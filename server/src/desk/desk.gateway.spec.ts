@@ -13,6 +13,8 @@ describe('desk gateway', () => {
   let app: INestApplicationContext;
   let events: DomainEventsPublisher;
   let sent: [string, unknown][] = [];
+  let rooms: string[][] = [];
+  let disconnected: string[] = [];
 
   beforeAll(async () => {
     const moduleRef = await Test.createTestingModule({
@@ -20,11 +22,16 @@ describe('desk gateway', () => {
       providers: [DeskGateway, { provide: SocketAuthService, useValue: {} }],
     }).compile();
     app = await moduleRef.init();
-    app.get(DeskGateway).server = { emit: (event: string, payload: unknown) => sent.push([event, payload]) > 0 } as unknown as Namespace;
+    app.get(DeskGateway).server = {
+      to: (to: string[]) => ({ emit: (event: string, payload: unknown) => rooms.push(to) > 0 && sent.push([event, payload]) > 0 }),
+      in: (room: string) => ({ disconnectSockets: () => disconnected.push(room) }),
+    } as unknown as Namespace;
     events = app.get(DomainEventsPublisher);
   });
   beforeEach(() => {
     sent = [];
+    rooms = [];
+    disconnected = [];
   });
   afterAll(() => app.close());
 
@@ -68,5 +75,23 @@ describe('desk gateway', () => {
       ['desk:alert-raised', raised],
       ['desk:alert-acknowledged', acknowledged],
     ]);
+  });
+
+  it('sends each message only to the roles that may read it (README role table)', () => {
+    const everyone = ['role:viewer', 'role:operator', 'role:supervisor', 'role:admin'];
+    const deskWork = ['role:operator', 'role:supervisor'];
+    events.publish(DOMAIN_EVENTS.readingsStored, { zones: [], receivedAt: '2026-03-02T08:59:58.000Z' });
+    events.publish(DOMAIN_EVENTS.refitProgress, { id: 1 } as RefitJobDto);
+    events.publish(DOMAIN_EVENTS.forecastIssued, { id: 2 } as ForecastRunDto);
+    events.publish(DOMAIN_EVENTS.scheduleChanged, { action: 'submit', zone: 'MILLRACE', operatingDay: '2026-03-03', revisionId: 7, revision: 1, state: 'submitted' });
+    events.publish(DOMAIN_EVENTS.scheduleChanged, { action: 'publish', zone: 'MILLRACE', operatingDay: '2026-03-03', revisionId: 7, revision: 1, state: 'published' });
+    events.publish(DOMAIN_EVENTS.alertRaised, { id: 9 } as AlertDto);
+    expect(rooms).toEqual([everyone, deskWork, everyone, deskWork, ['role:viewer', 'role:operator', 'role:supervisor'], everyone]);
+  });
+
+  it('closes the open sockets of a user whose session ended', () => {
+    events.publish(DOMAIN_EVENTS.sessionEnded, { userId: 4, reason: 'deactivated' });
+    expect(disconnected).toEqual(['user:4']);
+    expect(sent).toEqual([]);
   });
 });

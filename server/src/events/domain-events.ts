@@ -19,7 +19,15 @@ export const DOMAIN_EVENTS = {
   alertRaised: 'alert.raised',
   /** A deviation alert was acknowledged (AlertDto). */
   alertAcknowledged: 'alert.acknowledged',
+  /** A user's sessions ended or their grounds changed: signed out, deactivated, role changed (SessionEnded). */
+  sessionEnded: 'session.ended',
 } as const;
+
+/** Whose open desk sockets must close, and why (they may reconnect if their token still holds). */
+export interface SessionEnded {
+  userId: number;
+  reason: 'signed-out' | 'deactivated' | 'role-changed';
+}
 
 /** Readings of one stored batch, per zone: parallel arrays of UTC hour starts (ISO 8601) and MW. */
 export interface ReadingsStored {
@@ -36,6 +44,7 @@ export interface DomainEventPayloads {
   [DOMAIN_EVENTS.scheduleChanged]: DeskScheduleEvent;
   [DOMAIN_EVENTS.alertRaised]: AlertDto;
   [DOMAIN_EVENTS.alertAcknowledged]: AlertDto;
+  [DOMAIN_EVENTS.sessionEnded]: SessionEnded;
 }
 
 export type DomainEventName = keyof DomainEventPayloads;

@@ -1,10 +1,12 @@
-import { EntityManager, UniqueConstraintViolationException } from '@mikro-orm/mariadb';
-import { ConflictException, Injectable, NotFoundException } from '@nestjs/common';
+import { UniqueConstraintViolationException } from '@mikro-orm/mariadb';
+import { ConflictException, Injectable, Logger, NotFoundException } from '@nestjs/common';
 import type { CreateFeedKeyRequest, CreatedFeedKey, FeedKeyDto } from '@morrowline/shared';
 import { createHash, randomBytes } from 'node:crypto';
 import { AuditService, type Actor } from '../audit/audit.service';
-import { Zone } from '../zones/entities/zone.entity';
-import { FeedKey } from './entities/feed-key.entity';
+import { DATABASE_UNAVAILABLE_MESSAGE, isDatabaseUnavailable } from '../common/database-unavailable';
+import { ZonesRepository } from '../zones/zones.repository';
+import type { FeedKey } from './entities/feed-key.entity';
+import { FeedKeysRepository } from './feed-keys.repository';
 
 const KEY_PREFIX = 'mlfeed_';
 /** lastUsedAt is written at most this often per key. */
@@ -37,36 +39,34 @@ export interface FeedIdentity {
 /** Meter-feed API keys: created (shown once), listed and revoked by admins; checked on connect. */
 @Injectable()
 export class FeedKeysService {
+  private readonly logger = new Logger(FeedKeysService.name);
   private readonly touched = new Map<number, number>();
 
   constructor(
-    private readonly em: EntityManager,
+    private readonly keys: FeedKeysRepository,
+    private readonly zones: ZonesRepository,
     private readonly audit: AuditService,
   ) {}
 
   async list(): Promise<FeedKeyDto[]> {
-    const keys = await this.em.fork().find(FeedKey, {}, { populate: ['zone'], orderBy: { revokedAt: 'asc', name: 'asc' } });
+    const keys = await this.keys.list();
     return keys.map(toFeedKeyDto);
   }
 
   async create(actor: Actor | null, request: CreateFeedKeyRequest): Promise<CreatedFeedKey> {
     const apiKey = `${KEY_PREFIX}${randomBytes(32).toString('base64url')}`;
     try {
-      return await this.em.fork().transactional(async (tx) => {
-        const zone = request.zone ? await tx.findOne(Zone, { code: request.zone }) : null;
+      return await this.keys.fork().transactional(async (tx) => {
+        const zone = request.zone ? await this.zones.byCode(request.zone, tx) : null;
         if (request.zone && !zone) throw new NotFoundException(`No zone with code ${request.zone}`);
-        const key = tx.create(FeedKey, {
+        const key = await this.keys.insert(tx, {
           name: request.name.trim(),
           keyHash: hashFeedKey(apiKey),
           prefix: apiKey.slice(0, KEY_PREFIX.length + 6),
           zone,
-          createdAt: new Date(),
           createdById: actor?.id ?? null,
           createdByEmail: actor?.email ?? null,
-          lastUsedAt: null,
-          revokedAt: null,
         });
-        await tx.flush();
         const feedKey = toFeedKeyDto(key);
         this.audit.stage(tx, actor, { action: 'feed-key.create', subjectType: 'feed-key', subjectId: key.id, after: feedKey });
         return { feedKey, apiKey };
@@ -78,8 +78,8 @@ export class FeedKeysService {
   }
 
   async revoke(actor: Actor | null, id: number, reason?: string): Promise<FeedKeyDto> {
-    return this.em.fork().transactional(async (tx) => {
-      const key = await tx.findOne(FeedKey, { id }, { populate: ['zone'] });
+    return this.keys.fork().transactional(async (tx) => {
+      const key = await this.keys.byId(tx, id);
       if (!key) throw new NotFoundException(`No feed key with id ${id}`);
       if (key.revokedAt) return toFeedKeyDto(key);
       const before = toFeedKeyDto(key);
@@ -95,11 +95,10 @@ export class FeedKeysService {
    * revoked and renamed aside, so the printed key is the only one that works.
    */
   async rotate(name: string): Promise<string> {
-    const em = this.em.fork();
-    const old = await em.findOne(FeedKey, { name });
+    const old = await this.keys.byName(name);
     if (old) {
       await this.revoke(null, old.id, 'Rotated by the start script');
-      await em.nativeUpdate(FeedKey, { id: old.id }, { name: `${name} (rotated ${new Date().toISOString()})`.slice(0, 120) });
+      await this.keys.rename(old.id, `${name} (rotated ${new Date().toISOString()})`.slice(0, 120));
     }
     const created = await this.create(null, { name });
     return created.apiKey;
@@ -108,8 +107,14 @@ export class FeedKeysService {
   /** The feed a key belongs to, or an error a feed can act on. */
   async authenticate(apiKey: unknown): Promise<FeedIdentity> {
     if (typeof apiKey !== 'string' || apiKey.length === 0) throw new Error('A feed must connect with auth: { apiKey }');
-    const em = this.em.fork();
-    const key = await em.findOne(FeedKey, { keyHash: hashFeedKey(apiKey) }, { populate: ['zone'] });
+    let key: FeedKey | null;
+    try {
+      key = await this.keys.byHash(hashFeedKey(apiKey));
+    } catch (error) {
+      // The handshake's answer reaches a client not yet known: never the driver's message.
+      this.logger.warn(`feed key check failed: ${error instanceof Error ? error.message : String(error)}`);
+      throw new Error(isDatabaseUnavailable(error) ? DATABASE_UNAVAILABLE_MESSAGE : 'The server could not check this feed key; try again', { cause: error });
+    }
     if (!key) throw new Error('This feed key is not known');
     if (key.revokedAt) throw new Error('This feed key has been revoked');
     this.touch(key.id);
@@ -118,18 +123,15 @@ export class FeedKeysService {
 
   /** Is the key still good? (checked for every batch, so a revocation takes effect at once). */
   async isActive(id: number): Promise<boolean> {
-    const count = await this.em.fork().count(FeedKey, { id, revokedAt: null });
-    if (count > 0) this.touch(id);
-    return count > 0;
+    const active = await this.keys.isActive(id);
+    if (active) this.touch(id);
+    return active;
   }
 
   private touch(id: number): void {
     const now = Date.now();
     if (now - (this.touched.get(id) ?? 0) < TOUCH_EVERY_MS) return;
     this.touched.set(id, now);
-    void this.em
-      .fork()
-      .nativeUpdate(FeedKey, { id }, { lastUsedAt: new Date(now) })
-      .catch(() => undefined);
+    void this.keys.touch(id, new Date(now)).catch(() => undefined);
   }
 }

@@ -1,4 +1,4 @@
-import { Body, Controller, Get, HttpCode, Param, ParseIntPipe, Post } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Param, Post } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import { PERMISSIONS, type CreatedFeedKey, type FeedKeyDto } from '@morrowline/shared';
 import type { AuthUser } from '../common/auth-user';
@@ -6,6 +6,7 @@ import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { Roles } from '../common/decorators/roles.decorator';
 import { CreateFeedKeyDto, RevokeFeedKeyDto } from './dto/feed-key.dto';
 import { FeedKeysService } from './feed-keys.service';
+import { ParseIdPipe } from '../common/pipes/parse-id.pipe';
 
 @ApiTags('feeds')
 @ApiBearerAuth()
@@ -27,7 +28,7 @@ export class FeedsController {
 
   @Post(':id/revoke')
   @HttpCode(200)
-  revoke(@CurrentUser() actor: AuthUser, @Param('id', ParseIntPipe) id: number, @Body() body: RevokeFeedKeyDto): Promise<FeedKeyDto> {
+  revoke(@CurrentUser() actor: AuthUser, @Param('id', ParseIdPipe) id: number, @Body() body: RevokeFeedKeyDto): Promise<FeedKeyDto> {
     return this.keys.revoke(actor, id, body.reason);
   }
 }

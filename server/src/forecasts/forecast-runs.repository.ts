@@ -3,6 +3,7 @@ import { Injectable } from '@nestjs/common';
 import { ForecastRun } from './entities/forecast-run.entity';
 
 export type RunValues = Pick<ForecastRun, 'id' | 'issuedAt' | 'firstHour' | 'mean' | 'origin'>;
+export type VersionRun = Pick<ForecastRun, 'id' | 'issuedAt' | 'firstHour' | 'mean' | 'lower80' | 'upper80' | 'origin' | 'modelVersionId'>;
 
 /** Stored forecast runs. */
 @Injectable()
@@ -39,5 +40,24 @@ export class ForecastRunsRepository {
       { zone: zoneId, issuedAt: { $lt: issuedBefore }, firstHour: { $lte: firstTo, $gte: firstFrom } },
       { fields: ['id', 'issuedAt', 'firstHour', 'mean', 'origin'], orderBy: { issuedAt: 'desc', id: 'desc' } },
     );
+  }
+
+  /** Runs the given model versions made for a zone, issued in [from, to]; newest first. */
+  async ofVersions(zoneId: number, versionIds: readonly number[], from: Date, to: Date): Promise<VersionRun[]> {
+    if (versionIds.length === 0) return [];
+    return this.em.fork().find(
+      ForecastRun,
+      { zone: zoneId, modelVersionId: { $in: [...versionIds] }, issuedAt: { $gte: from, $lte: to } },
+      { fields: ['id', 'issuedAt', 'firstHour', 'mean', 'lower80', 'upper80', 'origin', 'modelVersionId'], orderBy: { issuedAt: 'desc', id: 'desc' } },
+    );
+  }
+
+  async byId(id: number): Promise<ForecastRun | null> {
+    return this.em.fork().findOne(ForecastRun, { id }, { populate: ['zone'] });
+  }
+
+  /** A zone's runs, newest first, without their values' bands. */
+  async listOf(zoneId: number, limit: number): Promise<ForecastRun[]> {
+    return this.em.fork().find(ForecastRun, { zone: zoneId }, { orderBy: { issuedAt: 'desc', id: 'desc' }, limit });
   }
 }

@@ -5,13 +5,12 @@ import { ZonesModule } from '../zones/zones.module';
 import { ForecastRunsRepository } from './forecast-runs.repository';
 import { ForecastsController } from './forecasts.controller';
 import { ForecastsService } from './forecasts.service';
-import { StoredForecastLookup } from './stored-forecast.lookup';
 
-/** Stored forecast runs, the latest per zone, and the forecast look-up of the deviation alerts. */
+/** Stored forecast runs and the latest per zone. */
 @Module({
   imports: [ReadingsModule, OutagesModule, ZonesModule],
   controllers: [ForecastsController],
-  providers: [ForecastsService, ForecastRunsRepository, StoredForecastLookup],
-  exports: [ForecastsService, ForecastRunsRepository, StoredForecastLookup],
+  providers: [ForecastsService, ForecastRunsRepository],
+  exports: [ForecastsService, ForecastRunsRepository],
 })
 export class ForecastsModule {}

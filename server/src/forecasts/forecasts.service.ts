@@ -1,6 +1,7 @@
 import type { EntityManager } from '@mikro-orm/mariadb';
-import { Injectable } from '@nestjs/common';
-import { HOUR_MS, type ForecastRunDto, type LatestForecastsDto } from '@morrowline/shared';
+import { BadRequestException, Injectable, NotFoundException } from '@nestjs/common';
+import { HOUR_MS, type ForecastDiffDto, type ForecastRunDto, type ForecastRunSummaryDto, type LatestForecastsDto } from '@morrowline/shared';
+import { diffRuns } from './forecast-diff';
 import { DOMAIN_EVENTS } from '../events/domain-events';
 import { DomainEventsPublisher } from '../events/domain-events.publisher';
 import { floorAtZero, seasonalNaive, type IntervalForecast } from '@morrowline/engine';
@@ -29,6 +30,20 @@ export interface NewForecastRun {
 
 /** A stored number must never be NaN or negative load. */
 const clean = (v: readonly number[]): number[] => v.map((x) => (Number.isFinite(x) ? Math.max(0, Math.round(x * 1000) / 1000) : 0));
+
+export function toRunSummaryDto(run: ForecastRun, zone: string): ForecastRunSummaryDto {
+  return {
+    id: run.id,
+    zone,
+    issuedAt: run.issuedAt.toISOString(),
+    origin: run.origin,
+    basedOnHour: run.basedOnHour ? run.basedOnHour.toISOString() : null,
+    method: run.method,
+    modelVersionId: run.modelVersionId,
+    firstHour: run.firstHour.toISOString(),
+    hours: run.mean.length,
+  };
+}
 
 export function toForecastRunDto(run: ForecastRun, zone: string, from?: number, to?: number): ForecastRunDto {
   const first = run.firstHour.getTime();
@@ -62,7 +77,7 @@ export function toForecastRunDto(run: ForecastRun, zone: string, from?: number, 
 @Injectable()
 export class ForecastsService {
   constructor(
-    private readonly runs: ForecastRunsRepository,
+    private readonly stored: ForecastRunsRepository,
     private readonly zoneRows: ZonesRepository,
     private readonly readings: ReadingsService,
     private readonly outages: OutagesService,
@@ -72,7 +87,7 @@ export class ForecastsService {
   /** Adds a run to a transaction's unit of work; the caller flushes and then calls `announce`. */
   stage(tx: EntityManager, run: NewForecastRun): ForecastRun {
     const f = floorAtZero(run.forecast);
-    return this.runs.add(tx, {
+    return this.stored.add(tx, {
       zone: run.zone,
       issuedAt: run.replayedAt === undefined ? new Date() : new Date(run.replayedAt),
       origin: run.replayedAt === undefined ? 'issued' : 'replayed',
@@ -96,7 +111,7 @@ export class ForecastsService {
 
   /** The newest run the desk issued; replayed runs are history and never the live forecast. */
   async latestRun(zoneId: number): Promise<ForecastRun | null> {
-    return this.runs.latestOf(zoneId);
+    return this.stored.latestOf(zoneId);
   }
 
   /**
@@ -104,7 +119,25 @@ export class ForecastsService {
    * replayed as of a past time (src/replay), never for the live desk.
    */
   async runAsOf(zoneId: number, at: Date): Promise<ForecastRun | null> {
-    return this.runs.asOf(zoneId, at);
+    return this.stored.asOf(zoneId, at);
+  }
+
+  /** A zone's stored runs with their issue times, newest first (the forecast vintages). */
+  async runs(code: string, limit = 48): Promise<ForecastRunSummaryDto[]> {
+    const [zone] = await this.readings.resolveZones([code]);
+    return (await this.stored.listOf(zone.id, limit)).map((r) => toRunSummaryDto(r, zone.code));
+  }
+
+  /** How the forecast moved from one stored run to another of the same zone, hour by hour. */
+  async diff(id: number, against: number, from?: Date, to?: Date): Promise<ForecastDiffDto> {
+    if (from && to && from >= to) throw new BadRequestException('from must be before to');
+    const [a, b] = await Promise.all([this.stored.byId(id), this.stored.byId(against)]);
+    if (!a) throw new NotFoundException(`No forecast run ${id}`);
+    if (!b) throw new NotFoundException(`No forecast run ${against}`);
+    if (a.zone.id !== b.zone.id) throw new BadRequestException(`Runs ${id} (${a.zone.code}) and ${against} (${b.zone.code}) are of different zones`);
+    const hour = (d?: Date) => (d ? Math.floor(d.getTime() / HOUR_MS) * HOUR_MS : undefined);
+    const d = diffRuns({ firstHour: a.firstHour.getTime(), mean: a.mean }, { firstHour: b.firstHour.getTime(), mean: b.mean }, hour(from), to ? Math.ceil(to.getTime() / HOUR_MS) * HOUR_MS : undefined);
+    return { zone: a.zone.code, from: toRunSummaryDto(a, a.zone.code), to: toRunSummaryDto(b, b.zone.code), ...d };
   }
 
   async latest(codes: readonly string[] | undefined, from?: Date, to?: Date): Promise<LatestForecastsDto> {

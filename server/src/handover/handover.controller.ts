@@ -1,12 +1,14 @@
-import { Body, Controller, Get, Param, ParseIntPipe, Post, Query } from '@nestjs/common';
+import { Body, Controller, Get, Param, Post, Query } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import { PERMISSIONS, type CurrentShiftDto, type HandoverDraftDto, type HandoverNoteDto, type HandoverNoteWithEventsDto, type Page } from '@morrowline/shared';
 import type { AuthUser } from '../common/auth-user';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
-import { Roles, SignedIn } from '../common/decorators/roles.decorator';
+import { Roles } from '../common/decorators/roles.decorator';
 import { AcknowledgeHandoverDto, CreateHandoverDto, HandoverSearchDto } from './dto/create-handover.dto';
 import { HandoverService } from './handover.service';
+import { ParseIdPipe } from '../common/pipes/parse-id.pipe';
 
+/** The shift log: written and read by the forecasting roles only (not viewers, not admin: README's role table). */
 @ApiTags('handover')
 @ApiBearerAuth()
 @Controller('handover')
@@ -14,7 +16,7 @@ export class HandoverController {
   constructor(private readonly handover: HandoverService) {}
 
   @Get('shift')
-  @SignedIn()
+  @Roles(...PERMISSIONS.readDeskWork)
   shift(): Promise<CurrentShiftDto> {
     return this.handover.currentShift();
   }
@@ -26,20 +28,20 @@ export class HandoverController {
   }
 
   @Get('pending')
-  @SignedIn()
+  @Roles(...PERMISSIONS.readDeskWork)
   pending(): Promise<HandoverNoteDto[]> {
     return this.handover.pending();
   }
 
   @Get()
-  @SignedIn()
+  @Roles(...PERMISSIONS.readDeskWork)
   search(@Query() query: HandoverSearchDto): Promise<Page<HandoverNoteDto>> {
     return this.handover.search(query);
   }
 
   @Get(':id')
-  @SignedIn()
-  get(@Param('id', ParseIntPipe) id: number): Promise<HandoverNoteWithEventsDto> {
+  @Roles(...PERMISSIONS.readDeskWork)
+  get(@Param('id', ParseIdPipe) id: number): Promise<HandoverNoteWithEventsDto> {
     return this.handover.get(id);
   }
 
@@ -51,7 +53,7 @@ export class HandoverController {
 
   @Post(':id/acknowledge')
   @Roles(...PERMISSIONS.forecast)
-  acknowledge(@CurrentUser() user: AuthUser, @Param('id', ParseIntPipe) id: number, @Body() body: AcknowledgeHandoverDto): Promise<HandoverNoteDto> {
+  acknowledge(@CurrentUser() user: AuthUser, @Param('id', ParseIdPipe) id: number, @Body() body: AcknowledgeHandoverDto): Promise<HandoverNoteDto> {
     return this.handover.acknowledge(user, id, body.reply);
   }
 }

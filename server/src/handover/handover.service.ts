@@ -15,9 +15,10 @@ import { AuditService } from '../audit/audit.service';
 import type { AuthUser } from '../common/auth-user';
 import type { AppConfig } from '../config/configuration';
 import { User } from '../users/entities/user.entity';
+import { Zone } from '../zones/entities/zone.entity';
 import { HandoverItem } from './entities/handover-item.entity';
 import { HandoverNote } from './entities/handover-note.entity';
-import { SHIFT_EVENT_PREFIXES, toShiftEvent } from './shift-events';
+import { SHIFT_EVENT_PREFIXES, toShiftEvent, type ZoneNames } from './shift-events';
 import { shiftAt, type ShiftPattern } from './shifts';
 
 function toItemDto(item: HandoverItem): HandoverItemDto {
@@ -65,7 +66,14 @@ export class HandoverService {
   async draft(now = new Date()): Promise<HandoverDraftDto> {
     const shift = shiftAt(this.pattern, now);
     const events = await this.audit.between(new Date(shift.start), now, SHIFT_EVENT_PREFIXES);
-    return { shift, events: events.map(toShiftEvent), openItems: await this.openItems() };
+    const zoneNames = await this.zoneNames();
+    return { shift, events: events.map((e) => toShiftEvent(e, zoneNames)), openItems: await this.openItems() };
+  }
+
+  /** Every zone's name by code, switched-off zones included: events name zones, not codes. */
+  private async zoneNames(): Promise<ZoneNames> {
+    const zones = await this.em.fork().find(Zone, {}, { fields: ['code', 'name'] });
+    return new Map(zones.map((zone) => [zone.code, zone.name]));
   }
 
   /**
@@ -147,7 +155,8 @@ export class HandoverService {
     const note = await this.em.fork().findOne(HandoverNote, { id }, { populate: ['author', 'items', 'acknowledgedBy'] });
     if (!note) throw new NotFoundException(`No handover note ${id}`);
     const events = await this.audit.between(note.shiftStart, note.createdAt, SHIFT_EVENT_PREFIXES);
-    return { ...toNoteDto(note, this.pattern.timeZone), events: events.map(toShiftEvent) };
+    const zoneNames = await this.zoneNames();
+    return { ...toNoteDto(note, this.pattern.timeZone), events: events.map((e) => toShiftEvent(e, zoneNames)) };
   }
 
   async pending(): Promise<HandoverNoteDto[]> {

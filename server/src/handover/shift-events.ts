@@ -32,10 +32,44 @@ const PHRASES: Record<string, string> = {
   'readings.upload': 'History uploaded',
 };
 
-/** "Deviation alert raised · zone HARROW" — a plain line for the handover, whatever the action. */
-export function toShiftEvent(entry: AuditEntryDto): ShiftEventDto {
+/** A zone's name by its code; the code itself for a zone no longer known. */
+export type ZoneNames = ReadonlyMap<string, string>;
+
+const signed = (value: number, unit: string) => `${value >= 0 ? '+' : '−'}${Math.abs(value).toFixed(1)} ${unit}`;
+
+function field(record: unknown, key: string): unknown {
+  return record !== null && typeof record === 'object' ? (record as Record<string, unknown>)[key] : undefined;
+}
+
+/**
+ * What the event is about, in the words of the desk: the zone by name and, for an alert, how far
+ * the load was off ("Lanternside +12.3 MW", or in percent where the alert carries no MW); a
+ * schedule by zone, day and revision. Falls back to the audit subject ("model 12") when the entry
+ * names no zone.
+ */
+function describeSubject(entry: AuditEntryDto, zoneNames: ZoneNames): string {
+  const facts = entry.after ?? entry.before;
+  const code = field(facts, 'zone');
+  if (typeof code !== 'string') return entry.subjectId ? `${entry.subjectType} ${entry.subjectId}` : '';
+  const parts = [zoneNames.get(code) ?? code];
+  if (entry.action.startsWith('alert.')) {
+    const mw = field(facts, 'peakDeviationMw');
+    const pct = field(facts, 'peakDeviationPct');
+    if (typeof mw === 'number') parts.push(signed(mw, 'MW'));
+    else if (typeof pct === 'number') parts.push(signed(pct, '%'));
+  }
+  const day = field(facts, 'operatingDay');
+  const revision = field(facts, 'revision');
+  if (typeof day === 'string') parts.push(day);
+  if (typeof revision === 'number') parts.push(`revision ${revision}`);
+  return parts.join(' ');
+}
+
+/** "Deviation alert raised · Lanternside +12.3 MW" — a plain line for the handover, whatever the action. */
+export function toShiftEvent(entry: AuditEntryDto, zoneNames: ZoneNames = new Map()): ShiftEventDto {
   const phrase = PHRASES[entry.action] ?? entry.action.replace(/[.-]/g, ' ').replace(/^\w/, (c) => c.toUpperCase());
-  const subject = entry.subjectId ? ` · ${entry.subjectType} ${entry.subjectId}` : '';
+  const about = describeSubject(entry, zoneNames);
+  const subject = about ? ` · ${about}` : '';
   return {
     at: entry.at,
     action: entry.action,

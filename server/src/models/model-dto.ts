@@ -28,7 +28,7 @@ export function toModelVersionDto(v: ModelVersion): ModelVersionDto {
     backtestDays: v.backtestDays,
     backtestMape: v.backtestMape,
     baselineMape: v.baselineMape,
-    warnings: v.warnings,
+    warnings: operatorWarnings(v.warnings),
     createdBy: v.createdByEmail,
     createdAt: v.createdAt.toISOString(),
     durationMs: v.durationMs,
@@ -36,6 +36,15 @@ export function toModelVersionDto(v: ModelVersion): ModelVersionDto {
     promotedAt: v.promotedAt ? v.promotedAt.toISOString() : null,
     retiredAt: v.retiredAt ? v.retiredAt.toISOString() : null,
   };
+}
+
+/**
+ * The fit's warnings an operator can act on. The engine's "residuals still correlated" (Ljung–Box
+ * at 24 or 48 h) is left out: nearly every hourly load model fails it, so it says nothing about
+ * one version; the comparison shows instead how often the forecast's 80 % band held the load.
+ */
+export function operatorWarnings(warnings: readonly string[]): string[] {
+  return warnings.filter((w) => !w.startsWith('residuals still correlated'));
 }
 
 export function toRefitJobDto(j: RefitJob): RefitJobDto {

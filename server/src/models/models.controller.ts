@@ -1,13 +1,15 @@
-import { Body, Controller, Get, HttpCode, Param, ParseIntPipe, Post, Query } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Param, Post, Query } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import { PERMISSIONS, type ModelCompareDto, type ModelVersionDto, type RefitJobDto } from '@morrowline/shared';
 import type { AuthUser } from '../common/auth-user';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
-import { Roles, SignedIn } from '../common/decorators/roles.decorator';
+import { Roles } from '../common/decorators/roles.decorator';
 import { ModelsQueryDto, PromoteModelDto, RefitsQueryDto, StartRefitDto } from './dto/models.dto';
 import { ModelsService } from './models.service';
 import { RefitsService } from './refits.service';
+import { ParseIdPipe } from '../common/pipes/parse-id.pipe';
 
+/** Model versions and refits: the model internals, read by the forecasting roles only (README's role table). */
 @ApiTags('models')
 @ApiBearerAuth()
 @Controller('models')
@@ -18,7 +20,7 @@ export class ModelsController {
   ) {}
 
   @Get('refits')
-  @SignedIn()
+  @Roles(...PERMISSIONS.readDeskWork)
   jobs(@Query() query: RefitsQueryDto): Promise<RefitJobDto[]> {
     return this.refits.list(query.state, query.zone, query.limit);
   }
@@ -32,27 +34,27 @@ export class ModelsController {
   }
 
   @Get()
-  @SignedIn()
+  @Roles(...PERMISSIONS.readDeskWork)
   list(@Query() query: ModelsQueryDto): Promise<ModelVersionDto[]> {
     return this.models.list(query.zone, query.limit);
   }
 
   @Get(':id')
-  @SignedIn()
-  get(@Param('id', ParseIntPipe) id: number): Promise<ModelVersionDto> {
+  @Roles(...PERMISSIONS.readDeskWork)
+  get(@Param('id', ParseIdPipe) id: number): Promise<ModelVersionDto> {
     return this.models.get(id);
   }
 
   @Get(':id/compare')
-  @SignedIn()
-  compare(@Param('id', ParseIntPipe) id: number): Promise<ModelCompareDto> {
+  @Roles(...PERMISSIONS.readDeskWork)
+  compare(@Param('id', ParseIdPipe) id: number): Promise<ModelCompareDto> {
     return this.models.compare(id);
   }
 
   @Post(':id/promote')
   @HttpCode(200)
   @Roles(...PERMISSIONS.forecast)
-  promote(@CurrentUser() actor: AuthUser, @Param('id', ParseIntPipe) id: number, @Body() body: PromoteModelDto): Promise<ModelVersionDto> {
+  promote(@CurrentUser() actor: AuthUser, @Param('id', ParseIdPipe) id: number, @Body() body: PromoteModelDto): Promise<ModelVersionDto> {
     return this.models.promote(actor, id, body.reason);
   }
 }

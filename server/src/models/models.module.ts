@@ -16,6 +16,6 @@ import { RefitsService } from './refits.service';
   imports: [ComputeModule, ReadingsModule, ZoneHistoryModule, ZonesModule, ForecastsModule],
   controllers: [ModelsController],
   providers: [ModelsService, RefitsService, RefitScheduler, ModelVersionsRepository, RefitJobsRepository],
-  exports: [RefitsService, ModelsService],
+  exports: [RefitsService, ModelsService, ModelVersionsRepository],
 })
 export class ModelsModule {}

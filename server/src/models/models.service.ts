@@ -4,15 +4,19 @@ import type { ModelCompareDto, ModelVersionDto } from '@morrowline/shared';
 import { AuditService, type Actor } from '../audit/audit.service';
 import { ComputeService } from '../compute/compute.service';
 import { forecastHorizon } from '../forecasts/forecast-horizon';
+import { ForecastRunsRepository } from '../forecasts/forecast-runs.repository';
 import { ForecastsService } from '../forecasts/forecasts.service';
+import { TRAINING_HOURS } from '../history/zone-history';
+import { COMPARE_DAYS, scoringDays } from './analysis/scoring-days';
+import { issuedForDays, sameDaysOf } from './version-comparison';
 import type { ModelVersion } from './entities/model-version.entity';
-import { choiceOf, toModelVersionDto } from './model-dto';
+import { toModelVersionDto } from './model-dto';
 import { ModelVersionsRepository } from './model-versions.repository';
 import { ZoneHistoryLoader } from '../history/zone-history.loader';
 
 /**
- * Model versions: the list per zone, a candidate beside the model in service (both scored again
- * on the same latest days), and promotion by hand with a reason — a rollback is the promotion of
+ * Model versions: the list per zone, a candidate beside the model in service (both scored on the
+ * same latest days as they forecast them), and promotion by hand with a reason — a rollback is the promotion of
  * an earlier retired version. The promoted model's forecast is stored in the same transaction.
  */
 @Injectable()
@@ -23,6 +27,7 @@ export class ModelsService {
     private readonly compute: ComputeService,
     private readonly forecasts: ForecastsService,
     private readonly history: ZoneHistoryLoader,
+    private readonly runs: ForecastRunsRepository,
   ) {}
 
   async list(zone: string | undefined, limit = 100): Promise<ModelVersionDto[]> {
@@ -40,19 +45,34 @@ export class ModelsService {
     return toModelVersionDto(await this.find(id));
   }
 
+  /**
+   * The version beside the model in service, both scored on the zone's latest whole operating days
+   * as they forecast them: each day at its issue time with the version's own coefficients (see
+   * analysis/issue-time-score.ts). A badge is given only when both were scored on the same days
+   * and hours.
+   */
   async compare(id: number): Promise<ModelCompareDto> {
     const candidate = await this.find(id);
     const served = await this.versions.inService(candidate.zone.id, true);
     const inService = served && served.id !== candidate.id ? served : null;
-    const history = await this.history.load(candidate.zone);
-    let sameDays: ModelCompareDto['sameDays'] = { days: 0, from: null, to: null, candidateMape: null, inServiceMape: null, baselineMape: null };
-    if (history) {
-      const r = await this.compute.run('models.compare', { values: history.values, excluded: history.excluded, candidate: choiceOf(candidate), inService: inService ? choiceOf(inService) : null });
-      const at = (i: number | null) => (i === null ? null : new Date(history.firstHourMs + i * HOUR_MS).toISOString());
-      sameDays = { days: r.candidate.days, from: at(r.candidate.from), to: at(r.candidate.to), candidateMape: r.candidate.mape, inServiceMape: r.inService?.mape ?? null, baselineMape: r.candidate.baselineMape };
+    const zone = candidate.zone;
+    const issueTime = `at the ${zone.gateClosure} gate closure the day before (${zone.timeZone}), from the hours that had ended by then`;
+    const history = await this.history.load(zone, TRAINING_HOURS + (COMPARE_DAYS + 2) * 24);
+    const days = history ? scoringDays(history.firstHourMs, history.lastHourMs, zone.timeZone, zone.gateClosure) : [];
+    const base = { zone: zone.code, timeZone: zone.timeZone, candidate: toModelVersionDto(candidate), inService: inService ? toModelVersionDto(inService) : null };
+    if (!history || days.length === 0) {
+      const sameDays: ModelCompareDto['sameDays'] = { days: 0, from: null, to: null, candidateMape: null, inServiceMape: null, baselineMape: null, issueTime, candidate: null, inService: null, comparable: false, notComparable: 'the zone has no whole operating day of readings to score on yet' };
+      return { ...base, sameDays, candidateBetter: null, diagnostics: [] };
     }
-    const better = sameDays.candidateMape !== null && sameDays.inServiceMape !== null ? sameDays.candidateMape < sameDays.inServiceMape : null;
-    return { zone: candidate.zone.code, candidate: toModelVersionDto(candidate), inService: inService ? toModelVersionDto(inService) : null, sameDays, candidateBetter: better };
+    const sides = inService ? [candidate, inService] : [candidate];
+    const runs = await this.runs.ofVersions(zone.id, sides.map((v) => v.id), new Date(days[0].issuedAt - 2 * 24 * HOUR_MS), new Date(days[days.length - 1].issuedAt));
+    const result = await this.compute.run('models.score-at-issue', {
+      values: history.values,
+      excluded: history.excluded,
+      days: days.map(({ dayStart, hours, cut }) => ({ dayStart, hours, cut })),
+      versions: sides.map((v) => ({ model: v.parameters, issued: issuedForDays(v.id, runs, days) })),
+    });
+    return { ...base, ...sameDaysOf(candidate, inService, result, days, issueTime) };
   }
 
   /** Puts a candidate (promote) or a retired version (rollback) into service. */

@@ -19,6 +19,7 @@ import { ModelVersionsRepository } from './model-versions.repository';
 import { decidePromotion } from './promotion-policy';
 import { RefitQueue } from './refit-queue';
 import { RefitJobsRepository } from './refit-jobs.repository';
+import { repeatsVersion } from './unchanged-fit';
 import { ZoneHistoryLoader, type ZoneHistory } from '../history/zone-history.loader';
 
 /** Jobs in flight at once: the pool's threads plus one reading or storing meanwhile. */
@@ -215,7 +216,10 @@ export class RefitsService implements OnApplicationShutdown {
       let promoted = false;
       let why: string;
       let version: ModelVersion | null = null;
-      if (result.model && result.stored) {
+      const fields = result.model && result.stored ? modelVersionFields({ ...result, model: result.model, stored: result.stored }, history, job, false, now, durationMs) : null;
+      if (fields && current && job.mode === 'update' && repeatsVersion(current, fields)) {
+        why = `nothing changed since version ${current.id} (same readings, same estimates); it stays in service and no new version is stored`;
+      } else if (result.model && result.stored) {
         ({ promoted, why } = decidePromotion({
           inServiceId: current?.id ?? null,
           mode: job.mode,

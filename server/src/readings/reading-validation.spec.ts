@@ -23,6 +23,10 @@ describe('validateReading', () => {
     [{ ...good, hour: '2026-03-08T14:00:00Z' }, 'too-far-in-future'],
     [{ ...good, hour: '2026-03-08T09:00:00' }, 'malformed'],
     [{ ...good, hour: 'yesterday' }, 'malformed'],
+    [{ ...good, hour: '2023-02-30T00:00:00Z' }, 'malformed'],
+    [{ ...good, hour: '2024-02-29T24:00:00Z' }, 'malformed'],
+    [{ ...good, hour: '0999-03-08T09:00:00Z' }, 'malformed'],
+    [{ ...good, hour: 1772960400000 }, 'malformed'],
     [{ ...good, quality: 'great' }, 'malformed'],
     ['MILLRACE,180', 'malformed'],
   ])('rejects %j as %s', (raw, reason) => {
@@ -34,6 +38,11 @@ describe('validateReading', () => {
   it('accepts the current and the next hour but not the one after', () => {
     expect(validateReading({ ...good, hour: '2026-03-08T13:00:00Z' }, context).ok).toBe(true);
     expect(validateReading({ ...good, hour: '2026-03-08T14:00:00Z' }, context).ok).toBe(false);
+  });
+
+  it('names the impossible date in its message rather than storing it on the next real hour', () => {
+    const result = validateReading({ ...good, hour: '2023-02-30T00:00:00Z' }, context);
+    expect(result).toEqual({ ok: false, reason: 'malformed', message: 'hour "2023-02-30T00:00:00Z" is not a real date: 2023-02 has no day 30' });
   });
 
   it('refuses a zone a scoped key may not send for', () => {

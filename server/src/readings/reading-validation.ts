@@ -1,9 +1,6 @@
-import { HOUR_MS } from '@morrowline/shared';
+import { HOUR_MS, parseInstant } from '@morrowline/shared';
 import type { ReadingQuality, ReadingRejection, RejectionReason } from '@morrowline/shared';
 import { READING_QUALITIES } from './entities/reading.entity';
-
-/** ISO 8601 date and time with an explicit offset (Z or ±HH:MM); a bare local time is ambiguous. */
-const ISO_WITH_OFFSET = /^\d{4}-\d{2}-\d{2}[T ]\d{2}:\d{2}(:\d{2}(\.\d{1,9})?)?(Z|[+-]\d{2}:\d{2})$/;
 
 /** What validation needs to know about a zone. */
 export interface ZoneLimits {
@@ -44,10 +41,11 @@ export function validateReading(raw: unknown, context: ValidationContext): Valid
   if (typeof raw !== 'object' || raw === null || Array.isArray(raw)) return reject('malformed', 'A reading must be an object with zone, hour and mw');
   const { zone, hour, mw, quality } = raw as Record<string, unknown>;
   if (typeof zone !== 'string' || zone.length === 0) return reject('malformed', 'zone must be a zone code');
-  if (typeof hour !== 'string') return reject('malformed', 'hour must be an ISO 8601 time with an offset, e.g. 2026-03-08T09:00:00Z');
-  if (!ISO_WITH_OFFSET.test(hour)) return reject('malformed', `hour "${hour.slice(0, 40)}" is not an ISO 8601 time with an offset (Z or ±HH:MM)`);
-  const at = Date.parse(hour.replace(' ', 'T'));
-  if (!Number.isFinite(at)) return reject('malformed', `hour "${hour}" is not a real date and time`);
+  // The one time parser: an offset is required, 30 February or 24:00 is refused (never rolled
+  // over onto a real hour), and the year must lie in the documented window.
+  const parsed = parseInstant(hour, 'hour');
+  if (!parsed.ok) return reject('malformed', parsed.message);
+  const at = parsed.value;
   if (quality !== undefined && quality !== null && !(READING_QUALITIES as readonly unknown[]).includes(quality)) {
     return reject('malformed', `quality must be one of ${READING_QUALITIES.join(', ')}`);
   }

@@ -1,7 +1,8 @@
 import { BadRequestException, Injectable } from '@nestjs/common';
 import { parse } from 'csv-parse';
-import type { CsvRowRejection, CsvUploadReport } from '@morrowline/shared';
+import { parseDecimal, type CsvRowRejection, type CsvUploadReport } from '@morrowline/shared';
 import { AuditService, type Actor } from '../audit/audit.service';
+import { delimiterProblem, duplicateRows } from './csv-checks';
 import { ReadingsService } from './readings.service';
 
 /** How many rejected rows a report lists in full (the count is always complete). */
@@ -9,23 +10,16 @@ const REPORT_LIMIT = 1000;
 
 interface CsvRow {
   line: number;
-  reading: { zone: unknown; hour: unknown; mw: unknown };
+  reading: { zone: string; hour: string | undefined; mw: number };
 }
 
 interface ParsedFile {
   rows: CsvRow[];
-  /** Rows refused before validation (wrong number of columns, no zone). */
+  /** Rows refused before validation (wrong number of columns, no zone, a load that is not a plain number). */
   refused: CsvRowRejection[];
 }
 
 const HEADER_NAMES: Record<string, 'hour' | 'mw' | 'zone'> = { timestamp: 'hour', load_mw: 'mw', zone: 'zone' };
-
-/** "12.5" → 12.5; "", "n/a" → NaN (rejected as not a number, with its line). */
-function toNumber(cell: string | undefined): number | string {
-  if (cell === undefined || cell.trim() === '') return Number.NaN;
-  const value = Number(cell);
-  return Number.isFinite(value) ? value : cell;
-}
 
 /**
  * History upload and download as CSV: `timestamp,load_mw[,zone]`, timestamp the UTC start of the
@@ -40,9 +34,13 @@ export class ReadingsCsvService {
   ) {}
 
   async upload(actor: Actor, fileName: string, content: Buffer, defaultZone: string | undefined): Promise<CsvUploadReport> {
-    const { rows, refused } = await this.parse(content, defaultZone);
-    const report: CsvUploadReport = { fileName, rows: rows.length + refused.length, accepted: 0, revised: 0, rejected: [], rejectedCount: 0 };
-    const rejections: CsvRowRejection[] = [...refused];
+    const parsed = await this.parse(content, defaultZone);
+    const report: CsvUploadReport = { fileName, rows: parsed.rows.length + parsed.refused.length, accepted: 0, revised: 0, rejected: [], rejectedCount: 0 };
+    // An hour given twice in one file is refused on every line that gives it, never resolved.
+    const duplicates = duplicateRows(parsed.rows.map((r) => ({ line: r.line, zone: r.reading.zone, hour: r.reading.hour })));
+    const duplicateLines = new Set(duplicates.map((d) => d.line));
+    const rows = parsed.rows.filter((r) => !duplicateLines.has(r.line));
+    const rejections: CsvRowRejection[] = [...parsed.refused, ...duplicates];
     // In slices, so that a large file does not hold the event loop.
     for (let i = 0; i < rows.length; i += 5000) {
       const slice = rows.slice(i, i + 5000);
@@ -71,6 +69,8 @@ export class ReadingsCsvService {
     if (content.includes(0)) throw new BadRequestException('The file is not a text CSV file (it contains binary data); nothing was stored');
     const text = content.toString('utf8');
     if (text.includes('\uFFFD')) throw new BadRequestException('The file is not UTF-8 text; nothing was stored');
+    const delimiter = delimiterProblem(text);
+    if (delimiter) throw new BadRequestException(delimiter);
     const parser = parse(text, { relax_column_count: true, skip_empty_lines: true, trim: true, bom: true, info: true, comment: '#' });
     const rows: CsvRow[] = [];
     const refused: CsvRowRejection[] = [];
@@ -102,7 +102,13 @@ export class ReadingsCsvService {
           refused.push({ line: info.lines, reason: 'unknown-zone', message: 'no zone: add a zone column or pass ?zone=CODE' });
           continue;
         }
-        rows.push({ line: info.lines, reading: { zone, hour: record[columns.hour], mw: toNumber(record[columns.mw]) } });
+        // One number parser: plain decimals only ("0x10", "0b101", "1e3", "" are refused, not read).
+        const mw = parseDecimal(record[columns.mw], 'load_mw');
+        if (!mw.ok) {
+          refused.push({ line: info.lines, reason: 'not-a-number', message: mw.message });
+          continue;
+        }
+        rows.push({ line: info.lines, reading: { zone, hour: record[columns.hour], mw: mw.value } });
         if (rows.length % 10000 === 0) await new Promise((resolve) => setImmediate(resolve));
       }
     } catch (error) {

@@ -1,9 +1,10 @@
-import { EntityManager } from '@mikro-orm/mariadb';
+import { EntityManager, type Knex } from '@mikro-orm/mariadb';
 import { Injectable } from '@nestjs/common';
-import type { ReadingQuality } from '@morrowline/shared';
+import { HOUR_MS, VersionClock, type ReadingQuality } from '@morrowline/shared';
+import { READING_QUALITIES } from './entities/reading.entity';
 import type { ValidReading } from './reading-validation';
 
-/** Rows per transaction: the rate of the batched upsert levels off around a thousand. */
+/** Rows per statement (a batch is one transaction of several statements): larger gains little. */
 export const UPSERT_CHUNK = 1000;
 const DEADLOCK_ERRNOS = new Set([1213, 1205]);
 
@@ -14,11 +15,16 @@ export interface StoredRow {
   quality: ReadingQuality;
 }
 
+/** A valid reading with what orders it: the feed's version, or none (the server stamps it on storing). */
+export type VersionedReading = ValidReading & { version?: number | null };
+
 export interface StoreOutcome {
-  /** Readings accepted (repeats of the stored value included). */
+  /** Readings accepted (repeats of the stored value and superseded values included). */
   stored: number;
   /** Of them, how many replaced a different earlier value (a revision was written). */
   revised: number;
+  /** Of them, how many were older than the value already stored (kept as a revision only). */
+  superseded: number;
   /** Rows whose stored value is now new or different: what desks and alerts need to hear of. */
   changed: StoredRow[];
 }
@@ -30,6 +36,23 @@ export function sqlDateTime(ms: number): string {
 
 function sqlDateTime3(ms: number): string {
   return new Date(ms).toISOString().slice(0, 23).replace('T', ' ');
+}
+
+/** A whole number as an SQL literal; anything else is a bug upstream, refused here. */
+function sqlInteger(value: number): string {
+  if (!Number.isSafeInteger(value)) throw new Error(`not a whole number for SQL: ${value}`);
+  return String(value);
+}
+
+/** A finite number as an SQL literal ("1e-7" and "1e+21" are valid MariaDB numbers). */
+function sqlNumber(value: number): string {
+  if (!Number.isFinite(value)) throw new Error(`not a finite number for SQL: ${value}`);
+  return String(value);
+}
+
+function sqlQuality(value: ReadingQuality): ReadingQuality {
+  if (!(READING_QUALITIES as readonly string[]).includes(value)) throw new Error(`not a reading quality: ${String(value)}`);
+  return value;
 }
 
 /** DATETIME values come back as UTC "YYYY-MM-DD HH:MM:SS[.fff]" strings (see dateStrings below) or Dates. */
@@ -45,38 +68,124 @@ interface ExistingRow {
   quality: ReadingQuality;
   source: string;
   received_at: unknown;
+  version: unknown;
+}
+
+interface Held {
+  mw: number;
+  quality: ReadingQuality;
+  source: string;
+  receivedAt: number;
+  version: number;
+}
+
+/** What store() decided for one batch, before it is written. */
+interface Plan {
+  /** Final value per key, with its version: the upsert's rows. */
+  finals: Map<string, { reading: VersionedReading; version: number }>;
+  /** reading_revisions rows, 9 values each. */
+  revisions: (string | number | null)[];
+  revised: number;
+  superseded: number;
+  changed: Map<string, StoredRow>;
 }
 
 /**
- * The readings table through plain SQL: a keyed upsert in transactions of UPSERT_CHUNK rows
- * that keeps each replaced value as a revision, and the range queries of the live view.
+ * Decides, for a batch walked in order over what is stored (`current`, locked; updated here as
+ * the batch goes), which value each (zone, hour) ends with and which values become revisions.
+ * No I/O: the SQL below applies the same rule again (the upsert is conditional on the version),
+ * so a stored row never goes back to an older value.
+ */
+export function planBatch(readings: readonly VersionedReading[], current: Map<string, Held>, source: string, now: number, clock: VersionClock): Plan {
+  const plan: Plan = { finals: new Map(), revisions: [], revised: 0, superseded: 0, changed: new Map() };
+  const revision = (zoneId: number, hourStart: number, held: Held, replacedBy: string) =>
+    plan.revisions.push(zoneId, sqlDateTime(hourStart), held.mw, held.quality, held.source, sqlDateTime3(held.receivedAt), sqlDateTime3(now), replacedBy, held.version > 0 ? String(held.version) : null);
+  for (const r of readings) {
+    const key = `${r.zoneId}|${r.hourStart}`;
+    const before = current.get(key);
+    // No version: the latest value at the moment it is stored (CSV uploads, unversioned feeds).
+    const version = r.version ?? clock.nextAbove(before?.version ?? 0);
+    const incoming: Held = { mw: r.mw, quality: r.quality, source, receivedAt: now, version };
+    if (before && version <= before.version) {
+      // A repeat of the stored version changes nothing; an older value is kept as a revision.
+      if (version < before.version) {
+        plan.superseded++;
+        revision(r.zoneId, r.hourStart, incoming, before.source);
+      }
+      continue;
+    }
+    const sameValue = before !== undefined && before.mw === r.mw && before.quality === r.quality;
+    if (before && !sameValue) {
+      plan.revised++;
+      revision(r.zoneId, r.hourStart, before, source);
+    }
+    // The same value under a later version: only the version (and who said it last) moves on.
+    current.set(key, incoming);
+    plan.finals.set(key, { reading: r, version });
+    if (!sameValue) plan.changed.set(key, { zoneId: r.zoneId, hourStart: r.hourStart, mw: r.mw, quality: r.quality });
+  }
+  return plan;
+}
+
+/** One store() call waiting for the next group commit. */
+interface Request {
+  readings: readonly VersionedReading[];
+  source: string;
+  resolve: (outcome: StoreOutcome) => void;
+  reject: (error: unknown) => void;
+}
+
+/** Most readings one group commit takes (it always takes at least one whole request). */
+export const GROUP_READINGS = 20_000;
+
+/**
+ * The readings table through plain SQL: every batch stored whole or not at all, a keyed upsert
+ * that applies a value only over a lower version and keeps every other value as a revision, and
+ * the range queries of the live view.
+ *
+ * Writes are applied strictly in the order store() was called. Batches that queue up while a
+ * commit is on its way to disk are written together in the next transaction (group commit;
+ * DeWitt et al., 1984): with a durable log (innodb_flush_log_at_trx_commit=1) each commit waits
+ * for a disk flush, and sharing that flush keeps the rate. A group commits or fails as a whole,
+ * so each batch in it is still all or nothing, and each caller learns which.
  */
 @Injectable()
 export class ReadingsRepository {
-  /** Writes run one after another: no lock waits between our own batches, no deadlocks. */
-  private queue: Promise<unknown> = Promise.resolve();
+  private readonly pending: Request[] = [];
+  private writing = false;
+  private readonly clock = new VersionClock();
 
   constructor(private readonly em: EntityManager) {}
 
-  /** Stores valid readings (idempotent: the same value sent twice is stored once). */
-  store(readings: readonly ValidReading[], source: string): Promise<StoreOutcome> {
-    const run = this.queue.then(() => this.storeNow(readings, source));
-    this.queue = run.catch(() => undefined);
-    return run;
+  /**
+   * Stores valid readings, all or none (idempotent: the same version sent twice is stored once).
+   * The order of calls is the order of application; it resolves once the readings are committed.
+   */
+  store(readings: readonly VersionedReading[], source: string): Promise<StoreOutcome> {
+    return new Promise((resolve, reject) => {
+      this.pending.push({ readings, source, resolve, reject });
+      if (!this.writing) void this.writeAll();
+    });
   }
 
-  private async storeNow(readings: readonly ValidReading[], source: string): Promise<StoreOutcome> {
-    const outcome: StoreOutcome = { stored: 0, revised: 0, changed: [] };
-    for (let i = 0; i < readings.length; i += UPSERT_CHUNK) {
-      const chunk = readings.slice(i, i + UPSERT_CHUNK);
-      const result = await this.withDeadlockRetry(() => this.storeChunk(chunk, source));
-      outcome.stored += result.stored;
-      outcome.revised += result.revised;
-      outcome.changed.push(...result.changed);
-      // Let sockets and HTTP requests in between chunks of a large upload.
-      if (i + UPSERT_CHUNK < readings.length) await new Promise((resolve) => setImmediate(resolve));
+  private async writeAll(): Promise<void> {
+    this.writing = true;
+    try {
+      while (this.pending.length > 0) {
+        let count = 0;
+        let take = 0;
+        while (take < this.pending.length && (take === 0 || count + this.pending[take].readings.length <= GROUP_READINGS)) count += this.pending[take++].readings.length;
+        const group = this.pending.splice(0, take);
+        try {
+          const outcomes = await this.withDeadlockRetry(() => this.storeGroup(group));
+          group.forEach((request, i) => request.resolve(outcomes[i]));
+        } catch (error) {
+          for (const request of group) request.reject(error);
+        }
+      }
+    } finally {
+      this.writing = false;
     }
-    return outcome;
   }
 
   private async withDeadlockRetry<T>(work: () => Promise<T>): Promise<T> {
@@ -91,75 +200,97 @@ export class ReadingsRepository {
     }
   }
 
-  private async storeChunk(chunk: readonly ValidReading[], source: string): Promise<StoreOutcome> {
+  /**
+   * Reads and locks the stored rows of some hours of a zone. Hours that lie close together (the
+   * usual batch: consecutive hours) are read as one primary-key range, far cheaper than a long
+   * IN list of points; scattered hours are read by points, a thousand at a time.
+   */
+  private async lockStored(trx: Knex.Transaction, zoneId: number, hours: number[]): Promise<ExistingRow[][]> {
+    const columns = 'zone_id, hour_start, mw, quality, source, received_at, version';
+    hours.sort((a, b) => a - b);
+    const first = hours[0];
+    const last = hours[hours.length - 1];
+    if ((last - first) / HOUR_MS < 2 * hours.length) {
+      return [unwrap<ExistingRow>(await trx.raw(`select ${columns} from readings where zone_id = ? and hour_start between ? and ? for update`, [zoneId, sqlDateTime(first), sqlDateTime(last)]))];
+    }
+    const out: ExistingRow[][] = [];
+    for (let i = 0; i < hours.length; i += UPSERT_CHUNK) {
+      const list = hours.slice(i, i + UPSERT_CHUNK);
+      out.push(unwrap<ExistingRow>(await trx.raw(`select ${columns} from readings where zone_id = ? and hour_start in (${list.map(() => '?').join(',')}) for update`, [zoneId, ...list.map(sqlDateTime)])));
+    }
+    return out;
+  }
+
+  /** One transaction for the group's batches, planned in order; answers each batch's outcome. */
+  private async storeGroup(group: readonly Request[]): Promise<StoreOutcome[]> {
+    if (group.every((request) => request.readings.length === 0)) return group.map(() => ({ stored: 0, revised: 0, superseded: 0, changed: [] }));
     const knex = this.em.getKnex();
     return knex.transaction(async (trx) => {
       const now = Date.now();
       // 1. What is stored now for these keys, locked until we commit.
       const hoursByZone = new Map<number, Set<number>>();
-      for (const r of chunk) {
-        let hours = hoursByZone.get(r.zoneId);
-        if (!hours) hoursByZone.set(r.zoneId, (hours = new Set()));
-        hours.add(r.hourStart);
+      for (const request of group) {
+        for (const r of request.readings) {
+          let hours = hoursByZone.get(r.zoneId);
+          if (!hours) hoursByZone.set(r.zoneId, (hours = new Set()));
+          hours.add(r.hourStart);
+        }
       }
-      const existing = new Map<string, { mw: number; quality: ReadingQuality; source: string; receivedAt: number }>();
+      const current = new Map<string, Held>();
       for (const [zoneId, hours] of hoursByZone) {
-        const list = [...hours];
-        const rows = unwrap<ExistingRow>(
-          await trx.raw(
-            `select zone_id, hour_start, mw, quality, source, received_at from readings where zone_id = ? and hour_start in (${list.map(() => '?').join(',')}) for update`,
-            [zoneId, ...list.map(sqlDateTime)],
-          ),
-        );
-        for (const row of rows) {
-          existing.set(`${row.zone_id}|${fromSqlDateTime(row.hour_start)}`, {
-            mw: Number(row.mw),
-            quality: row.quality,
-            source: row.source,
-            receivedAt: fromSqlDateTime(row.received_at),
-          });
+        for (const rows of await this.lockStored(trx, zoneId, [...hours])) {
+          for (const row of rows) {
+            current.set(`${row.zone_id}|${fromSqlDateTime(row.hour_start)}`, {
+              mw: Number(row.mw),
+              quality: row.quality,
+              source: row.source,
+              receivedAt: fromSqlDateTime(row.received_at),
+              version: Number(row.version),
+            });
+          }
         }
       }
-      // 2. Walk the chunk in order: each value that replaces a different one leaves a revision.
-      const current = new Map(existing);
-      const finals = new Map<string, ValidReading>();
-      const revisions: (string | number)[] = [];
-      let revised = 0;
-      for (const r of chunk) {
-        const key = `${r.zoneId}|${r.hourStart}`;
-        const before = current.get(key);
-        if (before && before.mw === r.mw && before.quality === r.quality) continue;
-        if (before) {
-          revised++;
-          revisions.push(r.zoneId, sqlDateTime(r.hourStart), before.mw, before.quality, before.source, sqlDateTime3(before.receivedAt), sqlDateTime3(now), source);
-        }
-        current.set(key, { mw: r.mw, quality: r.quality, source, receivedAt: now });
-        finals.set(key, r);
-      }
-      if (revisions.length > 0) {
-        const rows = revisions.length / 8;
+      // 2. Walk the batches in order: which value each key ends with, which values are revisions.
+      const plans = group.map((request) => planBatch(request.readings, current, request.source, now, this.clock));
+      const revisions = plans.flatMap((plan) => plan.revisions);
+      const finals = new Map<string, { reading: VersionedReading; version: number; source: string }>();
+      plans.forEach((plan, i) => {
+        for (const [key, final] of plan.finals) finals.set(key, { ...final, source: group[i].source });
+      });
+      const fields = 9;
+      for (let i = 0; i < revisions.length; i += UPSERT_CHUNK * fields) {
+        const values = revisions.slice(i, i + UPSERT_CHUNK * fields);
+        // A superseded value sent again is already kept: the unique (zone, hour, version) key skips it.
         await trx.raw(
-          `insert into reading_revisions (zone_id, hour_start, mw, quality, source, received_at, replaced_at, replaced_by) values ${new Array(rows).fill('(?,?,?,?,?,?,?,?)').join(',')}`,
-          revisions,
-        );
-      }
-      // 3. The upsert, only for keys whose value is new or different.
-      const changed = [...finals.values()];
-      if (changed.length > 0) {
-        const received = sqlDateTime3(now);
-        const values: (string | number)[] = [];
-        for (const r of changed) values.push(r.zoneId, sqlDateTime(r.hourStart), r.mw, r.quality, source, received);
-        await trx.raw(
-          `insert into readings (zone_id, hour_start, mw, quality, source, received_at) values ${new Array(changed.length).fill('(?,?,?,?,?,?)').join(',')}
-           on duplicate key update mw = values(mw), quality = values(quality), source = values(source), received_at = values(received_at)`,
+          `insert into reading_revisions (zone_id, hour_start, mw, quality, source, received_at, replaced_at, replaced_by, version) values ${new Array(values.length / fields).fill('(?,?,?,?,?,?,?,?,?)').join(',')}
+           on duplicate key update id = id`,
           values,
         );
       }
-      return {
-        stored: chunk.length,
-        revised,
-        changed: changed.map((r) => ({ zoneId: r.zoneId, hourStart: r.hourStart, mw: r.mw, quality: r.quality })),
-      };
+      // 3. The upsert, conditional on the version in SQL as well: a row never goes back to an older
+      // value. Rows are written as literals (numbers, fixed-form times, a checked quality) and the
+      // sources as session variables bound once: thousands of bound parameters cost more CPU in the
+      // driver than the database spends on the rows.
+      const rows = [...finals.values()];
+      const sources = [...new Set(rows.map((row) => row.source))];
+      if (sources.length > 0) await trx.raw(`set ${sources.map((_, i) => `@morrowline_source_${i} = ?`).join(', ')}`, sources);
+      const sourceVariable = new Map(sources.map((source, i) => [source, `@morrowline_source_${i}`]));
+      const received = `'${sqlDateTime3(now)}'`;
+      for (let i = 0; i < rows.length; i += UPSERT_CHUNK) {
+        const tuples = rows
+          .slice(i, i + UPSERT_CHUNK)
+          .map(({ reading: r, version, source }) => `(${sqlInteger(r.zoneId)},'${sqlDateTime(r.hourStart)}',${sqlNumber(r.mw)},'${sqlQuality(r.quality)}',${sourceVariable.get(source)},${received},${sqlInteger(version)})`);
+        await trx.raw(
+          `insert into readings (zone_id, hour_start, mw, quality, source, received_at, version) values ${tuples.join(',')}
+           on duplicate key update
+             mw = if(values(version) > version, values(mw), mw),
+             quality = if(values(version) > version, values(quality), quality),
+             source = if(values(version) > version, values(source), source),
+             received_at = if(values(version) > version, values(received_at), received_at),
+             version = greatest(version, values(version))`,
+        );
+      }
+      return plans.map((plan, i) => ({ stored: group[i].readings.length, revised: plan.revised, superseded: plan.superseded, changed: [...plan.changed.values()] }));
     });
   }
 

@@ -5,7 +5,8 @@ import { DomainEventsPublisher } from '../events/domain-events.publisher';
 import { pickActiveZones } from '../zones/active-zones';
 import { ZonesRepository } from '../zones/zones.repository';
 import { validateBatch, type ZoneLimits } from './reading-validation';
-import { ReadingsRepository, type StoredRow } from './readings.repository';
+import { checkVersion } from './reading-version';
+import { ReadingsRepository, type StoredRow, type VersionedReading } from './readings.repository';
 
 /** Longest range one series request may ask for. */
 export const MAX_SERIES_HOURS = 24 * 92;
@@ -22,6 +23,8 @@ export interface IngestOptions {
 export interface IngestResult {
   stored: number;
   revised: number;
+  /** Valid readings older than the stored value of their hour (kept as revisions only). */
+  superseded: number;
   rejected: ReadingRejection[];
 }
 
@@ -47,18 +50,44 @@ export class ReadingsService {
     return this.zoneCache;
   }
 
-  /** Validates and stores a batch; answers what was stored and why the rest was refused. */
+  /**
+   * Validates and stores a batch, its valid readings all or none (a failure throws and nothing
+   * is stored); answers what was stored and why the rest was refused.
+   */
   async ingest(raws: readonly unknown[], options: IngestOptions): Promise<IngestResult> {
+    return (await this.enqueue(raws, options)).result;
+  }
+
+  /**
+   * Validates a batch and puts its valid readings in the store's queue; resolves as soon as they
+   * are queued (their place in the order of application is then fixed), with `result` settling
+   * once they are committed. A feed socket waits for this before it looks at its next batch, so
+   * its batches are applied in arrival order while one is validated as the other is written.
+   */
+  async enqueue(raws: readonly unknown[], options: IngestOptions): Promise<{ result: Promise<IngestResult> }> {
     let zones = await this.zones();
     // A zone created a moment ago should not be refused because of the cache.
     if (raws.some((r) => typeof r === 'object' && r !== null && typeof (r as { zone?: unknown }).zone === 'string' && !zones.byCode.has((r as { zone: string }).zone))) {
       zones = await this.zones(true);
     }
-    const { valid, rejected } = validateBatch(raws, { zones: zones.byCode, now: Date.now(), allowedZone: options.allowedZone });
-    if (valid.length === 0) return { stored: 0, revised: 0, rejected };
-    const outcome = await this.repository.store(valid, options.source);
-    if (outcome.changed.length > 0) this.announce(outcome.changed, zones.byId);
-    return { stored: outcome.stored, revised: outcome.revised, rejected };
+    const now = Date.now();
+    const checked = validateBatch(raws, { zones: zones.byCode, now, allowedZone: options.allowedZone });
+    const rejected = [...checked.rejected];
+    const valid: VersionedReading[] = [];
+    checked.valid.forEach((reading, i) => {
+      const index = checked.indexes[i];
+      const version = checkVersion(raws[index], now);
+      if (version.ok) valid.push({ ...reading, version: version.version });
+      else rejected.push({ index, reason: 'malformed', message: version.message });
+    });
+    rejected.sort((a, b) => a.index - b.index);
+    if (valid.length === 0) return { result: Promise.resolve({ stored: 0, revised: 0, superseded: 0, rejected }) };
+    const byId = zones.byId;
+    const result = this.repository.store(valid, options.source).then((outcome) => {
+      if (outcome.changed.length > 0) this.announce(outcome.changed, byId);
+      return { stored: outcome.stored, revised: outcome.revised, superseded: outcome.superseded, rejected };
+    });
+    return { result };
   }
 
   /** Tells listeners of the rows just stored (the store has committed them). */

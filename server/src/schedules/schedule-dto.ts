@@ -23,6 +23,7 @@ export function toAdjustmentDto(a: ScheduleAdjustment): ScheduleAdjustmentDto {
     at: a.at.toISOString(),
     undoneAt: iso(a.undoneAt),
     undoneBy: ref(a.undoneBy),
+    carriedFromRevision: a.carriedFromRevision,
   };
 }
 

@@ -1,4 +1,4 @@
-import { SCHEDULE_CAUTION, SCHEDULE_EXPORT_COLUMNS, type ScheduleExportJson, type ScheduleExportRow, type ScheduleRevisionDto } from '@morrowline/shared';
+import { formatLocalTime, formatUtcTime, SCHEDULE_CAUTION, SCHEDULE_EXPORT_COLUMNS, type ScheduleExportJson, type ScheduleExportRow, type ScheduleRevisionDto } from '@morrowline/shared';
 
 /** Rows of a published revision, one per hour of the operating day (23, 24 or 25). */
 export function exportRows(revision: ScheduleRevisionDto, publishedByEmail: string): ScheduleExportRow[] {
@@ -38,14 +38,19 @@ export function exportCsv(revision: ScheduleRevisionDto, publishedByEmail: strin
   return lines.join('\r\n') + '\r\n';
 }
 
-/** The publication e-mail: subject, and a plain-text body with the hourly table and the caution. */
-export function publicationMail(revision: ScheduleRevisionDto, zoneName: string, publisher: { name: string; email: string }): { subject: string; text: string } {
+/**
+ * The publication e-mail: subject, and a plain-text body with the hourly table and the caution.
+ * Times follow the desk's clock rule: the zone's local time with its abbreviation, UTC labelled.
+ */
+export function publicationMail(revision: ScheduleRevisionDto, zone: { name: string; timeZone: string }, publisher: { name: string; email: string }): { subject: string; text: string } {
+  const zoneName = zone.name;
+  const publishedAt = `${formatLocalTime(revision.publishedAt, zone.timeZone)} (${formatUtcTime(revision.publishedAt)})`;
   const subject = `Day-ahead schedule ${revision.zone} ${revision.operatingDay} revision ${revision.revision} published`;
   const total = revision.hours.reduce((sum, h) => sum + (h.adjustedMw ?? 0), 0);
   const table = ['HE     MW', ...revision.hours.map((h) => `${h.hourEnding.padEnd(6)} ${(h.adjustedMw ?? 0).toFixed(1).padStart(8)}`)];
   const text = [
     `The day-ahead schedule for ${zoneName} (${revision.zone}), operating day ${revision.operatingDay}, revision ${revision.revision}, was published`,
-    `by ${publisher.name} <${publisher.email}> at ${revision.publishedAt}.`,
+    `by ${publisher.name} <${publisher.email}> at ${publishedAt}.`,
     ...(revision.correctionReason ? [`Correction: ${revision.correctionReason}`] : []),
     ...(revision.late ? ['It was submitted after gate closure.'] : []),
     '',

@@ -22,11 +22,11 @@ export class ScheduleNotifier {
   ) {}
 
   /** Answers the revision with its mail outcome, or null when nobody subscribes to the zone. */
-  async publication(publisher: AuthUser, revision: ScheduleRevisionDto, zoneName: string): Promise<ScheduleRevisionDto | null> {
+  async publication(publisher: AuthUser, revision: ScheduleRevisionDto, zone: { name: string; timeZone: string }): Promise<ScheduleRevisionDto | null> {
     const em = this.em.fork();
     const subscribers = (await em.find(ScheduleSubscriber, { active: true }, { orderBy: { id: 'asc' } })).filter((s) => s.zones === null || s.zones.includes(revision.zone));
     if (subscribers.length === 0) return null;
-    const mail = publicationMail(revision, zoneName, publisher);
+    const mail = publicationMail(revision, zone, publisher);
     let result: { sent: string[]; error: string | null };
     try {
       result = await this.mailer.send({ to: subscribers.map((s) => s.email), ...mail });

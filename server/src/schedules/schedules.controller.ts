@@ -1,4 +1,4 @@
-import { Body, Controller, Delete, Get, Header, Param, ParseIntPipe, Post, Query, Res } from '@nestjs/common';
+import { Body, Controller, Delete, Get, Header, Param, Post, Query, Res } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 import { PERMISSIONS, type AdjustmentResultDto, type DayScheduleDto, type ScheduleRevisionDto, type ScheduleSubscriberDto } from '@morrowline/shared';
@@ -6,11 +6,17 @@ import type { AuthUser } from '../common/auth-user';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { Roles } from '../common/decorators/roles.decorator';
 import { CreateAdjustmentDto, CreateCorrectionDto, CreateSubscriberDto, DayQueryDto, ExportQueryDto, ReturnScheduleDto, SubmitScheduleDto } from './dto/schedules.dto';
+import { dayFor, revisionFor, revisionsFor } from './published-only';
 import { exportCsv, exportJson } from './schedule-export';
 import { ScheduleSubscribersService } from './schedule-subscribers.service';
 import { SchedulesService } from './schedules.service';
+import { ParseDayPipe } from '../common/pipes/parse-day.pipe';
+import { ParseIdPipe } from '../common/pipes/parse-id.pipe';
 
-/** Day-ahead schedules; the contract is shared/src/schedules.ts. Admin takes no part (IT, not forecasting). */
+/**
+ * Day-ahead schedules; the contract is shared/src/schedules.ts. Admin takes no part (IT, not
+ * forecasting); viewers read the published revisions only (published-only.ts).
+ */
 @ApiTags('schedules')
 @ApiBearerAuth()
 @Controller('schedules')
@@ -35,26 +41,26 @@ export class SchedulesController {
 
   @Delete('subscribers/:id')
   @Roles(...PERMISSIONS.supervise)
-  removeSubscriber(@CurrentUser() user: AuthUser, @Param('id', ParseIntPipe) id: number): Promise<ScheduleSubscriberDto> {
+  removeSubscriber(@CurrentUser() user: AuthUser, @Param('id', ParseIdPipe) id: number): Promise<ScheduleSubscriberDto> {
     return this.subscribers.remove(user, id);
   }
 
   @Delete('adjustments/:id')
   @Roles(...PERMISSIONS.forecast)
-  undo(@CurrentUser() user: AuthUser, @Param('id', ParseIntPipe) id: number): Promise<ScheduleRevisionDto> {
+  undo(@CurrentUser() user: AuthUser, @Param('id', ParseIdPipe) id: number): Promise<ScheduleRevisionDto> {
     return this.schedules.undo(user, id);
   }
 
   @Get('revisions/:id')
   @Roles(...PERMISSIONS.readForecasts)
-  revision(@Param('id', ParseIntPipe) id: number): Promise<ScheduleRevisionDto> {
-    return this.schedules.revision(id);
+  async revision(@CurrentUser() user: AuthUser, @Param('id', ParseIdPipe) id: number): Promise<ScheduleRevisionDto> {
+    return revisionFor(user.role, await this.schedules.revision(id));
   }
 
   @Get('revisions/:id/export')
   @Roles(...PERMISSIONS.readForecasts)
   @Header('Cache-Control', 'no-store')
-  async export(@Param('id', ParseIntPipe) id: number, @Query() query: ExportQueryDto, @Res({ passthrough: true }) res: Response): Promise<string> {
+  async export(@Param('id', ParseIdPipe) id: number, @Query() query: ExportQueryDto, @Res({ passthrough: true }) res: Response): Promise<string> {
     const { revision, publishedByEmail } = await this.schedules.forExport(id);
     const name = `schedule-${revision.zone}-${revision.operatingDay}-r${revision.revision}.${query.format}`;
     res.setHeader('Content-Disposition', `attachment; filename="${name}"`);
@@ -68,49 +74,61 @@ export class SchedulesController {
 
   @Post('revisions/:id/submit')
   @Roles(...PERMISSIONS.forecast)
-  submit(@CurrentUser() user: AuthUser, @Param('id', ParseIntPipe) id: number, @Body() body: SubmitScheduleDto): Promise<ScheduleRevisionDto> {
+  submit(@CurrentUser() user: AuthUser, @Param('id', ParseIdPipe) id: number, @Body() body: SubmitScheduleDto): Promise<ScheduleRevisionDto> {
     return this.schedules.submit(user, id, body.comment);
+  }
+
+  @Post('revisions/:id/back-to-model')
+  @Roles(...PERMISSIONS.forecast)
+  backToModel(@CurrentUser() user: AuthUser, @Param('id', ParseIdPipe) id: number): Promise<ScheduleRevisionDto> {
+    return this.schedules.backToModel(user, id);
+  }
+
+  @Post('revisions/:id/restart')
+  @Roles(...PERMISSIONS.forecast)
+  restart(@CurrentUser() user: AuthUser, @Param('id', ParseIdPipe) id: number): Promise<ScheduleRevisionDto> {
+    return this.schedules.restartFromLatest(user, id);
   }
 
   @Post('revisions/:id/approve')
   @Roles(...PERMISSIONS.supervise)
-  approve(@CurrentUser() user: AuthUser, @Param('id', ParseIntPipe) id: number): Promise<ScheduleRevisionDto> {
+  approve(@CurrentUser() user: AuthUser, @Param('id', ParseIdPipe) id: number): Promise<ScheduleRevisionDto> {
     return this.schedules.approve(user, id);
   }
 
   @Post('revisions/:id/return')
   @Roles(...PERMISSIONS.supervise)
-  returnToOperators(@CurrentUser() user: AuthUser, @Param('id', ParseIntPipe) id: number, @Body() body: ReturnScheduleDto): Promise<ScheduleRevisionDto> {
+  returnToOperators(@CurrentUser() user: AuthUser, @Param('id', ParseIdPipe) id: number, @Body() body: ReturnScheduleDto): Promise<ScheduleRevisionDto> {
     return this.schedules.returnToOperators(user, id, body.comment);
   }
 
   @Get(':day')
   @Roles(...PERMISSIONS.readForecasts)
-  day(@Param('day') day: string, @Query() query: DayQueryDto): Promise<DayScheduleDto> {
-    return this.schedules.day(day, query.zone);
+  async day(@CurrentUser() user: AuthUser, @Param('day', ParseDayPipe) day: string, @Query() query: DayQueryDto): Promise<DayScheduleDto> {
+    return dayFor(user.role, await this.schedules.day(day, query.zone));
   }
 
   @Post(':day/adjustments')
   @Roles(...PERMISSIONS.forecast)
-  adjust(@CurrentUser() user: AuthUser, @Param('day') day: string, @Body() body: CreateAdjustmentDto): Promise<AdjustmentResultDto> {
+  adjust(@CurrentUser() user: AuthUser, @Param('day', ParseDayPipe) day: string, @Body() body: CreateAdjustmentDto): Promise<AdjustmentResultDto> {
     return this.schedules.adjust(user, day, body);
   }
 
   @Post(':day/:zone/draft')
   @Roles(...PERMISSIONS.forecast)
-  draft(@CurrentUser() user: AuthUser, @Param('day') day: string, @Param('zone') zone: string): Promise<ScheduleRevisionDto> {
+  draft(@CurrentUser() user: AuthUser, @Param('day', ParseDayPipe) day: string, @Param('zone') zone: string): Promise<ScheduleRevisionDto> {
     return this.schedules.createDraft(user, day, zone);
   }
 
   @Post(':day/:zone/corrections')
   @Roles(...PERMISSIONS.forecast)
-  correction(@CurrentUser() user: AuthUser, @Param('day') day: string, @Param('zone') zone: string, @Body() body: CreateCorrectionDto): Promise<ScheduleRevisionDto> {
+  correction(@CurrentUser() user: AuthUser, @Param('day', ParseDayPipe) day: string, @Param('zone') zone: string, @Body() body: CreateCorrectionDto): Promise<ScheduleRevisionDto> {
     return this.schedules.correction(user, day, zone, body.reason);
   }
 
   @Get(':day/:zone/revisions')
   @Roles(...PERMISSIONS.readForecasts)
-  revisions(@Param('day') day: string, @Param('zone') zone: string): Promise<ScheduleRevisionDto[]> {
-    return this.schedules.revisions(day, zone);
+  async revisions(@CurrentUser() user: AuthUser, @Param('day', ParseDayPipe) day: string, @Param('zone') zone: string): Promise<ScheduleRevisionDto[]> {
+    return revisionsFor(user.role, await this.schedules.revisions(day, zone));
   }
 }

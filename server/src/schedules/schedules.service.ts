@@ -2,6 +2,8 @@ import { UniqueConstraintViolationException } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/mariadb';
 import { BadRequestException, ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
 import {
+  formatLocalTime,
+  formatUtcTime,
   gateClosureAt,
   isOperatingDay,
   may,
@@ -34,11 +36,19 @@ import { revisionKey, ScheduleRevisionsRepository } from './schedule-revisions.r
 import { stateAfter, transitionRefusal, type ScheduleAction } from './schedule-transitions';
 
 const key = (zone: Zone, day: string) => revisionKey(zone.id, day);
+
+/** The latest stored run when it was issued after the run the revision started from (see ZoneScheduleDto.newerForecast). */
+export function newerForecast(revision: Pick<ScheduleRevision, 'forecastRunId' | 'forecastIssuedAt'> | undefined, latest: Pick<LaidForecast, 'runId' | 'issuedAt' | 'replayed'>): ZoneScheduleDto['newerForecast'] {
+  if (!revision || latest.runId === null || latest.replayed || latest.runId === revision.forecastRunId) return null;
+  if (revision.forecastIssuedAt && Date.parse(latest.issuedAt) <= revision.forecastIssuedAt.getTime()) return null;
+  return { runId: latest.runId, issuedAt: latest.issuedAt, revisionRunId: revision.forecastRunId, revisionIssuedAt: revision.forecastIssuedAt?.toISOString() ?? null };
+}
 const at = (r: ScheduleRevision) => ({ state: r.state, revision: r.revision, zone: r.zone.code, operatingDay: r.operatingDay });
 
 /**
  * The day-ahead schedule workflow: drafts from the latest forecast, adjustments (replayed from the
- * start values on every change), submission, return, approval = publication, corrections.
+ * start values on every change), back to the model, a fresh start from a newer forecast run,
+ * submission, return, approval = publication, corrections that carry the adjustments forward.
  * Every change is one transaction with its audit entry; desks are told after it commits.
  */
 @Injectable()
@@ -76,7 +86,7 @@ export class SchedulesService {
   private async forecastHours(zone: Zone, day: string, slots: ScheduleHourSlot[], asOf?: Date): Promise<LaidForecast> {
     const { from, to } = operatingDayBounds(day, zone.timeZone);
     const past = asOf ? await this.forecasts.runAsOf(zone.id, asOf) : null;
-    if (asOf && !past) throw new ConflictException(`No forecast run of ${zone.code} had been stored by ${asOf.toISOString()}`);
+    if (asOf && !past) throw new ConflictException(`No forecast run of ${zone.code} had been stored by ${formatUtcTime(asOf)}`);
     const run = past ? toForecastRunDto(past, zone.code, from, to) : (await this.forecasts.latest([zone.code], new Date(from), new Date(to))).zones[0];
     return layForecast(run, slots);
   }
@@ -104,6 +114,7 @@ export class SchedulesService {
         secondsToGateClosure: Math.round((gate.getTime() - now.getTime()) / 1000),
         gateClosed: now >= gate,
         forecast: forecast.hours.some((h) => h.modelMw !== null) ? { runId: forecast.runId, issuedAt: forecast.issuedAt, hours: forecast.hours } : null,
+        newerForecast: newerForecast(working ?? published, forecast),
         working: working ? toRevisionDto(working, adjustments) : null,
         published: published ? toRevisionDto(published, adjustments) : null,
       });
@@ -298,7 +309,7 @@ export class SchedulesService {
       const gate = new Date(gateClosureAt(revision.operatingDay, revision.zone.timeZone, revision.zone.gateClosure));
       const late = now >= gate;
       if (late && !may(user.role, 'supervise')) {
-        throw new ForbiddenException(`Gate closure for ${revision.zone.code} ${revision.operatingDay} passed at ${gate.toISOString()}; only a supervisor may submit now, and it is marked late`);
+        throw new ForbiddenException(`Gate closure for ${revision.zone.code} ${revision.operatingDay} passed at ${formatLocalTime(gate, revision.zone.timeZone)}; only a supervisor may submit now, and it is marked late`);
       }
       revision.state = stateAfter('submit', revision.state);
       revision.submittedBy = tx.getReference(User, user.id);
@@ -341,7 +352,7 @@ export class SchedulesService {
    * `asOf`: only for work replayed as of a past time (src/replay); HTTP callers never pass it.
    */
   async approve(user: AuthUser, id: number, asOf?: Date): Promise<ScheduleRevisionDto> {
-    const { dto, zoneName } = await this.revisionsRepo.fork().transactional(async (tx) => {
+    const { dto, zoneName, timeZone } = await this.revisionsRepo.fork().transactional(async (tx) => {
       const revision = await this.lockRevision(tx, id);
       this.allowed(revision, 'approve');
       if (revision.submittedBy?.id === user.id) throw new ForbiddenException('A supervisor cannot approve a schedule they submitted; another supervisor must approve it');
@@ -363,10 +374,10 @@ export class SchedulesService {
       this.audit.stage(tx, user, { action: 'schedule.approve', subjectType: 'schedule', subjectId: id, after, reason: revision.correctionReason, at: asOf });
       this.audit.stage(tx, user, { action: 'schedule.publish', subjectType: 'schedule', subjectId: id, after, reason: revision.correctionReason, at: asOf });
       await tx.flush();
-      return { dto: await this.dto(tx, revision), zoneName: revision.zone.name };
+      return { dto: await this.dto(tx, revision), zoneName: revision.zone.name, timeZone: revision.zone.timeZone };
     });
     this.announce('publish', dto);
-    const mailed = await this.notifier.publication(user, dto, zoneName);
+    const mailed = await this.notifier.publication(user, dto, { name: zoneName, timeZone });
     if (mailed) this.announce('mail', mailed);
     return mailed ?? dto;
   }
@@ -380,20 +391,41 @@ export class SchedulesService {
         if (!published) throw new ConflictException(`There is no published ${code} schedule for ${day} to correct`);
         const working = await this.revisionsRepo.working(tx, zone.id, day);
         if (working) throw new ConflictException(`Revision ${working.revision} of ${code} ${day} is already being worked on (${working.state})`);
+        // The correction keeps the published revision's run and start values and carries its
+        // adjustments forward with their reasons, so the values start as published and each
+        // earlier change stays explained and can be undone.
+        const carried = await this.revisionsRepo.activeAdjustments(tx, published.id);
         const revision = await this.addDraft(tx, zone, day, user, {
           forecastRunId: published.forecastRunId,
           forecastIssuedAt: published.forecastIssuedAt,
           forecastReplayed: published.forecastReplayed,
-          hours: published.hours.map((h) => ({ ...h, startMw: h.adjustedMw })),
+          hours: published.hours.map((h) => ({ ...h })),
           createdAt: new Date(),
           correctionReason: reason,
         });
+        await tx.flush();
+        for (const a of carried) {
+          this.revisionsRepo.addAdjustment(tx, {
+            revision,
+            zoneCode: a.zoneCode,
+            kind: a.kind,
+            fromHour: a.fromHour,
+            toHour: a.toHour,
+            value: a.value,
+            reason: a.reason,
+            by: a.by,
+            at: a.at,
+            carriedFromRevision: a.carriedFromRevision ?? published.revision,
+          });
+        }
+        await tx.populate(revision, ['zone']);
+        this.replay(revision, carried, (m) => new ConflictException(`The published adjustments no longer apply: ${m}`));
         await tx.flush();
         this.audit.stage(tx, user, {
           action: 'schedule.correction',
           subjectType: 'schedule',
           subjectId: revision.id,
-          after: { zone: code, operatingDay: day, revision: revision.revision, correcting: published.revision },
+          after: { zone: code, operatingDay: day, revision: revision.revision, correcting: published.revision, carriedAdjustments: carried.length },
           reason,
         });
         await tx.flush();
@@ -405,6 +437,73 @@ export class SchedulesService {
       if (err instanceof UniqueConstraintViolationException) throw new ConflictException(`${code} ${day} is already being corrected`);
       throw err;
     }
+  }
+
+  /**
+   * Back to the model: every adjustment in force on the working revision is undone (kept in the
+   * list, struck through, each with who undid it) and the hours go back to the model values of the
+   * revision's forecast run.
+   */
+  async backToModel(user: AuthUser, id: number): Promise<ScheduleRevisionDto> {
+    const dto = await this.revisionsRepo.fork().transactional(async (tx) => {
+      const revision = await this.lockRevision(tx, id);
+      this.allowed(revision, 'undo');
+      const active = await this.revisionsRepo.activeAdjustments(tx, revision.id);
+      const atModel = revision.hours.every((h) => h.startMw === h.modelMw);
+      if (active.length === 0 && atModel) throw new ConflictException(`Revision ${revision.revision} of ${revision.zone.code} ${revision.operatingDay} already shows the model values`);
+      const now = new Date();
+      for (const a of active) {
+        a.undoneAt = now;
+        a.undoneBy = tx.getReference(User, user.id);
+      }
+      revision.hours = revision.hours.map((h) => ({ ...h, startMw: h.modelMw, adjustedMw: h.modelMw }));
+      this.audit.stage(tx, user, {
+        action: 'schedule.back-to-model',
+        subjectType: 'schedule',
+        subjectId: id,
+        after: { zone: revision.zone.code, operatingDay: revision.operatingDay, revision: revision.revision, undoneAdjustments: active.map((a) => a.id), forecastRunId: revision.forecastRunId },
+      });
+      await tx.flush();
+      return this.dto(tx, revision);
+    });
+    this.announce('back-to-model', dto);
+    return dto;
+  }
+
+  /**
+   * Start again from the latest forecast run: the working revision takes the latest run's model
+   * values as its start values and the adjustments in force are applied again on them, in order
+   * (refused, naming the hour, when one no longer applies: undo it first).
+   */
+  async restartFromLatest(user: AuthUser, id: number): Promise<ScheduleRevisionDto> {
+    const em = this.revisionsRepo.fork();
+    const current = await this.revisionsRepo.byId(em, id, true);
+    if (!current) throw new NotFoundException(`No schedule revision ${id}`);
+    const forecast = await this.forecastHours(current.zone, current.operatingDay, operatingDaySlots(current.operatingDay, current.zone.timeZone));
+    if (forecast.runId === null) throw new ConflictException(`No forecast run of ${current.zone.code} is stored to start again from`);
+    const dto = await this.revisionsRepo.fork().transactional(async (tx) => {
+      const revision = await this.lockRevision(tx, id);
+      this.allowed(revision, 'adjust');
+      if (revision.forecastRunId === forecast.runId) throw new ConflictException(`Revision ${revision.revision} of ${revision.zone.code} ${revision.operatingDay} already starts from the latest run (${forecast.runId})`);
+      const before = { forecastRunId: revision.forecastRunId, forecastIssuedAt: revision.forecastIssuedAt?.toISOString() ?? null };
+      revision.forecastRunId = forecast.runId;
+      revision.forecastIssuedAt = new Date(forecast.issuedAt);
+      revision.forecastReplayed = forecast.replayed;
+      revision.hours = forecast.hours;
+      const active = (await this.revisionsRepo.activeAdjustments(tx, revision.id)).map((a) => ({ ...a }));
+      this.replay(revision, active, (m) => new ConflictException(`An adjustment in force does not apply to the latest run: ${m}; undo it first`));
+      this.audit.stage(tx, user, {
+        action: 'schedule.restart',
+        subjectType: 'schedule',
+        subjectId: id,
+        before,
+        after: { zone: revision.zone.code, operatingDay: revision.operatingDay, revision: revision.revision, forecastRunId: forecast.runId, forecastIssuedAt: forecast.issuedAt, adjustmentsReapplied: active.length },
+      });
+      await tx.flush();
+      return this.dto(tx, revision);
+    });
+    this.announce('restart', dto);
+    return dto;
   }
 
   async revisions(day: string, code: string): Promise<ScheduleRevisionDto[]> {

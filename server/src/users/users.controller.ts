@@ -1,4 +1,4 @@
-import { Body, Controller, Get, Param, ParseIntPipe, Patch, Post } from '@nestjs/common';
+import { Body, Controller, Get, Param, Patch, Post } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import { PERMISSIONS, type UserDto } from '@morrowline/shared';
 import type { AuthUser } from '../common/auth-user';
@@ -7,6 +7,7 @@ import { Roles } from '../common/decorators/roles.decorator';
 import { CreateUserDto } from './dto/create-user.dto';
 import { UpdateUserDto } from './dto/update-user.dto';
 import { UsersService } from './users.service';
+import { ParseIdPipe } from '../common/pipes/parse-id.pipe';
 
 @ApiTags('users')
 @ApiBearerAuth()
@@ -26,7 +27,7 @@ export class UsersController {
   }
 
   @Patch(':id')
-  update(@CurrentUser() actor: AuthUser, @Param('id', ParseIntPipe) id: number, @Body() body: UpdateUserDto): Promise<UserDto> {
+  update(@CurrentUser() actor: AuthUser, @Param('id', ParseIdPipe) id: number, @Body() body: UpdateUserDto): Promise<UserDto> {
     return this.users.update(actor, id, body);
   }
 }

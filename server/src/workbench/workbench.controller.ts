@@ -6,8 +6,8 @@ import { BacktestRequestDto, WorkbenchQueryDto } from './dto/workbench.dto';
 import { WorkbenchService } from './workbench.service';
 
 /**
- * The analysis workbench. Viewers may read the analyses; only operators and supervisors may
- * start a backtest (it occupies the compute pool for seconds).
+ * The analysis workbench: model internals, for operators and supervisors only (README's role
+ * table); a backtest occupies the compute pool for seconds.
  */
 @ApiTags('workbench')
 @ApiBearerAuth()
@@ -17,14 +17,14 @@ export class WorkbenchController {
 
   /** Is the zone's load stationary, and which differencing makes it so? */
   @Get(':zone/stationarity')
-  @Roles(...PERMISSIONS.readForecasts)
+  @Roles(...PERMISSIONS.readDeskWork)
   stationarity(@Param('zone') zone: string, @Query() query: WorkbenchQueryDto): Promise<StationarityReportDto> {
     return this.workbench.stationarity(zone, query.weeks);
   }
 
   /** The model the automatic pipeline chooses on the zone's history, with its checks. */
   @Get(':zone/model')
-  @Roles(...PERMISSIONS.readForecasts)
+  @Roles(...PERMISSIONS.readDeskWork)
   model(@Param('zone') zone: string, @Query() query: WorkbenchQueryDto): Promise<ModelReportDto> {
     return this.workbench.model(zone, query.weeks);
   }

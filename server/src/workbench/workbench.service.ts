@@ -13,7 +13,9 @@ import { ComputeService } from '../compute/compute.service';
 import { ZoneHistoryLoader } from '../history/zone-history.loader';
 import type { Zone } from '../zones/entities/zone.entity';
 import { ZonesService } from '../zones/zones.service';
+import { ModelVersionsRepository } from '../models/model-versions.repository';
 import { toWire } from './analysis/stationarity-analysis';
+import { withModelInUse } from './analysis/verdict';
 
 /** Results are kept this long for the same zone, range and latest reading. */
 export const WORKBENCH_CACHE_MS = 5 * 60_000;
@@ -34,7 +36,8 @@ interface History {
 
 /**
  * The analysis workbench: a zone's history from the readings, hours marked as excluded taken
- * out, and the engine's analyses run in the compute pool. Results are cached per zone, range
+ * out, and the engine's analyses run in the compute pool. The differencing it suggests is the one
+ * the zone's model in service uses (the refit's decision), with the tests' own pick beside it. Results are cached per zone, range
  * and latest reading hour, so a new reading gives a fresh analysis.
  */
 @Injectable()
@@ -45,11 +48,14 @@ export class WorkbenchService {
     private readonly zones: ZonesService,
     private readonly histories: ZoneHistoryLoader,
     private readonly compute: ComputeService,
+    private readonly versions: ModelVersionsRepository,
   ) {}
 
   async stationarity(code: string, weeks = WORKBENCH_DEFAULT_WEEKS): Promise<StationarityReportDto> {
     const latest = await this.latestHour(code);
-    return this.cached(`stationarity|${code}|${weeks}|${latest.lastHourMs}`, async () => {
+    const served = await this.versions.inService(latest.zone.id);
+    const inUse = served ? { versionId: served.id, diff: served.differencing } : null;
+    return this.cached(`stationarity|${code}|${weeks}|${latest.lastHourMs}|${inUse?.versionId ?? 0}`, async () => {
       const t0 = performance.now();
       const h = await this.history(latest, weeks * 168, `${weeks} weeks`);
       const out = await this.compute.run('workbench.stationarity', { values: h.values, maxLag: WORKBENCH_MAX_LAG });
@@ -65,6 +71,7 @@ export class WorkbenchService {
         times: h.times,
         load: toWire(h.values, 3),
         ...out,
+        verdict: withModelInUse(out.verdict, inUse),
         computedAt: new Date().toISOString(),
         computeMs: Math.round(performance.now() - t0),
       };

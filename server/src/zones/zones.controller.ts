@@ -1,4 +1,4 @@
-import { Body, Controller, Get, Param, ParseIntPipe, Patch, Post } from '@nestjs/common';
+import { Body, Controller, Get, Param, Patch, Post } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import { PERMISSIONS, type ZoneDto } from '@morrowline/shared';
 import type { AuthUser } from '../common/auth-user';
@@ -6,6 +6,7 @@ import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { Roles, SignedIn } from '../common/decorators/roles.decorator';
 import { CreateZoneDto, UpdateZoneDto } from './dto/zone.dto';
 import { ZonesService } from './zones.service';
+import { ParseIdPipe } from '../common/pipes/parse-id.pipe';
 
 @ApiTags('zones')
 @ApiBearerAuth()
@@ -27,7 +28,7 @@ export class ZonesController {
 
   @Patch(':id')
   @Roles(...PERMISSIONS.administer)
-  update(@CurrentUser() actor: AuthUser, @Param('id', ParseIntPipe) id: number, @Body() body: UpdateZoneDto): Promise<ZoneDto> {
+  update(@CurrentUser() actor: AuthUser, @Param('id', ParseIdPipe) id: number, @Body() body: UpdateZoneDto): Promise<ZoneDto> {
     return this.zones.update(actor, id, body);
   }
 }

@@ -41,9 +41,21 @@ export class ZonesService {
     return zone;
   }
 
+  /**
+   * Zone names tell zones apart on every screen and in the shift log, so two zones may not share
+   * one. Compared trimmed and without regard to case ("Millrace" and "millrace " are one name).
+   */
+  private async refuseTakenName(em: EntityManager, name: string, exceptId: number | null): Promise<void> {
+    const wanted = name.trim().toLowerCase();
+    const zones = await em.find(Zone, {}, { fields: ['id', 'name', 'code'] });
+    const taken = zones.find((zone) => zone.id !== exceptId && zone.name.trim().toLowerCase() === wanted);
+    if (taken) throw new ConflictException(`Zone ${taken.code} is already called "${taken.name}"; choose another name`);
+  }
+
   async create(actor: Actor, request: CreateZoneRequest): Promise<ZoneDto> {
     checkRange(request.minPlausibleMw, request.maxPlausibleMw);
     const em = this.em.fork();
+    await this.refuseTakenName(em, request.name, null);
     const zone = em.create(Zone, { ...request, active: request.active ?? true, createdAt: new Date(), updatedAt: new Date() });
     try {
       await em.transactional(async (tx) => {
@@ -65,6 +77,7 @@ export class ZonesService {
       const before = toZoneDto(zone);
       const { reason, ...changes } = request;
       checkRange(changes.minPlausibleMw ?? zone.minPlausibleMw, changes.maxPlausibleMw ?? zone.maxPlausibleMw);
+      if (changes.name !== undefined) await this.refuseTakenName(tx, changes.name, zone.id);
       tx.assign(zone, changes);
       const after = toZoneDto(zone);
       this.audit.stage(tx, actor, { action: 'zone.update', subjectType: 'zone', subjectId: zone.code, before, after, reason: reason ?? null });

@@ -1,6 +1,7 @@
 import { AppShell, Burger, Group } from '@mantine/core';
 import { useDisclosure } from '@mantine/hooks';
 import { Outlet } from 'react-router-dom';
+import { DatabaseOutageBanner } from '../../components/DatabaseOutageBanner';
 import { Wordmark } from '../../components/Wordmark';
 import { SignOutButton, useSignedInUser } from '../../features/auth';
 import { PendingHandoverBanner } from '../../features/handover';
@@ -37,6 +38,7 @@ export function AppLayout() {
         <SectionNavigation role={user.role} onNavigate={close} />
       </AppShell.Navbar>
       <AppShell.Main>
+        <DatabaseOutageBanner />
         <PendingHandoverBanner />
         <Outlet />
       </AppShell.Main>

@@ -30,9 +30,15 @@ describe('role navigation', () => {
   });
 
   it('gives admin the administration and live load, but no forecasting decisions', () => {
-    expect(labelsFor('admin')).toEqual(['Live load', 'Users', 'Zones', 'Audit trail']);
+    expect(labelsFor('admin')).toEqual(['Live load', 'Users', 'Zones', 'Feed keys', 'Audit trail']);
     expect(canOpen('admin', sectionById('schedules'))).toBe(false);
     expect(canOpen('admin', sectionById('refits'))).toBe(false);
+  });
+
+  it('refuses the feed-key screen to every role but admin', () => {
+    const feedKeys = sectionById('feed-keys');
+    expect((['viewer', 'operator', 'supervisor'] as const).some((role) => canOpen(role, feedKeys))).toBe(false);
+    expect(canOpen('admin', feedKeys)).toBe(true);
   });
 
   it('refuses the users screen to every role but admin', () => {

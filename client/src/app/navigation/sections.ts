@@ -10,6 +10,7 @@ export type SectionId =
   | 'history'
   | 'users'
   | 'zones'
+  | 'feed-keys'
   | 'audit';
 
 export interface Section {
@@ -40,6 +41,7 @@ export const SECTIONS: readonly Section[] = [
   { id: 'history', path: '/history', label: 'History', group: 'desk', roles: PERMISSIONS.readForecasts },
   { id: 'users', path: '/admin/users', label: 'Users', group: 'admin', roles: PERMISSIONS.administer },
   { id: 'zones', path: '/admin/zones', label: 'Zones', group: 'admin', roles: PERMISSIONS.administer },
+  { id: 'feed-keys', path: '/admin/feed-keys', label: 'Feed keys', group: 'admin', roles: PERMISSIONS.administer },
   { id: 'audit', path: '/admin/audit', label: 'Audit trail', group: 'admin', roles: PERMISSIONS.readAudit },
 ];
 

@@ -63,6 +63,7 @@ export function zoneFixture(zone: string, day: string, overrides: Partial<ZoneSc
     secondsToGateClosure: 3600 * 5,
     gateClosed: false,
     forecast: { runId: 3, issuedAt: '2026-05-11T12:00:00.000Z', hours },
+    newerForecast: null,
     working: null,
     published: null,
     ...overrides,

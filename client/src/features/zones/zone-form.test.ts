@@ -39,4 +39,10 @@ describe('zone form rules', () => {
     expect(update).not.toHaveProperty('reason');
     expect(formToUpdateRequest({ ...valid, reason: 'New substation' }).reason).toBe('New substation');
   });
+
+  it('refuses a name another zone already has, in any case, but not the zone’s own', () => {
+    const others = [{ code: 'MILLRACE', name: 'Millrace' }];
+    expect(validateZoneForm({ ...valid, name: ' millrace ' }, TIME_ZONES, true, others).name).toBe('Zone MILLRACE is already called "Millrace"; choose another name');
+    expect(validateZoneForm({ ...valid, name: 'Millrace Flats' }, TIME_ZONES, true, others)).toEqual({});
+  });
 });

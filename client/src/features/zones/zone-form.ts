@@ -38,12 +38,18 @@ function isNumber(value: number | string): value is number {
   return typeof value === 'number' && Number.isFinite(value);
 }
 
-export function validateZoneForm(values: ZoneFormValues, timeZones: readonly string[], creating: boolean) {
+/**
+ * `otherZones`: the zones other than the one being edited; a name one of them has (trimmed, any
+ * case) is refused here as the server refuses it (409), so the form says so beside the field.
+ */
+export function validateZoneForm(values: ZoneFormValues, timeZones: readonly string[], creating: boolean, otherZones: readonly Pick<ZoneDto, 'code' | 'name'>[] = []) {
   const errors: Partial<Record<keyof ZoneFormValues, string>> = {};
   if (creating && !isZoneCode(values.code.trim().toUpperCase())) {
     errors.code = ZONE_CODE_RULE;
   }
+  const taken = otherZones.find((zone) => zone.name.trim().toLowerCase() === values.name.trim().toLowerCase());
   if (!values.name.trim()) errors.name = 'Enter a name';
+  else if (taken) errors.name = `Zone ${taken.code} is already called "${taken.name}"; choose another name`;
   if (!timeZones.includes(values.timeZone)) errors.timeZone = 'Choose an IANA time zone';
   if (!isNumber(values.alertThresholdPct) || values.alertThresholdPct <= 0 || values.alertThresholdPct > 100) {
     errors.alertThresholdPct = 'Between 0 and 100 %';

@@ -1,18 +1,17 @@
 import { ApiProperty } from '@nestjs/swagger';
-import { Matches } from 'class-validator';
+import { IsString } from 'class-validator';
 import { ZoneCodeList } from '../../common/validation/zone-code-list';
-
-const DAY = /^\d{4}-\d{2}-\d{2}$/;
 
 export class AccuracyQueryDto {
   @ZoneCodeList('Zone code(s), comma-separated or repeated; every active zone when omitted', 'MILLRACE,HARROW')
   zone?: string[];
 
-  @ApiProperty({ description: 'First operating day, yyyy-MM-dd (included)', example: '2026-11-01' })
-  @Matches(DAY, { message: 'from must be an operating day, yyyy-MM-dd' })
+  // Read by the one day parser in the service (a real date, years 2000 to 2100).
+  @ApiProperty({ description: 'First operating day, YYYY-MM-DD (included), years 2000 to 2100', example: '2026-11-01' })
+  @IsString({ message: 'from must be an operating day, YYYY-MM-DD' })
   from!: string;
 
-  @ApiProperty({ description: 'Last operating day, yyyy-MM-dd (included)', example: '2026-11-30' })
-  @Matches(DAY, { message: 'to must be an operating day, yyyy-MM-dd' })
+  @ApiProperty({ description: 'Last operating day, YYYY-MM-DD (included), years 2000 to 2100', example: '2026-11-30' })
+  @IsString({ message: 'to must be an operating day, YYYY-MM-DD' })
   to!: string;
 }

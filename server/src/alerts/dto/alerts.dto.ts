@@ -1,6 +1,7 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
-import { Type } from 'class-transformer';
-import { IsIn, IsInt, IsOptional, IsString, Max, MaxLength, Min } from 'class-validator';
+import { IsIn, IsInt, IsString, Max, MaxLength, Min } from 'class-validator';
+import { ToInteger } from '../../common/validation/to-integer';
+import { IsOptional } from '../../common/validation/is-optional';
 import type { AcknowledgeAlertRequest, AlertState } from '@morrowline/shared';
 import { IsZoneCode } from '../../common/validation/is-zone-code';
 
@@ -13,7 +14,7 @@ export class AlertsQueryDto {
   @IsOptional() @IsZoneCode()
   zone?: string;
 
-  @IsOptional() @Type(() => Number) @IsInt() @Min(1) @Max(1000)
+  @IsOptional() @ToInteger() @IsInt() @Min(1) @Max(1000)
   limit: number = 200;
 }
 

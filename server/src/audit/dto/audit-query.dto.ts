@@ -1,11 +1,13 @@
-import { Type } from 'class-transformer';
-import { IsDate, IsInt, IsOptional, IsString, Max, MaxLength, Min } from 'class-validator';
+import { IsInt, IsString, Max, MaxLength, Min } from 'class-validator';
+import { IsInstantDate } from '../../common/validation/is-instant';
+import { ToInteger } from '../../common/validation/to-integer';
+import { IsOptional } from '../../common/validation/is-optional';
 
 export class AuditQueryDto {
-  @IsOptional() @Type(() => Number) @IsInt() @Min(1) @Max(500)
+  @IsOptional() @ToInteger() @IsInt() @Min(1) @Max(500)
   limit: number = 50;
 
-  @IsOptional() @Type(() => Number) @IsInt() @Min(0)
+  @IsOptional() @ToInteger() @IsInt() @Min(0)
   offset: number = 0;
 
   @IsOptional() @IsString() @MaxLength(64)
@@ -17,12 +19,12 @@ export class AuditQueryDto {
   @IsOptional() @IsString() @MaxLength(64)
   subjectId?: string;
 
-  @IsOptional() @Type(() => Number) @IsInt()
+  @IsOptional() @ToInteger() @IsInt()
   actorId?: number;
 
-  @IsOptional() @Type(() => Date) @IsDate()
+  @IsOptional() @IsInstantDate()
   from?: Date;
 
-  @IsOptional() @Type(() => Date) @IsDate()
+  @IsOptional() @IsInstantDate()
   to?: Date;
 }

@@ -2,6 +2,8 @@ import { type ArgumentsHost, Catch, type ExceptionFilter, HttpException, HttpSta
 import type { Request, Response } from 'express';
 import { STATUS_CODES } from 'node:http';
 import type { ApiError } from '@morrowline/shared';
+import { DatabaseUnavailableException, isDatabaseUnavailable } from '../database-unavailable';
+import { retryAfterOf } from '../http/retry-later.exception';
 
 /**
  * Every failed API call answers with one JSON shape (ApiError). Unexpected errors are logged in
@@ -16,8 +18,15 @@ export class ApiExceptionFilter implements ExceptionFilter {
     const context = host.switchToHttp();
     const request = context.getRequest<Request>();
     const response = context.getResponse<Response>();
-    const body = toApiError(exception, request.originalUrl ?? request.url);
-    if (body.statusCode >= 500) this.logger.error(exception instanceof Error ? exception.stack : String(exception));
+    // A database outage is a 503 the client can wait out, never a 500 or a driver message.
+    const unreachable = !(exception instanceof HttpException) && isDatabaseUnavailable(exception);
+    const answered = unreachable ? new DatabaseUnavailableException() : exception;
+    const body = toApiError(answered, request.originalUrl ?? request.url);
+    if (unreachable) this.logger.error(`database unreachable: ${exception instanceof Error ? exception.message : String(exception)}`);
+    else if (body.statusCode >= 500 && body.statusCode !== 503) this.logger.error(exception instanceof Error ? exception.stack : String(exception));
+    if ((body.statusCode === 429 || body.statusCode === 503) && !response.getHeader('Retry-After')) {
+      response.setHeader('Retry-After', String(retryAfterOf(answered)));
+    }
     response.status(body.statusCode).json(body);
   }
 }

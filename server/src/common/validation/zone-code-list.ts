@@ -1,7 +1,8 @@
 import { applyDecorators } from '@nestjs/common';
 import { ApiPropertyOptional } from '@nestjs/swagger';
 import { Transform } from 'class-transformer';
-import { ArrayMaxSize, IsArray, IsOptional } from 'class-validator';
+import { ArrayMaxSize, IsArray } from 'class-validator';
+import { IsOptional } from './is-optional';
 import { IsZoneCode } from './is-zone-code';
 
 /** The most zones one query may name. */

@@ -5,6 +5,10 @@ import { Migration20261201200000 } from './Migration20261201200000';
 import { Migration20261201201000 } from './Migration20261201201000';
 import { Migration20261201203510 } from './Migration20261201203510';
 import { Migration20261202170000 } from './Migration20261202170000';
+import { Migration20261202221500 } from './Migration20261202221500';
+import { Migration20261202221600 } from './Migration20261202221600';
+import { Migration20261202230000 } from './Migration20261202230000';
+import { Migration20261202230100 } from './Migration20261202230100';
 
 export const MIGRATIONS = [
   { name: 'Migration20261201192005', class: Migration20261201192005 },
@@ -13,4 +17,8 @@ export const MIGRATIONS = [
   { name: 'Migration20261201201000', class: Migration20261201201000 },
   { name: 'Migration20261201203510', class: Migration20261201203510 },
   { name: 'Migration20261202170000', class: Migration20261202170000 },
+  { name: 'Migration20261202221500', class: Migration20261202221500 },
+  { name: 'Migration20261202221600', class: Migration20261202221600 },
+  { name: 'Migration20261202230000', class: Migration20261202230000 },
+  { name: 'Migration20261202230100', class: Migration20261202230100 },
 ];

@@ -1,5 +1,6 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
-import { IsOptional, IsString, MaxLength, MinLength } from 'class-validator';
+import { IsString, MaxLength, MinLength } from 'class-validator';
+import { IsOptional, IsOptionalOrNull } from '../../common/validation/is-optional';
 import type { CreateFeedKeyRequest } from '@morrowline/shared';
 import { IsZoneCode } from '../../common/validation/is-zone-code';
 
@@ -9,7 +10,7 @@ export class CreateFeedKeyDto implements CreateFeedKeyRequest {
   name!: string;
 
   @ApiPropertyOptional({ description: 'Limit the key to one zone', example: 'MILLRACE' })
-  @IsOptional()
+  @IsOptionalOrNull()
   @IsZoneCode()
   zone?: string | null;
 }

@@ -1,6 +1,9 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
 import { Type } from 'class-transformer';
-import { ArrayMaxSize, IsArray, IsDate, IsIn, IsInt, Max, Min, IsOptional, IsString, MaxLength, MinLength, ValidateNested } from 'class-validator';
+import { ArrayMaxSize, IsArray, IsIn, IsInt, Max, Min, IsString, MaxLength, MinLength, ValidateNested } from 'class-validator';
+import { IsInstantDate } from '../../common/validation/is-instant';
+import { ToInteger } from '../../common/validation/to-integer';
+import { IsOptional, IsOptionalOrNull } from '../../common/validation/is-optional';
 import {
   HANDOVER_ITEM_KINDS,
   HANDOVER_ITEM_STATUSES,
@@ -17,7 +20,7 @@ export class HandoverItemDto implements HandoverItemInput {
   @IsIn([...HANDOVER_ITEM_KINDS], { message: `kind must be one of ${HANDOVER_ITEM_KINDS.join(', ')}` })
   kind!: HandoverItemKind;
 
-  @ApiPropertyOptional() @IsOptional() @IsZoneCode()
+  @ApiPropertyOptional() @IsOptionalOrNull() @IsZoneCode()
   zoneCode?: string | null;
 
   @ApiProperty() @IsString() @MinLength(1, { message: 'each item needs a line of text' }) @MaxLength(2000)
@@ -27,7 +30,7 @@ export class HandoverItemDto implements HandoverItemInput {
   @IsIn([...HANDOVER_ITEM_STATUSES], { message: 'status must be open or closed' })
   status!: HandoverItemStatus;
 
-  @ApiPropertyOptional() @IsOptional() @IsInt()
+  @ApiPropertyOptional() @IsOptionalOrNull() @IsInt()
   carriedFromItemId?: number | null;
 }
 
@@ -48,8 +51,8 @@ export class AcknowledgeHandoverDto implements AcknowledgeHandoverRequest {
 export class HandoverSearchDto {
   @IsOptional() @IsString() @MaxLength(200) q?: string;
   @IsOptional() @IsZoneCode() zone?: string;
-  @IsOptional() @Type(() => Date) @IsDate() from?: Date;
-  @IsOptional() @Type(() => Date) @IsDate() to?: Date;
-  @IsOptional() @Type(() => Number) @IsInt() @Min(1) @Max(100) limit: number = 20;
-  @IsOptional() @Type(() => Number) @IsInt() @Min(0) offset: number = 0;
+  @IsOptional() @IsInstantDate() from?: Date;
+  @IsOptional() @IsInstantDate() to?: Date;
+  @IsOptional() @ToInteger() @IsInt() @Min(1) @Max(100) limit: number = 20;
+  @IsOptional() @ToInteger() @IsInt() @Min(0) offset: number = 0;
 }

@@ -155,20 +155,3 @@ export function forecastStored(payload: ForecastPayload): { forecast: IntervalFo
   const fit = applyArima({ diff: m.diff, arma, filled: new Float64Array(0), filledCount: 0 }, y);
   return { forecast: floorAtZero(forecastArima(fit, payload.horizon)) };
 }
-
-export interface ComparePayload {
-  values: Float64Array;
-  excluded: number[];
-  candidate: ModelChoice;
-  inService: ModelChoice | null;
-  days?: number;
-}
-
-/** Both versions' orders scored on the same latest days. */
-export function compareChoices(payload: ComparePayload): { candidate: ScoreResult; inService: ScoreResult | null } {
-  const days = payload.days ?? REFIT_BACKTEST_DAYS;
-  return {
-    candidate: scoreChoice(payload.values, payload.excluded, payload.candidate, days),
-    inService: payload.inService ? scoreChoice(payload.values, payload.excluded, payload.inService, days) : null,
-  };
-}

@@ -1,6 +1,7 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
-import { Type } from 'class-transformer';
-import { IsIn, IsInt, IsOptional, IsString, Max, MaxLength, Min, MinLength } from 'class-validator';
+import { IsIn, IsInt, IsString, Max, MaxLength, Min, MinLength } from 'class-validator';
+import { ToInteger } from '../../common/validation/to-integer';
+import { IsOptional } from '../../common/validation/is-optional';
 import { REFIT_JOB_STATES, type PromoteModelRequest, type RefitJobState, type StartRefitRequest } from '@morrowline/shared';
 import { IsZoneCode } from '../../common/validation/is-zone-code';
 
@@ -22,7 +23,7 @@ export class RefitsQueryDto {
   @IsOptional() @IsZoneCode()
   zone?: string;
 
-  @IsOptional() @Type(() => Number) @IsInt() @Min(1) @Max(500)
+  @IsOptional() @ToInteger() @IsInt() @Min(1) @Max(500)
   limit: number = 100;
 }
 
@@ -30,7 +31,7 @@ export class ModelsQueryDto {
   @IsOptional() @IsZoneCode()
   zone?: string;
 
-  @IsOptional() @Type(() => Number) @IsInt() @Min(1) @Max(500)
+  @IsOptional() @ToInteger() @IsInt() @Min(1) @Max(500)
   limit: number = 100;
 }
 

@@ -1,6 +1,7 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
-import { Type } from 'class-transformer';
-import { IsDate, IsIn, IsISO8601, IsOptional, IsString, MaxLength, MinLength, ValidateIf } from 'class-validator';
+import { IsIn, IsString, MaxLength, MinLength } from 'class-validator';
+import { IsInstant, IsInstantDate } from '../../common/validation/is-instant';
+import { IsOptional, IsOptionalOrNull } from '../../common/validation/is-optional';
 import { OUTAGE_KINDS, type CloseOutageRequest, type CreateOutageRequest, type OutageKind, type UpdateOutageRequest } from '@morrowline/shared';
 import { IsZoneCode } from '../../common/validation/is-zone-code';
 
@@ -16,11 +17,11 @@ export class CreateOutageDto implements CreateOutageRequest {
   kind!: OutageKind;
 
   @ApiProperty({ example: '2026-11-30T14:00:00Z' })
-  @IsISO8601({ strict: true }, { message: 'start must be an ISO 8601 time' })
+  @IsInstant({ notATime: 'start must be an ISO 8601 time' })
   start!: string;
 
   @ApiPropertyOptional({ description: 'omit or null while the window is still open' })
-  @IsOptional() @ValidateIf((o: CreateOutageDto) => o.end !== null) @IsISO8601({ strict: true }, { message: 'end must be an ISO 8601 time or null' })
+  @IsOptionalOrNull() @IsInstant({ notATime: 'end must be an ISO 8601 time or null' })
   end?: string | null;
 
   @ApiProperty({ example: 'Feeder 12 tripped at the Copperline substation' })
@@ -33,10 +34,10 @@ export class UpdateOutageDto implements UpdateOutageRequest {
   @IsOptional() @IsIn([...OUTAGE_KINDS], { message: KIND_MESSAGE })
   kind?: OutageKind;
 
-  @IsOptional() @IsISO8601({ strict: true }, { message: 'start must be an ISO 8601 time' })
+  @IsOptional() @IsInstant({ notATime: 'start must be an ISO 8601 time' })
   start?: string;
 
-  @IsOptional() @ValidateIf((o: UpdateOutageDto) => o.end !== null) @IsISO8601({ strict: true }, { message: 'end must be an ISO 8601 time or null' })
+  @IsOptionalOrNull() @IsInstant({ notATime: 'end must be an ISO 8601 time or null' })
   end?: string | null;
 
   @IsOptional() @IsString() @MinLength(1) @MaxLength(2000)
@@ -48,7 +49,7 @@ export class UpdateOutageDto implements UpdateOutageRequest {
 }
 
 export class CloseOutageDto implements CloseOutageRequest {
-  @IsOptional() @IsISO8601({ strict: true }, { message: 'end must be an ISO 8601 time' })
+  @IsOptional() @IsInstant({ notATime: 'end must be an ISO 8601 time' })
   end?: string;
 
   @IsOptional() @IsString() @MaxLength(1000)
@@ -60,9 +61,9 @@ export class OutagesQueryDto {
   @IsOptional() @IsZoneCode()
   zone?: string;
 
-  @IsOptional() @Type(() => Date) @IsDate({ message: 'from must be a time' })
+  @IsOptional() @IsInstantDate({ notATime: 'from must be a time' })
   from?: Date;
 
-  @IsOptional() @Type(() => Date) @IsDate({ message: 'to must be a time' })
+  @IsOptional() @IsInstantDate({ notATime: 'to must be a time' })
   to?: Date;
 }

@@ -1,6 +1,6 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
-import { Type } from 'class-transformer';
-import { IsDate, IsOptional } from 'class-validator';
+import { IsInstantDate } from '../../common/validation/is-instant';
+import { IsOptional } from '../../common/validation/is-optional';
 import { IsZoneCode } from '../../common/validation/is-zone-code';
 import { ZoneCodeList } from '../../common/validation/zone-code-list';
 
@@ -10,11 +10,11 @@ export class ReadingsQueryDto {
   zone?: string[];
 
   @ApiPropertyOptional({ description: 'First hour (UTC, inclusive); default 7 days before `to`' })
-  @IsOptional() @Type(() => Date) @IsDate({ message: 'from must be an ISO 8601 date and time' })
+  @IsOptional() @IsInstantDate()
   from?: Date;
 
   @ApiPropertyOptional({ description: 'End (exclusive); default the end of the current hour' })
-  @IsOptional() @Type(() => Date) @IsDate({ message: 'to must be an ISO 8601 date and time' })
+  @IsOptional() @IsInstantDate()
   to?: Date;
 }
 
@@ -23,10 +23,10 @@ export class ReadingsExportQueryDto {
   @IsZoneCode()
   zone!: string;
 
-  @IsOptional() @Type(() => Date) @IsDate({ message: 'from must be an ISO 8601 date and time' })
+  @IsOptional() @IsInstantDate()
   from?: Date;
 
-  @IsOptional() @Type(() => Date) @IsDate({ message: 'to must be an ISO 8601 date and time' })
+  @IsOptional() @IsInstantDate()
   to?: Date;
 }
 

@@ -33,4 +33,12 @@ export class Reading {
 
   @Property({ type: 'datetime', length: 3 })
   receivedAt: Date = new Date();
+
+  /**
+   * What orders values of this hour: microseconds since the epoch when the value was produced
+   * (see FeedReading.version). A value is applied only over a lower version. 0 for rows stored
+   * before versions existed. A string: bigint columns can exceed a double's exact range.
+   */
+  @Property({ type: 'bigint', unsigned: true, default: 0 })
+  version: string = '0';
 }

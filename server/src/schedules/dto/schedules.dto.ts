@@ -1,6 +1,7 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
 import { Transform } from 'class-transformer';
-import { ArrayMaxSize, ArrayMinSize, IsArray, IsEmail, IsIn, IsInt, IsNumber, IsOptional, IsString, Max, MaxLength, Min, MinLength } from 'class-validator';
+import { ArrayMaxSize, ArrayMinSize, IsArray, IsEmail, IsIn, IsInt, IsNumber, IsString, Max, MaxLength, Min, MinLength } from 'class-validator';
+import { IsOptional, IsOptionalOrNull } from '../../common/validation/is-optional';
 import {
   SCHEDULE_ADJUSTMENT_KINDS,
   type CreateScheduleAdjustmentRequest,
@@ -66,7 +67,7 @@ export class CreateSubscriberDto implements CreateScheduleSubscriberRequest {
   name!: string;
 
   @ApiPropertyOptional({ type: [String], nullable: true, description: 'zone codes; omit or null for every zone' })
-  @IsOptional() @IsArray() @ArrayMinSize(1, { message: 'zones: name at least one, or leave it out for every zone' }) @ArrayMaxSize(50)
+  @IsOptionalOrNull() @IsArray() @ArrayMinSize(1, { message: 'zones: name at least one, or leave it out for every zone' }) @ArrayMaxSize(50)
   @IsZoneCode({ each: true })
   zones?: string[] | null;
 }

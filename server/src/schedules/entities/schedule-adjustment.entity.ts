@@ -43,4 +43,8 @@ export class ScheduleAdjustment {
 
   @ManyToOne(() => User, { nullable: true })
   undoneBy: User | null = null;
+
+  /** Set when a correction carried it forward: the revision it was first made on (its reason, author and time kept). */
+  @Property({ type: 'integer', nullable: true })
+  carriedFromRevision: number | null = null;
 }

@@ -1,5 +1,6 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
-import { IsBoolean, IsIn, IsOptional, IsString, MaxLength, MinLength } from 'class-validator';
+import { IsBoolean, IsIn, IsString, MaxLength, MinLength } from 'class-validator';
+import { IsOptional } from '../../common/validation/is-optional';
 import { ROLES, type Role, type UpdateUserRequest } from '@morrowline/shared';
 
 export class UpdateUserDto implements UpdateUserRequest {

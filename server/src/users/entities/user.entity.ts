@@ -1,4 +1,4 @@
-import { Entity, Enum, PrimaryKey, Property } from '@mikro-orm/core';
+import { Entity, Enum, type Opt, PrimaryKey, Property } from '@mikro-orm/core';
 import { ROLES, type Role } from '@morrowline/shared';
 
 @Entity({ tableName: 'users' })
@@ -27,4 +27,8 @@ export class User {
 
   @Property({ type: 'datetime', length: 3, nullable: true })
   lastLoginAt: Date | null = null;
+
+  /** Raised by every sign-out: a token carrying an older version is no longer accepted. */
+  @Property({ type: 'integer', unsigned: true, default: 0 })
+  sessionVersion: Opt<number> = 0;
 }

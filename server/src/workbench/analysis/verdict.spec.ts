@@ -1,5 +1,5 @@
 import type { AdfOutcome, KpssOutcome } from '@morrowline/shared';
-import { describeProblems, differencingLabel, judgeVersion, overallVerdict, residualVerdict, type VersionStats } from './verdict';
+import { describeProblems, differencingLabel, judgeVersion, overallVerdict, residualVerdict, withModelInUse, type VersionStats } from './verdict';
 
 const adf = (pValue: number): AdfOutcome[] => [
   { regression: 'c', statistic: -3, pValue, lags: 4, criticalValue5: -2.86, rejectsUnitRoot: pValue < 0.05, reading: '' },
@@ -78,5 +78,20 @@ describe('stationarity verdict wording', () => {
     const bad = residualVerdict([{ lag: 24, pValue: 0.03 }, { lag: 48, pValue: 0.0001 }]);
     expect(bad.white).toBe(false);
     expect(bad.text).toMatch(/at 48 hours rejects random noise \(p < 0.001\)/);
+  });
+});
+
+describe('the suggested differencing is the one the model in service uses', () => {
+  const tests = overallVerdict([{ diff: [], problems: ['daily', 'weekly'] }, { diff: [24], problems: ['weekly'] }, { diff: [168], problems: ['variance'] }, { diff: [24, 168], problems: [] }]);
+
+  it('marks the model\'s (1−B^168) even where the tests alone pick (1−B^24)(1−B^168), and says so', () => {
+    expect(tests.recommended).toEqual([24, 168]);
+    const v = withModelInUse(tests, { versionId: 41, diff: [168] });
+    expect(v).toMatchObject({ recommended: [168], recommendedLabel: '(1−B^168)', recommendedBy: 'model', inUse: { versionId: 41, diff: [168], label: '(1−B^168)' }, testsPick: [24, 168] });
+    expect(v.headline).toMatch(/The model in service \(version 41\) uses \(1−B\^168\), chosen by its day-ahead error over the last days; the stationarity tests alone would call \(1−B\^24\)\(1−B\^168\) enough/);
+  });
+
+  it('keeps the tests\' pick when the zone has no model in service', () => {
+    expect(withModelInUse(tests, null)).toMatchObject({ recommended: [24, 168], recommendedBy: 'tests', inUse: null, testsPick: [24, 168] });
   });
 });

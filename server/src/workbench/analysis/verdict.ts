@@ -163,6 +163,35 @@ export function overallVerdict(checks: readonly Pick<SeriesCheckDto, 'diff' | 'p
   };
 }
 
+const sameLags = (a: readonly number[], b: readonly number[]) => a.length === b.length && a.every((v, i) => v === b[i]);
+
+/**
+ * The verdict with the differencing the zone's model in service uses as the suggestion: the refit
+ * chooses the differencing by the day-ahead error of each candidate (a rolling-origin test,
+ * Tashman 2000), which is what the forecasts depend on, so the workbench marks that one and says
+ * where the stationarity tests alone would have stopped. Without a model the tests' pick stands.
+ */
+export function withModelInUse(verdict: StationarityVerdictDto, inUse: { versionId: number; diff: number[] } | null): StationarityVerdictDto {
+  const testsPick = verdict.recommended;
+  if (!inUse) return { ...verdict, recommendedBy: 'tests', inUse: null, testsPick };
+  const label = differencingLabel(inUse.diff);
+  const agree = testsPick !== null && sameLags(testsPick, inUse.diff);
+  const tests = agree
+    ? 'the stationarity tests agree.'
+    : testsPick === null
+      ? 'the stationarity tests alone find no candidate that removes everything.'
+      : `the stationarity tests alone would call ${differencingLabel(testsPick)} enough, but the refit goes by the forecast error, not by the tests.`;
+  return {
+    ...verdict,
+    headline: `${verdict.headline} The model in service (version ${inUse.versionId}) uses ${label}, chosen by its day-ahead error over the last days; ${tests}`,
+    recommended: [...inUse.diff],
+    recommendedLabel: label,
+    recommendedBy: 'model',
+    inUse: { versionId: inUse.versionId, diff: [...inUse.diff], label },
+    testsPick,
+  };
+}
+
 /** Plain words on the residual checks of a fitted model (Ljung–Box at 24 and 48 h). */
 export function residualVerdict(ljungBox: readonly { lag: number; pValue: number }[]): { text: string; white: boolean } {
   const bad = ljungBox.filter((l) => Number.isFinite(l.pValue) && l.pValue < 0.05);

@@ -1,13 +1,14 @@
 import { ApiPropertyOptional, ApiProperty } from '@nestjs/swagger';
-import { Type } from 'class-transformer';
-import { IsInt, IsOptional, Max, Min } from 'class-validator';
+import { IsInt, Max, Min } from 'class-validator';
+import { ToInteger } from '../../common/validation/to-integer';
+import { IsOptional } from '../../common/validation/is-optional';
 import { BACKTEST_MAX_DAYS, BACKTEST_MIN_DAYS, type BacktestRequest, WORKBENCH_MAX_WEEKS, WORKBENCH_MIN_WEEKS } from '@morrowline/shared';
 
 /** `?weeks=8`: how many weeks of history, ending at the latest reading, to analyse. */
 export class WorkbenchQueryDto {
   @ApiPropertyOptional({ minimum: WORKBENCH_MIN_WEEKS, maximum: WORKBENCH_MAX_WEEKS, default: 8 })
   @IsOptional()
-  @Type(() => Number)
+  @ToInteger()
   @IsInt({ message: 'weeks must be a whole number' })
   @Min(WORKBENCH_MIN_WEEKS, { message: `weeks must be at least ${WORKBENCH_MIN_WEEKS}` })
   @Max(WORKBENCH_MAX_WEEKS, { message: `weeks must be at most ${WORKBENCH_MAX_WEEKS}` })

@@ -1,5 +1,6 @@
 import { ApiProperty, ApiPropertyOptional, PartialType, OmitType } from '@nestjs/swagger';
-import { IsBoolean, IsInt, IsNumber, IsOptional, IsString, Matches, Max, MaxLength, Min, MinLength } from 'class-validator';
+import { IsBoolean, IsInt, IsNumber, IsString, Matches, Max, MaxLength, Min, MinLength } from 'class-validator';
+import { IsOptional } from '../../common/validation/is-optional';
 import { ZONE_CODE_RULE, type CreateZoneRequest, type UpdateZoneRequest } from '@morrowline/shared';
 import { IsZoneCode } from '../../common/validation/is-zone-code';
 import { IsTimeZone } from './is-time-zone.validator';
@@ -35,7 +36,7 @@ export class CreateZoneDto implements CreateZoneRequest {
   active?: boolean;
 }
 
-export class UpdateZoneDto extends PartialType(OmitType(CreateZoneDto, ['code'] as const)) implements UpdateZoneRequest {
+export class UpdateZoneDto extends PartialType(OmitType(CreateZoneDto, ['code'] as const), { skipNullProperties: false }) implements UpdateZoneRequest {
   @ApiPropertyOptional() @IsOptional() @IsString() @MaxLength(500)
   reason?: string;
 }

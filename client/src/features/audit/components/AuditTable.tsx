@@ -2,9 +2,11 @@ import { Button, Table, Text } from '@mantine/core';
 import type { AuditEntryDto } from '@morrowline/shared';
 import { Fragment, useState } from 'react';
 import { formatDateTime } from '../../../lib/format';
+import { useDeskTimeZone } from '../../../lib/use-desk-time-zone';
 import { AuditChange } from './AuditChange';
 
 export function AuditTable({ entries }: { entries: AuditEntryDto[] }) {
+  const deskTimeZone = useDeskTimeZone();
   const [expanded, setExpanded] = useState<ReadonlySet<number>>(new Set());
   const toggle = (id: number) =>
     setExpanded((current) => {
@@ -35,7 +37,7 @@ export function AuditTable({ entries }: { entries: AuditEntryDto[] }) {
               <Fragment key={entry.id}>
                 <Table.Tr>
                   <Table.Td className="numeric" style={{ whiteSpace: 'nowrap' }}>
-                    {formatDateTime(entry.at)}
+                    {formatDateTime(entry.at, deskTimeZone)}
                   </Table.Td>
                   <Table.Td>{entry.actorEmail ?? <Text span c="dimmed" size="sm">system</Text>}</Table.Td>
                   <Table.Td className="numeric">{entry.action}</Table.Td>

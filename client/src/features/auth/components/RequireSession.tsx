@@ -1,6 +1,7 @@
 import { Center, Loader, Stack } from '@mantine/core';
 import type { ReactNode } from 'react';
 import { Navigate, useLocation } from 'react-router-dom';
+import { DatabaseOutageBanner } from '../../../components/DatabaseOutageBanner';
 import { ErrorNotice } from '../../../components/ErrorNotice';
 import { useCurrentUser } from '../api/use-current-user';
 import { useSession } from '../hooks/use-session';
@@ -30,6 +31,7 @@ export function RequireSession({ children }: { children: ReactNode }) {
     return (
       <Center mih="100vh" p="md">
         <Stack maw={420}>
+          <DatabaseOutageBanner />
           <ErrorNotice
             title="Could not load your account"
             error={currentUser.error}

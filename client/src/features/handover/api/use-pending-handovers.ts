@@ -7,8 +7,9 @@ import { handoverKeys } from './handover-keys';
 export const PENDING_POLL_MS = 30_000;
 
 /** GET /api/handover/pending: notes nobody has acknowledged yet, newest first. */
-export function usePendingHandovers() {
+export function usePendingHandovers(enabled = true) {
   return useQuery({
+    enabled,
     queryKey: handoverKeys.pending,
     queryFn: ({ signal }) => api.get<HandoverNoteDto[]>('/handover/pending', { signal }),
     refetchInterval: PENDING_POLL_MS,

@@ -1,10 +1,13 @@
 import { Badge, Group, Stack, Text } from '@mantine/core';
 import type { HandoverItemDto } from '@morrowline/shared';
+import { useZones } from '../../zones';
 import { ITEM_KIND_LABELS, ITEM_STATUS_COLORS, ITEM_STATUS_LABELS } from '../handover-labels';
 
-/** A note's structured items, open ones first. */
+/** A note's structured items, open ones first, each with its zone's name (the code until the zones load). */
 export function HandoverItemsList({ items }: { items: HandoverItemDto[] }) {
+  const zones = useZones();
   if (items.length === 0) return null;
+  const zoneName = (code: string) => zones.data?.find((zone) => zone.code === code)?.name ?? code;
   const ordered = [...items].sort((a, b) => Number(a.status === 'closed') - Number(b.status === 'closed'));
   return (
     <Stack gap={6} component="ul" p={0} m={0} style={{ listStyle: 'none' }} aria-label="Items">
@@ -17,7 +20,7 @@ export function HandoverItemsList({ items }: { items: HandoverItemDto[] }) {
             <Text span fw={600}>
               {ITEM_KIND_LABELS[item.kind]}
             </Text>
-            {item.zoneCode ? ` · ${item.zoneCode}` : ''} — {item.text}
+            {item.zoneCode ? ` · ${zoneName(item.zoneCode)}` : ''} — {item.text}
             {item.carriedFromItemId !== null && (
               <Text span size="xs" c="dimmed">
                 {' '}

@@ -1,4 +1,5 @@
 import { Alert, Anchor, Text } from '@mantine/core';
+import { may } from '@morrowline/shared';
 import { Link, useLocation } from 'react-router-dom';
 import { useSignedInUser } from '../../auth';
 import { mayWriteHandover } from '../acknowledge-rule';
@@ -8,14 +9,16 @@ import { formatDayClock } from './shift-time';
 
 /**
  * On every desk screen while a handover waits: who wrote it and the way to the shift log. Not
- * on the shift log itself, which lists the waiting notes first; not for administrators, who
- * take no part in the shift.
+ * on the shift log itself, which lists the waiting notes first; not for viewers and
+ * administrators, who take no part in the shift (and may not read its notes).
  */
 export function PendingHandoverBanner() {
   const user = useSignedInUser();
   const { pathname } = useLocation();
-  const hidden = user.role === 'admin' || pathname.startsWith(SHIFT_LOG_PATH);
-  const pending = usePendingHandovers();
+  // Handover notes are the forecasting roles' (viewers and admin may not read them).
+  const readsNotes = may(user.role, 'readDeskWork');
+  const hidden = !readsNotes || pathname.startsWith(SHIFT_LOG_PATH);
+  const pending = usePendingHandovers(readsNotes);
   if (hidden || !pending.data || pending.data.length === 0) return null;
 
   const newest = pending.data[0];

@@ -54,6 +54,13 @@ describe('who is offered "Acknowledge"', () => {
     expect(within(card).queryByRole('button', { name: 'Acknowledge' })).not.toBeInTheDocument();
   });
 
+  it("names an item's zone, not its code", async () => {
+    shiftLogAs(ines);
+    const item = await screen.findByTestId('handover-item-5', {}, SLOW);
+    await waitFor(() => expect(item).toHaveTextContent(`Outage in progress · ${quarryZone.name} — Feeder Q-7 out`), SLOW);
+    expect(item).not.toHaveTextContent('QUARRY');
+  });
+
   it('offers the incoming operator the button and sends the reply', async () => {
     const { calls } = shiftLogAs(tomas);
     const user = userEvent.setup();

@@ -32,6 +32,15 @@ describe('UploadReport', () => {
     expect(screen.getByTestId('rejected-more')).toHaveTextContent('The first 2 of 3 rejected rows are listed.');
   });
 
+  it('names an hour given twice in the file as such', () => {
+    const duplicate = { line: 41, reason: 'duplicate' as const, message: 'MILLRACE 2024-03-10T08:00:00Z is also on line 40; one hour may appear once per file, so none of these rows was stored' };
+    renderWithProviders(<UploadReport report={{ ...report, rejected: [duplicate], rejectedCount: 1 }} />);
+    const rows = within(screen.getByRole('table', { name: 'Rejected rows' })).getAllByRole('row');
+    expect(rows[1]).toHaveTextContent('41');
+    expect(rows[1]).toHaveTextContent('Hour given twice in the file');
+    expect(rows[1]).toHaveTextContent('also on line 40');
+  });
+
   it('says every row was accepted and shows no table when nothing was rejected', () => {
     renderWithProviders(<UploadReport report={{ ...report, accepted: 1200, rejected: [], rejectedCount: 0 }} />);
     expect(screen.getByText('Every row was accepted.')).toBeInTheDocument();

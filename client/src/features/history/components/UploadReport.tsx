@@ -1,8 +1,8 @@
 import { Alert, Group, Stack, Table, Text } from '@mantine/core';
-import type { CsvUploadReport, RejectionReason } from '@morrowline/shared';
+import type { CsvRejectionReason, CsvUploadReport } from '@morrowline/shared';
 
 /** The server's rejection reasons in words. */
-export const REASON_LABELS: Record<RejectionReason, string> = {
+export const REASON_LABELS: Record<CsvRejectionReason, string> = {
   'unknown-zone': 'Unknown zone',
   'not-on-the-hour': 'Not on the hour',
   'not-a-number': 'Load is not a number',
@@ -11,6 +11,7 @@ export const REASON_LABELS: Record<RejectionReason, string> = {
   'too-far-in-future': 'Too far in the future',
   malformed: 'Row cannot be read',
   'zone-not-allowed': 'Zone not allowed',
+  duplicate: 'Hour given twice in the file',
 };
 
 function Figure({ label, value, testId }: { label: string; value: number; testId: string }) {

@@ -4,7 +4,7 @@ import { api } from '../../../lib/api-client';
 import { notifyFailure, notifySuccess } from '../../../lib/notify';
 import { useZones } from '../../zones';
 import { withoutAlert } from '../model/alert-list';
-import { openAlertsKey } from './live-keys';
+import { alertHistoryKey, openAlertsKey } from './live-keys';
 
 /** POST /api/alerts/:id/acknowledge (operator, supervisor). */
 export function useAcknowledgeAlert() {
@@ -16,6 +16,7 @@ export function useAcknowledgeAlert() {
     // Said here, not at the call: the row (and its button) leaves the list the moment this succeeds.
     onSuccess: (alert) => {
       queryClient.setQueryData<AlertDto[]>(openAlertsKey, (list) => (list ? withoutAlert(list, alert.id) : list));
+      void queryClient.invalidateQueries({ queryKey: alertHistoryKey });
       notifySuccess(`Alert for ${zones.data?.find((z) => z.code === alert.zone)?.name ?? alert.zone} acknowledged.`);
     },
     // Someone else may have acknowledged it first (409): the list is re-read either way.

@@ -31,7 +31,7 @@ describe('useZoneForecast', () => {
       hours: hours.slice(168 + 24, 168 + 48), mean: week, lower80: week, upper80: week, lower95: week, upper95: week,
     };
     mockApi({ 'GET /api/forecasts/latest': () => ({ body: { zones: [standIn] } }) });
-    const { result } = renderHook(() => useZoneForecast(series, hours[168], 168 + 24), { wrapper });
+    const { result } = renderHook(() => useZoneForecast(['MILLRACE'], series, hours[168]), { wrapper });
     await waitFor(() => expect(result.current.forecasts.get('MILLRACE')?.source).toMatch(/^Seasonal-naive stand-in/));
     const line = result.current.forecasts.get('MILLRACE')!.line;
     expect(line.mean[168 + 30]).toBe(mw[30]); // the same hour a week earlier
@@ -40,7 +40,7 @@ describe('useZoneForecast', () => {
 
   it('makes no forecast up for a zone the server has no run for', async () => {
     mockApi({ 'GET /api/forecasts/latest': () => ({ body: { zones: [] } }) });
-    const { result } = renderHook(() => useZoneForecast(series, hours[168], 168 + 24), { wrapper });
+    const { result } = renderHook(() => useZoneForecast(['MILLRACE'], series, hours[168]), { wrapper });
     await waitFor(() => expect(result.current.forecasts.get('MILLRACE')?.source).toBe('No forecast for this zone'));
     const line = result.current.forecasts.get('MILLRACE')!.line;
     expect(line.mean.every((v) => v === null)).toBe(true);
@@ -53,12 +53,12 @@ describe('useZoneForecast', () => {
       hours: [hours[168 + 24], hours[168 + 25]], mean: [111, 112], lower80: [105, 106], upper80: [117, 118], lower95: [101, 102], upper95: [121, 122],
     };
     mockApi({ 'GET /api/forecasts/latest': () => ({ body: { zones: [run] } }) });
-    const { result } = renderHook(() => useZoneForecast(series, hours[168], 168 + 24), { wrapper });
+    const { result } = renderHook(() => useZoneForecast(['MILLRACE'], series, hours[168]), { wrapper });
     await waitFor(() => expect(result.current.forecasts.get('MILLRACE')?.source).toMatch(/^Model forecast/));
     const line = result.current.forecasts.get('MILLRACE')!.line;
     expect(line.mean[168 + 24]).toBe(111);
     expect(line.upper95[168 + 25]).toBe(122);
     expect(line.mean[168 + 30]).toBeNull(); // after the run: nothing made up
-    expect(line.mean[168 + 5]).toBe(mw[5]); // before the run: the week-earlier value
+    expect(line.mean[168 + 5]).toBeNull(); // before the run: nothing either, never last week's load
   });
 });

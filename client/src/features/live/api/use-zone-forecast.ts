@@ -4,7 +4,6 @@ import { useMemo } from 'react';
 import { api } from '../../../lib/api-client';
 import { emptyForecastLine, type ForecastLine } from '../model/forecast-line';
 import { hourIndex } from '../model/hours';
-import { weekEarlierLine } from '../model/week-earlier-line';
 import { latestForecastsKey } from './live-keys';
 
 export interface ZoneForecast {
@@ -14,23 +13,13 @@ export interface ZoneForecast {
 }
 
 /**
- * A server run laid out on the hours of the readings series. A run starts after the last reading
- * it used, so the hours before it (the past days on the chart) take `before`: the week-earlier
- * value, which is also what the deviation alerts compare against.
+ * A server run laid out on the hours of the readings series. Hours the run does not cover stay
+ * empty: the latest run is its own line, and nothing (last week's load, the committed numbers)
+ * is filled in before it.
  */
-export function runToLine(run: ForecastRunDto, series: ReadingSeriesDto, before?: ForecastLine): ForecastLine {
+export function runToLine(run: ForecastRunDto, series: ReadingSeriesDto): ForecastLine {
   const length = series.hours.length;
   const line = emptyForecastLine(length);
-  const firstRunHour = run.hours.length > 0 ? Date.parse(run.hours[0]) : Infinity;
-  if (before) {
-    for (let i = 0; i < length && Date.parse(series.hours[i]) < firstRunHour; i++) {
-      line.mean[i] = before.mean[i];
-      line.lower80[i] = before.lower80[i];
-      line.upper80[i] = before.upper80[i];
-      line.lower95[i] = before.lower95[i];
-      line.upper95[i] = before.upper95[i];
-    }
-  }
   const fromMs = Date.parse(series.from);
   run.hours.forEach((hour, k) => {
     const i = hourIndex(hour, fromMs, length);
@@ -52,20 +41,16 @@ export function describeRun(run: ForecastRunDto): string {
 }
 
 /**
- * The current forecast per zone, on the hours of `series`, from GET /api/forecasts/latest (a zone
- * without a model gets the server's seasonal-naive stand-in run). The hours before the run show
- * the week-earlier line computed here from the readings.
- *
- * `displayFrom` is where the chart starts; `originIndex` the first hour of `series` without a
- * reading yet (where the week-earlier line's error history ends).
+ * The latest run per zone, on the hours of `series`, from GET /api/forecasts/latest for every
+ * active zone (a zone without a model gets the server's seasonal-naive stand-in run, named as
+ * such). `zones` only keys the query (see useReadingsSeries). `displayFrom` is where the chart starts.
  */
-export function useZoneForecast(series: ReadingSeriesDto | undefined, displayFrom: string, originIndex: number) {
-  const zones = series?.zones.map((z) => z.zone) ?? [];
+export function useZoneForecast(zones: readonly string[], series: ReadingSeriesDto | undefined, displayFrom: string) {
   const to = series?.to ?? '';
   const latest = useQuery({
     queryKey: latestForecastsKey(zones, displayFrom, to),
-    queryFn: ({ signal }) => api.get<LatestForecastsDto>('/forecasts/latest', { signal, query: { zone: zones.join(','), from: displayFrom, to } }),
-    enabled: zones.length > 0,
+    queryFn: ({ signal }) => api.get<LatestForecastsDto>('/forecasts/latest', { signal, query: { from: displayFrom, to } }),
+    enabled: zones.length > 0 && to !== '',
     staleTime: 10 * 60_000,
   });
 
@@ -77,12 +62,12 @@ export function useZoneForecast(series: ReadingSeriesDto | undefined, displayFro
       out.set(
         zone.zone,
         run
-          ? { line: runToLine(run, series, weekEarlierLine(zone.mw, originIndex)), source: `${describeRun(run)}; hours before it show the same hour one week earlier` }
+          ? { line: runToLine(run, series), source: describeRun(run) }
           : { line: emptyForecastLine(series.hours.length), source: latest.isPending ? 'Loading the forecast…' : 'No forecast for this zone' },
       );
     }
     return out;
-  }, [series, latest.data, latest.isPending, originIndex]);
+  }, [series, latest.data, latest.isPending]);
 
   return { forecasts, error: latest.isError ? latest.error : null };
 }

@@ -4,6 +4,7 @@ import { formatDateTime, formatPercent } from '../../../lib/format';
 import { ErrorNotice } from '../../../components/ErrorNotice';
 import { useOpenAlerts } from '../api/use-open-alerts';
 import { AcknowledgeAlert } from './AcknowledgeAlert';
+import { alertComparedWith } from './alert-compared-with';
 import { alertHours } from './alert-hours';
 
 interface AlertsPanelProps {
@@ -11,7 +12,10 @@ interface AlertsPanelProps {
   mayAcknowledge: boolean;
 }
 
-/** Open deviation alerts, newest first; operators and supervisors acknowledge them here. */
+/**
+ * Open deviation alerts, newest first, each with what it was measured against (the published
+ * schedule or the day-ahead forecast); operators and supervisors acknowledge them here.
+ */
 export function AlertsPanel({ zones, mayAcknowledge }: AlertsPanelProps) {
   const alerts = useOpenAlerts();
   const zoneOf = (code: string) => zones.find((z) => z.code === code);
@@ -31,6 +35,7 @@ export function AlertsPanel({ zones, mayAcknowledge }: AlertsPanelProps) {
               <Table.Th>Zone</Table.Th>
               <Table.Th>Hours</Table.Th>
               <Table.Th>Peak deviation</Table.Th>
+              <Table.Th>Against (at the peak)</Table.Th>
               <Table.Th>Raised</Table.Th>
               <Table.Th />
             </Table.Tr>
@@ -47,6 +52,7 @@ export function AlertsPanel({ zones, mayAcknowledge }: AlertsPanelProps) {
                     {alert.peakDeviationPct > 0 ? '+' : ''}
                     {formatPercent(alert.peakDeviationPct)} <Text span size="xs" c="dimmed">(threshold {formatPercent(alert.thresholdPct, 0)})</Text>
                   </Table.Td>
+                  <Table.Td>{alertComparedWith(alert)}</Table.Td>
                   <Table.Td ff="monospace">{formatDateTime(alert.raisedAt, tz)}</Table.Td>
                   <Table.Td>{mayAcknowledge ? <AcknowledgeAlert alert={alert} /> : null}</Table.Td>
                 </Table.Tr>

@@ -8,6 +8,7 @@ import type { LoadView } from '../model/zone-view';
 import { hourEndingSplits, hourEndingTick } from './chart-axis';
 import { CHART_COLORS } from './chart-colors';
 import { ChartLegend } from './ChartLegend';
+import { CommittedSources } from './CommittedSources';
 import { HoverReadout } from './HoverReadout';
 import { forecastBands, forecastBandSeries } from '../../../lib/forecast-bands';
 
@@ -25,10 +26,10 @@ interface LoadChartProps {
 }
 
 /**
- * Actual load against the forecast with its 80 % and 95 % bands, on an hour-ending axis in the
- * zone's time zone. Missing hours are gaps (null, never drawn across); incomplete system hours
- * are shaded; a vertical line marks the start of the current hour. The published schedule has its series
- * already, empty until schedules are published.
+ * Actual load beside what was committed (the published schedule and the day-ahead forecast) and
+ * the latest run with its 80 % and 95 % bands, on an hour-ending axis in the zone's time zone.
+ * Missing hours are gaps (null, never drawn across); incomplete system hours are shaded; a
+ * vertical line marks the start of the current hour.
  */
 export function LoadChart({ view, hours, displayFrom, nowHour, excluded }: LoadChartProps) {
   const { ref, width } = useElementSize();
@@ -40,8 +41,9 @@ export function LoadChart({ view, hours, displayFrom, nowHour, excluded }: LoadC
   const data = useMemo<uPlot.AlignedData>(() => {
     const cut = (values: readonly (number | null)[]) => values.slice(first) as (number | null)[];
     const x = hours.slice(first).map((h) => Date.parse(h) / 1000 + HOUR_S);
-    const f = view.forecast;
-    return [x, cut(f.upper95), cut(f.lower95), cut(f.upper80), cut(f.lower80), cut(f.mean), cut(view.actual), x.map(() => null)];
+    const f = view.latestRun;
+    const c = view.committed;
+    return [x, cut(f.upper95), cut(f.lower95), cut(f.upper80), cut(f.lower80), cut(f.mean), cut(c.dayAhead), cut(c.schedule), cut(view.actual)];
   }, [view, hours, first]);
 
   const options = useMemo<uPlot.Options>(() => {
@@ -60,9 +62,10 @@ export function LoadChart({ view, hours, displayFrom, nowHour, excluded }: LoadC
       series: [
         {},
         ...forecastBandSeries(),
-        { label: 'Forecast', stroke: CHART_COLORS.forecast, width: 1.5, dash: [6, 4], points: { show: false } },
+        { label: 'Latest run', stroke: CHART_COLORS.latestRun, width: 1.5, dash: [6, 4], points: { show: false } },
+        { label: 'Day-ahead forecast', stroke: CHART_COLORS.dayAhead, width: 1.5, points: { show: false } },
+        { label: 'Published schedule', stroke: CHART_COLORS.schedule, width: 2, points: { show: false } },
         { label: 'Actual load', stroke: CHART_COLORS.actual, width: 2, points: { show: false } },
-        { label: 'Published schedule', stroke: CHART_COLORS.schedule, width: 1.5, points: { show: false } },
       ],
       bands: forecastBands(),
       axes: [
@@ -112,17 +115,25 @@ export function LoadChart({ view, hours, displayFrom, nowHour, excluded }: LoadC
   }, [width, view.timeZone, nowHour, excluded, first]);
 
   const hoverIndex = hover === null ? null : first + hover;
+  const drawn = (values: readonly (number | null)[]) => values.slice(first).some((v) => v !== null);
   return (
     <Box>
       <Group justify="space-between" align="flex-start" mb={4} wrap="wrap">
-        <ChartLegend showIncomplete={view.incomplete.some(Boolean)} showExcluded={excluded?.slice(first).some(Boolean) ?? false} />
+        <ChartLegend
+          hasSchedule={drawn(view.committed.schedule)}
+          hasDayAhead={drawn(view.committed.dayAhead)}
+          hasLatestRun={drawn(view.latestRun.mean)}
+          showIncomplete={view.incomplete.slice(first).some(Boolean)}
+          showExcluded={excluded?.slice(first).some(Boolean) ?? false}
+        />
         <HoverReadout view={view} hours={hours} index={hoverIndex} />
       </Group>
       <Box ref={ref} data-testid="load-chart" aria-label={`Load chart: ${view.name}`} role="img">
         {width > 0 && <UplotReact options={options} data={data} />}
       </Box>
+      <CommittedSources view={view} />
       <Text size="xs" c="dimmed" mt={4}>
-        Forecast: {view.forecastSource}. Hour ending in {view.timeZone}; hours left of the dashed grey line are over.
+        Forecast: {view.latestRunSource} — the latest run, dashed with its bands; deviation is measured against what was committed, not against it. Hour ending in {view.timeZone}; hours left of the dashed grey line are over.
       </Text>
     </Box>
   );

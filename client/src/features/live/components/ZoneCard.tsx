@@ -1,6 +1,7 @@
 import { Group, Stack, Text, UnstyledButton } from '@mantine/core';
 import { hourEndingLabel } from '@morrowline/shared';
 import { formatMw, formatPercent } from '../../../lib/format';
+import type { LineBasis } from '../model/committed-line';
 import type { LoadView } from '../model/zone-view';
 import { FeedStateBadge } from './FeedStateBadge';
 
@@ -12,7 +13,19 @@ interface ZoneCardProps {
   onSelect: () => void;
 }
 
-/** One zone (or the system) at a glance: latest load, its forecast, the deviation, the feed. */
+/** The card's word for what the latest hour was measured against. */
+export function basisWord(basis: LineBasis | null): string {
+  if (basis === 'schedule') return 'Schedule';
+  if (basis === 'day-ahead') return 'Day-ahead';
+  if (basis === 'mixed') return 'Committed';
+  return 'Committed';
+}
+
+/**
+ * One zone (or the system) at a glance: latest load, what was committed for that hour (the
+ * published schedule or the day-ahead forecast, named), the deviation from it, the latest run's
+ * value for the next hour as a line of its own, and the feed.
+ */
 export function ZoneCard({ view, hours, selected, thresholdPct, onSelect }: ZoneCardProps) {
   const at = view.latestIndex === null ? null : hours[view.latestIndex];
   const beyond = view.deviationPct !== null && thresholdPct !== null && Math.abs(view.deviationPct) > thresholdPct;
@@ -27,8 +40,8 @@ export function ZoneCard({ view, hours, selected, thresholdPct, onSelect }: Zone
         borderRadius: 'var(--mantine-radius-sm)',
         border: `1px solid ${selected ? 'var(--mantine-color-tide-6)' : 'var(--mantine-color-default-border)'}`,
         background: selected ? 'var(--mantine-color-tide-light)' : undefined,
-        minWidth: 140,
-        flex: '1 1 140px',
+        minWidth: 170,
+        flex: '1 1 170px',
       }}
     >
       <Stack gap={4}>
@@ -37,16 +50,25 @@ export function ZoneCard({ view, hours, selected, thresholdPct, onSelect }: Zone
           <Text size="xs" c="dimmed" ff="monospace">{at ? hourEndingLabel(at, view.timeZone) : '—'}</Text>
         </Group>
         <Text ff="monospace" fw={600} size="lg" data-testid="current-mw">{formatMw(view.currentMw)}</Text>
-        <Group gap="xs" wrap="nowrap">
-          <Text size="xs" c="dimmed">Forecast</Text>
-          <Text size="xs" ff="monospace">{formatMw(view.forecastMw)}</Text>
+        <Group gap="xs" wrap="nowrap" justify="space-between">
+          <Text size="xs" c="dimmed" data-testid="committed-basis">{view.committedMw === null && at ? 'Nothing committed' : basisWord(view.committedBasis)}</Text>
+          <Text size="xs" ff="monospace" data-testid="committed-mw">{formatMw(view.committedMw)}</Text>
         </Group>
-        <Group gap="xs" wrap="nowrap">
+        <Group gap="xs" wrap="nowrap" justify="space-between">
           <Text size="xs" c="dimmed">Deviation</Text>
           <Text size="xs" ff="monospace" fw={beyond ? 700 : 400} c={beyond ? 'ember.7' : undefined} data-testid="deviation">
             {view.deviationPct === null ? '—' : `${sign}${formatPercent(view.deviationPct)}`}
           </Text>
         </Group>
+        <Group gap="xs" wrap="nowrap" justify="space-between">
+          <Text size="xs" c="dimmed" title="The latest run’s forecast for the hour after the latest reading">Run, next hour</Text>
+          <Text size="xs" ff="monospace" data-testid="next-run">{formatMw(view.nextRunMw)}</Text>
+        </Group>
+        {view.leftOut.length > 0 && (
+          <Text size="xs" c="slate.8" data-testid="left-out-count">
+            {view.leftOut.length} {view.leftOut.length === 1 ? 'zone' : 'zones'} left out
+          </Text>
+        )}
         <FeedStateBadge feed={view.feed} />
       </Stack>
     </UnstyledButton>

@@ -19,8 +19,8 @@ const series: ReadingSeriesDto = {
 };
 
 const alert: AlertDto = {
-  id: 7, zone: 'LANTERN', start: '2026-05-01T00:00:00.000Z', end: '2026-05-01T02:00:00.000Z', peakDeviationPct: 9.5, thresholdPct: 5,
-  consecutiveHours: 2, state: 'open', raisedAt: '2026-05-01T02:00:03.000Z', acknowledgedAt: null, acknowledgedBy: null, comment: null,
+  id: 7, zone: 'LANTERN', start: '2026-05-01T00:00:00.000Z', end: '2026-05-01T02:00:00.000Z', peakDeviationPct: 9.5, comparedWith: 'day-ahead', committedMw: 164.4, thresholdPct: 5,
+  consecutiveHours: 2, state: 'open', raisedAt: '2026-05-01T02:00:03.000Z', acknowledgedAt: null, acknowledgedBy: null, acknowledgedByName: null, comment: null,
 };
 
 function setup() {

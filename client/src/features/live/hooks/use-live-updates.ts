@@ -1,11 +1,11 @@
-import { DESK_EVENTS, HOUR_MS, type AlertDto, type FeedStatusDto, type LatestForecastsDto, type ReadingSeriesDto } from '@morrowline/shared';
+import { committedBasisLabel, DESK_EVENTS, HOUR_MS, type AlertDto, type FeedStatusDto, type LatestForecastsDto, type ReadingSeriesDto } from '@morrowline/shared';
 import { notifications, notificationsStore } from '@mantine/notifications';
 import { useQueryClient } from '@tanstack/react-query';
 import { useEffect, useRef } from 'react';
 import { deskSocket, useDeskConnectionState, useDeskEvent, type DeskSocket } from '../../../lib/desk-socket';
 import { formatPercent } from '../../../lib/format';
 import { useZones } from '../../zones';
-import { feedStatusKey, latestForecastsPrefix, openAlertsKey, readingsSeriesPrefix } from '../api/live-keys';
+import { alertHistoryKey, committedLoadPrefix, feedStatusKey, latestForecastsPrefix, openAlertsKey, readingsSeriesPrefix } from '../api/live-keys';
 import { withAlert, withoutAlert } from '../model/alert-list';
 import { applyDeskReadings, applyDeskReadingsToStatus } from '../model/apply-desk-readings';
 
@@ -18,9 +18,11 @@ function zonesOfKey(queryKey: readonly unknown[]): string[] {
 /**
  * Writes what the live channel brings into the query cache: readings into every cached series and
  * the feed status, alerts into the open list (with a notification when one is raised), new
- * forecast runs into the latest forecasts of the queries that asked for that zone. Nothing is
- * refetched for it, except after a dropped connection: what was pushed while it was down is lost,
- * so the live queries are fetched again once it is back.
+ * forecast runs into the latest forecasts of the queries that asked for that zone. The committed
+ * numbers are fetched again when a schedule is published or a run is issued (a run issued before
+ * gate closure becomes the next day's day-ahead forecast), and the alert history when an alert is
+ * acknowledged. After a dropped connection what was pushed while it was down is lost, so the live
+ * queries are fetched again once it is back.
  *
  * Mounted once in the signed-in layout, not on the live page: an operator on the refits or
  * schedules screen still sees a deviation alert, and the live view is current when they return.
@@ -35,7 +37,7 @@ export function useLiveUpdates(socket: DeskSocket = deskSocket): void {
   useEffect(() => {
     if (connection !== 'connected') return;
     if (wasConnected.current) {
-      for (const queryKey of [readingsSeriesPrefix, feedStatusKey, openAlertsKey, latestForecastsPrefix]) void queryClient.invalidateQueries({ queryKey });
+      for (const queryKey of [readingsSeriesPrefix, feedStatusKey, openAlertsKey, alertHistoryKey, latestForecastsPrefix, committedLoadPrefix]) void queryClient.invalidateQueries({ queryKey });
     }
     wasConnected.current = true;
   }, [connection, queryClient]);
@@ -52,7 +54,7 @@ export function useLiveUpdates(socket: DeskSocket = deskSocket): void {
       id: `alert-${alert.id}`,
       color: 'ember',
       title: known ? `Deviation alert widened: ${zoneName(alert.zone)}` : `Deviation alert: ${zoneName(alert.zone)}`,
-      message: `Load ${alert.peakDeviationPct >= 0 ? 'above' : 'below'} forecast by up to ${formatPercent(Math.abs(alert.peakDeviationPct))} for ${Math.round((Date.parse(alert.end) - Date.parse(alert.start)) / HOUR_MS)} h (threshold ${formatPercent(alert.thresholdPct, 0)}).`,
+      message: `Load ${alert.peakDeviationPct >= 0 ? 'above' : 'below'} the ${committedBasisLabel(alert.comparedWith)} by up to ${formatPercent(Math.abs(alert.peakDeviationPct))} for ${Math.round((Date.parse(alert.end) - Date.parse(alert.start)) / HOUR_MS)} h (threshold ${formatPercent(alert.thresholdPct, 0)}).`,
       autoClose: false,
       // Top centre: clear of the user's name and sign-out (top right) and of the alert list's
       // Acknowledge form (lower down), which a notification in a corner would cover.
@@ -65,7 +67,12 @@ export function useLiveUpdates(socket: DeskSocket = deskSocket): void {
 
   useDeskEvent(DESK_EVENTS.alertAcknowledged, (alert: AlertDto) => {
     queryClient.setQueryData<AlertDto[]>(openAlertsKey, (list) => (list ? withoutAlert(list, alert.id) : list));
+    void queryClient.invalidateQueries({ queryKey: alertHistoryKey });
     notifications.hide(`alert-${alert.id}`);
+  }, socket);
+
+  useDeskEvent(DESK_EVENTS.schedule, (event) => {
+    if (event.action === 'publish') void queryClient.invalidateQueries({ queryKey: committedLoadPrefix });
   }, socket);
 
   useDeskEvent(DESK_EVENTS.forecast, (run) => {
@@ -73,5 +80,6 @@ export function useLiveUpdates(socket: DeskSocket = deskSocket): void {
       if (!latest || !zonesOfKey(queryKey).includes(run.zone)) continue;
       queryClient.setQueryData<LatestForecastsDto>(queryKey, { zones: [...latest.zones.filter((z) => z.zone !== run.zone), run] });
     }
+    void queryClient.invalidateQueries({ queryKey: committedLoadPrefix });
   }, socket);
 }

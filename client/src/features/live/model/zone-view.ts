@@ -1,8 +1,24 @@
 import { HOUR_MS, type FeedStatusDto, type ReadingSeriesDto, type ZoneDto } from '@morrowline/shared';
+import { emptyCommittedLine, systemCommitted, type CommittedLine, type LineBasis } from './committed-line';
 import { emptyForecastLine, type ForecastLine } from './forecast-line';
 import { systemTotal } from './system-total';
 
 export const SYSTEM = 'SYSTEM';
+
+/**
+ * A zone without a reading in this many hours up to now is left out of the system total: marking
+ * every hour since it fell silent as incomplete would blank the total just where the desk looks.
+ * Shorter gaps are marked hour by hour.
+ */
+export const SILENT_AFTER_HOURS = 24;
+
+/** A zone the system total leaves out, and why. */
+export interface LeftOutZone {
+  name: string;
+  reason: 'never-reported' | 'switched-off' | 'silent';
+  /** For a silent zone: its latest hour ever (UTC start). */
+  lastHour?: string | null;
+}
 
 /** What the chart and the zone card show for one zone, or for the system total. */
 export interface LoadView {
@@ -10,15 +26,23 @@ export interface LoadView {
   name: string;
   timeZone: string;
   actual: (number | null)[];
-  forecast: ForecastLine;
-  /** Hours that ended without every zone reporting (system total only). */
+  /** What was committed: the published schedule, else the day-ahead forecast. */
+  committed: CommittedLine;
+  /** The latest intraday model run with its bands: a line of its own, never the committed one. */
+  latestRun: ForecastLine;
+  latestRunSource: string;
+  /** Hours that ended without every counted zone reporting (system total only). */
   incomplete: boolean[];
+  /** Zones the system total leaves out (system total only). */
+  leftOut: LeftOutZone[];
   /** Latest hour with a value, and the values there. */
   latestIndex: number | null;
   currentMw: number | null;
-  forecastMw: number | null;
+  committedMw: number | null;
+  committedBasis: LineBasis | null;
   deviationPct: number | null;
-  forecastSource: string;
+  /** The latest run's value for the hour after the latest reading. */
+  nextRunMw: number | null;
   feed: FeedState;
 }
 
@@ -38,18 +62,26 @@ function latestValue(actual: readonly (number | null)[], before: number): number
   return null;
 }
 
-function withCurrent(view: Omit<LoadView, 'latestIndex' | 'currentMw' | 'forecastMw' | 'deviationPct'>, nowIndex: number): LoadView {
+type ViewBase = Omit<LoadView, 'latestIndex' | 'currentMw' | 'committedMw' | 'committedBasis' | 'deviationPct' | 'nextRunMw'>;
+
+/** The card's figures: the latest reading against what was committed for that hour. */
+function withCurrent(view: ViewBase, nowIndex: number): LoadView {
   const latestIndex = latestValue(view.actual, nowIndex + 1);
   const currentMw = latestIndex === null ? null : view.actual[latestIndex];
-  const forecastMw = latestIndex === null ? null : view.forecast.mean[latestIndex];
-  const deviationPct = currentMw !== null && forecastMw !== null && forecastMw > 0 ? ((currentMw - forecastMw) / forecastMw) * 100 : null;
-  return { ...view, latestIndex, currentMw, forecastMw, deviationPct };
+  const committedMw = latestIndex === null ? null : view.committed.committed[latestIndex];
+  const committedBasis = latestIndex === null ? null : view.committed.basis[latestIndex];
+  const deviationPct = currentMw !== null && committedMw !== null && committedMw > 0 ? ((currentMw - committedMw) / committedMw) * 100 : null;
+  const nextIndex = latestIndex === null ? nowIndex : latestIndex + 1;
+  const nextRunMw = view.latestRun.mean[nextIndex] ?? null;
+  return { ...view, latestIndex, currentMw, committedMw, committedBasis, deviationPct, nextRunMw };
 }
 
 export interface ViewInputs {
   series: ReadingSeriesDto;
+  /** The active zones, in the order shown. */
   zones: readonly ZoneDto[];
-  forecasts: ReadonlyMap<string, { line: ForecastLine; source: string }>;
+  committed: ReadonlyMap<string, CommittedLine>;
+  latestRuns: ReadonlyMap<string, { line: ForecastLine; source: string }>;
   status: readonly FeedStatusDto[] | undefined;
   /** Start of the current hour (epoch ms). */
   nowHour: number;
@@ -60,12 +92,14 @@ export function nowIndexOf(series: ReadingSeriesDto, nowHour: number): number {
   return Math.floor((nowHour - Date.parse(series.from)) / HOUR_MS);
 }
 
-export function zoneViews({ series, zones, forecasts, status, nowHour }: ViewInputs): LoadView[] {
+/** One view per active zone the series has readings for (a zone added a moment ago waits for the next fetch). */
+export function zoneViews({ series, zones, committed, latestRuns, status, nowHour }: ViewInputs): LoadView[] {
   const nowIndex = nowIndexOf(series, nowHour);
+  const length = series.hours.length;
   return zones.flatMap((zone) => {
     const readings = series.zones.find((z) => z.zone === zone.code);
     if (!readings) return [];
-    const forecast = forecasts.get(zone.code);
+    const run = latestRuns.get(zone.code);
     return [
       withCurrent(
         {
@@ -73,9 +107,11 @@ export function zoneViews({ series, zones, forecasts, status, nowHour }: ViewInp
           name: zone.name,
           timeZone: zone.timeZone,
           actual: readings.mw,
-          forecast: forecast?.line ?? emptyForecastLine(series.hours.length),
-          incomplete: new Array<boolean>(series.hours.length).fill(false),
-          forecastSource: forecast?.source ?? 'No forecast',
+          committed: committed.get(zone.code) ?? emptyCommittedLine(length),
+          latestRun: run?.line ?? emptyForecastLine(length),
+          latestRunSource: run?.source ?? 'No forecast run',
+          incomplete: new Array<boolean>(length).fill(false),
+          leftOut: [],
           feed: feedState(status?.find((s) => s.zone === zone.code)),
         },
         nowIndex,
@@ -84,19 +120,39 @@ export function zoneViews({ series, zones, forecasts, status, nowHour }: ViewInp
   });
 }
 
+export interface SystemInputs {
+  views: readonly LoadView[];
+  series: ReadingSeriesDto;
+  /** Zones switched off (inactive): never part of the total, named in its note. */
+  inactive: readonly ZoneDto[];
+  nowHour: number;
+}
+
 /**
- * The system total. Actual load is added only where every zone reported (see systemTotal); only
- * hours already over count as incomplete. The total's bands add the zones' bands, which assumes
- * the zones' errors move together: wider than the truth when they partly cancel, never narrower.
+ * The system total over the zones that report: a zone that has never reported, or has no reading
+ * in the last SILENT_AFTER_HOURS hours, is left out (and named), so one new or silent zone does
+ * not blank the total for everyone. Among the counted zones an hour is totalled only where every one reported (see
+ * systemTotal); the hours over that miss one are marked incomplete. The committed line and the
+ * latest run's bands add the counted zones' lines; adding bands assumes the zones' errors move
+ * together: wider than the truth when they partly cancel, never narrower.
  */
-export function systemView(views: readonly LoadView[], series: ReadingSeriesDto, nowHour: number): LoadView {
+export function systemView({ views, series, inactive, nowHour }: SystemInputs): LoadView {
   const length = series.hours.length;
   const nowIndex = nowIndexOf(series, nowHour);
-  const actual = systemTotal(views.map((v) => v.actual), length);
-  const band = (pick: (f: ForecastLine) => (number | null)[]) => systemTotal(views.map((v) => pick(v.forecast)), length).mw;
-  const staleZones = views.filter((v) => v.feed.kind === 'stale');
-  const lastHours = views.map((v) => (v.feed.kind === 'live' ? v.feed.lastHour : null));
-  const allLive = views.length > 0 && lastHours.every((h) => h !== null);
+  const shown = (v: LoadView) => v.actual.some((mw, i) => mw !== null && i <= nowIndex && i >= nowIndex - SILENT_AFTER_HOURS);
+  const counted = views.filter(shown);
+  const leftOut: LeftOutZone[] = [
+    ...views.filter((v) => !shown(v)).map((v): LeftOutZone => {
+      const lastHour = v.feed.kind === 'unknown' ? null : v.feed.lastHour;
+      return lastHour ? { name: v.name, reason: 'silent', lastHour } : { name: v.name, reason: 'never-reported' };
+    }),
+    ...inactive.map((z): LeftOutZone => ({ name: z.name, reason: 'switched-off' })),
+  ];
+  const actual = systemTotal(counted.map((v) => v.actual), length);
+  const band = (pick: (f: ForecastLine) => (number | null)[]) => systemTotal(counted.map((v) => pick(v.latestRun)), length).mw;
+  const staleZones = counted.filter((v) => v.feed.kind === 'stale');
+  const lastHours = counted.map((v) => (v.feed.kind === 'live' ? v.feed.lastHour : null));
+  const allLive = counted.length > 0 && lastHours.every((h) => h !== null);
   const feed: FeedState = staleZones.length > 0 ? { kind: 'stale', lastHour: null, hoursBehind: null, staleZones: staleZones.map((v) => v.name) } : allLive ? { kind: 'live', lastHour: lastHours.sort()[0] as string, lastReceivedAt: null } : { kind: 'unknown' };
   return withCurrent(
     {
@@ -104,12 +160,13 @@ export function systemView(views: readonly LoadView[], series: ReadingSeriesDto,
       name: 'System total',
       timeZone: views[0]?.timeZone ?? 'UTC',
       actual: actual.mw,
-      forecast: { mean: band((f) => f.mean), lower80: band((f) => f.lower80), upper80: band((f) => f.upper80), lower95: band((f) => f.lower95), upper95: band((f) => f.upper95) },
+      committed: systemCommitted(counted.map((v) => v.committed), length),
+      latestRun: { mean: band((f) => f.mean), lower80: band((f) => f.lower80), upper80: band((f) => f.upper80), lower95: band((f) => f.lower95), upper95: band((f) => f.upper95) },
+      latestRunSource: 'Sum of the counted zones’ latest runs',
       incomplete: actual.incomplete.map((flag, i) => flag && i < nowIndex),
-      forecastSource: 'Sum of the zones’ forecasts',
+      leftOut,
       feed,
     },
     nowIndex,
   );
 }
-

@@ -1,6 +1,6 @@
 import { Button, Checkbox, Group, Modal, SegmentedControl, Stack, Text, TextInput, Textarea } from '@mantine/core';
 import { useForm } from '@mantine/form';
-import type { OutageDto, OutageKind } from '@morrowline/shared';
+import { formatLocalTime, formatUtcTime, type OutageDto, type OutageKind } from '@morrowline/shared';
 import { useEffect } from 'react';
 import { ErrorNotice } from '../../../components/ErrorNotice';
 import { notifySuccess } from '../../../lib/notify';
@@ -23,8 +23,8 @@ function TimeHint({ local, timeZone }: { local: string; timeZone: string }) {
   const parsed = localToIso(local, timeZone);
   if (!parsed.iso) return null;
   return (
-    <Text size="xs" c="dimmed" ff="monospace">
-      {parsed.iso}
+    <Text size="xs" c="dimmed" ff="monospace" data-testid="outage-time-hint">
+      {formatLocalTime(parsed.iso, timeZone)} ({formatUtcTime(parsed.iso)})
       {parsed.ambiguous ? ' — this clock time happens twice tonight; the first one is taken' : ''}
     </Text>
   );

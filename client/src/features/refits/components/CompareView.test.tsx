@@ -1,4 +1,4 @@
-import type { ModelCompareDto, ModelVersionDto } from '@morrowline/shared';
+import type { ModelCompareDto, ModelVersionDto, VersionIssueScoreDto } from '@morrowline/shared';
 import { screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { renderWithProviders } from '../../../test/render';
@@ -15,10 +15,23 @@ function version(id: number, changes: Partial<ModelVersionDto> = {}): ModelVersi
   };
 }
 
-function compare(candidateMape: number, inServiceMape: number, inService: Partial<ModelVersionDto> = {}): ModelCompareDto {
+function score(versionId: number, mape: number): VersionIssueScoreDto {
   return {
-    zone: 'QUARRY', candidate: version(12), inService: version(9, { status: 'in-service', sigma2: 18.5, aicc: 6100.4, bic: 6120, ...inService }),
-    sameDays: { days: 7, from: null, to: null, candidateMape, inServiceMape, baselineMape: 6.4 }, candidateBetter: candidateMape < inServiceMape,
+    versionId, days: 1, hours: 24, mape, bias: -1.5, coverage80: 78, issuedDays: 0, inSampleDays: 0,
+    perDay: [{ day: '2026-07-13', issuedAt: '2026-07-12T16:00:00Z', source: 're-forecast', hours: 24, mape }],
+  };
+}
+
+function compare(candidateMape: number, inServiceMape: number, inService: Partial<ModelVersionDto> = {}, over: Partial<ModelCompareDto> = {}): ModelCompareDto {
+  return {
+    zone: 'QUARRY', timeZone: 'America/Denver', candidate: version(12), inService: version(9, { status: 'in-service', sigma2: 18.5, aicc: 6100.4, bic: 6120, ...inService }),
+    sameDays: {
+      days: 7, from: null, to: null, candidateMape, inServiceMape, baselineMape: 6.4, issueTime: 'at the 10:00 gate closure the day before',
+      candidate: score(12, candidateMape), inService: score(9, inServiceMape), comparable: true, notComparable: null,
+    },
+    candidateBetter: candidateMape < inServiceMape,
+    diagnostics: [],
+    ...over,
   };
 }
 
@@ -47,5 +60,28 @@ describe('CompareView', () => {
     renderWithProviders(<CompareView compare={compare(3.05, 4.4, { differencing: [24, 168], differencingLabel: '(1−B^24)(1−B^168)' })} />);
     expect(within(cell('candidate-AICc')).queryByText(/better|worse/)).toBeNull();
     expect(screen.getAllByText('not comparable: different differencing')).toHaveLength(2);
+  });
+
+  it('gives no badge when the two were not scored on the same days, and says why', () => {
+    const notAlike = compare(3.05, 4.4, {}, { candidateBetter: null, sameDays: { ...compare(3.05, 4.4).sameDays, comparable: false, notComparable: 'not scored on the same days: version 12 could not forecast 2026-07-13' } });
+    renderWithProviders(<CompareView compare={notAlike} />);
+    expect(screen.getByTestId('compare-verdict')).toHaveTextContent('The two cannot be ranked: not scored on the same days: version 12 could not forecast 2026-07-13.');
+    expect(within(cell('candidate-Backtest MAPE, same 7 days')).queryByText(/better|worse/)).toBeNull();
+  });
+
+  it('ranks no fit criterion between versions fitted on different hours, and never the Ljung–Box test', () => {
+    renderWithProviders(<CompareView compare={compare(3.05, 4.4, { trainingFrom: '2026-05-01T00:00:00Z' })} />);
+    expect(within(cell('candidate-AICc')).queryByText(/better|worse/)).toBeNull();
+    expect(within(cell('candidate-σ² (MW²)')).queryByText(/better|worse/)).toBeNull();
+    expect(screen.getAllByText('not comparable: fitted on different hours')).toHaveLength(2);
+    expect(within(cell('candidate-Ljung–Box, lowest p')).queryByText(/better|worse/)).toBeNull();
+  });
+
+  it('shows each scored day with its issue time in the zone and what the scores mean', () => {
+    renderWithProviders(<CompareView compare={compare(3.05, 4.4, {}, { diagnostics: ['Version 12: its 80 % band held only 55 % of the hours on these days, so the band is too narrow; keep a wider margin than it shows.'] })} />);
+    expect(screen.getByTestId('scored-day-2026-07-13')).toHaveTextContent(/2026-07-13\s*2026-07-12 10:00 MDT\s*3\.05 %\s*4\.40 %/);
+    expect(screen.getByTestId('compare-diagnostics')).toHaveTextContent('band is too narrow');
+    expect(cell('candidate-80 % band held')).toHaveTextContent('78.00 %');
+    expect(cell('candidate-Mean error')).toHaveTextContent('-1.5 MW');
   });
 });

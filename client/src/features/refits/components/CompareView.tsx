@@ -1,5 +1,6 @@
 import { Alert, Badge, SimpleGrid, Stack, Table, Text, Title } from '@mantine/core';
-import type { ModelCompareDto, ModelVersionDto } from '@morrowline/shared';
+import type { ModelCompareDto, ModelVersionDto, VersionIssueScoreDto } from '@morrowline/shared';
+import { formatDateTime } from '../../../lib/format';
 import { compareRows, compareVerdict, ordersOf, type Better } from '../model/compare-rows';
 
 function Mark({ side, better }: { side: Exclude<Better, null>; better: Better }) {
@@ -34,6 +35,41 @@ function Coefficients({ title, version }: { title: string; version: ModelVersion
         </Table>
       )}
     </Stack>
+  );
+}
+
+function dayMape(score: VersionIssueScoreDto | null, k: number): string {
+  const d = score?.perDay[k];
+  if (!d) return '—';
+  if (d.source === null) return 'could not forecast';
+  return `${d.mape === null ? '—' : `${d.mape.toFixed(2)} %`}${d.source === 'issued' ? ' (as issued)' : ''}`;
+}
+
+/** Each scored day: when it was forecast, and how each version did. */
+function DayScores({ compare }: { compare: ModelCompareDto }) {
+  const { candidate, inService } = compare.sameDays;
+  if (!candidate || candidate.perDay.length === 0) return null;
+  return (
+    <Table aria-label="Scored days" withTableBorder verticalSpacing={4}>
+      <Table.Thead>
+        <Table.Tr>
+          <Table.Th>Day</Table.Th>
+          <Table.Th>Forecast at</Table.Th>
+          <Table.Th ta="right">Version {compare.candidate.id}</Table.Th>
+          <Table.Th ta="right">In service</Table.Th>
+        </Table.Tr>
+      </Table.Thead>
+      <Table.Tbody>
+        {candidate.perDay.map((d, k) => (
+          <Table.Tr key={d.day} data-testid={`scored-day-${d.day}`}>
+            <Table.Td ff="monospace">{d.day}</Table.Td>
+            <Table.Td ff="monospace">{formatDateTime(d.issuedAt, compare.timeZone)}</Table.Td>
+            <Table.Td ff="monospace" ta="right">{dayMape(candidate, k)}</Table.Td>
+            <Table.Td ff="monospace" ta="right">{dayMape(inService, k)}</Table.Td>
+          </Table.Tr>
+        ))}
+      </Table.Tbody>
+    </Table>
   );
 }
 
@@ -76,8 +112,11 @@ export function CompareView({ compare }: { compare: ModelCompareDto }) {
           <Coefficients title="In service" version={compare.inService} />
         </SimpleGrid>
       </div>
-      {compare.candidate.warnings.length > 0 && (
-        <Stack gap={2}>
+      <DayScores compare={compare} />
+      {(compare.diagnostics.length > 0 || compare.candidate.warnings.length > 0) && (
+        <Stack gap={2} data-testid="compare-diagnostics">
+          <Title order={5}>What this means</Title>
+          {compare.diagnostics.map((d) => <Text key={d} size="sm">{d}</Text>)}
           {compare.candidate.warnings.map((w) => <Text key={w} size="sm" c="ember.8">Note on version {compare.candidate.id}: {w}</Text>)}
         </Stack>
       )}

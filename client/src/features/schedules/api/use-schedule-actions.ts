@@ -47,3 +47,11 @@ export const useStartCorrection = (day: string) =>
   useScheduleMutation(({ zone, reason }: { zone: string; reason: string }) =>
     api.post<ScheduleRevisionDto>(`/schedules/${day}/${zone}/corrections`, { reason }),
   );
+
+/** POST /revisions/:id/back-to-model — every adjustment in force undone, the hours the model's again. */
+export const useBackToModel = () =>
+  useScheduleMutation((id: number) => api.post<ScheduleRevisionDto>(`/schedules/revisions/${id}/back-to-model`));
+
+/** POST /revisions/:id/restart — the latest forecast run's values, the adjustments in force applied again. */
+export const useRestartFromLatest = () =>
+  useScheduleMutation((id: number) => api.post<ScheduleRevisionDto>(`/schedules/revisions/${id}/restart`));

@@ -37,7 +37,14 @@ export function AdjustmentList({ adjustments, slots, timeZone, mayUndo }: Adjust
               <Table.Tr key={a.id} data-testid={`adjustment-${a.id}`} style={undone ? { textDecoration: 'line-through', opacity: 0.6 } : undefined}>
                 <Table.Td ff="monospace">{describeAdjustment(a.kind, a.value)}</Table.Td>
                 <Table.Td ff="monospace">{a.fromHour === a.toHour ? label(a.fromHour) : `${label(a.fromHour)}–${label(a.toHour)}`}</Table.Td>
-                <Table.Td>{a.reason}</Table.Td>
+                <Table.Td>
+                  {a.reason}
+                  {a.carriedFromRevision !== null && (
+                    <Text size="xs" c="dimmed" style={{ textDecoration: 'none' }}>
+                      carried from revision {a.carriedFromRevision}
+                    </Text>
+                  )}
+                </Table.Td>
                 <Table.Td>
                   {a.by.name}, {formatDateTime(a.at, timeZone)}
                   {undone && (

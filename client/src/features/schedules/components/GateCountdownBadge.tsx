@@ -1,5 +1,5 @@
 import { Badge, Tooltip } from '@mantine/core';
-import { DateTime } from 'luxon';
+import { formatLocalDayClock } from '@morrowline/shared';
 import { useEffect, useState } from 'react';
 import { formatDateTime } from '../../../lib/format';
 import { gateCountdown } from '../model/countdown';
@@ -25,7 +25,7 @@ export function GateCountdownBadge({ gateClosureAt, timeZone, clockOffsetMs }: {
   return (
     <Tooltip label={`Gate closure ${formatDateTime(gateClosureAt, timeZone)} (${timeZone})`}>
       <Badge color={color} variant={countdown.urgent ? 'filled' : 'light'} size="lg" tt="none" data-testid="gate-countdown" data-urgent={countdown.urgent}>
-        {countdown.text} · gate {DateTime.fromISO(gateClosureAt, { zone: timeZone }).toFormat('ccc dd LLL HH:mm')} local
+        {countdown.text} · gate {formatLocalDayClock(gateClosureAt, timeZone)}
       </Badge>
     </Tooltip>
   );

@@ -5,11 +5,12 @@ import { ErrorNotice } from '../../../components/ErrorNotice';
 import { notifySuccess } from '../../../lib/notify';
 import { useApproveRevision, useReturnRevision, useStartCorrection, useStartDraft, useSubmitRevision } from '../api/use-schedule-actions';
 import { scheduleActions } from '../model/permissions';
+import { ConfirmPublishDialog } from './ConfirmPublishDialog';
 import { DownloadButtons } from './DownloadButtons';
 import { ReasonDialog } from './ReasonDialog';
 import { StateLine } from './StateLine';
 
-type Dialog = 'submit' | 'return' | 'correct' | null;
+type Dialog = 'submit' | 'approve' | 'return' | 'correct' | null;
 
 /** Where one zone's schedule stands, and the next step the signed-in person may take. */
 export function WorkflowPanel({ day, zone, user, caution }: { day: string; zone: ZoneScheduleDto; user: Pick<UserDto, 'id' | 'role'>; caution?: string }) {
@@ -63,10 +64,7 @@ export function WorkflowPanel({ day, zone, user, caution }: { day: string; zone:
             </Button>
           )}
           {actions.approve && working && (
-            <Button
-              loading={approve.isPending}
-              onClick={() => approve.mutate(working.id, { onSuccess: (revision) => notifySuccess(`${zone.zoneName} revision ${revision.revision} published.`) })}
-            >
+            <Button loading={approve.isPending} onClick={() => setDialog('approve')}>
               Approve and publish
             </Button>
           )}
@@ -102,6 +100,20 @@ export function WorkflowPanel({ day, zone, user, caution }: { day: string; zone:
             <Text size="sm">Adjustments cannot be undone after submission; a supervisor approves or returns it.</Text>
           )}
         </ReasonDialog>
+      )}
+      {dialog === 'approve' && working && (
+        <ConfirmPublishDialog
+          zoneName={zone.zoneName}
+          revision={working}
+          pending={approve.isPending}
+          onClose={() => setDialog(null)}
+          onConfirm={() =>
+            approve.mutate(working.id, {
+              onSuccess: (revision) => notifySuccess(`${zone.zoneName} revision ${revision.revision} published.`),
+              onSettled: () => setDialog(null),
+            })
+          }
+        />
       )}
       {dialog === 'return' && working && (
         <ReasonDialog

@@ -1,10 +1,13 @@
 import { Accordion, Badge, Group, Stack, Text, Title } from '@mantine/core';
 import type { UserDto, ZoneScheduleDto } from '@morrowline/shared';
 import { useMemo } from 'react';
-import { formatMw } from '../../../lib/format';
+import { formatDateTime, formatMw } from '../../../lib/format';
 import { isEditable, isForecaster } from '../model/permissions';
 import { shownRevision, zoneRows } from '../model/rows';
+import { describeScheduleSummary, scheduleSummary } from '../model/summary';
 import { AdjustmentList } from './AdjustmentList';
+import { BackToModelButton } from './BackToModelButton';
+import { ForecastVintage } from './ForecastVintage';
 import { GateCountdownBadge } from './GateCountdownBadge';
 import { RevisionHistory } from './RevisionHistory';
 import { ScheduleChart } from './ScheduleChart';
@@ -23,16 +26,16 @@ interface ZoneSchedulePanelProps {
 export function ZoneSchedulePanel({ day, zone, user, caution, clockOffsetMs }: ZoneSchedulePanelProps) {
   const rows = useMemo(() => zoneRows(zone), [zone]);
   const revision = shownRevision(zone);
-  const total = rows.reduce((sum, row) => sum + (row.adjustedMw ?? 0), 0);
+  const summary = scheduleSummary(rows);
   const mayUndo = isForecaster(user) && isEditable(zone.working);
   return (
     <Stack gap="md" data-testid={`zone-schedule-${zone.zone}`}>
       <Group justify="space-between" align="center" wrap="wrap">
         <Stack gap={0}>
           <Title order={3}>{zone.zoneName}</Title>
-          <Text size="sm" c="dimmed">
-            {rows.length} hours · {Math.round(total).toLocaleString('en-US')} MWh adjusted · peak {formatMw(Math.max(0, ...rows.map((r) => r.adjustedMw ?? 0)))} · {zone.timeZone}
-            {zone.forecast && ` · forecast issued ${zone.forecast.issuedAt.slice(0, 16).replace('T', ' ')} UTC`}
+          <Text size="sm" c="dimmed" data-testid="schedule-summary">
+            {describeScheduleSummary(summary)} · peak {formatMw(summary.peakMw)} · {zone.timeZone}
+            {(revision?.forecastIssuedAt ?? zone.forecast?.issuedAt) && ` · forecast issued ${formatDateTime((revision?.forecastIssuedAt ?? zone.forecast!.issuedAt), zone.timeZone)}`}
           </Text>
           {revision?.forecastReplayed && (
             <Group gap={6} mt={4}>
@@ -48,6 +51,7 @@ export function ZoneSchedulePanel({ day, zone, user, caution, clockOffsetMs }: Z
         <GateCountdownBadge gateClosureAt={zone.gateClosureAt} timeZone={zone.timeZone} clockOffsetMs={clockOffsetMs} />
       </Group>
       <WorkflowPanel day={day} zone={zone} user={user} caution={caution} />
+      <ForecastVintage zone={zone} user={user} />
       <ScheduleChart rows={rows} title={zone.zoneName} />
       <Accordion multiple defaultValue={['hours', 'adjustments']} variant="separated">
         <Accordion.Item value="hours">
@@ -59,6 +63,7 @@ export function ZoneSchedulePanel({ day, zone, user, caution, clockOffsetMs }: Z
         <Accordion.Item value="adjustments">
           <Accordion.Control>Adjustments ({revision?.adjustments.filter((a) => a.undoneAt === null).length ?? 0})</Accordion.Control>
           <Accordion.Panel>
+            {mayUndo && zone.working && <BackToModelButton revision={zone.working} />}
             <AdjustmentList adjustments={revision?.adjustments ?? []} slots={zone.slots} timeZone={zone.timeZone} mayUndo={mayUndo} />
           </Accordion.Panel>
         </Accordion.Item>

@@ -50,7 +50,7 @@ describe('day-ahead schedule screen', () => {
   it('offers another supervisor approval with the caution, and shows the server refusal', async () => {
     const working = revisionFixture('MILLRACE', DAY, 'submitted', { submittedBy: { id: 2, name: 'Ines Marlow' }, submittedAt: '2026-10-31T14:00:00Z' });
     const supervisor = userFixture('supervisor', { id: 4, name: 'Hal Brennick' });
-    mockApi({
+    const { calls } = mockApi({
       'GET /api/auth/me': () => ({ body: supervisor }),
       'GET /api/zones': () => ({ body: [millrace] }),
       [`GET /api/schedules/${DAY}`]: () => ({ body: day(zoneFixture('MILLRACE', DAY, { working })) }),
@@ -65,6 +65,10 @@ describe('day-ahead schedule screen', () => {
     expect(screen.getByTestId('revision-state')).toHaveTextContent('Submitted by Ines Marlow');
     expect(screen.queryByRole('form', { name: 'Adjust the schedule' })).not.toBeInTheDocument();
     await user.click(screen.getByRole('button', { name: 'Approve and publish' }));
+    // one click only asks: nothing is sent until the supervisor confirms
+    const confirm = await screen.findByRole('dialog');
+    expect(calls.some((call) => call.path.endsWith('/approve'))).toBe(false);
+    await user.click(within(confirm).getByRole('button', { name: 'Publish revision 1' }));
     expect(await screen.findByText('Revision 1 was changed meanwhile')).toBeInTheDocument();
   });
 

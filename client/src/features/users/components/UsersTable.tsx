@@ -1,6 +1,7 @@
 import { Badge, Button, Group, Table, Text } from '@mantine/core';
 import type { UserDto } from '@morrowline/shared';
 import { formatDateTime } from '../../../lib/format';
+import { useDeskTimeZone } from '../../../lib/use-desk-time-zone';
 import { ROLE_COLORS, ROLE_LABELS } from '../../../lib/roles';
 import type { UserChange } from './UserChangeDialog';
 
@@ -12,6 +13,7 @@ interface UsersTableProps {
 }
 
 export function UsersTable({ users, currentUserId, onChange }: UsersTableProps) {
+  const deskTimeZone = useDeskTimeZone();
   return (
     <Table.ScrollContainer minWidth={760}>
       <Table aria-label="Users">
@@ -40,7 +42,7 @@ export function UsersTable({ users, currentUserId, onChange }: UsersTableProps) 
                   <Badge color="gray" variant="outline">Deactivated</Badge>
                 )}
               </Table.Td>
-              <Table.Td className="numeric">{formatDateTime(user.lastLoginAt)}</Table.Td>
+              <Table.Td className="numeric">{formatDateTime(user.lastLoginAt, deskTimeZone)}</Table.Td>
               <Table.Td>
                 {user.id === currentUserId ? (
                   <Text size="xs" c="dimmed" ta="right">

@@ -32,7 +32,7 @@ function DailyMapeChart({ result }: { result: BacktestReportDto }) {
       axes: [axis({ values: (_u: uPlot, splits: number[]) => splits.map((i) => (Number.isInteger(i) ? (labels[i] ?? '') : '')) }), axis({ size: 44, label: '%', labelSize: 14 })],
     };
   }, [result]);
-  return <UplotChart title="MAPE per operating day" options={options} data={data} height={220} testId="chart-backtest-daily" />;
+  return <UplotChart title="MAPE per operating day" options={options} data={data} height={220} testId="chart-backtest-daily" seriesKey />;
 }
 
 /** The rolling day-ahead backtest against the same hour last week. */

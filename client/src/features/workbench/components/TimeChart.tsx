@@ -29,13 +29,12 @@ export function TimeChart({ title, times, lines, unit, timeZone, height, testId,
       tzDate: (ts: number) => uPlotTz(ts, timeZone),
       scales: { x: { time: true } },
       cursor: { drag: { x: true, y: false } },
-      legend: { show: true },
       series: [{ label: 'time' }, ...lines.map((l) => ({ label: l.label, stroke: l.color, width: l.width ?? 1.25, points: { show: false }, value: (_: uPlot, v: number | null) => (v == null ? '—' : `${v.toFixed(1)} ${unit}`) }))],
       axes: [axis(), axis({ size: 60, values: (_u: uPlot, splits: number[]) => splits.map((v) => v.toFixed(0)), label: unit, labelSize: 14 })],
     }),
     [lines, unit, timeZone],
   );
-  return <UplotChart title={title} options={options} data={data} height={height} testId={testId} caption={caption} />;
+  return <UplotChart title={title} options={options} data={data} height={height} testId={testId} caption={caption} seriesKey />;
 }
 
 /** A Date whose local fields show the zone's wall-clock time (uPlot formats local fields). */

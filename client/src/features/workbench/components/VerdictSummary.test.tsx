@@ -41,4 +41,16 @@ describe('stationarity verdict summary', () => {
     expect(screen.queryByText('suggested')).not.toBeInTheDocument();
     expect(screen.getByTestId('verdict-24')).toHaveTextContent('changing spread');
   });
+
+  it('marks the differencing the model in service uses, not the tests\' own pick', () => {
+    renderWithProviders(
+      <VerdictSummary
+        verdict={{ headline: 'The model in service (version 41) uses (1−B^168).', problems: ['daily', 'weekly'], recommended: [168], recommendedLabel: '(1−B^168)', recommendedBy: 'model', inUse: { versionId: 41, diff: [168], label: '(1−B^168)' }, testsPick: [24, 168] }}
+        checks={[check([], 'as recorded', ['daily'], 'x'), check([168], '(1−B^168)', ['variance'], 'y'), check([24, 168], '(1−B^24)(1−B^168)', [], 'z')]}
+      />,
+    );
+    expect(within(screen.getByTestId('verdict-168')).getByText('suggested')).toBeInTheDocument();
+    expect(within(screen.getByTestId('verdict-168')).getByText('in use by version 41')).toBeInTheDocument();
+    expect(within(screen.getByTestId('verdict-24x168')).queryByText('suggested')).not.toBeInTheDocument();
+  });
 });

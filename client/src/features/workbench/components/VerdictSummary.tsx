@@ -36,6 +36,7 @@ export function VerdictSummary({ verdict, checks }: VerdictSummaryProps) {
                         {c.label}
                       </Text>
                       {chosen && c.diff.length > 0 && <Badge color="tide">suggested</Badge>}
+                      {chosen && verdict.inUse && <Badge color="tide" variant="light">in use by version {verdict.inUse.versionId}</Badge>}
                       {c.problems.map((p) => (
                         <Badge key={p} color="ember">
                           {PROBLEM_LABELS[p]}

@@ -6,6 +6,7 @@ import { useMemo } from 'react';
 import { ErrorNotice } from '../../../components/ErrorNotice';
 import { notifySuccess } from '../../../lib/notify';
 import { useCreateZone, useUpdateZone } from '../api/use-save-zone';
+import { useZones } from '../api/use-zones';
 import {
   EMPTY_ZONE_FORM,
   formToCreateRequest,
@@ -27,6 +28,8 @@ export function ZoneDialog({ zone, onClose }: ZoneDialogProps) {
   const createZone = useCreateZone();
   const updateZone = useUpdateZone();
   const saving = creating ? createZone : updateZone;
+  const zones = useZones();
+  const otherZones = useMemo(() => (zones.data ?? []).filter((other) => other.id !== zone?.id), [zones.data, zone]);
 
   // A zone saved with a name the browser does not list (an alias such as "UTC") stays choosable.
   const timeZones = useMemo(() => {
@@ -37,7 +40,7 @@ export function ZoneDialog({ zone, onClose }: ZoneDialogProps) {
   const form = useForm<ZoneFormValues>({
     mode: 'uncontrolled',
     initialValues: zone ? zoneToForm(zone) : EMPTY_ZONE_FORM,
-    validate: (values) => validateZoneForm(values, timeZones, creating),
+    validate: (values) => validateZoneForm(values, timeZones, creating, otherZones),
     transformValues: (values) => ({ ...values, code: values.code.trim().toUpperCase() }),
   });
 

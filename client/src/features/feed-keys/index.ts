@@ -1,0 +1,1 @@
+export { FeedKeysPage } from './routes/FeedKeysPage';

@@ -1,0 +1,24 @@
+import type { ModelVersion } from './entities/model-version.entity';
+
+/** What decides whether a re-estimate is the model already stored: its data and its estimates. */
+export type FitIdentity = Pick<ModelVersion, 'differencing' | 'p' | 'q' | 'coefficients' | 'sigma2' | 'trainingFrom' | 'trainingTo' | 'trainingHours' | 'excludedHours'>;
+
+/**
+ * True when an hourly update re-estimated the in-service model on the same window of data and
+ * came out with the same orders, coefficients and innovation variance: nothing has changed, so
+ * storing it would only add a copy to the version list. Estimation is deterministic on the same
+ * input, so "the same" is exact equality; any new or corrected reading moves the estimates.
+ */
+export function repeatsVersion(current: FitIdentity, next: FitIdentity): boolean {
+  const sameWindow =
+    current.trainingFrom.getTime() === next.trainingFrom.getTime() &&
+    current.trainingTo.getTime() === next.trainingTo.getTime() &&
+    current.trainingHours === next.trainingHours &&
+    current.excludedHours === next.excludedHours;
+  const sameOrders = current.p === next.p && current.q === next.q && current.differencing.join(',') === next.differencing.join(',');
+  const sameEstimates =
+    current.sigma2 === next.sigma2 &&
+    current.coefficients.length === next.coefficients.length &&
+    current.coefficients.every((c, i) => c.name === next.coefficients[i]?.name && c.value === next.coefficients[i]?.value);
+  return sameWindow && sameOrders && sameEstimates;
+}
