@@ -28,7 +28,8 @@ describe('forecast vintages on the day-ahead schedule', () => {
   let desk: Desk;
   let day: string;
   const firstIssuedAt = new Date(Math.floor(Date.now() / 60_000) * 60_000 - 2 * HOUR);
-  const local = (d: Date) => DateTime.fromJSDate(d).setZone(TIME_ZONE).toFormat('yyyy-LL-dd HH:mm');
+  // the desk writes a moment with its zone's abbreviation (MST or MDT in Willowmere)
+  const local = (d: Date) => DateTime.fromJSDate(d).setZone(TIME_ZONE).setLocale('en-US').toFormat('yyyy-LL-dd HH:mm ZZZZ');
 
   beforeAll(async () => {
     // the gate stays open all day, so the operator may submit whenever the test runs
@@ -45,8 +46,8 @@ describe('forecast vintages on the day-ahead schedule', () => {
     const page = desk.page;
     const operator = await apiToken('operator');
     await signInAs(page, demoUser('operator'));
-    await page.goto(`/schedules?zones=${ZONE}`);
-    await page.getByTestId(`zone-schedule-${ZONE}`).waitFor();
+    await page.goto(`/schedules?day=${day}&zones=${ZONE}`);
+    await page.getByTestId(`zone-schedule-${ZONE}`).waitFor({ timeout: 60_000 });
     await page.getByRole('button', { name: 'Start the draft' }).click();
     const origin = page.getByTestId('revision-forecast');
     await origin.waitFor();

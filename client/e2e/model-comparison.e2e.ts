@@ -76,7 +76,7 @@ describe('model comparison on the days each version forecast', () => {
       const [day, at] = (await days.nth(i).innerText()).split(/\s+/);
       const issued = DateTime.fromISO(day, { zone: TIME_ZONE }).minus({ days: 1 }).toFormat('yyyy-LL-dd');
       expect(at).toBe(issued);
-      expect(await days.nth(i).innerText()).toMatch(new RegExp(`${issued}\\s+10:00\\s+\\d+\\.\\d\\d %\\s+\\d+\\.\\d\\d %`));
+      expect(await days.nth(i).innerText()).toMatch(new RegExp(`${issued}\\s+10:00\\s+M[SD]T\\s+\\d+\\.\\d\\d %\\s+\\d+\\.\\d\\d %`));
     }
     const table = await compare.getByRole('table', { name: 'Comparison' }).innerText();
     // the model in service forecast these days before its own run was stored: all re-forecast with its coefficients

@@ -210,7 +210,7 @@ describe('outages, refits, model versions and forecasts (real MariaDB)', () => {
       firstHour: new Date(dayFrom), mean: actual.map((r) => r.mw * 1.1), lower80: actual.map((r) => r.mw * 0.9), upper80: actual.map((r) => r.mw * 1.2), lower95: actual.map((r) => r.mw * 0.8), upper95: actual.map((r) => r.mw * 1.3),
     });
     await em.flush();
-    const twinCmp = (await api().get(`/api/models/${twin.id}/compare`).set(as(viewer)).expect(200)).body as ModelCompareDto;
+    const twinCmp = (await api().get(`/api/models/${twin.id}/compare`).set(as(operator)).expect(200)).body as ModelCompareDto;
     expect(twinCmp.candidate.differencingLabel).toBe(twinCmp.inService?.differencingLabel);
     expect(twinCmp.sameDays.comparable).toBe(true);
     expect(Math.abs((twinCmp.sameDays.candidateMape as number) - (twinCmp.sameDays.inServiceMape as number))).toBeGreaterThan(0.001);

@@ -278,12 +278,12 @@ describe('day-ahead schedules (real MariaDB, SMTP fake)', () => {
     expect(draft).toMatchObject({ forecastRunId: older.id, forecastIssuedAt: older.issuedAt.toISOString() });
     expect(draft.hours[0].modelMw).toBe(224);
     await api().post(`/api/schedules/${DAY2}/adjustments`).set(as(ines)).send({ zones: [ZONE], fromHour: 0, toHour: 1, kind: 'add', value: 10, reason: 'County fair opening night' }).expect(201);
-    let day = (await api().get(`/api/schedules/${DAY2}?zone=${ZONE}`).set(as(viewer)).expect(200)).body as DayScheduleDto;
+    let day = (await api().get(`/api/schedules/${DAY2}?zone=${ZONE}`).set(as(ines)).expect(200)).body as DayScheduleDto;
     expect(day.zones[0].newerForecast).toBeNull();
 
     const newer = run(new Date(older.issuedAt.getTime() + 1000), 190);
     await em.flush();
-    day = (await api().get(`/api/schedules/${DAY2}?zone=${ZONE}`).set(as(viewer)).expect(200)).body as DayScheduleDto;
+    day = (await api().get(`/api/schedules/${DAY2}?zone=${ZONE}`).set(as(ines)).expect(200)).body as DayScheduleDto;
     expect(day.zones[0].working?.forecastRunId).toBe(older.id);
     expect(day.zones[0].newerForecast).toEqual({ runId: newer.id, issuedAt: newer.issuedAt.toISOString(), revisionRunId: older.id, revisionIssuedAt: older.issuedAt.toISOString() });
 

@@ -207,8 +207,8 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
     sar: st?.sar ? Float64Array.from(st.sar) : hr.sar,
     sma: st?.sma ? Float64Array.from(st.sma) : hr.sma,
   };
-  let u0 = toUnconstrained(startNat);
-  if (!u0) u0 = new Float64Array(k);
+  const startInRegion = toUnconstrained(startNat);
+  const u0 = startInRegion ?? new Float64Array(k);
 
   const complete = nFinite === x.length;
   const model = s === 0 ? nonSeasonalModel(o.p, o.q) : (u: Float64Array): ArmaStateSpace => stateSpaceOf(fromUnconstrained(u, o), s);
@@ -251,6 +251,9 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       gradient,
       inverseHessian: startingInverseHessian(from, o, Math.min(x.length, Math.max(2000, 20 * s))) ?? undefined,
     });
+  // the objective at a given start, so that a start that is already the maximum comes back
+  // unchanged (see keptStart below)
+  const fAtStart = st && startInRegion ? objective(u0) : Infinity;
   let opt = search(u0);
   let startedFrom: ArmaFit['startedFrom'] = st ? 'given' : 'hannan-rissanen';
   let evaluations = opt.evaluations;
@@ -313,7 +316,12 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       }
     }
   }
-  const nat = fromUnconstrained(opt.x, o);
+  // A given start the search could not improve on by more than round-off (1e-10 of −log L / n)
+  // is returned exactly as given, not through the transform's round trip: re-estimating a model
+  // on the data it was fitted to then reproduces it to the last bit, so the hourly update can
+  // tell "nothing changed" by equality, while any changed reading still moves σ² and the forecast.
+  const keptStart = st !== undefined && Number.isFinite(fAtStart) && !(opt.f < fAtStart - 1e-10);
+  const nat = keptStart ? startNat : fromUnconstrained(opt.x, o);
   const ss = stateSpaceOf(nat, s);
   const prof = kalmanFilter(x, ss, { profileMean: o.includeMean, tol });
   const mean = o.includeMean ? prof.mean : 0;
