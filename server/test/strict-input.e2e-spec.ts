@@ -155,7 +155,7 @@ describe('strict input at every edge (real MariaDB)', () => {
         [2, 'not-a-number'],
         [3, 'not-a-number'],
         [4, 'not-a-number'],
-        [5, 'not-a-number'],
+        [5, 'empty-load'],
         [6, 'malformed'],
         [7, 'malformed'],
       ]);

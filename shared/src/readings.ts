@@ -34,7 +34,8 @@ export interface FeedStatusDto {
 export const STALE_AFTER_HOURS = 2;
 
 /** Why a CSV row was refused: a feed's reasons, or 'duplicate' for an hour that one file gives twice. */
-export type CsvRejectionReason = RejectionReason | 'duplicate';
+/** A file's own reasons: an hour given twice, a row with no load at all (told apart from a load that is not a number). */
+export type CsvRejectionReason = RejectionReason | 'duplicate' | 'empty-load';
 
 /** A CSV row refused by an upload, with its line in the file (1 = first line). */
 export interface CsvRowRejection {

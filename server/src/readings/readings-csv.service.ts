@@ -105,7 +105,8 @@ export class ReadingsCsvService {
         // One number parser: plain decimals only ("0x10", "0b101", "1e3", "" are refused, not read).
         const mw = parseDecimal(record[columns.mw], 'load_mw');
         if (!mw.ok) {
-          refused.push({ line: info.lines, reason: 'not-a-number', message: mw.message });
+          const empty = (record[columns.mw] ?? '').trim() === '';
+          refused.push({ line: info.lines, reason: empty ? 'empty-load' : 'not-a-number', message: mw.message });
           continue;
         }
         rows.push({ line: info.lines, reading: { zone, hour: record[columns.hour], mw: mw.value } });

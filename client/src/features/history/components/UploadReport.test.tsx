@@ -32,6 +32,14 @@ describe('UploadReport', () => {
     expect(screen.getByTestId('rejected-more')).toHaveTextContent('The first 2 of 3 rejected rows are listed.');
   });
 
+  it('says a row with no load is missing its load, not that it is not a number', () => {
+    const empty = { line: 12, reason: 'empty-load' as const, message: 'load_mw is empty; a number such as 412.5 is needed' };
+    renderWithProviders(<UploadReport report={{ ...report, rejected: [empty], rejectedCount: 1 }} />);
+    const rows = within(screen.getByRole('table', { name: 'Rejected rows' })).getAllByRole('row');
+    expect(rows[1]).toHaveTextContent('No load given');
+    expect(rows[1]).not.toHaveTextContent('not a number');
+  });
+
   it('names an hour given twice in the file as such', () => {
     const duplicate = { line: 41, reason: 'duplicate' as const, message: 'MILLRACE 2024-03-10T08:00:00Z is also on line 40; one hour may appear once per file, so none of these rows was stored' };
     renderWithProviders(<UploadReport report={{ ...report, rejected: [duplicate], rejectedCount: 1 }} />);

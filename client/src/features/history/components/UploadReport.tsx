@@ -6,6 +6,7 @@ export const REASON_LABELS: Record<CsvRejectionReason, string> = {
   'unknown-zone': 'Unknown zone',
   'not-on-the-hour': 'Not on the hour',
   'not-a-number': 'Load is not a number',
+  'empty-load': 'No load given',
   negative: 'Negative load',
   implausible: 'Outside the zone’s plausible range',
   'too-far-in-future': 'Too far in the future',
