@@ -141,6 +141,29 @@ describe('deviation alerts (real MariaDB)', () => {
     expect((await api().get(`/api/alerts?zone=${zone}`).set('Authorization', `Bearer ${viewer}`).expect(200)).body).toEqual([]);
   });
 
+  it('judges hours read before their day-ahead numbers existed once those arrive (the first start’s replay), and only once', async () => {
+    const zone = await createZone(app, admin, { alertThresholdPct: 5, alertConsecutiveHours: 2 });
+    const { apiKey } = await createFeedKey(app, admin);
+    const base = Math.floor(Date.now() / HOUR) * HOUR - 6 * HOUR;
+    const feed = connectFeed(app, apiKey);
+    await connected(feed);
+    // read with nothing committed yet: no alert
+    await send(feed, [130, 132, 131].map((mw, i) => ({ zone, hour: hourIso(base + i * HOUR), mw })));
+    feed.close();
+    await app.get(AlertsService).settled();
+    expect((await api().get(`/api/alerts?zone=${zone}`).set('Authorization', `Bearer ${viewer}`).expect(200)).body).toEqual([]);
+
+    // the day-ahead run arrives afterwards (as the replay stores it); a second look raises the alert
+    await storeDayAheadRun(app, zone, base - 24 * HOUR, 24 * 3, () => 100);
+    await app.get(AlertsService).reviewRecent([zone]);
+    await app.get(AlertsService).settled();
+    await app.get(AlertsService).reviewRecent([zone]);
+    await app.get(AlertsService).settled();
+    const alerts = (await api().get(`/api/alerts?zone=${zone}`).set('Authorization', `Bearer ${viewer}`).expect(200)).body as AlertDto[];
+    expect(alerts).toHaveLength(1);
+    expect(alerts[0]).toMatchObject({ start: hourIso(base), end: hourIso(base + 3 * HOUR), peakDeviationPct: 32, comparedWith: 'day-ahead', committedMw: 100 });
+  });
+
   it('validates the alerts query', async () => {
     const bad = await api().get('/api/alerts?state=closed').set('Authorization', `Bearer ${viewer}`).expect(400);
     expect(bad.body.details).toEqual(['state must be open or acknowledged']);

@@ -1,6 +1,6 @@
 import { ConflictException, Injectable, Logger, NotFoundException } from '@nestjs/common';
 import { OnEvent } from '@nestjs/event-emitter';
-import { HOUR_MS, type AlertDto, type AlertState, type CommittedBasis } from '@morrowline/shared';
+import { HOUR_MS, type AlertDto, type AlertState, type CommittedBasis, type DeskScheduleEvent } from '@morrowline/shared';
 import { AuditService } from '../audit/audit.service';
 import type { AuthUser } from '../common/auth-user';
 import { DOMAIN_EVENTS, type ReadingsStored } from '../events/domain-events';
@@ -73,8 +73,8 @@ export class AlertsService {
    * one is done. Called while the readings are published, so it only queues.
    */
   @OnEvent(DOMAIN_EVENTS.readingsStored)
-  enqueue(stored: ReadingsStored): void {
-    const since = Math.floor(Date.now() / HOUR_MS) * HOUR_MS - ALERT_LOOKBACK_HOURS * HOUR_MS;
+  enqueue(stored: ReadingsStored, now = Date.now()): void {
+    const since = Math.floor(now / HOUR_MS) * HOUR_MS - ALERT_LOOKBACK_HOURS * HOUR_MS;
     for (const zone of stored.zones) {
       for (const hour of zone.hours) {
         const hourStart = Date.parse(hour);
@@ -85,6 +85,28 @@ export class AlertsService {
       }
     }
     if (this.pending.size > 0 && !this.running) this.running = this.drain();
+  }
+
+  /**
+   * Looks again at the recent hours (ALERT_LOOKBACK_HOURS up to now) of these zones, every active
+   * one when none are named. Readings are judged when they arrive, against what was committed
+   * then; when the committed numbers come later (a schedule published for hours already read,
+   * the first start's replay of day-ahead forecasts over the backfilled weeks) the same hours are
+   * judged again, so a card never shows a deviation beyond the threshold that no alert names.
+   * Widening an existing alert is idempotent, so looking twice raises nothing twice.
+   */
+  async reviewRecent(zoneCodes?: readonly string[], now = Date.now()): Promise<void> {
+    const zones = (await this.zones.active()).filter((z) => !zoneCodes || zoneCodes.includes(z.code));
+    const last = Math.floor(now / HOUR_MS) * HOUR_MS;
+    const hours: string[] = [];
+    for (let h = last - ALERT_LOOKBACK_HOURS * HOUR_MS; h < last; h += HOUR_MS) hours.push(new Date(h).toISOString());
+    this.enqueue({ zones: zones.map((z) => ({ zoneId: z.id, zone: z.code, hours, mw: [] })), receivedAt: new Date(now).toISOString() }, now);
+  }
+
+  /** A schedule published (or corrected) for a day whose hours have been read already. */
+  @OnEvent(DOMAIN_EVENTS.scheduleChanged)
+  onScheduleChanged(event: DeskScheduleEvent): void {
+    if (event.action === 'publish' || event.action === 'correction') void this.reviewRecent([event.zone]);
   }
 
   /** Resolves when every evaluation asked for so far has finished (tests, shutdown). */

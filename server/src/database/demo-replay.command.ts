@@ -13,6 +13,9 @@ import { MikroORM } from '@mikro-orm/mariadb';
 import { Logger } from '@nestjs/common';
 import { EventEmitter2 } from '@nestjs/event-emitter';
 import { parseArgs } from 'node:util';
+import { AlertsRepository } from '../alerts/alerts.repository';
+import { AlertsService } from '../alerts/alerts.service';
+import { ScheduleInForce } from '../accuracy/schedule-in-force';
 import { AuditRepository } from '../audit/audit.repository';
 import { AuditService } from '../audit/audit.service';
 import { ComputeService } from '../compute/compute.service';
@@ -21,6 +24,7 @@ import { ormConfig } from './mikro-orm.config';
 import { DomainEventsPublisher } from '../events/domain-events.publisher';
 import { ForecastRunsRepository } from '../forecasts/forecast-runs.repository';
 import { ForecastsService } from '../forecasts/forecasts.service';
+import { CommittedLoadService } from '../live/committed-load.service';
 import { loadRefitSchedule } from '../models/refit-schedule';
 import { OutagesRepository } from '../outages/outages.repository';
 import { OutagesService } from '../outages/outages.service';
@@ -45,6 +49,7 @@ export interface DemoReplayParts {
   replay: DemoReplayService;
   forecasts: ForecastReplayService;
   readings: ReadingsService;
+  alerts: AlertsService;
   close(): Promise<void>;
 }
 
@@ -62,7 +67,10 @@ export async function openDemoReplay(): Promise<DemoReplayParts> {
   const readings = new ReadingsService(zones, repository, events);
   const outages = new OutagesService(new OutagesRepository(em), audit);
   const forecasts = new ForecastsService(new ForecastRunsRepository(em), zones, readings, outages, events);
-  const schedules = new SchedulesService(new ScheduleRevisionsRepository(em), zones, audit, events, forecasts, new ScheduleNotifier(em, audit, new ScheduleMailer()));
+  const revisions = new ScheduleRevisionsRepository(em);
+  const schedules = new SchedulesService(revisions, zones, audit, events, forecasts, new ScheduleNotifier(em, audit, new ScheduleMailer()));
+  const committed = new CommittedLoadService(zones, new ForecastRunsRepository(em), new ScheduleInForce(revisions));
+  const alerts = new AlertsService(new AlertsRepository(em), zones, readings, audit, events, committed);
   const forecastReplay = new ForecastReplayService(em, repository, outages, forecasts, compute, audit, {
     updateMinute: schedule.updateMinute,
     nightly: schedule.nightly,
@@ -73,6 +81,7 @@ export async function openDemoReplay(): Promise<DemoReplayParts> {
     replay: new DemoReplayService(em, audit, forecastReplay, demoSchedules),
     forecasts: forecastReplay,
     readings,
+    alerts,
     close: async () => {
       await compute.onModuleDestroy();
       await orm.close(true);
@@ -100,7 +109,16 @@ export async function runDemoReplay(options: DemoReplayCommandOptions = {}): Pro
     const at = await parts.replay.doneAt();
     if (at) return { state: 'done-before', at };
     await waitForFeeds(parts.readings, options.zones, options.waitSeconds ?? 180, log);
-    return await parts.replay.run({ ...options, log });
+    const outcome = await parts.replay.run({ ...options, log });
+    if (outcome.state === 'done') {
+      // the readings of the last two days arrived before the day-ahead numbers they are judged
+      // against: now that those exist, look at those hours again (alerts the desk reads on its
+      // next query; the server's own desks are not connected to this process)
+      log('checking the last two days against the replayed day-ahead forecasts and schedules for deviation alerts');
+      await parts.alerts.reviewRecent(options.zones);
+      await parts.alerts.settled();
+    }
+    return outcome;
   } finally {
     await parts.close();
   }
