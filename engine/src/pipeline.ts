@@ -24,7 +24,8 @@
  *     (./band-calibration).
  * Non-seasonal ARMA keeps the state small (r ≤ 4) and the filter fast; the lag-24 block makes it
  * about 28 and each fit some ten times slower, so its non-seasonal MA order is capped at 1
- * (`seasonalMaxQ`) to keep a zone's refit within its time budget.
+ * (`seasonalMaxQ`) to keep a zone's refit within its time budget, and it is not tried where the
+ * weekly-differenced series is nearly integrated at lag 24 (SEASONAL_UNIT_ACF).
  * The forecast is never NaN and never negative: values are floored at 0 MW, and when the model
  * cannot be fitted, produces a non-finite value, or loses to the weekly seasonal-naive forecast
  * on the test days, the pipeline returns the seasonal-naive forecast (its bands calibrated the
@@ -284,7 +285,7 @@ function chooseModel(
       const w = difference(y, diff);
       const common = { maxP: o.maxP ?? 3, criterion: o.criterion ?? 'aicc', includeMean: false, computeSe: false, screen: o.screen ?? 4, maxIter: 80, fTol: 1e-9 } as const;
       let sel = selectOrder(w, { ...common, maxQ: o.maxQ ?? 3 });
-      if (block && !diff.includes(block.period)) {
+      if (block && !diff.includes(block.period) && !nearlyIntegratedAt(w, block.period)) {
         // same differenced series, so the criterion compares the two families directly
         const seasonal = selectOrder(w, { ...common, maxQ: Math.min(o.maxQ ?? 3, o.seasonalMaxQ ?? 1), ...block });
         if (seasonal.best[seasonal.criterion] < sel.best[sel.criterion]) sel = seasonal;
@@ -304,6 +305,19 @@ function chooseModel(
   }
   if (!best) throw new Error('no differencing candidate could be fitted');
   return best;
+}
+
+/**
+ * Lag-s sample autocorrelation above this means the series is close to integrated at lag s: a
+ * seasonal AR factor there would sit at the unit circle, where the filter never reaches its
+ * steady state and one fit takes seconds, and the difference (1 − B^s) it stands for belongs in
+ * the differencing, which the candidate with both differences already has (Box & Jenkins 1970,
+ * §9.2: a seasonal autocorrelation that does not die out calls for a seasonal difference).
+ */
+export const SEASONAL_UNIT_ACF = 0.9;
+
+function nearlyIntegratedAt(w: Float64Array, lag: number): boolean {
+  return acf(w, lag)[lag] > SEASONAL_UNIT_ACF;
 }
 
 function summarize(fit: ArimaFit): ModelSummary {
