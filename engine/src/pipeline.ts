@@ -24,7 +24,8 @@
  *     (./band-calibration).
  * Non-seasonal ARMA keeps the state small (r ≤ 4) and the filter fast; the lag-24 block makes it
  * about 28 and each fit some ten times slower, so its non-seasonal MA order is capped at 1
- * (`seasonalMaxQ`) to keep a zone's refit within its time budget, and it is not tried where the
+ * (`seasonalMaxQ`) and two of its orders are fitted after the Hannan–Rissanen screening, to keep
+ * a zone's refit within its time budget; it is not tried where the
  * weekly-differenced series is nearly integrated at lag 24 (SEASONAL_UNIT_ACF).
  * The forecast is never NaN and never negative: values are floored at 0 MW, and when the model
  * cannot be fitted, produces a non-finite value, or loses to the weekly seasonal-naive forecast
@@ -33,9 +34,8 @@
  */
 import { acf, acfBand } from './series/acf';
 import { describeDifferencing, differenceOrder } from './differencing';
-import { applyArima, ArimaFit, fitArima, forecastArima, IntervalForecast } from './forecast';
+import { ArimaFit, fitArima, forecastArima, IntervalForecast } from './forecast';
 import { ljungBox, LjungBoxResult } from './ljung-box';
-import { accuracy } from './metrics';
 import { seasonalNaive } from './seasonal-naive';
 import { Criterion, selectOrder } from './select';
 import { countFinite, SeriesInput, withExcluded } from './series/series';
@@ -43,6 +43,7 @@ import { difference } from './differencing';
 import { Coefficient, type ArmaSpec } from './arma/fit';
 import { BandScale, bandScaleFromErrors, scaleBands, UNSCALED } from './band-calibration';
 import { DayAheadScore, scoreDayAhead } from './day-ahead-score';
+import { originForecaster } from './origin-forecasts';
 
 export const DEFAULT_CANDIDATES: number[][] = [[24], [168], [24, 168]];
 
@@ -226,7 +227,7 @@ export function runPipeline(input: PipelineInput): PipelineResult {
   // With orders given, the final fit is scored over the test days: its coefficients have seen
   // them, the filter's forecasts have not (each is issued from the hours before its day).
   const ev = evidence;
-  if (!chosenScore && ev.days > 0) chosenScore = scoreDayAhead(y, ev.testStart, ev.days, ev.lead, (origin, hh) => forecastArima(applyArima(fit, y.subarray(0, origin)), hh));
+  if (!chosenScore && ev.days > 0) chosenScore = scoreModel(y, ev, fit);
   const chosenMape = chosenScore?.mape ?? NaN;
   if ((o.requireBeatBaseline ?? true) && !o.fixed && Number.isFinite(ev.baseline.mape) && chosenMape > ev.baseline.mape) {
     return naive(`the model (MAPE ${chosenMape.toFixed(2)} %) did not beat seasonal naive (${ev.baseline.mape.toFixed(2)} %) on the last ${ev.days} days`, model, model.fitMs);
@@ -266,6 +267,12 @@ function testDays(y: Float64Array, h: number, cands: number[][], o: PipelineOpti
   return { testStart, days, lead, baseline };
 }
 
+/** The model's day-ahead score over the test days, its coefficients held (./origin-forecasts). */
+function scoreModel(y: Float64Array, ev: Evidence, model: ArimaFit): DayAheadScore {
+  const lastOrigin = ev.testStart + (ev.days - 1) * 24 - ev.lead;
+  return scoreDayAhead(y, ev.testStart, ev.days, ev.lead, originForecaster(model, y, lastOrigin, ev.lead + 24));
+}
+
 function chooseModel(
   y: Float64Array,
   ev: Evidence,
@@ -287,12 +294,14 @@ function chooseModel(
       let sel = selectOrder(w, { ...common, maxQ: o.maxQ ?? 3 });
       if (block && !diff.includes(block.period) && !nearlyIntegratedAt(w, block.period)) {
         // same differenced series, so the criterion compares the two families directly
-        const seasonal = selectOrder(w, { ...common, maxQ: Math.min(o.maxQ ?? 3, o.seasonalMaxQ ?? 1), ...block });
+        // two exact fits after the screening: each costs ten plain ones, and on the open demand
+        // series the third and fourth never won
+        const seasonal = selectOrder(w, { ...common, screen: Math.min(common.screen, 2), maxQ: Math.min(o.maxQ ?? 3, o.seasonalMaxQ ?? 1), ...block });
         if (seasonal.best[seasonal.criterion] < sel.best[sel.criterion]) sel = seasonal;
       }
       const b = sel.best;
       const base: ArimaFit = { diff, arma: b, filled: new Float64Array(0), filledCount: 0 };
-      const score = scoreDayAhead(y, ev.testStart, ev.days, ev.lead, (origin, hh) => forecastArima(applyArima(base, y.subarray(0, origin)), hh));
+      const score = scoreModel(y, ev, base);
       out.push({ diff, label, p: b.spec.p, q: b.spec.q, P: b.spec.P, Q: b.spec.Q, aicc: b.aicc, mape: score.mape });
       if (Number.isFinite(score.mape) && (!best || score.mape < best.score.mape)) {
         const seasonal = b.spec.P + b.spec.Q > 0 ? { P: b.spec.P, Q: b.spec.Q, period: b.spec.period } : {};
