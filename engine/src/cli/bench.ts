@@ -21,7 +21,7 @@ import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { cpus, tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { accuracy, backtest, fitArma, median, runPipeline, type BacktestResult } from '@morrowline/engine';
+import { accuracy, backtest, describeModel, fitArma, median, runPipeline, type BacktestResult } from '@morrowline/engine';
 import { simulateArma21 as simulate } from './bench-series';
 import { printRealTable, realCases, RFitTiming, timeEngine } from './bench-real';
 
@@ -149,7 +149,7 @@ function main(): void {
     pr = runPipeline({ history: eight, horizon: 40 });
     pts.push(performance.now() - t0);
   }
-  console.log(`\nautomatic pipeline on 8 weeks (1,344 h) of real demand, 40-hour forecast: median ${fmt(median(pts), 0)} ms (first, cold run ${fmt(firstMs, 0)} ms); chose ${pr.model?.label} ARMA(${pr.model?.p},${pr.model?.q}), method ${pr.method}`);
+  console.log(`\nautomatic pipeline on 8 weeks (1,344 h) of real demand, 40-hour forecast: median ${fmt(median(pts), 0)} ms (first, cold run ${fmt(firstMs, 0)} ms); chose ${pr.model ? describeModel(pr.model) : 'no model'}, method ${pr.method}`);
 
   // 3. accuracy
   const days = 28;
