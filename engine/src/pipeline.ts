@@ -38,7 +38,7 @@ import { ArimaFit, fitArima, forecastArima, IntervalForecast } from './forecast'
 import { ljungBox, LjungBoxResult } from './ljung-box';
 import { seasonalNaive } from './seasonal-naive';
 import { Criterion, selectOrder } from './select';
-import { countFinite, SeriesInput, withExcluded } from './series/series';
+import { countFinite, meanFinite, SeriesInput, withExcluded } from './series/series';
 import { difference } from './differencing';
 import { Coefficient, type ArmaSpec } from './arma/fit';
 import { BandScale, bandScaleFromErrors, scaleBands, UNSCALED } from './band-calibration';
@@ -284,12 +284,13 @@ function chooseModel(
   if (ev.days < 1) throw new Error('the history is too short for a test day');
   if (ev.days < 14) warnings.push(`the differencing was chosen on ${ev.days} days only: the history is too short for four weeks of evidence`);
   const block = o.seasonalBlock === undefined ? SEASONAL_BLOCK_24 : o.seasonalBlock;
+  const complete = gapsFilledForSelection(y);
   let best: { choice: ModelChoice; score: DayAheadScore } | null = null;
   for (const diff of cands) {
     const label = describeDifferencing(diff);
     try {
       if (y.length - differenceOrder(diff) < 168) throw new Error('history too short for this differencing');
-      const w = difference(y, diff);
+      const w = difference(complete, diff);
       const common = { maxP: o.maxP ?? 3, criterion: o.criterion ?? 'aicc', includeMean: false, computeSe: false, screen: o.screen ?? 4, maxIter: 80, fTol: 1e-9 } as const;
       let sel = selectOrder(w, { ...common, maxQ: o.maxQ ?? 3 });
       if (block && !diff.includes(block.period) && !nearlyIntegratedAt(w, block.period)) {
@@ -314,6 +315,32 @@ function chooseModel(
   }
   if (!best) throw new Error('no differencing candidate could be fitted');
   return best;
+}
+
+/**
+ * The history with each missing hour replaced by the same hour a week earlier (or later, at the
+ * start; the series mean if neither exists), for the order search only. A complete series gets
+ * the exact gradient and the filter's steady state (./arma/fit): with even one gap every
+ * candidate falls back to forward differences over the time-varying filter, and with the lag-24
+ * block (a state of about 28) the search took several seconds. A few filled hours move the
+ * information criteria of all candidates alike; the backtest that picks the differencing and the
+ * final fit run on the series with its gaps (the filter skips them), so the estimates served are
+ * exact maximum likelihood on the observed hours.
+ */
+function gapsFilledForSelection(y: Float64Array): Float64Array {
+  let gaps = 0;
+  for (let t = 0; t < y.length; t++) if (!(y[t] === y[t])) gaps++;
+  if (gaps === 0) return y;
+  const out = Float64Array.from(y);
+  const mean = meanFinite(y);
+  for (let t = 0; t < out.length; t++) {
+    if (out[t] === out[t]) continue;
+    let v = NaN;
+    for (let u = t - 168; u >= 0 && !(v === v); u -= 168) v = out[u];
+    for (let u = t + 168; u < out.length && !(v === v); u += 168) v = y[u];
+    out[t] = v === v ? v : mean;
+  }
+  return out;
 }
 
 /**

@@ -35,6 +35,16 @@ import type { StoredModel } from '../stored-model';
  */
 export const REFIT_SCREEN = 2;
 
+/**
+ * Whether the nightly and hourly refits try the engine's lag-24 seasonal block on the
+ * weekly-differenced series. Off for now: on the synthesised demo zones (`npm run bench:refit`,
+ * a few missing hours each) a refit with it took about 6 s a zone against 0.7 s without (the
+ * filter with a state of about 28 and gaps gets neither the exact gradient nor the steady state,
+ * and the seven-day score refits the model each day), which would take the 200-zone nightly
+ * refit far past its two minutes. The engine's own pipeline, backtest and command line try it.
+ */
+export const REFIT_SEASONAL_BLOCK = false;
+
 /** Days of the short backtest that scores each fit (kept short so refits stay fast). */
 export const REFIT_BACKTEST_DAYS = 7;
 
@@ -105,7 +115,8 @@ export function refitZone(payload: RefitPayload): RefitResult {
     history: payload.values,
     excluded: payload.excluded,
     horizon: payload.horizon,
-    options: { fixed: payload.fixed, requireBeatBaseline: false, selectionDays: days, screen: payload.screen ?? REFIT_SCREEN },
+    // the differencing is chosen on the engine's four weeks of origins, not on the short score
+    options: { fixed: payload.fixed, requireBeatBaseline: false, screen: payload.screen ?? REFIT_SCREEN, ...(REFIT_SEASONAL_BLOCK ? {} : { seasonalBlock: false as const }) },
   });
   const model = r.method === 'arima' ? (r.model ?? null) : null;
   let score: ScoreResult | null = null;
