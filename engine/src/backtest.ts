@@ -122,14 +122,14 @@ export function backtest(values: ArrayLike<number>, o: BacktestOptions): Backtes
       warm = useFixed && r.model && fixed && sameOrders(r.model, fixed) ? startOf(r.model) : undefined;
       if (method === 'auto' && !useFixed) {
         sinceSelect = 0;
-        fixed = r.model ? { diff: r.model.diff, p: r.model.p, q: r.model.q } : undefined;
+        fixed = r.model ? choiceOf(r.model) : undefined;
       }
       sinceSelect++;
       fc = r.forecast;
       fitMs = r.timings.totalMs;
       reason = r.fallbackReason;
-      choice = r.model ? { diff: r.model.diff, p: r.model.p, q: r.model.q } : undefined;
-      model = r.method === 'arima' && r.model ? `${r.model.label} ARMA(${r.model.p},${r.model.q})` : 'seasonal naive';
+      choice = r.model ? choiceOf(r.model) : undefined;
+      model = r.method === 'arima' && r.model ? describeModel(r.model) : 'seasonal naive';
     }
     const f = cut(fc);
     const b = cut(base);
@@ -157,7 +157,7 @@ export function backtest(values: ArrayLike<number>, o: BacktestOptions): Backtes
   const baseline = summary((d) => d.baseline);
   const fits = out.map((d) => d.fitMs);
   return {
-    method: typeof method === 'string' ? method : `fixed ${method.diff.join('×')} ARMA(${method.p},${method.q})`,
+    method: typeof method === 'string' ? method : `fixed ${describeModel({ label: method.diff.join('×'), ...method })}`,
     days: out,
     ...s,
     baseline,
@@ -168,6 +168,17 @@ export function backtest(values: ArrayLike<number>, o: BacktestOptions): Backtes
       maxFitMs: fits.length ? Math.max(...fits) : 0,
     },
   };
+}
+
+/** Differencing and orders of a fitted model, its seasonal block included. */
+export function choiceOf(m: ModelSummary): ModelChoice {
+  return { diff: m.diff, p: m.p, q: m.q, ...(m.P + m.Q > 0 ? { P: m.P, Q: m.Q, period: m.period } : {}) };
+}
+
+/** "(1−B^168) ARMA(3,1)×(1,1)_24" */
+export function describeModel(m: { label: string; p: number; q: number; P?: number; Q?: number; period?: number }): string {
+  const seasonal = (m.P ?? 0) + (m.Q ?? 0) > 0 ? `×(${m.P ?? 0},${m.Q ?? 0})_${m.period}` : '';
+  return `${m.label} ARMA(${m.p},${m.q})${seasonal}`;
 }
 
 function sameOrders(m: ModelSummary, c: ModelChoice): boolean {

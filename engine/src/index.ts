@@ -9,6 +9,8 @@ export * from './forecast';
 export * from './select';
 export * from './pipeline';
 export * from './backtest';
+export * from './band-calibration';
+export * from './day-ahead-score';
 export { fitArma, applyArma, normalizeSpec } from './arma/fit';
 export type { ArmaFit, ArmaSpec, Coefficient, ArmaForecast, FitOptions } from './arma/fit';
 export * from './rolling';

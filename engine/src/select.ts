@@ -31,6 +31,8 @@ export interface SelectOptions {
    * Search candidates with p, q ≥ 2 from a second start too (FitOptions.secondStart). Off by
    * default: selection screens many candidates, with capped iterations already, and the nightly
    * refit of every zone has a time budget; the second start doubles or triples those candidates.
+   * The same switch governs the candidates' restarts from a boundary (FitOptions.boundaryRestarts);
+   * the winner's final fit (computeSe) makes both.
    */
   secondStart?: boolean;
 }
@@ -95,7 +97,7 @@ export function selectOrder(x: ArrayLike<number>, opts: SelectOptions = {}): Sel
   for (const [p, q] of orders) {
     {
       try {
-        const f = fitArma(x, { p, q, P: opts.P, Q: opts.Q, period: opts.period, includeMean: opts.includeMean ?? false }, { computeSe: false, maxIter: opts.maxIter, fTol: opts.fTol, secondStart: opts.secondStart ?? false });
+        const f = fitArma(x, { p, q, P: opts.P, Q: opts.Q, period: opts.period, includeMean: opts.includeMean ?? false }, { computeSe: false, maxIter: opts.maxIter, fTol: opts.fTol, secondStart: opts.secondStart ?? false, boundaryRestarts: opts.secondStart ?? false });
         const ok = Number.isFinite(f.loglik);
         candidates.push({ p, q, loglik: f.loglik, aic: f.aic, aicc: f.aicc, bic: f.bic, ok });
         if (ok && (!best || f[criterion] < best[criterion])) best = f;

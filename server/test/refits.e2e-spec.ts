@@ -120,6 +120,10 @@ describe('outages, refits, model versions and forecasts (real MariaDB)', () => {
     expect(versions[0]).toMatchObject({ status: 'in-service', excludedHours: 6 + 4, trainingHours: HISTORY_HOURS, createdBy: 'ines.marlow@tallowmere.example' });
     expect(versions[0].backtestMape).toBeGreaterThan(0);
     expect(versions[0].baselineMape).toBeGreaterThan(0);
+    // the backtest's band coverage is stored with the version, in per cent
+    expect(versions[0].backtestCoverage80).toBeGreaterThan(0);
+    expect(versions[0].backtestCoverage95).toBeGreaterThanOrEqual(versions[0].backtestCoverage80!);
+    expect(versions[0].backtestCoverage95).toBeLessThanOrEqual(100);
     expect(versions[0].ljungBox.map((l) => l.lag)).toEqual([24, 48]);
     firstVersion = versions[0].id;
 

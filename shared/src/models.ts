@@ -66,6 +66,8 @@ export interface ModelVersionDto {
   differencingLabel: string;
   p: number;
   q: number;
+  /** seasonal block ×(P, Q) at `period` hours, null when the model has none */
+  seasonal: { P: number; Q: number; period: number } | null;
   coefficients: ModelCoefficientDto[];
   sigma2: number;
   loglik: number;
@@ -83,6 +85,9 @@ export interface ModelVersionDto {
   backtestDays: number;
   backtestMape: number | null;
   baselineMape: number | null;
+  /** Shares (%) of the backtest's hours inside the 80 % and 95 % bands; null before calibration was stored. */
+  backtestCoverage80: number | null;
+  backtestCoverage95: number | null;
   warnings: string[];
   createdBy: string | null;
   createdAt: string;

@@ -107,6 +107,13 @@ export interface FitOptions {
    * when both the AR and the MA order are two or more and no `start` is given (see fitArma).
    */
   secondStart?: boolean;
+  /**
+   * Search again from other starts when the search ends on the boundary (onBoundary). Default
+   * on; order selection turns it off for its candidates (a candidate that stops on the boundary
+   * is rarely the best, and the chosen order's final fit searches again): with a seasonal block
+   * each restart costs seconds on a series whose filter never reaches its steady state.
+   */
+  boundaryRestarts?: boolean;
 }
 
 /** Orders whose likelihood commonly has several maxima (near-cancelling AR and MA roots). */
@@ -298,7 +305,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       }
     }
   }
-  if (onBoundary(opt.x)) {
+  if ((opts.boundaryRestarts ?? true) && onBoundary(opt.x)) {
     // The search ended where a partial autocorrelation is ±1 to three digits: a unit AR root
     // (often cancelled by an MA root near −1) or an MA root on the unit circle. On real series
     // with long cycles that is commonly a saddle or a lower maximum the search slid onto, so

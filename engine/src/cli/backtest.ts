@@ -84,6 +84,8 @@ export function runBacktest(argv: string[]): { text: string; json: Record<string
     peakError: r.peakError,
     coverage80: r.coverage80,
     coverage95: r.coverage95,
+    /** shares of the scored hours inside the 80 % and 95 % bands (0..1) */
+    coverage: { p80: r.coverage80, p95: r.coverage95 },
     baseline: r.baseline,
     improvement: r.improvement,
     timings: r.timings,

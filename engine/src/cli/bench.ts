@@ -3,7 +3,8 @@
  * code a server runs; under tsx the timings of the same fits varied several-fold between runs).
  *  0. the real-series table first (bench-real.ts): the open demand series under each differencing
  *     the pipeline considers, every order p, q ≤ 3 with and without a seasonal block at 24,
- *     against R in the same run (`--real-only` runs this table alone, `--no-real` leaves it out);
+ *     against R in the same run (`--real-only` runs this table alone, `--no-real` leaves it out,
+ *     `--pipeline-only` runs parts 2 and 4 alone);
  *  1. exact-ML ARMA fits (with standard errors) on 2,000 and 8,760 hourly points, median wall
  *     time, on simulated ARMA(2,1) series (φ = 0.6, −0.2; θ = 0.4), several orders;
  *  2. the automatic pipeline on eight weeks (1,344 h) of the real demand fixture;
@@ -11,14 +12,16 @@
  *     with the speed ratio and the log-likelihood difference;
  *  4. day-ahead accuracy on the real demand data (R forecast's `taylor`, England & Wales, hourly
  *     means): the automatic pipeline vs the weekly seasonal-naive forecast and vs R's arima with
- *     the same differencing and orders at every origin.
+ *     the same differencing and orders at every origin; then the last 7, 14 and 28 days of that
+ *     backtest (MAPE, 80 % and 95 % coverage) beside R's auto.arima with weekly seasonal
+ *     differencing on the same origins (fixtures/r-auto-arima-backtest.json).
  * Prints a table and the machine (CPU model, cores, Node and R versions).
  */
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { cpus, tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { accuracy, backtest, fitArma, median, runPipeline } from '@morrowline/engine';
+import { accuracy, backtest, describeModel, fitArma, median, runPipeline, type BacktestResult } from '@morrowline/engine';
 import { simulateArma21 as simulate } from './bench-series';
 import { printRealTable, realCases, RFitTiming, timeEngine } from './bench-real';
 
@@ -40,40 +43,8 @@ function runR(job: unknown): any {
   return JSON.parse(r.stdout);
 }
 
-const fmt = (v: number, d = 2) => (Number.isFinite(v) ? v.toFixed(d) : 'n/a');
-
-function main(): void {
-  const cpu = (() => {
-    try {
-      return /model name\s*:\s*(.*)/.exec(readFileSync('/proc/cpuinfo', 'utf8'))?.[1] ?? cpus()[0]?.model;
-    } catch {
-      return cpus()[0]?.model;
-    }
-  })();
-  const rVersion = hasR();
-  console.log(`machine: ${cpu}, ${cpus().length} cores, Node ${process.version}${rVersion ? `, ${rVersion}` : ', R not found'}; ${new Date().toISOString().slice(0, 16)} UTC\n`);
-  const args = process.argv.slice(2);
-  const unknown = args.filter((a) => a !== '--real-only' && a !== '--no-real');
-  if (unknown.length) throw new Error(`bench: unknown argument ${unknown[0]} (known: --real-only, --no-real)`);
-  const taylorLoad = JSON.parse(readFileSync(join(FIX, 'taylor-hourly.json'), 'utf8')).load as number[];
-  if (!args.includes('--no-real')) {
-    const cases = realCases();
-    // warm the JIT on the first cases before any is timed (a long-running server is warm)
-    timeEngine(taylorLoad, cases.filter((c) => c.P === 0).slice(0, 16));
-    const rows = timeEngine(taylorLoad, cases);
-    if (rVersion) {
-      const out = runR({ real: { load: taylorLoad, cases: cases.map((c) => ({ id: c.id, diff: [c.diff], p: c.p, q: c.q, P: c.P, Q: c.Q })) } });
-      const byId = new Map((out.real as Array<{ id: string; cssMl: RFitTiming; ml: RFitTiming }>).map((r) => [r.id, r]));
-      for (const row of rows) {
-        const r = byId.get(row.id);
-        if (r) row.r = { cssMl: r.cssMl, ml: r.ml };
-      }
-    }
-    printRealTable(rows);
-    console.log('');
-    if (args.includes('--real-only')) return;
-  }
-
+/** 1. exact-ML fits on simulated series, against R's arima in the same run. */
+function printSimulatedFits(rVersion: string | null): void {
   // 1. fits
   const series: Record<string, number[]> = { n2000: simulate(2000, 42), n8760: simulate(8760, 4242) };
   const orders: Array<[number, number]> = [
@@ -126,6 +97,44 @@ function main(): void {
       `${(r.series === 'n2000' ? '2,000' : '8,760').padEnd(7)} ARMA(${r.p},${r.q})   ${fmt(r.ms).padStart(9)} ${rt ? fmt(rt.medianMs, 0).padStart(6) : '   n/a'}  ${rt ? fmt(rt.medianMs / r.ms, 1).padStart(8) : '     n/a'}   ${fmt(r.loglik, 3).padStart(13)} ${rt ? fmt(rt.loglik, 3).padStart(12) : 'n/a'} ${rt ? fmt(r.loglik - rt.loglik, 4).padStart(8) : ''}${Number.isFinite(r.oneStartMs) ? `   | ${fmt(r.oneStartMs).padStart(12)} ${rt ? fmt(r.oneStartLoglik - rt.loglik, 4).padStart(11) : ''}` : ''}`,
     );
   }
+}
+
+const fmt = (v: number, d = 2) => (Number.isFinite(v) ? v.toFixed(d) : 'n/a');
+
+function main(): void {
+  const cpu = (() => {
+    try {
+      return /model name\s*:\s*(.*)/.exec(readFileSync('/proc/cpuinfo', 'utf8'))?.[1] ?? cpus()[0]?.model;
+    } catch {
+      return cpus()[0]?.model;
+    }
+  })();
+  const rVersion = hasR();
+  console.log(`machine: ${cpu}, ${cpus().length} cores, Node ${process.version}${rVersion ? `, ${rVersion}` : ', R not found'}; ${new Date().toISOString().slice(0, 16)} UTC\n`);
+  const args = process.argv.slice(2);
+  const known = ['--real-only', '--no-real', '--pipeline-only'];
+  const unknown = args.filter((a) => !known.includes(a));
+  if (unknown.length) throw new Error(`bench: unknown argument ${unknown[0]} (known: ${known.join(', ')})`);
+  const taylorLoad = JSON.parse(readFileSync(join(FIX, 'taylor-hourly.json'), 'utf8')).load as number[];
+  if (!args.includes('--no-real') && !args.includes('--pipeline-only')) {
+    const cases = realCases();
+    // warm the JIT on the first cases before any is timed (a long-running server is warm)
+    timeEngine(taylorLoad, cases.filter((c) => c.P === 0).slice(0, 16));
+    const rows = timeEngine(taylorLoad, cases);
+    if (rVersion) {
+      const out = runR({ real: { load: taylorLoad, cases: cases.map((c) => ({ id: c.id, diff: [c.diff], p: c.p, q: c.q, P: c.P, Q: c.Q })) } });
+      const byId = new Map((out.real as Array<{ id: string; cssMl: RFitTiming; ml: RFitTiming }>).map((r) => [r.id, r]));
+      for (const row of rows) {
+        const r = byId.get(row.id);
+        if (r) row.r = { cssMl: r.cssMl, ml: r.ml };
+      }
+    }
+    printRealTable(rows);
+    console.log('');
+    if (args.includes('--real-only')) return;
+  }
+
+  if (!args.includes('--pipeline-only')) printSimulatedFits(rVersion);
 
   // 2. pipeline
   const taylor = JSON.parse(readFileSync(join(FIX, 'taylor-hourly.json'), 'utf8')).load as number[];
@@ -140,7 +149,7 @@ function main(): void {
     pr = runPipeline({ history: eight, horizon: 40 });
     pts.push(performance.now() - t0);
   }
-  console.log(`\nautomatic pipeline on 8 weeks (1,344 h) of real demand, 40-hour forecast: median ${fmt(median(pts), 0)} ms (first, cold run ${fmt(firstMs, 0)} ms); chose ${pr.model?.label} ARMA(${pr.model?.p},${pr.model?.q}), method ${pr.method}`);
+  console.log(`\nautomatic pipeline on 8 weeks (1,344 h) of real demand, 40-hour forecast: median ${fmt(median(pts), 0)} ms (first, cold run ${fmt(firstMs, 0)} ms); chose ${pr.model ? describeModel(pr.model) : 'no model'}, method ${pr.method}`);
 
   // 3. accuracy
   const days = 28;
@@ -151,7 +160,7 @@ function main(): void {
   let rMape = NaN;
   let rOk = 0;
   if (rVersion) {
-    const origins = bt.days.filter((d) => d.choice).map((d) => ({ from: Math.max(0, d.origin - 8 * 168), origin: d.origin, h: d.hours, diff: [d.choice!.diff], p: d.choice!.p, q: d.choice!.q, dayStart: d.dayStart }));
+    const origins = bt.days.filter((d) => d.choice).map((d) => ({ from: Math.max(0, d.origin - 8 * 168), origin: d.origin, h: d.hours, diff: [d.choice!.diff], p: d.choice!.p, q: d.choice!.q, P: d.choice!.P ?? 0, Q: d.choice!.Q ?? 0, dayStart: d.dayStart }));
     const out = runR({ load: taylor, origins: origins.map(({ dayStart: _d, ...o }) => o) });
     const mapes: number[] = [];
     const ours: number[] = [];
@@ -175,6 +184,31 @@ function main(): void {
   console.log(`improvement over seasonal naive: ${fmt(100 * (1 - bt.mape / naive.mape), 1)} % of its MAPE; backtest ${fmt(btMs / 1000, 1)} s in all`);
   const fallbacks = bt.days.filter((d) => d.fallbackReason).length;
   if (fallbacks) console.log(`(${fallbacks} of ${bt.days.length} origins fell back to seasonal naive)`);
+  printWindowTable(bt, naive);
+}
+
+/**
+ * The rolling day-ahead backtest over the last 7, 14 and 28 days beside R's forecast::auto.arima
+ * with weekly seasonal differencing on the same origins (fixtures/r-auto-arima-backtest.json,
+ * regenerated by the R script beside it: R's automatic search takes minutes, so the bench reads
+ * its committed result).
+ */
+function printWindowTable(bt: BacktestResult, naive: BacktestResult): void {
+  const path = join(FIX, 'r-auto-arima-backtest.json');
+  const r = existsSync(path) ? (JSON.parse(readFileSync(path, 'utf8')) as { r: string; forecast: string; windows: Array<{ days: number; mape: number; coverage80: number; coverage95: number }> }) : null;
+  console.log(`\nrolling day-ahead windows (the same backtest's last N days) beside R ${r ? `${r.r}, forecast ${r.forecast}` : '(fixture missing)'} auto.arima on the (1−B^168)-differenced series:`);
+  console.log('days   ours MAPE %  R MAPE %  naive MAPE %   ours cov80  cov95   R cov80  cov95');
+  for (const n of [7, 14, 28]) {
+    const days = bt.days.slice(-n);
+    const base = naive.days.slice(-n);
+    const mean = (v: number[]) => v.reduce((a, b) => a + b, 0) / v.length;
+    const hours = days.reduce((a, d) => a + d.accuracy.n, 0);
+    const cov = (k: 'coverage80' | 'coverage95') => days.reduce((a, d) => a + d.accuracy[k] * d.accuracy.n, 0) / hours;
+    const rw = r?.windows.find((w) => w.days === n);
+    console.log(
+      `${String(n).padStart(4)}   ${fmt(mean(days.map((d) => d.accuracy.mape))).padStart(11)} ${rw ? fmt(rw.mape).padStart(9) : '      n/a'} ${fmt(mean(base.map((d) => d.accuracy.mape))).padStart(13)}   ${fmt(100 * cov('coverage80'), 1).padStart(10)} ${fmt(100 * cov('coverage95'), 1).padStart(6)}   ${rw ? fmt(100 * rw.coverage80, 1).padStart(7) : '    n/a'} ${rw ? fmt(100 * rw.coverage95, 1).padStart(6) : ''}`,
+    );
+  }
 }
 
 main();

@@ -38,11 +38,16 @@ describe('command line', () => {
   it.each(['0', '-2', '2.5', 'x', '10000'])('fit --repeat=%s is refused', (v) => {
     expect(() => runFit(['--input', taylor, '--diff', '24', '--order', '1,0', `--repeat=${v}`])).toThrow(`--repeat expects a whole number from 1 to 9999, got "${v}"`);
   });
-  it('backtest --json has mape and baseline.mape and a row per day', () => {
+  it('backtest --json has mape, baseline.mape, coverage of the 80 % and 95 % bands and a row per day', () => {
     const r = runBacktest(['--input', taylor, '--days', '3', '--method', 'fixed', '--diff', '24,168', '--order', '1,1', '--json']).json;
     expect(typeof r.mape).toBe('number');
     expect(typeof (r.baseline as { mape: number }).mape).toBe('number');
-    const days = r.days as Array<{ date: string; hours: number; model: string }>;
+    const cov = r.coverage as { p80: number; p95: number };
+    const days = r.days as Array<{ date: string; hours: number; model: string; coverage80: number; coverage95: number }>;
+    // the summary is the share over all 72 hours, so the mean of three 24-hour days
+    expect(cov.p80).toBeCloseTo(days.reduce((s, d) => s + d.coverage80, 0) / 3, 12);
+    expect(cov.p95).toBeCloseTo(days.reduce((s, d) => s + d.coverage95, 0) / 3, 12);
+    expect(cov.p80).toBeLessThanOrEqual(cov.p95);
     expect(days.map((d) => d.date)).toEqual(['2000-08-25', '2000-08-26', '2000-08-27']);
     expect(days.every((d) => d.hours === 24 && d.model.includes('ARMA(1,1)'))).toBe(true);
   });

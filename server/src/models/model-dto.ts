@@ -13,6 +13,7 @@ export function toModelVersionDto(v: ModelVersion): ModelVersionDto {
     differencingLabel: v.differencingLabel,
     p: v.p,
     q: v.q,
+    seasonal: (v.parameters.P ?? 0) + (v.parameters.Q ?? 0) > 0 ? { P: v.parameters.P ?? 0, Q: v.parameters.Q ?? 0, period: v.parameters.period ?? 0 } : null,
     coefficients: v.coefficients,
     sigma2: v.sigma2,
     loglik: v.loglik,
@@ -28,6 +29,8 @@ export function toModelVersionDto(v: ModelVersion): ModelVersionDto {
     backtestDays: v.backtestDays,
     backtestMape: v.backtestMape,
     baselineMape: v.baselineMape,
+    backtestCoverage80: v.backtestCoverage80 === null ? null : 100 * v.backtestCoverage80,
+    backtestCoverage95: v.backtestCoverage95 === null ? null : 100 * v.backtestCoverage95,
     warnings: operatorWarnings(v.warnings),
     createdBy: v.createdByEmail,
     createdAt: v.createdAt.toISOString(),
@@ -70,5 +73,7 @@ export function toRefitJobDto(j: RefitJob): RefitJobDto {
 
 /** The orders of a stored version, as the engine takes them for a fit with the orders kept. */
 export function choiceOf(v: ModelVersion): ModelChoice {
-  return { diff: v.differencing, p: v.p, q: v.q, start: { ar: v.parameters.ar, ma: v.parameters.ma } };
+  const m = v.parameters;
+  const seasonal = (m.P ?? 0) + (m.Q ?? 0) > 0 ? { P: m.P, Q: m.Q, period: m.period } : {};
+  return { diff: v.differencing, p: v.p, q: v.q, ...seasonal, start: { ar: m.ar, ma: m.ma, sar: m.sar ?? [], sma: m.sma ?? [] } };
 }

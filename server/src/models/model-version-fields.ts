@@ -52,6 +52,8 @@ export function modelVersionFields(
     backtestDays: result.score?.days ?? 0,
     backtestMape: result.score?.mape ?? null,
     baselineMape: result.score?.baselineMape ?? null,
+    backtestCoverage80: result.score?.coverage80 ?? null,
+    backtestCoverage95: result.score?.coverage95 ?? null,
     warnings: result.warnings,
     createdByEmail: job.requestedByEmail,
     createdAt: now,

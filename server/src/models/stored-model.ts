@@ -1,6 +1,8 @@
 /**
  * A fitted model as stored with its version (ModelVersion.parameters) and handed back to the
- * engine to forecast from: the differencing, the orders and the natural parameters.
+ * engine to forecast from: the differencing, the orders and the natural parameters, the seasonal
+ * block when the model has one, and the scales its bands were calibrated with. Versions stored
+ * before the seasonal block and the calibration lack those fields: no block, Gaussian bands.
  */
 export interface StoredModel {
   diff: number[];
@@ -11,4 +13,12 @@ export interface StoredModel {
   ma: number[];
   sigma2: number;
   mean: number;
+  /** seasonal block (P, Q) at `period`, with its natural parameters sar1.., sma1.. */
+  P?: number;
+  Q?: number;
+  period?: number;
+  sar?: number[];
+  sma?: number[];
+  /** multipliers of the Gaussian 80 % and 95 % half-widths (engine band-calibration) */
+  bandScale?: { k80: number; k95: number };
 }

@@ -22,6 +22,11 @@ describe('an hourly update that changed nothing', () => {
     expect(repeatsVersion(fit(), fit())).toBe(true);
   });
 
+  it('is recognised when the refit from the stored coefficients moved only their last bits', () => {
+    const c = fit().coefficients;
+    expect(repeatsVersion(fit(), fit({ coefficients: [{ ...c[0], value: c[0].value * (1 + 4e-16) }, ...c.slice(1)], sigma2: fit().sigma2 * (1 + 1e-13) }))).toBe(true);
+  });
+
   it('is a new version once a new hour of readings moves the window', () => {
     expect(repeatsVersion(fit(), fit({ trainingTo: new Date('2026-12-02T16:00:00Z'), trainingFrom: new Date('2026-10-01T07:00:00Z') }))).toBe(false);
   });

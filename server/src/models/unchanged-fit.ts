@@ -7,8 +7,17 @@ export type FitIdentity = Pick<ModelVersion, 'differencing' | 'p' | 'q' | 'coeff
  * True when an hourly update re-estimated the in-service model on the same window of data and
  * came out with the same orders, coefficients and innovation variance: nothing has changed, so
  * storing it would only add a copy to the version list. Estimation is deterministic on the same
- * input, so "the same" is exact equality; any new or corrected reading moves the estimates.
+ * input, so "the same" is equality to rounding: a refit started from the stored coefficients
+ * carries them through the stationarity transform and back (natural → unconstrained → natural),
+ * which moves the last bits (about 1e-15 of a coefficient, 1e-13 of σ² measured); any new or
+ * corrected reading moves the estimates by far more than SAME_RELATIVE.
  */
+export const SAME_RELATIVE = 1e-11;
+
+function same(a: number, b: number): boolean {
+  return a === b || Math.abs(a - b) <= SAME_RELATIVE * Math.max(Math.abs(a), Math.abs(b));
+}
+
 export function repeatsVersion(current: FitIdentity, next: FitIdentity): boolean {
   const sameWindow =
     current.trainingFrom.getTime() === next.trainingFrom.getTime() &&
@@ -17,8 +26,8 @@ export function repeatsVersion(current: FitIdentity, next: FitIdentity): boolean
     current.excludedHours === next.excludedHours;
   const sameOrders = current.p === next.p && current.q === next.q && current.differencing.join(',') === next.differencing.join(',');
   const sameEstimates =
-    current.sigma2 === next.sigma2 &&
+    same(current.sigma2, next.sigma2) &&
     current.coefficients.length === next.coefficients.length &&
-    current.coefficients.every((c, i) => c.name === next.coefficients[i]?.name && c.value === next.coefficients[i]?.value);
+    current.coefficients.every((c, i) => c.name === next.coefficients[i]?.name && same(c.value, next.coefficients[i]?.value ?? NaN));
   return sameWindow && sameOrders && sameEstimates;
 }

@@ -12,6 +12,10 @@
 import {
   applyArima,
   backtest,
+  choiceOf,
+  scaleBands,
+  UNSCALED,
+  type BandScale,
   floorAtZero,
   forecastArima,
   normalizeSpec,
@@ -30,6 +34,16 @@ import type { StoredModel } from '../stored-model';
  * 4 halves the selection time; the orders ranked third and fourth by the screening rarely win.
  */
 export const REFIT_SCREEN = 2;
+
+/**
+ * Whether the nightly and hourly refits try the engine's lag-24 seasonal block on the
+ * weekly-differenced series. Off for now: on the synthesised demo zones (`npm run bench:refit`,
+ * a few missing hours each) a refit with it took about 6 s a zone against 0.7 s without (the
+ * filter with a state of about 28 and gaps gets neither the exact gradient nor the steady state,
+ * and the seven-day score refits the model each day), which would take the 200-zone nightly
+ * refit far past its two minutes. The engine's own pipeline, backtest and command line try it.
+ */
+export const REFIT_SEASONAL_BLOCK = false;
 
 /** Days of the short backtest that scores each fit (kept short so refits stay fast). */
 export const REFIT_BACKTEST_DAYS = 7;
@@ -52,6 +66,9 @@ export interface RefitPayload {
 export interface ScoreResult {
   mape: number | null;
   baselineMape: number | null;
+  /** shares (0..1) of the scored hours inside the model's 80 % and 95 % bands */
+  coverage80: number | null;
+  coverage95: number | null;
   days: number;
   from: number | null;
   to: number | null;
@@ -82,6 +99,8 @@ export function scoreChoice(values: Float64Array, excluded: number[], choice: Mo
   return {
     mape: finiteOrNull(r.mape),
     baselineMape: finiteOrNull(r.baseline.mape),
+    coverage80: finiteOrNull(r.coverage80),
+    coverage95: finiteOrNull(r.coverage95),
     days: r.days.length,
     from: r.days.length ? r.days[0].dayStart : null,
     to: r.days.length ? r.days[r.days.length - 1].dayStart + r.days[r.days.length - 1].hours : null,
@@ -96,13 +115,14 @@ export function refitZone(payload: RefitPayload): RefitResult {
     history: payload.values,
     excluded: payload.excluded,
     horizon: payload.horizon,
-    options: { fixed: payload.fixed, requireBeatBaseline: false, selectionDays: days, screen: payload.screen ?? REFIT_SCREEN },
+    // the differencing is chosen on the engine's four weeks of origins, not on the short score
+    options: { fixed: payload.fixed, requireBeatBaseline: false, screen: payload.screen ?? REFIT_SCREEN, ...(REFIT_SEASONAL_BLOCK ? {} : { seasonalBlock: false as const }) },
   });
   const model = r.method === 'arima' ? (r.model ?? null) : null;
   let score: ScoreResult | null = null;
   let inServiceScore: ScoreResult | null = null;
   if (model) {
-    const choice = { diff: model.diff, p: model.p, q: model.q };
+    const choice = choiceOf(model);
     score = scoreChoice(payload.values, payload.excluded, choice, days);
     if (payload.inService) inServiceScore = scoreChoice(payload.values, payload.excluded, payload.inService, days);
   }
@@ -110,7 +130,7 @@ export function refitZone(payload: RefitPayload): RefitResult {
     method: model ? 'arima' : 'seasonal-naive',
     fallbackReason: r.fallbackReason ?? null,
     model,
-    stored: model ? storedOf(model) : null,
+    stored: model ? storedOf(model, r.bandScale) : null,
     forecast: r.forecast,
     candidates: r.candidates,
     warnings: r.warnings,
@@ -121,9 +141,20 @@ export function refitZone(payload: RefitPayload): RefitResult {
   };
 }
 
-function storedOf(m: ModelSummary): StoredModel {
+function storedOf(m: ModelSummary, bandScale: BandScale): StoredModel {
   const pick = (prefix: string, n: number) => Array.from({ length: n }, (_, i) => m.coefficients.find((c) => c.name === `${prefix}${i + 1}`)?.value ?? 0);
-  return { diff: m.diff, p: m.p, q: m.q, ar: pick('ar', m.p), ma: pick('ma', m.q), sigma2: m.sigma2, mean: m.coefficients.find((c) => c.name === 'intercept')?.value ?? 0 };
+  const seasonal = m.P + m.Q > 0 ? { P: m.P, Q: m.Q, period: m.period, sar: pick('sar', m.P), sma: pick('sma', m.Q) } : {};
+  return {
+    diff: m.diff,
+    p: m.p,
+    q: m.q,
+    ar: pick('ar', m.p),
+    ma: pick('ma', m.q),
+    sigma2: m.sigma2,
+    mean: m.coefficients.find((c) => c.name === 'intercept')?.value ?? 0,
+    ...seasonal,
+    bandScale: { k80: bandScale.k80, k95: bandScale.k95 },
+  };
 }
 
 export interface ForecastPayload {
@@ -135,23 +166,25 @@ export interface ForecastPayload {
 
 /**
  * Forecast from a stored model with its coefficients held (only the Kalman filter runs over the
- * latest history): the forecast of a version just promoted or rolled back to.
+ * latest history): the forecast of a version just promoted or rolled back to, its bands scaled
+ * as they were calibrated when it was fitted.
  */
 export function forecastStored(payload: ForecastPayload): { forecast: IntervalForecast } {
   const m = payload.model;
   const y = Float64Array.from(payload.values);
   for (const i of payload.excluded) if (i >= 0 && i < y.length) y[i] = NaN;
-  const spec = normalizeSpec({ p: m.p, q: m.q, includeMean: false });
+  const spec = normalizeSpec({ p: m.p, q: m.q, P: m.P ?? 0, Q: m.Q ?? 0, period: m.period, includeMean: false });
   const arma = {
     spec,
     coefficients: [],
     ar: Float64Array.from(m.ar),
     ma: Float64Array.from(m.ma),
-    sar: new Float64Array(0),
-    sma: new Float64Array(0),
+    sar: Float64Array.from(m.sar ?? []),
+    sma: Float64Array.from(m.sma ?? []),
     mean: m.mean,
     sigma2: m.sigma2,
   } as unknown as ArmaFit;
   const fit = applyArima({ diff: m.diff, arma, filled: new Float64Array(0), filledCount: 0 }, y);
-  return { forecast: floorAtZero(forecastArima(fit, payload.horizon)) };
+  const scale = m.bandScale ? { ...m.bandScale, hours: 0 } : UNSCALED;
+  return { forecast: floorAtZero(scaleBands(forecastArima(fit, payload.horizon), scale)) };
 }

@@ -87,6 +87,14 @@ export class ModelVersion {
   @Property({ type: 'double', nullable: true })
   baselineMape: number | null = null;
 
+  /** Share (0..1) of the backtest's hours inside the 80 % band. */
+  @Property({ type: 'double', nullable: true })
+  backtestCoverage80: number | null = null;
+
+  /** Share (0..1) of the backtest's hours inside the 95 % band. */
+  @Property({ type: 'double', nullable: true })
+  backtestCoverage95: number | null = null;
+
   @Property({ type: 'json' })
   warnings: string[] = [];
 

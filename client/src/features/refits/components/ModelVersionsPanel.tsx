@@ -46,6 +46,7 @@ export function ModelVersionsPanel({ zone, zoneName, timeZone, canPromote }: Mod
                 <Table.Th>Model</Table.Th>
                 <Table.Th ta="right">Backtest MAPE</Table.Th>
                 <Table.Th ta="right">Week-earlier MAPE</Table.Th>
+                <Table.Th ta="right" title="Share of the backtest's hours inside the 80 % / 95 % bands: near 80 / 95 means the bands can be trusted">Bands held 80 / 95</Table.Th>
                 <Table.Th />
               </Table.Tr>
             </Table.Thead>
@@ -64,6 +65,7 @@ export function ModelVersionsPanel({ zone, zoneName, timeZone, canPromote }: Mod
                   </Table.Td>
                   <Table.Td ff="monospace" ta="right">{formatPercent(v.backtestMape, 2)}</Table.Td>
                   <Table.Td ff="monospace" ta="right">{formatPercent(v.baselineMape, 2)}</Table.Td>
+                  <Table.Td ff="monospace" ta="right">{formatPercent(v.backtestCoverage80, 0)} / {formatPercent(v.backtestCoverage95, 0)}</Table.Td>
                   <Table.Td>
                     <Group gap={4} justify="flex-end" wrap="nowrap">
                       {v.status !== 'in-service' && (

@@ -30,7 +30,8 @@ function lower(a: number | null | undefined, b: number | null | undefined): Bett
 }
 
 export function ordersOf(v: ModelVersionDto): string {
-  return `ARMA(${v.p},${v.q}) on ${v.differencingLabel}`;
+  const s = v.seasonal ? `×(${v.seasonal.P},${v.seasonal.Q})_${v.seasonal.period}` : '';
+  return `ARMA(${v.p},${v.q})${s} on ${v.differencingLabel}`;
 }
 
 /** The smallest Ljung–Box p-value: the lag where leftover pattern is most likely. */
