@@ -4,7 +4,7 @@ import { Migration } from '@mikro-orm/migrations';
  * Model versions keep the share of hours their 80 % and 95 % bands held in the backtest that
  * scored them, beside its MAPE (null for versions scored before the bands were calibrated).
  */
-export class Migration20261203050000 extends Migration {
+export class Migration20261203050500 extends Migration {
 
   override async up(): Promise<void> {
     this.addSql(`alter table \`model_versions\` add \`backtest_coverage80\` double null, add \`backtest_coverage95\` double null;`);
