@@ -1,3 +1,4 @@
+import { ATTENTION_TEXT } from '../../../lib/text-colors';
 import { Group, Stack, Text, UnstyledButton } from '@mantine/core';
 import { hourEndingLabel } from '@morrowline/shared';
 import { formatMw, formatPercent } from '../../../lib/format';
@@ -56,7 +57,7 @@ export function ZoneCard({ view, hours, selected, thresholdPct, onSelect }: Zone
         </Group>
         <Group gap="xs" wrap="nowrap" justify="space-between">
           <Text size="xs" c="dimmed">Deviation</Text>
-          <Text size="xs" ff="monospace" fw={beyond ? 700 : 400} c={beyond ? 'ember.7' : undefined} data-testid="deviation">
+          <Text size="xs" ff="monospace" fw={beyond ? 700 : 400} c={beyond ? ATTENTION_TEXT : undefined} data-testid="deviation">
             {view.deviationPct === null ? '—' : `${sign}${formatPercent(view.deviationPct)}`}
           </Text>
         </Group>
@@ -65,7 +66,7 @@ export function ZoneCard({ view, hours, selected, thresholdPct, onSelect }: Zone
           <Text size="xs" ff="monospace" data-testid="next-run">{formatMw(view.nextRunMw)}</Text>
         </Group>
         {view.leftOut.length > 0 && (
-          <Text size="xs" c="slate.8" data-testid="left-out-count">
+          <Text size="xs" c="dimmed" data-testid="left-out-count">
             {view.leftOut.length} {view.leftOut.length === 1 ? 'zone' : 'zones'} left out
           </Text>
         )}
