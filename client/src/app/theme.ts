@@ -47,6 +47,11 @@ export const theme = createTheme({
   defaultRadius: 'sm',
   cursorType: 'pointer',
   components: {
+    // The library's close buttons are an icon alone: a screen reader would announce "button".
+    Modal: { defaultProps: { closeButtonProps: { 'aria-label': 'Close the dialog' } } },
+    Drawer: { defaultProps: { closeButtonProps: { 'aria-label': 'Close the panel' } } },
+    Notification: { defaultProps: { closeButtonProps: { 'aria-label': 'Close the message' } } },
+    Alert: { defaultProps: { closeButtonLabel: 'Close the message' } },
     Table: { defaultProps: { verticalSpacing: 'xs', highlightOnHover: true } },
     // A badge is a status word: it keeps its full width in a narrow table cell instead of being
     // cut to "RUN…" (the library's default clips the label with an ellipsis).

@@ -1,0 +1,104 @@
+import { DEMO_TIME_ZONE, DEMO_USERS, type DemoUser } from '@morrowline/shared';
+import { DateTime } from 'luxon';
+import { afterEach, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { openDesk, type Desk } from './support/browser';
+import { apiToken, historyCsv, HOUR_MS, MILLRACE_LOAD, uploadHistory } from './support/history';
+import { pressEnterOn, signInByKeyboard, signOutByKeyboard, tabTo, typeInto } from './support/keyboard';
+import { insertPastForecastRun } from './support/test-database';
+import { ownZone } from './support/zones';
+
+/** The keyboard tests' own zone: no other browser test writes to it. */
+const ZONE = 'FERNBROOK';
+const ZONE_NAME = 'Fernbrook';
+
+function demoUserNamed(name: string): DemoUser {
+  const user = DEMO_USERS.find((candidate) => candidate.name === name);
+  if (!user) throw new Error(`The demo scenario has no ${name}`);
+  return user;
+}
+
+/**
+ * Each workflow done with the keyboard alone: Tab (and Shift+Tab) to move, Enter to press, typing
+ * to write; no mouse click anywhere. Every stop reached is checked for a visible focus.
+ */
+describe('keyboard only', () => {
+  let desk: Desk;
+
+  beforeAll(async () => {
+    // The gate closes at 23:59, so an operator may still submit tomorrow's schedule.
+    await ownZone(ZONE, ZONE_NAME, '23:59');
+    // A day-ahead forecast issued before yesterday's gate closure, 12 % under the load uploaded
+    // next: every recent hour deviates beyond the 8 % threshold and the upload raises an alert.
+    const csv = historyCsv(8 * 168, MILLRACE_LOAD);
+    const loads = new Map(csv.trim().split('\n').slice(1).map((row) => [Date.parse(row.split(',')[0]), Number(row.split(',')[1])]));
+    const today = DateTime.now().setZone(DEMO_TIME_ZONE).startOf('day');
+    const first = today.minus({ days: 1 }).toMillis();
+    const mean = Array.from({ length: 72 }, (_, i) => Math.round((loads.get(first + i * HOUR_MS - 7 * 24 * HOUR_MS) ?? 150) * 0.88 * 10) / 10);
+    await insertPastForecastRun({ zone: ZONE, issuedAt: new Date(today.minus({ days: 2 }).toMillis()), firstHour: new Date(first), mean });
+    await uploadHistory(await apiToken('operator'), ZONE, csv, 'fernbrook-history.csv');
+  });
+  beforeEach(async () => {
+    desk = await openDesk();
+  });
+  afterEach(async () => {
+    await desk?.close();
+  });
+
+  it('an operator acknowledges a deviation alert with a comment', async () => {
+    const { page } = desk;
+    await signInByKeyboard(page, demoUserNamed('Ines Marlow'));
+    await page.waitForURL('**/live');
+    // Choose the zone's card, then reach the alert's button.
+    await pressEnterOn(page, page.getByTestId(`zone-card-${ZONE}`));
+    await page.waitForURL(`**/live?zone=${ZONE}`);
+    const row = page.locator('[data-testid^="alert-row-"]', { hasText: ZONE_NAME }).first();
+    await pressEnterOn(page, row.getByRole('button', { name: 'Acknowledge' }));
+    // The pop-over takes the focus into its comment field.
+    const comment = page.getByLabel('Comment (optional)');
+    await comment.waitFor();
+    await typeInto(page, comment, 'Feeder switching in Fernbrook, crew confirmed');
+    await pressEnterOn(page, page.getByRole('button', { name: 'Acknowledge alert' }));
+    await expect.poll(() => page.locator('[data-testid^="alert-row-"]', { hasText: ZONE_NAME }).count(), { timeout: 15_000 }).toBe(0);
+  });
+
+  it('an operator submits tomorrow’s schedule and a supervisor approves and publishes it', async () => {
+    const { page } = desk;
+    await signInByKeyboard(page, demoUserNamed('Ines Marlow'));
+    await page.goto(`/schedules?zones=${ZONE}`);
+    await pressEnterOn(page, page.getByRole('button', { name: 'Start the draft' }));
+    await pressEnterOn(page, page.getByRole('button', { name: 'Submit for approval' }));
+    const dialog = page.getByRole('dialog');
+    // The dialog puts the focus in its comment field.
+    await tabTo(page, dialog.getByLabel(/Comment for the supervisor/));
+    await page.keyboard.type('Model forecast as issued, no events known');
+    await pressEnterOn(page, dialog.getByRole('button', { name: 'Submit', exact: true }));
+    await expect.poll(() => page.getByTestId('revision-state').first().innerText(), { timeout: 15_000 }).toMatch(/Submitted by Ines Marlow/);
+    await signOutByKeyboard(page);
+
+    await signInByKeyboard(page, demoUserNamed('Nora Vance'));
+    await page.goto(`/schedules?zones=${ZONE}`);
+    await pressEnterOn(page, page.getByRole('button', { name: 'Approve and publish' }));
+    const confirm = page.getByRole('dialog');
+    await pressEnterOn(page, confirm.getByRole('button', { name: 'Publish revision 1' }));
+    await expect.poll(() => page.getByTestId('revision-state').first().innerText(), { timeout: 15_000 }).toMatch(/Approved and published by Nora Vance/);
+  });
+
+  it('a supervisor writes a handover and the next one acknowledges it with a reply', async () => {
+    const { page } = desk;
+    const marker = `kb${Date.now().toString(36)}`;
+    await signInByKeyboard(page, demoUserNamed('Nora Vance'));
+    await page.goto('/shift-log');
+    const form = page.getByRole('form', { name: 'Write handover' });
+    await typeInto(page, form.getByLabel('Handover note'), `Handed over by keyboard, ${marker}. Fernbrook alert acknowledged.`);
+    await pressEnterOn(page, form.getByRole('button', { name: 'Hand over' }));
+    await page.getByTestId('handed-over').waitFor();
+    await signOutByKeyboard(page);
+
+    await signInByKeyboard(page, demoUserNamed('Hal Brennick'));
+    await page.goto('/shift-log');
+    const note = page.getByTestId('pending-handovers').locator('[data-testid^="handover-note-"]', { hasText: marker });
+    await typeInto(page, note.getByLabel(/Reply to the outgoing shift/), 'Read, I have the desk.');
+    await pressEnterOn(page, note.getByRole('button', { name: 'Acknowledge' }));
+    await note.waitFor({ state: 'detached' });
+  });
+});
