@@ -1,6 +1,6 @@
 import { DEMO_TIME_ZONE, type Role } from '@morrowline/shared';
 import { DateTime } from 'luxon';
-import type { Page } from 'playwright-core';
+import type { Locator, Page } from 'playwright-core';
 import { afterEach, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { accessibilityViolations, type ColorScheme } from './support/accessibility';
 import { demoUser, openDesk, signInAs, type Desk } from './support/browser';
@@ -26,23 +26,28 @@ const SCREENS: Record<Role, string[]> = {
 const SCHEMES: ColorScheme[] = ['light', 'dark'];
 
 /**
- * Every dialog (and the alert's acknowledgement pop-over), by the role that may open it: the
- * screen, the button that opens it, and what to do first when the dialog needs a state (a draft).
+ * Every dialog, and the states a screen reaches without leaving it (the alert's acknowledgement
+ * pop-over, a tab, a chart's table of numbers), by the role that may open it: the screen, the
+ * control that opens it, and what to do first when it needs a state (a draft).
  */
-interface DialogCase {
+interface StateCase {
   role: Role;
   path: string;
   opener: string;
+  /** dialog (closed again with Escape), popover (likewise), tab, or disclosure (a chart's numbers). */
+  kind?: 'dialog' | 'popover' | 'tab' | 'disclosure';
   before?: (page: Page) => Promise<void>;
-  /** A pop-over is scanned through its button's expanded state rather than a dialog role. */
-  popover?: boolean;
 }
-const DIALOGS: DialogCase[] = [
+const STATES: StateCase[] = [
   { role: 'operator', path: `/refits?zone=${ZONE}`, opener: 'Mark a window' },
   { role: 'operator', path: `/refits?zone=${ZONE}`, opener: 'Refit this zone' },
   { role: 'operator', path: `/refits?zone=${ZONE}`, opener: 'Refit all zones' },
   { role: 'operator', path: `/schedules?zones=${ZONE}`, opener: 'Submit for approval', before: startDraftIfNone },
-  { role: 'operator', path: `/live?zone=${ZONE}`, opener: 'Acknowledge', popover: true },
+  { role: 'operator', path: `/schedules?zones=${ZONE}`, opener: 'Show the numbers behind this chart as a table', kind: 'disclosure' },
+  { role: 'operator', path: `/live?zone=${ZONE}`, opener: 'Acknowledge', kind: 'popover' },
+  { role: 'operator', path: `/live?zone=${ZONE}`, opener: 'Show the numbers behind this chart as a table', kind: 'disclosure' },
+  { role: 'operator', path: '/shift-log', opener: 'Past notes', kind: 'tab' },
+  { role: 'viewer', path: '/accuracy', opener: 'Show the numbers behind this chart as a table', kind: 'disclosure' },
   { role: 'supervisor', path: `/schedules?zones=${ZONE}`, opener: 'Subscribers' },
   { role: 'admin', path: '/admin/users', opener: 'Add user' },
   { role: 'admin', path: '/admin/users', opener: 'Change role' },
@@ -51,6 +56,22 @@ const DIALOGS: DialogCase[] = [
   { role: 'admin', path: '/admin/zones', opener: 'Edit' },
   { role: 'admin', path: '/admin/feed-keys', opener: 'Create key' },
 ];
+
+/** Opens the state and answers what to wait for while it is open, and whether Escape closes it. */
+async function openState(page: Page, state: StateCase): Promise<{ shown: Locator; closesOnEscape: boolean }> {
+  const kind = state.kind ?? 'dialog';
+  if (kind === 'tab') {
+    await page.getByRole('tab', { name: state.opener, exact: true }).click();
+    return { shown: page.getByRole('tabpanel', { name: state.opener }), closesOnEscape: false };
+  }
+  if (kind === 'disclosure') {
+    const disclosure = page.locator('details', { has: page.getByText(state.opener, { exact: true }) }).first();
+    await disclosure.locator('summary').click();
+    return { shown: disclosure.locator('table'), closesOnEscape: false };
+  }
+  await page.getByRole('button', { name: state.opener, exact: true }).first().click();
+  return { shown: kind === 'popover' ? page.locator('.mantine-Popover-dropdown') : page.getByRole('dialog'), closesOnEscape: true };
+}
 
 async function startDraftIfNone(page: Page): Promise<void> {
   const start = page.getByRole('button', { name: 'Start the draft' });
@@ -111,7 +132,7 @@ describe('accessibility: WCAG 2.1 A and AA on every screen, for every role, in b
   });
 
   for (const role of ['viewer', 'operator', 'supervisor', 'admin'] as const) {
-    it(`every screen of the ${role}`, { timeout: 240_000 }, async () => {
+    it(`every screen and dialog of the ${role}`, { timeout: 480_000 }, async () => {
       const { page } = desk;
       await signInAs(page, demoUser(role));
       const found: string[] = [];
@@ -120,16 +141,16 @@ describe('accessibility: WCAG 2.1 A and AA on every screen, for every role, in b
           await open(page, path, scheme);
           for (const line of await accessibilityViolations(page)) found.push(`[${path}, ${role}, ${scheme}] ${line}`);
         }
-        for (const dialog of DIALOGS.filter((d) => d.role === role)) {
-          await open(page, dialog.path, scheme);
-          await dialog.before?.(page);
-          const opener = page.getByRole('button', { name: dialog.opener, exact: true }).first();
-          await opener.click();
-          const opened = dialog.popover ? page.locator('.mantine-Popover-dropdown') : page.getByRole('dialog');
-          await opened.waitFor({ state: 'visible' });
-          for (const line of await accessibilityViolations(page)) found.push(`[${dialog.path} "${dialog.opener}", ${role}, ${scheme}] ${line}`);
-          await page.keyboard.press('Escape');
-          await opened.waitFor({ state: 'hidden' });
+        for (const state of STATES.filter((d) => d.role === role)) {
+          await open(page, state.path, scheme);
+          await state.before?.(page);
+          const { shown, closesOnEscape } = await openState(page, state);
+          await shown.waitFor({ state: 'visible' });
+          for (const line of await accessibilityViolations(page)) found.push(`[${state.path} "${state.opener}", ${role}, ${scheme}] ${line}`);
+          if (closesOnEscape) {
+            await page.keyboard.press('Escape');
+            await shown.waitFor({ state: 'hidden' });
+          }
         }
       }
       expectNone(found);

@@ -101,4 +101,29 @@ describe('keyboard only', () => {
     await pressEnterOn(page, note.getByRole('button', { name: 'Acknowledge' }));
     await note.waitFor({ state: 'detached' });
   });
+
+  it('an operator uploads a CSV for a chosen zone and reads the report', async () => {
+    const { page } = desk;
+    // Three hours ten weeks back (older than the zone's history) and one row that is no time at all.
+    const start = Math.floor(Date.now() / HOUR_MS) * HOUR_MS - 70 * 24 * HOUR_MS;
+    const csv = ['timestamp,load_mw', ...[0, 1, 2].map((i) => `${new Date(start + i * HOUR_MS).toISOString()},${(150 + i).toFixed(1)}`), 'yesterday noon,151.0'].join('\n') + '\n';
+    await signInByKeyboard(page, demoUserNamed('Tomas Reedy'));
+    await page.goto('/history');
+    // The file field opens the system's file chooser on Enter; the test answers it.
+    const chooser = page.waitForEvent('filechooser');
+    await pressEnterOn(page, page.getByRole('button', { name: 'CSV file' }));
+    await (await chooser).setFiles({ name: 'fernbrook-extra.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
+    await page.getByText('The file has no zone column').waitFor();
+    // The zone list opens with the arrow key and is walked with it to the zone's option.
+    await tabTo(page, page.getByRole('combobox', { name: 'Zone for every row' }));
+    await page.keyboard.press('ArrowDown');
+    const option = page.getByRole('option', { name: `${ZONE_NAME} (${ZONE})` });
+    await option.waitFor();
+    for (let step = 0; step < 30 && (await option.getAttribute('data-combobox-selected')) === null; step++) await page.keyboard.press('ArrowDown');
+    await page.keyboard.press('Enter');
+    await pressEnterOn(page, page.getByRole('button', { name: 'Upload and check' }));
+    await page.getByTestId('upload-report').waitFor();
+    expect(await page.getByTestId('report-accepted').innerText()).toBe('3');
+    expect(await page.getByTestId('report-rejected').innerText()).toBe('1');
+  });
 });

@@ -33,6 +33,14 @@ const night: MantineColorsTuple = [
   '#2f394d', '#232b3c', '#1a2130', '#131926', '#0d121c',
 ];
 
+/** Names of the pagination arrows, which show a chevron only. */
+const PAGINATION_CONTROL_LABELS: Record<string, string> = {
+  first: 'First page',
+  previous: 'Previous page',
+  next: 'Next page',
+  last: 'Last page',
+};
+
 export const theme = createTheme({
   colors: { tide, ember, dusk, slate, dark: night },
   primaryColor: 'tide',
@@ -52,6 +60,7 @@ export const theme = createTheme({
     Drawer: { defaultProps: { closeButtonProps: { 'aria-label': 'Close the panel' } } },
     Notification: { defaultProps: { closeButtonProps: { 'aria-label': 'Close the message' } } },
     Alert: { defaultProps: { closeButtonLabel: 'Close the message' } },
+    Pagination: { defaultProps: { getControlProps: (control: string) => ({ 'aria-label': PAGINATION_CONTROL_LABELS[control] ?? control }) } },
     Table: { defaultProps: { verticalSpacing: 'xs', highlightOnHover: true } },
     // A badge is a status word: it keeps its full width in a narrow table cell instead of being
     // cut to "RUN…" (the library's default clips the label with an ellipsis).
