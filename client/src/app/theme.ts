@@ -41,6 +41,18 @@ const PAGINATION_CONTROL_LABELS: Record<string, string> = {
   last: 'Last page',
 };
 
+/** Names of the calendar's arrow and level buttons (@mantine/dates leaves them unnamed). */
+const CALENDAR_LABELS = {
+  monthLevelControl: 'Choose the month',
+  yearLevelControl: 'Choose the year',
+  nextMonth: 'Next month',
+  previousMonth: 'Previous month',
+  nextYear: 'Next year',
+  previousYear: 'Previous year',
+  nextDecade: 'Next decade',
+  previousDecade: 'Previous decade',
+};
+
 export const theme = createTheme({
   colors: { tide, ember, dusk, slate, dark: night },
   primaryColor: 'tide',
@@ -60,6 +72,9 @@ export const theme = createTheme({
     Drawer: { defaultProps: { closeButtonProps: { 'aria-label': 'Close the panel' } } },
     Notification: { defaultProps: { closeButtonProps: { 'aria-label': 'Close the message' } } },
     Alert: { defaultProps: { closeButtonLabel: 'Close the message' } },
+    InputClearButton: { defaultProps: { 'aria-label': 'Clear the field' } },
+    FileInput: { defaultProps: { clearButtonProps: { 'aria-label': 'Clear the chosen file' } } },
+    DatePickerInput: { defaultProps: { ariaLabels: CALENDAR_LABELS } },
     Pagination: { defaultProps: { getControlProps: (control: string) => ({ 'aria-label': PAGINATION_CONTROL_LABELS[control] ?? control }) } },
     Table: { defaultProps: { verticalSpacing: 'xs', highlightOnHover: true } },
     // A badge is a status word: it keeps its full width in a narrow table cell instead of being

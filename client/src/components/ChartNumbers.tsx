@@ -1,4 +1,4 @@
-import { Box, ScrollArea, Table, Text } from '@mantine/core';
+import { Box, Table, Text } from '@mantine/core';
 import { useState, type ReactNode } from 'react';
 
 export interface ChartNumbersProps {
@@ -23,7 +23,8 @@ export function ChartNumbers({ title, columns, rows, testId }: ChartNumbersProps
         Show the numbers behind this chart as a table
       </Text>
       {open && (
-        <ScrollArea.Autosize mah={320} type="auto" offsetScrollbars>
+        // A region of its own that takes the focus, so the keyboard can scroll it (WCAG 2.1.1).
+        <Box tabIndex={0} role="region" aria-label={`Numbers behind: ${title}`} mah={320} style={{ overflow: 'auto' }}>
           <Table striped withTableBorder fz="xs" captionSide="top" stickyHeader>
             <Table.Caption>Numbers behind: {title}</Table.Caption>
             <Table.Thead>
@@ -43,7 +44,7 @@ export function ChartNumbers({ title, columns, rows, testId }: ChartNumbersProps
               ))}
             </Table.Tbody>
           </Table>
-        </ScrollArea.Autosize>
+        </Box>
       )}
     </Box>
   );
