@@ -1,5 +1,6 @@
 import type { DemoUser } from '@morrowline/shared';
 import type { Locator, Page } from 'playwright-core';
+import { settle } from './accessibility';
 
 /** More Tab presses than any screen of the desk has stops; reaching it means the target is not in the tab order. */
 const MAX_TAB_STOPS = 200;
@@ -23,19 +24,27 @@ export async function tabTo(page: Page, target: Locator, { backwards = false } =
 
 /** The focused element shows where the focus is: an outline, or a ring drawn as a box shadow. */
 export async function expectVisibleFocus(page: Page): Promise<void> {
+  // Read the focus style at the end of its transition (a field's border fades to the new colour).
+  await settle(page);
   const indicator = await page.evaluate(() => {
     const element = document.activeElement as HTMLElement | null;
     if (!element || element === document.body) return { visible: false, what: 'nothing focused' };
     const style = getComputedStyle(element);
     const outline = style.outlineStyle !== 'none' && Number.parseFloat(style.outlineWidth) > 0;
     const ring = style.boxShadow !== 'none' && style.boxShadow !== '';
-    // A text field shows its focus by turning its border to the working colour (Mantine's inputs).
+    // A field (a text box, or a Mantine input drawn as a button: file, date, select) shows its
+    // focus by turning its border to the working colour.
     const probe = document.createElement('span');
     probe.style.color = 'var(--mantine-primary-color-filled)';
     document.body.append(probe);
     const working = getComputedStyle(probe).color;
     probe.remove();
-    const field = element.matches('input, textarea') && style.borderTopColor === working;
+    // A password field's own input is borderless: the box around it (a parent) shows the focus.
+    let box: HTMLElement | null = element;
+    let field = false;
+    for (let level = 0; level < 3 && box && element.matches('input, textarea, .mantine-Input-input'); level++, box = box.parentElement) {
+      if (getComputedStyle(box).borderTopColor === working) field = true;
+    }
     return { visible: outline || ring || field, what: element.outerHTML.slice(0, 160) };
   });
   if (!indicator.visible) throw new Error(`The keyboard focus is not visible on ${indicator.what}`);
