@@ -71,7 +71,7 @@ async function openState(page: Page, state: StateCase): Promise<{ shown: Locator
     return { shown: disclosure.locator('table'), closesOnEscape: false };
   }
   await page.getByRole('button', { name: state.opener, exact: true }).first().click();
-  return { shown: kind === 'popover' ? page.locator('.mantine-Popover-dropdown') : page.getByRole('dialog'), closesOnEscape: true };
+  return { shown: kind === 'popover' ? page.locator('.mantine-Popover-dropdown').filter({ visible: true }) : page.getByRole('dialog'), closesOnEscape: true };
 }
 
 async function startDraftIfNone(page: Page): Promise<void> {

@@ -129,4 +129,32 @@ describe('keyboard only', () => {
     expect(await page.getByTestId('report-accepted').innerText()).toBe('3');
     expect(await page.getByTestId('report-rejected').innerText()).toBe('1');
   });
+
+  it('an operator marks an outage window and starts a refit of the zone', async () => {
+    const { page } = desk;
+    const reason = `after the Fernbrook outage, by keyboard ${Date.now().toString(36)}`;
+    // Three days ago, 09:00 to 13:00 in the zone's time.
+    const day = DateTime.now().setZone(DEMO_TIME_ZONE).minus({ days: 3 });
+    await signInByKeyboard(page, demoUserNamed('Tomas Reedy'));
+    await page.goto(`/refits?zone=${ZONE}`);
+    await pressEnterOn(page, page.getByRole('button', { name: 'Mark a window' }));
+    const dialog = page.getByRole('dialog', { name: `Mark a window on ${ZONE_NAME}` });
+    // A date-and-time field takes its parts as typed digits (month, day, year, hour, minute, AM/PM in en-US).
+    await typeInto(page, dialog.getByLabel(/^Start/), `${day.toFormat('LLddyyyy')}0900A`);
+    await typeInto(page, dialog.getByLabel(/^End/), `${day.toFormat('LLddyyyy')}0100P`);
+    await typeInto(page, dialog.getByLabel(/^Note/), 'Fernbrook feeder 2 out for a crossing repair');
+    expect(await dialog.getByTestId('outage-time-hint').first().innerText()).toMatch(new RegExp(`^${day.toFormat('yyyy-LL-dd')} 09:00 M[SD]T`));
+    await pressEnterOn(page, dialog.getByRole('button', { name: 'Mark the window' }));
+    await dialog.waitFor({ state: 'hidden' });
+    const windows = page.getByTestId('outage-windows').getByRole('table', { name: 'Windows' });
+    await expect.poll(() => windows.innerText(), { timeout: 15_000 }).toMatch(new RegExp(`${day.toFormat('yyyy-LL-dd')} 09:00[\\s\\S]*${day.toFormat('yyyy-LL-dd')} 13:00[\\s\\S]*crossing repair`));
+
+    await pressEnterOn(page, page.getByRole('button', { name: 'Refit this zone' }));
+    const refit = page.getByRole('dialog', { name: `Refit ${ZONE_NAME}` });
+    // The dialog puts the focus in its reason; Enter in the field submits the form.
+    await typeInto(page, refit.getByLabel(/^Reason/), reason);
+    await page.keyboard.press('Enter');
+    await refit.waitFor({ state: 'hidden' });
+    await page.locator('[data-testid^="refit-job-"]', { hasText: reason }).first().waitFor();
+  });
 });
