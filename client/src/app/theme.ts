@@ -41,10 +41,11 @@ const PAGINATION_CONTROL_LABELS: Record<string, string> = {
   last: 'Last page',
 };
 
-/** Names of the calendar's arrow and level buttons (@mantine/dates leaves them unnamed). */
+/**
+ * Names of the calendar's arrow buttons (@mantine/dates leaves them unnamed). The month and year
+ * buttons keep their visible text as their name ("November 2026"), as WCAG 2.5.3 asks.
+ */
 const CALENDAR_LABELS = {
-  monthLevelControl: 'Choose the month',
-  yearLevelControl: 'Choose the year',
   nextMonth: 'Next month',
   previousMonth: 'Previous month',
   nextYear: 'Next year',
@@ -74,7 +75,9 @@ export const theme = createTheme({
     Alert: { defaultProps: { closeButtonLabel: 'Close the message' } },
     InputClearButton: { defaultProps: { 'aria-label': 'Clear the field' } },
     FileInput: { defaultProps: { clearButtonProps: { 'aria-label': 'Clear the chosen file' } } },
-    DatePickerInput: { defaultProps: { ariaLabels: CALENDAR_LABELS } },
+    // Days of the next and last month are left out of a month's grid: the library draws them too
+    // faint to read (2:1), and a range is picked within the month shown.
+    DatePickerInput: { defaultProps: { ariaLabels: CALENDAR_LABELS, hideOutsideDates: true } },
     Pagination: { defaultProps: { getControlProps: (control: string) => ({ 'aria-label': PAGINATION_CONTROL_LABELS[control] ?? control }) } },
     Table: { defaultProps: { verticalSpacing: 'xs', highlightOnHover: true } },
     // A badge is a status word: it keeps its full width in a narrow table cell instead of being
