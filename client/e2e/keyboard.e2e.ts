@@ -139,9 +139,15 @@ describe('keyboard only', () => {
     await page.goto(`/refits?zone=${ZONE}`);
     await pressEnterOn(page, page.getByRole('button', { name: 'Mark a window' }));
     const dialog = page.getByRole('dialog', { name: `Mark a window on ${ZONE_NAME}` });
-    // A date-and-time field takes its parts as typed digits (month, day, year, hour, minute, AM/PM in en-US).
-    await typeInto(page, dialog.getByLabel(/^Start/), `${day.toFormat('LLddyyyy')}0900A`);
-    await typeInto(page, dialog.getByLabel(/^End/), `${day.toFormat('LLddyyyy')}0100P`);
+    // A date-and-time field takes its parts as typed digits (month, day, year; the arrow key on
+    // to the time; hour, minute, A or P in en-US).
+    const typeDateTime = async (label: RegExp, time: string) => {
+      await typeInto(page, dialog.getByLabel(label), day.toFormat('LLddyyyy'));
+      await page.keyboard.press('ArrowRight');
+      await page.keyboard.type(time);
+    };
+    await typeDateTime(/^Start/, '0900A');
+    await typeDateTime(/^End/, '0100P');
     await typeInto(page, dialog.getByLabel(/^Note/), 'Fernbrook feeder 2 out for a crossing repair');
     expect(await dialog.getByTestId('outage-time-hint').first().innerText()).toMatch(new RegExp(`^${day.toFormat('yyyy-LL-dd')} 09:00 M[SD]T`));
     await pressEnterOn(page, dialog.getByRole('button', { name: 'Mark the window' }));
