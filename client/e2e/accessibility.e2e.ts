@@ -1,12 +1,10 @@
-import { DEMO_TIME_ZONE, type Role } from '@morrowline/shared';
-import { DateTime } from 'luxon';
+import type { Role } from '@morrowline/shared';
 import type { Locator, Page } from 'playwright-core';
 import { afterEach, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { accessibilityViolations, type ColorScheme } from './support/accessibility';
 import { demoUser, openDesk, signInAs, type Desk } from './support/browser';
-import { apiToken, historyCsv, HOUR_MS, QUARRY_LOAD, uploadHistory } from './support/history';
-import { insertPastForecastRun } from './support/test-database';
-import { ownZone } from './support/zones';
+import { zoneWithDeviatingLoad } from './support/deviating-zone';
+import { QUARRY_LOAD } from './support/history';
 
 /** The scan's own zone: no other browser test writes to it. */
 const ZONE = 'SALTMARSH';
@@ -101,17 +99,7 @@ describe('accessibility: WCAG 2.1 A and AA on every screen, for every role, in b
   let desk: Desk;
 
   beforeAll(async () => {
-    // The gate closes at 23:59 so that an operator may still submit tomorrow's schedule.
-    await ownZone(ZONE, ZONE_NAME, '23:59');
-    // The day-ahead forecast issued before yesterday's gate closure, about 12 % under the load
-    // uploaded next, so the live view shows deviations and raises an alert.
-    const csv = historyCsv(8 * 168, QUARRY_LOAD);
-    const today = DateTime.now().setZone(DEMO_TIME_ZONE).startOf('day');
-    const first = today.minus({ days: 1 }).toMillis();
-    const loads = new Map(csv.trim().split('\n').slice(1).map((row) => [Date.parse(row.split(',')[0]), Number(row.split(',')[1])]));
-    const mean = Array.from({ length: 72 }, (_, i) => Math.round((loads.get(first + i * HOUR_MS - 7 * 24 * HOUR_MS) ?? 100) * 0.88 * 10) / 10);
-    await insertPastForecastRun({ zone: ZONE, issuedAt: new Date(today.minus({ days: 2 }).toMillis()), firstHour: new Date(first), mean });
-    await uploadHistory(await apiToken('operator'), ZONE, csv, 'saltmarsh-history.csv');
+    await zoneWithDeviatingLoad(ZONE, ZONE_NAME, QUARRY_LOAD);
   });
   beforeEach(async () => {
     desk = await openDesk();

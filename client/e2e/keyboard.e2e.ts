@@ -2,10 +2,9 @@ import { DEMO_TIME_ZONE, DEMO_USERS, type DemoUser } from '@morrowline/shared';
 import { DateTime } from 'luxon';
 import { afterEach, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { openDesk, type Desk } from './support/browser';
-import { apiToken, historyCsv, HOUR_MS, MILLRACE_LOAD, uploadHistory } from './support/history';
+import { zoneWithDeviatingLoad } from './support/deviating-zone';
+import { HOUR_MS, MILLRACE_LOAD } from './support/history';
 import { pressEnterOn, signInByKeyboard, signOutByKeyboard, tabTo, typeInto } from './support/keyboard';
-import { insertPastForecastRun } from './support/test-database';
-import { ownZone } from './support/zones';
 
 /** The keyboard tests' own zone: no other browser test writes to it. */
 const ZONE = 'FERNBROOK';
@@ -25,17 +24,7 @@ describe('keyboard only', () => {
   let desk: Desk;
 
   beforeAll(async () => {
-    // The gate closes at 23:59, so an operator may still submit tomorrow's schedule.
-    await ownZone(ZONE, ZONE_NAME, '23:59');
-    // A day-ahead forecast issued before yesterday's gate closure, 12 % under the load uploaded
-    // next: every recent hour deviates beyond the 8 % threshold and the upload raises an alert.
-    const csv = historyCsv(8 * 168, MILLRACE_LOAD);
-    const loads = new Map(csv.trim().split('\n').slice(1).map((row) => [Date.parse(row.split(',')[0]), Number(row.split(',')[1])]));
-    const today = DateTime.now().setZone(DEMO_TIME_ZONE).startOf('day');
-    const first = today.minus({ days: 1 }).toMillis();
-    const mean = Array.from({ length: 72 }, (_, i) => Math.round((loads.get(first + i * HOUR_MS - 7 * 24 * HOUR_MS) ?? 150) * 0.88 * 10) / 10);
-    await insertPastForecastRun({ zone: ZONE, issuedAt: new Date(today.minus({ days: 2 }).toMillis()), firstHour: new Date(first), mean });
-    await uploadHistory(await apiToken('operator'), ZONE, csv, 'fernbrook-history.csv');
+    await zoneWithDeviatingLoad(ZONE, ZONE_NAME, MILLRACE_LOAD);
   });
   beforeEach(async () => {
     desk = await openDesk();
