@@ -33,7 +33,7 @@ describe('the wall display of live load', () => {
   it('a viewer opens it from the navigation, reads every zone in large type, and sees a new reading without touching it', async () => {
     const { page } = desk;
     await signInAs(page, demoUser('viewer'));
-    await page.getByRole('link', { name: 'Wall display of live load' }).click();
+    await page.getByRole('link', { name: 'Wall display' }).click();
     await page.waitForURL('**/wall');
     await page.getByRole('heading', { name: 'Live load', level: 1 }).waitFor();
 

@@ -33,7 +33,7 @@ describe('app routes', () => {
     mockApi({ 'GET /api/auth/me': () => ({ body: viewer }) });
     sessionStore.start('v', 3600);
     renderApp('/');
-    const link = await screen.findByRole('link', { name: 'Wall display of live load' });
+    const link = await screen.findByRole('link', { name: 'Wall display' });
     expect(link).toHaveAttribute('href', '/wall');
   });
 

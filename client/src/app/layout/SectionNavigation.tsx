@@ -20,7 +20,7 @@ export function SectionNavigation({ role, onNavigate }: SectionNavigationProps) 
         <Text size="xs" fw={600} c="dimmed" tt="uppercase" px="sm" mb={4} lts={0.6}>
           Displays
         </Text>
-        <NavLink component={RouterNavLink} to={WALL_PATH} label="Wall display of live load" onClick={onNavigate} data-display="wall" />
+        <NavLink component={RouterNavLink} to={WALL_PATH} label="Wall display" onClick={onNavigate} data-display="wall" />
       </Stack>
     </Stack>
   );
