@@ -28,6 +28,22 @@ describe('app routes', () => {
     expect(navigation).not.toHaveTextContent('Refits');
   });
 
+  it('links every role to the wall display from the navigation, and keeps it behind sign-in', async () => {
+    const viewer = userFixture('viewer');
+    mockApi({ 'GET /api/auth/me': () => ({ body: viewer }) });
+    sessionStore.start('v', 3600);
+    renderApp('/');
+    const link = await screen.findByRole('link', { name: 'Wall display' });
+    expect(link).toHaveAttribute('href', '/wall');
+  });
+
+  it('sends a visitor without a session from the wall display to sign-in', async () => {
+    mockApi({});
+    const { router } = renderApp('/wall');
+    expect(await screen.findByRole('button', { name: 'Sign in' })).toBeInTheDocument();
+    expect(router.state.location.pathname).toBe('/sign-in');
+  });
+
   it('refuses an admin screen to a viewer who types its address', async () => {
     const viewer = userFixture('viewer');
     const { calls } = mockApi({ 'GET /api/auth/me': () => ({ body: viewer }) });

@@ -5,7 +5,7 @@ import { FeedKeysPage } from '../features/feed-keys';
 import { RequireSession, SignInPage } from '../features/auth';
 import { ShiftLogPage } from '../features/handover';
 import { HistoryPage } from '../features/history';
-import { LiveLoadPage } from '../features/live';
+import { LiveLoadPage, WallDisplayPage } from '../features/live';
 import { RefitsPage } from '../features/refits';
 import { SchedulesPage } from '../features/schedules';
 import { UsersPage } from '../features/users';
@@ -16,7 +16,7 @@ import { HomeRedirect } from './navigation/HomeRedirect';
 import { PageNotFound } from './navigation/PageNotFound';
 import { RouteError } from './navigation/RouteError';
 import { SectionGate } from './navigation/SectionGate';
-import { homePathFor, SECTIONS, type SectionId } from './navigation/sections';
+import { homePathFor, SECTIONS, WALL_PATH, type SectionId } from './navigation/sections';
 
 const SCREENS: Record<SectionId, () => React.JSX.Element> = {
   live: LiveLoadPage,
@@ -35,6 +35,16 @@ const SCREENS: Record<SectionId, () => React.JSX.Element> = {
 /** The route tree, kept apart from the router instance so tests can mount it in memory. */
 export const routes: RouteObject[] = [
   { path: '/sign-in', element: <SignInPage homePathFor={(user) => homePathFor(user.role)} /> },
+  // The wall display: live load for every signed-in role, full screen without the desk's shell.
+  {
+    path: WALL_PATH,
+    errorElement: <RouteError />,
+    element: (
+      <RequireSession>
+        <WallDisplayPage />
+      </RequireSession>
+    ),
+  },
   {
     path: '/',
     errorElement: <RouteError />,

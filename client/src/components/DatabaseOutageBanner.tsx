@@ -37,7 +37,7 @@ export function DatabaseOutageBanner({ store = serverStatusStore, retryMs = DATA
 
   if (status !== 'database-down') return null;
   return (
-    <Alert color="orange" variant="filled" radius="md" mb="md" role="alert" data-testid="database-outage-banner" title="The server cannot reach its database">
+    <Alert color="ember" variant="filled" radius="md" mb="md" role="alert" data-testid="database-outage-banner" title="The server cannot reach its database">
       <Text size="sm">
         You are still signed in. Screens may show older data and changes cannot be saved until it is back; trying again every{' '}
         {Math.round(retryMs / 1000)} seconds.

@@ -14,7 +14,8 @@ export function PageHeader({ title, description, actions }: PageHeaderProps) {
   return (
     <Group justify="space-between" align="flex-end" mb="md" wrap="wrap">
       <Stack gap={2}>
-        <Title order={2}>{title}</Title>
+        {/* The screen's one top-level heading (a screen reader's list of headings starts here), in the size the desk has always shown it. */}
+        <Title order={1} size="h2">{title}</Title>
         {description && (
           <Text c="dimmed" size="sm">
             {description}

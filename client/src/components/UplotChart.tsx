@@ -2,6 +2,7 @@ import { Box, Group, Text } from '@mantine/core';
 import { useElementSize } from '@mantine/hooks';
 import { useMemo } from 'react';
 import type uPlot from 'uplot';
+import { ChartNumbers } from './ChartNumbers';
 import UplotReact from 'uplot-react';
 import 'uplot/dist/uPlot.min.css';
 
@@ -34,6 +35,26 @@ interface UplotChartProps {
    * library's own legend, whose "time: -- load: --" row reads as broken before the cursor moves.
    */
   seriesKey?: boolean;
+  /** How an x value reads in the chart's table of numbers; by default the x series' own formatter. */
+  formatX?: (x: number) => string;
+}
+
+type ValueFormatter = (u: uPlot | null, value: number | null, seriesIndex: number, index: number) => string;
+
+/** A value as the chart's own legend would show it, else with three significant decimals at most. */
+function formatted(series: uPlot.Series, value: number | null, seriesIndex: number, index: number): string {
+  if (value === null || value === undefined) return '—';
+  if (typeof series.value === 'function') return (series.value as unknown as ValueFormatter)(null, value, seriesIndex, index);
+  return Math.abs(value) < 10 ? value.toFixed(3) : value.toFixed(1);
+}
+
+/** The chart's table of numbers: the x column, then every named series, one row per x value. */
+export function chartRows(options: Pick<uPlot.Options, 'series'>, data: uPlot.AlignedData, formatX?: (x: number) => string): string[][] {
+  const named = options.series.map((s, i) => ({ s, i })).filter(({ s, i }) => i > 0 && typeof s.label === 'string' && s.label !== '');
+  return Array.from(data[0], (x, row) => [
+    formatX ? formatX(x) : formatted(options.series[0] ?? {}, x, 0, row),
+    ...named.map(({ s, i }) => formatted(s, (data[i]?.[row] ?? null) as number | null, i, row)),
+  ]);
 }
 
 /** The named lines of a chart, in the desk's type, under the chart. */
@@ -54,7 +75,7 @@ function SeriesKey({ series }: { series: readonly uPlot.Series[] }) {
 }
 
 /** A uPlot chart sized to its container, with a title above it. */
-export function UplotChart({ title, options, data, height = 220, testId, caption, seriesKey = false }: UplotChartProps) {
+export function UplotChart({ title, options, data, height = 220, testId, caption, seriesKey = false, formatX }: UplotChartProps) {
   const { ref, width } = useElementSize();
   const full = useMemo(
     () => ({ ...options, ...(seriesKey ? { legend: { show: false } } : {}), width: Math.max(200, Math.floor(width)), height }) as uPlot.Options,
@@ -65,7 +86,7 @@ export function UplotChart({ title, options, data, height = 220, testId, caption
       <Text size="sm" fw={600} mb={4}>
         {title}
       </Text>
-      <Box ref={ref} style={{ minHeight: height }}>
+      <Box ref={ref} style={{ minHeight: height }} role="img" aria-label={`Chart: ${title}. Its numbers are in the table under it.`}>
         {width > 0 && <UplotReact options={full} data={data} />}
       </Box>
       {seriesKey && <SeriesKey series={options.series} />}
@@ -74,6 +95,11 @@ export function UplotChart({ title, options, data, height = 220, testId, caption
           {caption}
         </Text>
       )}
+      <ChartNumbers
+        title={title}
+        columns={[String(options.series[0]?.label ?? 'x'), ...options.series.slice(1).filter((s) => typeof s.label === 'string' && s.label !== '').map((s) => String(s.label))]}
+        rows={() => chartRows(options, data, formatX)}
+      />
     </Box>
   );
 }

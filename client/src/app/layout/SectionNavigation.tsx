@@ -1,7 +1,7 @@
 import { NavLink, Stack, Text } from '@mantine/core';
 import type { Role } from '@morrowline/shared';
 import { NavLink as RouterNavLink, useLocation } from 'react-router-dom';
-import { sectionsFor, type Section } from '../navigation/sections';
+import { sectionsFor, WALL_PATH, type Section } from '../navigation/sections';
 
 interface SectionNavigationProps {
   role: Role;
@@ -16,6 +16,12 @@ export function SectionNavigation({ role, onNavigate }: SectionNavigationProps) 
     <Stack gap="lg" component="nav" aria-label="Sections">
       {desk.length > 0 && <SectionGroup title="Desk" sections={desk} onNavigate={onNavigate} />}
       {admin.length > 0 && <SectionGroup title="Admin" sections={admin} onNavigate={onNavigate} />}
+      <Stack gap={2}>
+        <Text size="xs" fw={600} c="dimmed" tt="uppercase" px="sm" mb={4} lts={0.6}>
+          Displays
+        </Text>
+        <NavLink component={RouterNavLink} to={WALL_PATH} label="Wall display" onClick={onNavigate} data-display="wall" />
+      </Stack>
     </Stack>
   );
 }

@@ -45,6 +45,12 @@ export const SECTIONS: readonly Section[] = [
   { id: 'audit', path: '/admin/audit', label: 'Audit trail', group: 'admin', roles: PERMISSIONS.readAudit },
 ];
 
+/**
+ * The wall display of live load: open to everyone signed in (like Live load), linked from the
+ * navigation but not a section of the desk (it has no shell to navigate in).
+ */
+export const WALL_PATH = '/wall';
+
 export function sectionById(id: SectionId): Section {
   const section = SECTIONS.find((candidate) => candidate.id === id);
   if (!section) throw new Error(`Unknown section ${id}`);

@@ -1,3 +1,4 @@
+import { ATTENTION_TEXT, BETTER_TEXT } from '../../../lib/text-colors';
 import { Table, Text } from '@mantine/core';
 import type { AccuracyZoneDto } from '@morrowline/shared';
 import { signedMw } from '../model/accuracy-data';
@@ -39,7 +40,7 @@ export function ZoneTable({ zones, system }: { zones: AccuracyZoneDto[]; system:
               <Table.Td ta="right">{signedMw(z.schedule.bias)}</Table.Td>
               <Table.Td ta="right">{signedMw(z.model.peakErrorMw)}</Table.Td>
               <Table.Td ta="right">
-                <Text span inherit c={z.comparison.difference === null ? undefined : z.comparison.difference < 0 ? 'teal.8' : z.comparison.difference > 0 ? 'ember.8' : undefined}>
+                <Text span inherit c={z.comparison.difference === null ? undefined : z.comparison.difference < 0 ? BETTER_TEXT : z.comparison.difference > 0 ? ATTENTION_TEXT : undefined}>
                   {diff(z.comparison.difference)}
                 </Text>
               </Table.Td>

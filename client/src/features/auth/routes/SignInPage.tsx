@@ -27,7 +27,7 @@ export function SignInPage({ homePathFor }: SignInPageProps) {
   const expired = endReason === 'expired' || state?.expired === true;
 
   return (
-    <Center mih="100vh" p="md">
+    <Center component="main" mih="100vh" p="md">
       <Stack w="100%" maw={400} gap="lg">
         <Center>
           <Wordmark size={40} />
@@ -35,7 +35,7 @@ export function SignInPage({ homePathFor }: SignInPageProps) {
         <Paper withBorder shadow="sm" p="xl" radius="md">
           <Stack gap="md">
             <div>
-              <Title order={3}>Sign in</Title>
+              <Title order={1} size="h3">Sign in</Title>
               <Text size="sm" c="dimmed">
                 The day-ahead load desk
               </Text>

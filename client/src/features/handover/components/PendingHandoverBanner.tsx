@@ -26,7 +26,7 @@ export function PendingHandoverBanner() {
   const own = newest.author.id === user.id;
   const forDesk = mayWriteHandover(user);
   return (
-    <Alert color="ember.8" variant="filled" radius="md" mb="md" role="status" data-testid="pending-handover-banner" data-print-hide>
+    <Alert color="ember" variant="filled" radius="md" mb="md" role="status" data-testid="pending-handover-banner" data-print-hide>
       <Text size="sm" fw={500}>
         {own ? 'Your handover' : `Handover from ${newest.author.name}`} ({newest.shift.label}, written{' '}
         {formatDayClock(newest.createdAt, newest.shift.timeZone)}) is waiting to be acknowledged

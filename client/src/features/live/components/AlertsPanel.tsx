@@ -1,3 +1,4 @@
+import { ATTENTION_TEXT } from '../../../lib/text-colors';
 import { Alert, Badge, Card, Group, Loader, Table, Text, Title } from '@mantine/core';
 import type { ZoneDto } from '@morrowline/shared';
 import { formatDateTime, formatPercent } from '../../../lib/format';
@@ -48,7 +49,7 @@ export function AlertsPanel({ zones, mayAcknowledge }: AlertsPanelProps) {
                 <Table.Tr key={alert.id} data-testid={`alert-row-${alert.id}`}>
                   <Table.Td>{zone?.name ?? alert.zone}</Table.Td>
                   <Table.Td ff="monospace">{alertHours(alert, tz)}</Table.Td>
-                  <Table.Td ff="monospace" c="ember.7">
+                  <Table.Td ff="monospace" c={ATTENTION_TEXT}>
                     {alert.peakDeviationPct > 0 ? '+' : ''}
                     {formatPercent(alert.peakDeviationPct)} <Text span size="xs" c="dimmed">(threshold {formatPercent(alert.thresholdPct, 0)})</Text>
                   </Table.Td>

@@ -12,7 +12,7 @@ function why(zone: LeftOutZone, timeZone: string): string {
 export function LeftOutNote({ view }: { view: LoadView }) {
   if (view.leftOut.length === 0) return null;
   return (
-    <Text size="sm" c="slate.8" mb="xs" data-testid="left-out-note">
+    <Text size="sm" c="dimmed" mb="xs" data-testid="left-out-note">
       Left out of the total: {view.leftOut.map((z) => `${z.name} (${why(z, view.timeZone)})`).join('; ')}.
     </Text>
   );

@@ -11,6 +11,8 @@ import { ChartLegend } from './ChartLegend';
 import { CommittedSources } from './CommittedSources';
 import { HoverReadout } from './HoverReadout';
 import { forecastBands, forecastBandSeries } from '../../../lib/forecast-bands';
+import { ChartNumbers } from '../../../components/ChartNumbers';
+import { loadChartRows, LOAD_CHART_COLUMNS } from './load-chart-rows';
 
 const HOUR_S = 3600;
 const HEIGHT = 340;
@@ -128,9 +130,10 @@ export function LoadChart({ view, hours, displayFrom, nowHour, excluded }: LoadC
         />
         <HoverReadout view={view} hours={hours} index={hoverIndex} />
       </Group>
-      <Box ref={ref} data-testid="load-chart" aria-label={`Load chart: ${view.name}`} role="img">
+      <Box ref={ref} data-testid="load-chart" aria-label={`Load chart: ${view.name}. Its numbers are in the table under it.`} role="img">
         {width > 0 && <UplotReact options={options} data={data} />}
       </Box>
+      <ChartNumbers title={`Load of ${view.name}, hour by hour`} columns={LOAD_CHART_COLUMNS} rows={() => loadChartRows(view, hours, first)} testId="load-chart-numbers" />
       <CommittedSources view={view} />
       <Text size="xs" c="dimmed" mt={4}>
         Forecast: {view.latestRunSource} — the latest run, dashed with its bands; deviation is measured against what was committed, not against it. Hour ending in {view.timeZone}; hours left of the dashed grey line are over.

@@ -1,8 +1,10 @@
+import { ATTENTION_TEXT } from '../../../lib/text-colors';
 import { Group, Stack, Text, UnstyledButton } from '@mantine/core';
 import { hourEndingLabel } from '@morrowline/shared';
 import { formatMw, formatPercent } from '../../../lib/format';
 import type { LineBasis } from '../model/committed-line';
 import type { LoadView } from '../model/zone-view';
+import { deviationWords } from '../model/deviation-words';
 import { FeedStateBadge } from './FeedStateBadge';
 
 interface ZoneCardProps {
@@ -28,8 +30,8 @@ export function basisWord(basis: LineBasis | null): string {
  */
 export function ZoneCard({ view, hours, selected, thresholdPct, onSelect }: ZoneCardProps) {
   const at = view.latestIndex === null ? null : hours[view.latestIndex];
-  const beyond = view.deviationPct !== null && thresholdPct !== null && Math.abs(view.deviationPct) > thresholdPct;
-  const sign = view.deviationPct !== null && view.deviationPct > 0 ? '+' : '';
+  const deviation = deviationWords(view.deviationPct, thresholdPct);
+  const beyond = deviation.beyond;
   return (
     <UnstyledButton
       onClick={onSelect}
@@ -56,16 +58,21 @@ export function ZoneCard({ view, hours, selected, thresholdPct, onSelect }: Zone
         </Group>
         <Group gap="xs" wrap="nowrap" justify="space-between">
           <Text size="xs" c="dimmed">Deviation</Text>
-          <Text size="xs" ff="monospace" fw={beyond ? 700 : 400} c={beyond ? 'ember.7' : undefined} data-testid="deviation">
-            {view.deviationPct === null ? '—' : `${sign}${formatPercent(view.deviationPct)}`}
+          <Text size="xs" ff="monospace" fw={beyond ? 700 : 400} c={beyond ? ATTENTION_TEXT : undefined} data-testid="deviation">
+            {deviation.figure}
           </Text>
         </Group>
+        {beyond && (
+          <Text size="xs" fw={700} c={ATTENTION_TEXT} data-testid="deviation-beyond">
+            <span aria-hidden="true">{deviation.mark} </span>Beyond the {formatPercent(thresholdPct, 0)} threshold
+          </Text>
+        )}
         <Group gap="xs" wrap="nowrap" justify="space-between">
           <Text size="xs" c="dimmed" title="The latest run’s forecast for the hour after the latest reading">Run, next hour</Text>
           <Text size="xs" ff="monospace" data-testid="next-run">{formatMw(view.nextRunMw)}</Text>
         </Group>
         {view.leftOut.length > 0 && (
-          <Text size="xs" c="slate.8" data-testid="left-out-count">
+          <Text size="xs" c="dimmed" data-testid="left-out-count">
             {view.leftOut.length} {view.leftOut.length === 1 ? 'zone' : 'zones'} left out
           </Text>
         )}

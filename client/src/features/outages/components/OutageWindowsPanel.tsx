@@ -1,3 +1,4 @@
+import { ATTENTION_TEXT } from '../../../lib/text-colors';
 import { Badge, Button, Card, Group, Loader, Table, Text, Title } from '@mantine/core';
 import type { OutageDto } from '@morrowline/shared';
 import { useState } from 'react';
@@ -56,7 +57,7 @@ export function OutageWindowsPanel({ zone, zoneName, timeZone, canEdit }: Outage
                     <Badge variant="light" color={outage.kind === 'outage' ? 'ember' : 'slate'} style={{ overflow: 'visible' }}>{KIND_LABELS[outage.kind]}</Badge>
                   </Table.Td>
                   <Table.Td ff="monospace" style={{ whiteSpace: 'nowrap' }}>{formatDateTime(outage.start, timeZone)}</Table.Td>
-                  <Table.Td ff="monospace" style={{ whiteSpace: 'nowrap' }}>{outage.end ? formatDateTime(outage.end, timeZone) : <Text span c="ember.7" fw={600}>still open</Text>}</Table.Td>
+                  <Table.Td ff="monospace" style={{ whiteSpace: 'nowrap' }}>{outage.end ? formatDateTime(outage.end, timeZone) : <Text span c={ATTENTION_TEXT} fw={600}>still open</Text>}</Table.Td>
                   <Table.Td>{outage.note}</Table.Td>
                   <Table.Td>
                     <Text size="sm">{outage.createdBy ?? '—'}</Text>

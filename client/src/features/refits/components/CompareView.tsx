@@ -1,3 +1,4 @@
+import { ATTENTION_TEXT } from '../../../lib/text-colors';
 import { Alert, Badge, SimpleGrid, Stack, Table, Text, Title } from '@mantine/core';
 import type { ModelCompareDto, ModelVersionDto, VersionIssueScoreDto } from '@morrowline/shared';
 import { formatDateTime } from '../../../lib/format';
@@ -117,7 +118,7 @@ export function CompareView({ compare }: { compare: ModelCompareDto }) {
         <Stack gap={2} data-testid="compare-diagnostics">
           <Title order={5}>What this means</Title>
           {compare.diagnostics.map((d) => <Text key={d} size="sm">{d}</Text>)}
-          {compare.candidate.warnings.map((w) => <Text key={w} size="sm" c="ember.8">Note on version {compare.candidate.id}: {w}</Text>)}
+          {compare.candidate.warnings.map((w) => <Text key={w} size="sm" c={ATTENTION_TEXT}>Note on version {compare.candidate.id}: {w}</Text>)}
         </Stack>
       )}
     </Stack>

@@ -1,3 +1,4 @@
+import { ATTENTION_TEXT } from '../../../lib/text-colors';
 import { Badge, Button, Card, Group, Modal, Progress, Stack, Table, Text, TextInput, Title } from '@mantine/core';
 import type { RefitJobDto, RefitJobState } from '@morrowline/shared';
 import { useState } from 'react';
@@ -122,7 +123,7 @@ function JobRow({ job, zoneName, current, timeZone }: { job: RefitJobDto; zoneNa
       </Table.Td>
       <Table.Td>
         <Progress value={job.progress} color={job.state === 'failed' ? 'ember' : 'tide'} animated={job.state === 'running'} aria-label={`Progress of the ${zoneName} refit`} />
-        <Text size="xs" mt={2} c={job.state === 'failed' ? 'ember.8' : 'dimmed'} data-testid="refit-stage">
+        <Text size="xs" mt={2} c={job.state === 'failed' ? ATTENTION_TEXT : 'dimmed'} data-testid="refit-stage">
           {job.progress} % · {job.state === 'failed' || job.state === 'done' ? job.message ?? job.state : job.stage}
           {job.state === 'done' && job.message === null && job.modelVersionId !== null && (job.promoted ? ' · the new version is in service' : ' · the new version waits as a candidate')}
         </Text>

@@ -7,6 +7,10 @@ import 'uplot/dist/uPlot.min.css';
 import type { ScheduleRow } from '../model/rows';
 import { SCHEDULE_COLORS } from './chart-colors';
 import { forecastBands, forecastBandSeries, FORECAST_BAND_COLORS } from '../../../lib/forecast-bands';
+import { ChartNumbers } from '../../../components/ChartNumbers';
+
+const mw = (value: number | null) => (value === null ? '—' : value.toFixed(1));
+const band = (lower: number | null, upper: number | null) => (lower === null || upper === null ? '—' : `${mw(lower)} – ${mw(upper)}`);
 
 const HEIGHT = 300;
 
@@ -78,9 +82,15 @@ export function ScheduleChart({ rows, title }: { rows: readonly ScheduleRow[]; t
         {hasBands && <Group gap={6}><Swatch color={FORECAST_BAND_COLORS.band80} block /><Text size="xs">80 % band</Text></Group>}
         {hasBands && <Group gap={6}><Swatch color={FORECAST_BAND_COLORS.band95} block /><Text size="xs">95 % band</Text></Group>}
       </Group>
-      <Box ref={ref} data-testid="schedule-chart" role="img" aria-label={`Schedule chart: ${title}`}>
+      <Box ref={ref} data-testid="schedule-chart" role="img" aria-label={`Schedule chart: ${title}. Its numbers are in the table under it.`}>
         {width > 0 && <UplotReact options={options} data={data} />}
       </Box>
+      <ChartNumbers
+        title={`Schedule of ${title}`}
+        columns={['Hour ending', 'Adjusted (published), MW', 'Model forecast, MW', '80 % band, MW', '95 % band, MW']}
+        rows={() => rows.map((r) => [r.hourEnding, mw(r.adjustedMw), mw(r.modelMw), band(r.lower80, r.upper80), band(r.lower95, r.upper95)])}
+        testId="schedule-chart-numbers"
+      />
     </Box>
   );
 }

@@ -1,3 +1,4 @@
+import { ATTENTION_TEXT } from '../../../lib/text-colors';
 import { Table, Text } from '@mantine/core';
 import { formatMw } from '../../../lib/format';
 import type { ScheduleRow } from '../model/rows';
@@ -35,7 +36,7 @@ export function ScheduleTable({ rows, label, showBand = true }: { rows: readonly
               <Table.Td ta="right">{formatMw(row.modelMw)}</Table.Td>
               {showBand && <Table.Td ta="right"><Text span inherit c="dimmed">{band(row)}</Text></Table.Td>}
               <Table.Td ta="right" fw={changed ? 700 : undefined}>{formatMw(row.adjustedMw)}</Table.Td>
-              <Table.Td ta="right" c={changed ? 'ember.8' : 'dimmed'}>{signed(row.differenceMw)}</Table.Td>
+              <Table.Td ta="right" c={changed ? ATTENTION_TEXT : 'dimmed'}>{signed(row.differenceMw)}</Table.Td>
             </Table.Tr>
           );
         })}

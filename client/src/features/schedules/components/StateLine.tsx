@@ -1,3 +1,4 @@
+import { ATTENTION_TEXT } from '../../../lib/text-colors';
 import { Badge, Group, Stack, Text } from '@mantine/core';
 import type { ScheduleRevisionDto } from '@morrowline/shared';
 import { formatDateTime } from '../../../lib/format';
@@ -24,7 +25,7 @@ export function StateLine({ revision, timeZone }: { revision: ScheduleRevisionDt
         </Text>
       )}
       {revision.state === 'returned' && revision.returnedBy && (
-        <Text size="sm" c="ember.8" data-testid="return-comment">
+        <Text size="sm" c={ATTENTION_TEXT} data-testid="return-comment">
           Returned by {revision.returnedBy.name}, {at(revision.returnedAt)}: “{revision.returnComment}”
         </Text>
       )}
@@ -35,7 +36,7 @@ export function StateLine({ revision, timeZone }: { revision: ScheduleRevisionDt
       )}
       {revision.supersededAt && <Text size="sm" c="dimmed">Superseded {at(revision.supersededAt)}</Text>}
       {revision.mail && (
-        <Text size="xs" c={revision.mail.error ? 'ember.8' : 'dimmed'}>
+        <Text size="xs" c={revision.mail.error ? ATTENTION_TEXT : 'dimmed'}>
           {revision.mail.error ? `E-mail to subscribers failed: ${revision.mail.error}` : `E-mailed to ${revision.mail.sent.length} subscriber${revision.mail.sent.length === 1 ? '' : 's'}.`}
         </Text>
       )}

@@ -1,3 +1,4 @@
+import { ATTENTION_TEXT } from '../../../lib/text-colors';
 import { Alert, Badge, Group, Paper, SimpleGrid, Stack, Table, Text, Title } from '@mantine/core';
 import type { ModelReportDto } from '@morrowline/shared';
 import { fmtNum, fmtP } from '../chart-data';
@@ -89,7 +90,7 @@ export function ModelPanel({ report }: { report: ModelReportDto }) {
                 <Text size="sm" fw={600}>
                   What the model leaves over
                 </Text>
-                <Text size="sm" c={m.residualsLookWhite ? undefined : 'ember.8'} data-testid="residual-verdict">
+                <Text size="sm" c={m.residualsLookWhite ? undefined : ATTENTION_TEXT} data-testid="residual-verdict">
                   {m.residualVerdict}
                 </Text>
                 <Table aria-label="Ljung–Box" fz="sm" withTableBorder>

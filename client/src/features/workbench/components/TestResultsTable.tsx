@@ -1,3 +1,4 @@
+import { ATTENTION_TEXT } from '../../../lib/text-colors';
 import { Table, Text } from '@mantine/core';
 import type { SeriesCheckDto } from '@morrowline/shared';
 import { fmtNum, fmtP } from '../chart-data';
@@ -32,7 +33,7 @@ export function TestResultsTable({ checks }: { checks: SeriesCheckDto[] }) {
               )}
               <Table.Td style={{ whiteSpace: 'nowrap' }}>{r.test}</Table.Td>
               <Table.Td>
-                <Text size="sm" c={r.ok ? undefined : 'ember.8'}>
+                <Text size="sm" c={r.ok ? undefined : ATTENTION_TEXT}>
                   {r.reading.replace(/^(ADF|KPSS): /, '')}
                 </Text>
               </Table.Td>

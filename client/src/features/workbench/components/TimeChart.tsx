@@ -1,3 +1,4 @@
+import { formatLocalTime } from '@morrowline/shared';
 import { useMemo } from 'react';
 import type uPlot from 'uplot';
 import { timeSeriesData } from '../chart-data';
@@ -34,7 +35,7 @@ export function TimeChart({ title, times, lines, unit, timeZone, height, testId,
     }),
     [lines, unit, timeZone],
   );
-  return <UplotChart title={title} options={options} data={data} height={height} testId={testId} caption={caption} seriesKey />;
+  return <UplotChart title={title} options={options} data={data} height={height} testId={testId} caption={caption} seriesKey formatX={(x) => formatLocalTime(x * 1000, timeZone)} />;
 }
 
 /** A Date whose local fields show the zone's wall-clock time (uPlot formats local fields). */
