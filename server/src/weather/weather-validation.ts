@@ -71,13 +71,13 @@ function hourStart(text: unknown, field: string): Checked<number> {
   return { ok: true, value: parsed.value };
 }
 
-function object(raw: unknown, what: string): Record<string, unknown> | null {
+function object(raw: unknown): Record<string, unknown> | null {
   return typeof raw === 'object' && raw !== null && !Array.isArray(raw) ? (raw as Record<string, unknown>) : null;
 }
 
 /** One observed temperature as a feed or a CSV row sent it. Pure: no database, no clock of its own. */
 export function validateObservation(raw: unknown, context: WeatherContext): Checked<ValidObservation> {
-  const fields = object(raw, 'observation');
+  const fields = object(raw);
   if (!fields) return reject('malformed', 'An observation must be an object with station, hour and tempC');
   const s = station(fields.station, context);
   if (!s.ok) return s;
@@ -93,7 +93,7 @@ export function validateObservation(raw: unknown, context: WeatherContext): Chec
 
 /** One forecast value of a vintage. */
 export function validateForecast(raw: unknown, context: WeatherContext): Checked<ValidForecast> {
-  const fields = object(raw, 'forecast');
+  const fields = object(raw);
   if (!fields) return reject('malformed', 'A forecast value must be an object with station, issuedAt, hour and tempC');
   const s = station(fields.station, context);
   if (!s.ok) return s;
