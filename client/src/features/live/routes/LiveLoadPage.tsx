@@ -6,6 +6,7 @@ import { ErrorNotice } from '../../../components/ErrorNotice';
 import { PageHeader } from '../../../components/PageHeader';
 import { useSignedInUser } from '../../auth';
 import { outageHoursOf, useOutages } from '../../outages';
+import { useWeatherStatus, useZoneWeather } from '../../weather';
 import { useZones } from '../../zones';
 import { useCommittedLoad } from '../api/use-committed-load';
 import { useFeedStatus } from '../api/use-feed-status';
@@ -18,6 +19,7 @@ import { DaySummaryLine } from '../components/DaySummaryLine';
 import { IncompleteNote } from '../components/IncompleteNote';
 import { LeftOutNote } from '../components/LeftOutNote';
 import { LoadChart } from '../components/LoadChart';
+import { TemperaturePanel } from '../components/TemperaturePanel';
 import { ZoneStrip } from '../components/ZoneStrip';
 import { useCurrentHour } from '../hooks/use-current-hour';
 import { daySummary } from '../model/day-summary';
@@ -52,6 +54,8 @@ export function LiveLoadPage() {
   const series = useReadingsSeries(codes, window.displayFrom, window.to);
   const { forecasts, error: forecastError } = useZoneForecast(codes, series.data, window.displayFrom);
   const committed = useCommittedLoad(codes, series.data, window.displayFrom, window.to);
+  const weather = useZoneWeather(codes, window.displayFrom, window.to);
+  const weatherStatus = useWeatherStatus();
 
   // A zone the server knows and the desk's list does not was added a moment ago: read the list again.
   const unknownZone = series.data?.zones.some((z) => !codes.includes(z.zone)) ?? false;
@@ -109,6 +113,17 @@ export function LiveLoadPage() {
             <LeftOutNote view={selected} />
             <IncompleteNote view={selected} first={0} />
             <LoadChart view={selected} hours={series.data.hours} displayFrom={Date.parse(window.displayFrom)} nowHour={nowHour} excluded={selected.key === SYSTEM ? undefined : excluded} />
+            {selected.key !== SYSTEM && (
+              <TemperaturePanel
+                zone={selected.key}
+                timeZone={selected.timeZone}
+                hours={series.data.hours}
+                displayFrom={Date.parse(window.displayFrom)}
+                nowHour={nowHour}
+                weather={weather.data}
+                status={weatherStatus.data}
+              />
+            )}
           </Card>
         )}
         {zones.data && <AlertsPanel zones={activeZones} mayAcknowledge={mayAcknowledge} />}
