@@ -58,7 +58,7 @@ describe('temperature where forecasters look', () => {
     const panel = page.getByTestId('temperature-panel');
     await panel.getByTestId('temperature-now').getByText(/Observed -7\.5 °C/).waitFor({ timeout: 30_000 });
     expect(await panel.getByTestId('temperature-forecast-issued').innerText()).toMatch(/^Temperature forecast issued \d{4}-\d{2}-\d{2} \d{2}:\d{2} M[SD]T$/);
-    expect(await panel.getByTestId('weather-feed-state').innerText()).toBe('Weather up to date');
+    expect(await panel.getByTestId('weather-feed-state').textContent()).toBe('Weather up to date');
     await panel.getByTestId('temperature-chart').locator('canvas').waitFor();
     await screenshot(page, 'live-temperature');
   });
@@ -70,9 +70,10 @@ describe('temperature where forecasters look', () => {
     const table = page.getByTestId(`zone-schedule-${ZONE}`).getByTestId('schedule-table');
     // HE01 of tomorrow is the hour starting at local midnight.
     const firstHour = tomorrow.startOf('day').toMillis();
-    const cell = table.getByTestId('hour-01').getByTestId('hour-temperature');
-    await cell.getByText(`${forecastAt(firstHour).toFixed(1)} °C`).waitFor({ timeout: 30_000 });
-    expect(await table.getByTestId('hour-01').innerText()).toContain(DateTime.fromMillis(issuedAt, { zone: DEMO_TIME_ZONE }).toFormat('yyyy-LL-dd HH:mm'));
+    const row = table.getByTestId('hour-HE01');
+    await row.getByTestId('hour-temperature').getByText(/°C$/).waitFor({ timeout: 30_000 });
+    expect(await row.getByTestId('hour-temperature').textContent()).toBe(`${forecastAt(firstHour).toFixed(1)} °C`);
+    expect(await row.textContent()).toContain(DateTime.fromMillis(issuedAt, { zone: DEMO_TIME_ZONE }).toFormat('yyyy-LL-dd HH:mm'));
     await screenshot(page, 'schedule-temperature');
   });
 });
