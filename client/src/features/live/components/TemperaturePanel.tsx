@@ -70,7 +70,7 @@ export function TemperaturePanel({ zone, timeZone, hours, displayFrom, nowHour, 
   );
 
   return (
-    <Stack gap={4} data-testid="temperature-panel">
+    <Stack gap={4} mt="sm" data-testid="temperature-panel">
       <Group gap="sm" wrap="wrap">
         <Text size="sm" data-testid="temperature-now">
           Observed {formatTemperature(lastObserved?.value)}
