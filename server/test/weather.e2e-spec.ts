@@ -2,7 +2,11 @@ import type { NestExpressApplication } from '@nestjs/platform-express';
 import type { Socket } from 'socket.io-client';
 import request from 'supertest';
 import {
+  gateClosureAt,
+  operatingDayBounds,
+  operatingDayOf,
   WEATHER_EVENT,
+  type AccuracyReportDto,
   type AuditEntryDto,
   type Page,
   type WeatherBatch,
@@ -236,6 +240,31 @@ describe('weather: stations, ingest, vintages (real MariaDB)', () => {
     const code = await station();
     const status = (await api().get('/api/weather/status').set('Authorization', `Bearer ${viewer}`).expect(200)).body as { station: string; forecastStale: boolean; observedStale: boolean }[];
     expect(status.find((s) => s.station === code)).toMatchObject({ forecastStale: true, observedStale: true });
+  });
+
+  it('sets each day\'s temperature forecast error beside the load accuracy, from the forecast known at the day\'s gate closure', async () => {
+    const code = await station();
+    const zone = await zoneOf([{ station: code, weight: 1 }]);
+    const day = operatingDayOf(hour - 72 * H, 'America/Denver');
+    const { from, to } = operatingDayBounds(day, 'America/Denver');
+    const gate = gateClosureAt(day, 'America/Denver', '10:00');
+    const key = await createFeedKey(app, admin);
+    const socket = connectFeed(app, key.apiKey);
+    await connected(socket);
+    const observations = [];
+    const known = [];
+    const later = [];
+    for (let h = from; h < to; h += H) {
+      observations.push({ station: code, hour: iso(h), tempC: 5 });
+      // Known at gate closure: 1.5 °C too warm. Issued after it: far off, and must not count.
+      known.push({ station: code, issuedAt: iso(gate - 2 * H), hour: iso(h), tempC: 6.5 });
+      later.push({ station: code, issuedAt: iso(gate + H), hour: iso(h), tempC: -20 });
+    }
+    expect((await sendWeather(socket, { observations, forecasts: [...known, ...later] })).rejected).toEqual([]);
+    socket.close();
+    const report = (await api().get('/api/accuracy').query({ zone, from: day, to: day }).set('Authorization', `Bearer ${viewer}`).expect(200)).body as AccuracyReportDto;
+    expect(report.zones[0].days[0].temperature).toEqual({ asOf: iso(gate), hours: (to - from) / H, maeC: 1.5, biasC: 1.5 });
+    expect(report.system.days[0].temperature ?? null).toBeNull();
   });
 
   it('keeps the demo stations and the zones\' weights from the seed', async () => {

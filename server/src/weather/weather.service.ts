@@ -5,6 +5,7 @@ import {
   HOUR_MS,
   OBSERVED_STALE_AFTER_HOURS,
   weightedTemperature,
+  type AccuracyTemperatureDto,
   type CreateWeatherStationRequest,
   type WeatherRejection,
   type WeatherStationDto,
@@ -17,6 +18,7 @@ import { AuditService, type Actor } from '../audit/audit.service';
 import type { AppConfig } from '../config/configuration';
 import { ZonesRepository } from '../zones/zones.repository';
 import { WeatherStation } from './entities/weather-station.entity';
+import { temperatureScore } from './temperature-score';
 import { knownAt, vintageKey } from './vintages';
 import { validateForecast, validateObservation, type StationRef, type ValidForecast, type WeatherContext } from './weather-validation';
 import { WeatherRepository, type ForecastStoreOutcome, type VersionedObservation } from './weather.repository';
@@ -252,6 +254,31 @@ export class WeatherService {
         };
       }),
     };
+  }
+
+  /**
+   * A zone's temperature forecast error per day: for each span, the forecast as known at its
+   * `asOf` against the observed temperature. Null when the zone has no stations (or is unknown).
+   */
+  async forecastErrors(zoneCode: string, spans: readonly { from: number; to: number; asOf: number }[]): Promise<(AccuracyTemperatureDto | null)[]> {
+    if (spans.length === 0) return [];
+    const [zone] = (await this.zoneStationsFor(undefined)).filter((z) => z.zone === zoneCode);
+    if (!zone || zone.stationIds.length === 0) return spans.map(() => null);
+    const from = Math.min(...spans.map((s) => s.from));
+    const to = Math.max(...spans.map((s) => s.to));
+    const latest = Math.max(...spans.map((s) => s.asOf));
+    const [observed, forecasts] = await Promise.all([this.repository.observations(zone.stationIds, from, to), this.repository.forecastsIssuedBy(zone.stationIds, from, to, latest)]);
+    const observedBy = new Map(observed.map((o) => [vintageKey(o.stationId, o.hourStart), o.tempC]));
+    return spans.map((span) => {
+      const known = knownAt(forecasts, span.asOf);
+      const hours: number[] = [];
+      for (let h = span.from; h < span.to; h += HOUR_MS) hours.push(h);
+      const score = temperatureScore(
+        hours.map((h) => weightedTemperature(zone.stationIds.map((id) => observedBy.get(vintageKey(id, h))), zone.weights)),
+        hours.map((h) => weightedTemperature(zone.stationIds.map((id) => known.get(vintageKey(id, h))?.tempC), zone.weights)),
+      );
+      return { asOf: new Date(span.asOf).toISOString(), ...score };
+    });
   }
 
   /** Per station: latest observed hour and latest forecast, and whether either has gone quiet. */
