@@ -61,6 +61,8 @@ describe('temperature where forecasters look', () => {
     await panel.getByTestId('temperature-now').getByText(/Observed -7\.5 °C/).waitFor({ timeout: 30_000 });
     expect(await panel.getByTestId('temperature-forecast-issued').innerText()).toMatch(/^Temperature forecast issued \d{4}-\d{2}-\d{2} \d{2}:\d{2} M[SD]T$/);
     expect(await panel.getByTestId('weather-feed-state').textContent()).toBe('Weather up to date');
+    // Every zone's card carries its latest observed temperature.
+    expect(await page.getByTestId(`zone-card-${ZONE}`).getByTestId('zone-temperature').textContent()).toBe('-7.5 °C');
     await panel.getByTestId('temperature-chart').locator('canvas').waitFor();
     await screenshot(page, 'live-temperature');
   });

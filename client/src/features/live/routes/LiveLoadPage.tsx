@@ -6,7 +6,7 @@ import { ErrorNotice } from '../../../components/ErrorNotice';
 import { PageHeader } from '../../../components/PageHeader';
 import { useSignedInUser } from '../../auth';
 import { outageHoursOf, useOutages } from '../../outages';
-import { useWeatherStatus, useZoneWeather } from '../../weather';
+import { latestObserved, useWeatherStatus, useZoneWeather } from '../../weather';
 import { useZones } from '../../zones';
 import { useCommittedLoad } from '../api/use-committed-load';
 import { useFeedStatus } from '../api/use-feed-status';
@@ -56,6 +56,7 @@ export function LiveLoadPage() {
   const committed = useCommittedLoad(codes, series.data, window.displayFrom, window.to);
   const weather = useZoneWeather(codes, window.displayFrom, window.to);
   const weatherStatus = useWeatherStatus();
+  const temperatures = useMemo(() => latestObserved(weather.data), [weather.data]);
 
   // A zone the server knows and the desk's list does not was added a moment ago: read the list again.
   const unknownZone = series.data?.zones.some((z) => !codes.includes(z.zone)) ?? false;
@@ -104,7 +105,7 @@ export function LiveLoadPage() {
         {(zones.isPending || series.isPending) && !series.isError && <Loader />}
         {zones.data && activeZones.length === 0 && <Text c="dimmed">No active zones: an administrator adds them under Zones.</Text>}
         {views.length > 0 && (
-          <ZoneStrip views={views} hours={series.data?.hours ?? []} selected={selected.key} thresholds={thresholds} onSelect={(key) => setParams(key === SYSTEM ? {} : { zone: key })} />
+          <ZoneStrip views={views} hours={series.data?.hours ?? []} selected={selected.key} thresholds={thresholds} onSelect={(key) => setParams(key === SYSTEM ? {} : { zone: key })} temperatures={temperatures} />
         )}
         {selected && series.data && (
           <Card withBorder padding="md">

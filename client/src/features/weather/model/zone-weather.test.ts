@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { WeatherStatusDto, ZoneWeatherSeriesDto } from '@morrowline/shared';
-import { alignedTemperatures, formatTemperature, zoneWeatherState } from './zone-weather';
+import { alignedTemperatures, formatTemperature, latestObserved, zoneWeatherState } from './zone-weather';
 
 const weather: ZoneWeatherSeriesDto = {
   from: '2026-11-02T10:00:00.000Z',
@@ -17,6 +17,11 @@ describe('the zone weather beside the load', () => {
     expect(aligned.forecastC).toEqual([null, 2.5, 3]);
     expect(aligned.issuedAt[1]).toBe('2026-11-02T04:30:00.000Z');
     expect(alignedTemperatures(weather, 'MILLRACE', ['2026-11-02T11:00:00Z']).observedC).toEqual([null]);
+  });
+
+  it('takes each zone\'s latest observed value for its card', () => {
+    expect(latestObserved(weather)).toEqual(new Map([['HARROW', 2]]));
+    expect(latestObserved(undefined).size).toBe(0);
   });
 
   it('calls a zone\'s weather stale when one of its stations has gone quiet', () => {

@@ -34,3 +34,14 @@ export function formatTemperature(tempC: number | null | undefined): string {
   const rounded = Math.round(tempC * 10) / 10;
   return `${(rounded === 0 ? 0 : rounded).toFixed(1)} °C`;
 }
+
+/** Each zone's latest observed temperature in the series (null for a zone with none). */
+export function latestObserved(weather: ZoneWeatherSeriesDto | undefined): Map<string, number | null> {
+  const out = new Map<string, number | null>();
+  for (const z of weather?.zones ?? []) {
+    let last: number | null = null;
+    for (const v of z.observedC) if (v !== null) last = v;
+    out.set(z.zone, last);
+  }
+  return out;
+}
