@@ -80,4 +80,14 @@ describe('temperature where forecasters look', () => {
     expect(await row.textContent()).toContain(DateTime.fromMillis(issuedAt, { zone: DEMO_TIME_ZONE }).toFormat('yyyy-LL-dd HH:mm'));
     await screenshot(page, 'schedule-temperature');
   });
+
+  it('plots the zone\'s load against its observed temperature on the workbench', async () => {
+    const { page } = desk;
+    await page.goto(`/workbench?zone=${ZONE}`);
+    const panel = page.getByTestId('load-temperature');
+    await panel.waitFor({ timeout: 30_000 });
+    // 48 hours with both a reading and an observed temperature.
+    await panel.getByRole('img', { name: 'Load against temperature, 48 hours' }).waitFor({ timeout: 30_000 });
+    await screenshot(page, 'workbench-load-temperature');
+  });
 });
