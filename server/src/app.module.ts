@@ -23,6 +23,8 @@ import { ReadingsModule } from './readings/readings.module';
 import { SchedulesModule } from './schedules/schedules.module';
 import { UsersModule } from './users/users.module';
 import { WorkbenchModule } from './workbench/workbench.module';
+import { CalendarModule } from './calendar/calendar.module';
+import { WeatherModule } from './weather/weather.module';
 import { ZonesModule } from './zones/zones.module';
 
 @Module({
@@ -53,6 +55,8 @@ import { ZonesModule } from './zones/zones.module';
     ModelsModule,
     AccuracyModule,
     SchedulesModule,
+    WeatherModule,
+    CalendarModule,
   ],
 })
 export class AppModule {}

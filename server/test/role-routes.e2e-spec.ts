@@ -82,6 +82,22 @@ const EXPECTED: Record<string, 'public' | string> = {
   'GET /api/feeds/keys': 'a',
   'POST /api/feeds/keys': 'a',
   'POST /api/feeds/keys/:id/revoke': 'a',
+  // weather: everyone reads it; the desk uploads it; admin keeps the stations and zone weights
+  'GET /api/weather/stations': 'vosa',
+  'POST /api/weather/stations': 'a',
+  'GET /api/weather/zone-stations': 'vosa',
+  'PUT /api/weather/zone-stations/:zone': 'a',
+  'GET /api/weather/zones': 'vosa',
+  'GET /api/weather/status': 'vosa',
+  'POST /api/weather/observed/upload': 'os',
+  'POST /api/weather/forecasts/upload': 'os',
+  'GET /api/weather/observed/export': 'vosa',
+  'GET /api/weather/forecasts/export': 'vosa',
+  // the holiday calendar: everyone reads it; supervisors and admin keep it
+  'GET /api/calendar': 'vosa',
+  'POST /api/calendar': 'sa',
+  'PATCH /api/calendar/:id': 'sa',
+  'DELETE /api/calendar/:id': 'sa',
 };
 
 const LETTER: Record<Role, string> = { viewer: 'v', operator: 'o', supervisor: 's', admin: 'a' };

@@ -90,6 +90,24 @@ export interface AccuracyDayDto {
   schedule: AccuracyDaySourceDto | null;
   /** Schedule MAPE − model MAPE (percentage points); null unless both were scored. */
   adjustmentEffect: number | null;
+  /**
+   * The temperature forecast's error on the same day, so a weather miss can be told from a model
+   * miss: the forecast as known when the day's model forecast was issued (else at its gate
+   * closure) against the observed temperature, both the zone's weighted stations. Null for the
+   * system total and for a zone without weather stations.
+   */
+  temperature?: AccuracyTemperatureDto | null;
+}
+
+export interface AccuracyTemperatureDto {
+  /** The moment the forecast is taken as known at. */
+  asOf: string;
+  /** Hours with both an observed and a forecast temperature. */
+  hours: number;
+  /** Mean of |forecast − observed|, °C; null when no hour has both. */
+  maeC: number | null;
+  /** Mean of forecast − observed, °C; positive = forecast too warm. */
+  biasC: number | null;
 }
 
 export interface AccuracyHourDto {

@@ -123,8 +123,10 @@ export interface FeedKeyDto {
   name: string;
   /** First characters of the key, to tell keys apart. */
   prefix: string;
-  /** Zone code the key may send for; null for any zone. */
+  /** Zone code the key may send readings for; null for any zone. */
   zone: string | null;
+  /** Weather station the key may send weather for (and nothing else); null when not limited to one. */
+  station: string | null;
   createdAt: string;
   createdBy: string | null;
   lastUsedAt: string | null;
@@ -134,6 +136,8 @@ export interface FeedKeyDto {
 export interface CreateFeedKeyRequest {
   name: string;
   zone?: string | null;
+  /** Limit the key to one weather station's observations and forecasts (not with zone). */
+  station?: string | null;
 }
 
 export interface CreatedFeedKey {

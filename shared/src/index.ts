@@ -19,3 +19,6 @@ export * from './accuracy';
 export * from './instant';
 export * from './numbers';
 export * from './committed';
+export * from './weather';
+export * from './special-days';
+export * from './demo-weather';

@@ -20,4 +20,8 @@ describe('who may do what', () => {
     expect(holders('readAudit')).toEqual(['supervisor', 'admin']);
     expect(holders('signedIn')).toEqual(['viewer', 'operator', 'supervisor', 'admin']);
   });
+
+  it('lets supervisors and admins keep the holiday calendar, not operators or viewers', () => {
+    expect(holders('editCalendar')).toEqual(['supervisor', 'admin']);
+  });
 });

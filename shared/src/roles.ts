@@ -29,7 +29,9 @@ export const PERMISSIONS = {
   supervise: ['supervisor'],
   /** Read the audit trail: supervisors answer for what was published, admins for accounts and feeds. */
   readAudit: ['supervisor', 'admin'],
-  /** Users, zones and meter feeds. */
+  /** Maintain the holiday and special-day calendar: supervisors answer for the desk's days, admins keep the reference data. */
+  editCalendar: ['supervisor', 'admin'],
+  /** Users, zones, meter feeds and weather stations (and which stations make each zone's temperature). */
   administer: ['admin'],
 } as const satisfies Record<string, readonly Role[]>;
 

@@ -1,7 +1,10 @@
 /**
- * Local time in the cooperative's time zone and its public holidays. The holidays are invented
- * for the Tallowmere Valley (near, not on, real calendar dates).
+ * Local time in the cooperative's time zone, and the valley's calendar: the same special days the
+ * desk is seeded with (shared/src/demo-weather.ts), so the simulated load and the desk's calendar
+ * agree.
  */
+import { demoSpecialDays, isRestDayKind, type DemoSpecialDay } from '@morrowline/shared';
+
 const formatters = new Map<string, Intl.DateTimeFormat>();
 
 export interface LocalTime {
@@ -31,19 +34,21 @@ export function localTime(ms: number, timeZone: string): LocalTime {
   return { year, month, day, hour: Number(parts.hour), weekday: WEEKDAYS[parts.weekday], dayOfYear };
 }
 
-/** Month and day of the valley's public holidays (invented). */
-export const VALLEY_HOLIDAYS: readonly { month: number; day: number; name: string }[] = [
-  { month: 1, day: 2, name: 'New Year Rest Day' },
-  { month: 3, day: 14, name: 'Founders of the Cooperative Day' },
-  { month: 5, day: 27, name: 'Valley Remembrance Day' },
-  { month: 7, day: 5, name: 'Midsummer Holiday' },
-  { month: 9, day: 3, name: 'Harvest Labour Day' },
-  { month: 10, day: 16, name: 'Tallow Fair Day' },
-  { month: 11, day: 25, name: 'Thanksgiving Rest Day' },
-  { month: 12, day: 24, name: 'Winter Eve' },
-  { month: 12, day: 25, name: 'Winter Feast' },
-];
+const byYear = new Map<number, Map<string, DemoSpecialDay[]>>();
 
-export function isHoliday(t: LocalTime): boolean {
-  return VALLEY_HOLIDAYS.some((h) => h.month === t.month && h.day === t.day);
+/** The special days of a local date. */
+export function specialDaysOn(t: LocalTime): DemoSpecialDay[] {
+  let index = byYear.get(t.year);
+  if (!index) {
+    index = new Map();
+    for (const d of demoSpecialDays(t.year)) (index.get(d.day) ?? index.set(d.day, []).get(d.day)!).push(d);
+    byYear.set(t.year, index);
+  }
+  const key = `${t.year}-${String(t.month).padStart(2, '0')}-${String(t.day).padStart(2, '0')}`;
+  return index.get(key) ?? [];
+}
+
+/** Whether a zone rests on this local date: a public holiday or a bridge day that applies to it. */
+export function isRestDay(t: LocalTime, zone: string): boolean {
+  return specialDaysOn(t).some((d) => isRestDayKind(d.kind) && (d.zones.length === 0 || d.zones.includes(zone)));
 }

@@ -1,8 +1,9 @@
-import { floorHour, HOUR_MS } from '@morrowline/shared';
-import { isHoliday, localTime } from './calendar';
+import { DEMO_STATIONS, floorHour, HOUR_MS } from '@morrowline/shared';
+import { isRestDay, localTime } from './calendar';
 import { expectedLoadMw } from './load-model';
 import { Random, subSeed } from './random';
-import { WeatherPath } from './weather';
+import { DEFAULT_FORECAST_MISHAPS, ForecastIssuer, type ForecastMishaps, type SimForecastValue } from './temperature-forecasts';
+import { StationWeather, zoneTemperature } from './weather';
 
 export interface SimZone {
   code: string;
@@ -32,6 +33,19 @@ export interface Mishaps {
 
 export const DEFAULT_MISHAPS: Mishaps = { dropout: 0.002, outage: 0.0006, late: 0.01, repeat: 0.01, correction: 0.002 };
 
+/** Observed temperature of a station for an hour, as the simulator sends it. */
+export interface SimObservation {
+  station: string;
+  hour: string;
+  tempC: number;
+}
+
+/** Weather due to be sent at the end of an hour. */
+export interface SimWeather {
+  observations: SimObservation[];
+  forecasts: SimForecastValue[];
+}
+
 interface ZoneState {
   zone: SimZone;
   random: Random;
@@ -46,10 +60,16 @@ interface ZoneState {
  * is sent: normally when its hour has ended, sometimes late, twice, or not at all.
  */
 export class FeedGenerator {
-  private readonly weather: WeatherPath;
+  readonly weather: StationWeather;
+  private readonly issuer: ForecastIssuer;
   private readonly zones: ZoneState[];
   /** Readings waiting to be sent, by the hour (ms) at whose end they go out. */
   private readonly due = new Map<number, SimReading[]>();
+  /** Forecasts waiting for their (late) issue time, by the hour at whose end they go out. */
+  private readonly forecastsDue = new Map<number, SimForecastValue[]>();
+  private weatherOut: SimWeather = { observations: [], forecasts: [] };
+  /** The last hour made: the zones' temperatures and load before noise (the exporter reads them). */
+  lastZoneTemperatures = new Map<string, number>();
   private nextHour: number;
 
   constructor(
@@ -58,8 +78,10 @@ export class FeedGenerator {
     seed: number,
     private readonly timeZone: string,
     private readonly mishaps: Mishaps = DEFAULT_MISHAPS,
+    forecastMishaps: ForecastMishaps = DEFAULT_FORECAST_MISHAPS,
   ) {
-    this.weather = new WeatherPath(subSeed(seed, 'weather'));
+    this.weather = new StationWeather(seed, floorHour(startHour), timeZone);
+    this.issuer = new ForecastIssuer(seed, this.weather, forecastMishaps);
     this.zones = zones.map((zone) => ({ zone, random: new Random(subSeed(seed, zone.code)), noise: 0, dropoutLeft: 0, outageLeft: 0, outageDepth: 1 }));
     this.nextHour = floorHour(startHour);
   }
@@ -74,9 +96,21 @@ export class FeedGenerator {
     const hour = this.nextHour;
     this.nextHour += HOUR_MS;
     const t = localTime(hour, this.timeZone);
-    const tempC = this.weather.next(t);
-    const holiday = isHoliday(t);
+    const temps = this.weather.at(hour);
+    // Observed at the end of the hour, like the meters; a forecast issued in this hour goes out at
+    // the end of the hour of its (maybe late) issue time.
+    for (const station of DEMO_STATIONS) this.weatherOut.observations.push({ station: station.code, hour: new Date(hour).toISOString(), tempC: temps.get(station.code)! });
+    for (const forecast of this.issuer.issuedIn(hour)) {
+      const sendAt = floorHour(forecast.issuedAt);
+      (this.forecastsDue.get(sendAt) ?? this.forecastsDue.set(sendAt, []).get(sendAt)!).push(...forecast.values);
+    }
+    this.weatherOut.forecasts.push(...(this.forecastsDue.get(hour) ?? []));
+    this.forecastsDue.delete(hour);
+    this.weather.forgetBefore(hour);
     for (const s of this.zones) {
+      const tempC = zoneTemperature(s.zone.code, temps);
+      const holiday = isRestDay(t, s.zone.code);
+      this.lastZoneTemperatures.set(s.zone.code, tempC);
       const r = s.random;
       // Noise: AR(1), about 1.2 % of load, so neighbouring hours err together as real ones do.
       s.noise = 0.75 * s.noise + 0.008 * r.normal();
@@ -112,6 +146,13 @@ export class FeedGenerator {
     let list = this.due.get(sendAfterHour);
     if (!list) this.due.set(sendAfterHour, (list = []));
     list.push(reading);
+  }
+
+  /** The weather made since the last call: every station's observations, and forecasts issued. */
+  takeWeather(): SimWeather {
+    const out = this.weatherOut;
+    this.weatherOut = { observations: [], forecasts: [] };
+    return out;
   }
 
   /** Everything still held back (late, repeats), e.g. at the end of a --once run. */

@@ -2,7 +2,8 @@
  * The meter-feed simulator's command line (`npm run simulate -- --help`).
  */
 import { DEMO_TIME_ZONE, DEMO_ZONES, floorHour, HOUR_MS, WEEK_HOURS } from '@morrowline/shared';
-import { FeedGenerator, type SimReading } from './generator';
+import { FeedGenerator, type SimReading, type SimWeather } from './generator';
+import { exportDataSet } from './export';
 import { HELP, parseOptions, type SimOptions } from './options';
 import { FeedSender } from './sender';
 
@@ -30,10 +31,19 @@ export async function run(options: SimOptions, log: (line: string) => void): Pro
     if (generator.hour < liveStart) {
       log(`backfilling ${options.backfillWeeks} week(s) for ${zones.map((z) => z.code).join(', ')} from ${new Date(start).toISOString()}`);
       const buffer: SimReading[] = [];
+      // Observations ride along with the next forecast (twice a day), so the backfill sends few weather batches.
+      const weatherHeld: SimWeather = { observations: [], forecasts: [] };
       let lastReport = Date.now();
       while (generator.hour < liveStart && !stopping) {
         buffer.push(...generator.step());
         while (buffer.length >= options.batch) await sender.send(buffer.splice(0, options.batch));
+        const weather = generator.takeWeather();
+        if (weather.forecasts.length > 0 || weatherHeld.observations.length >= 24 * 7 * 3) {
+          await sender.sendWeather({ observations: [...weatherHeld.observations, ...weather.observations], forecasts: weather.forecasts });
+          weatherHeld.observations = [];
+        } else {
+          weatherHeld.observations.push(...weather.observations);
+        }
         if (Date.now() - lastReport > 2000) {
           log(`  … ${new Date(generator.hour).toISOString()} (${sender.stats.stored} stored)`);
           lastReport = Date.now();
@@ -41,8 +51,9 @@ export async function run(options: SimOptions, log: (line: string) => void): Pro
       }
       if (options.once) buffer.push(...generator.flush());
       await sender.send(buffer.splice(0));
+      await sender.sendWeather(weatherHeld);
       await sender.drain();
-      log(`backfill done: ${sender.stats.stored} stored, ${sender.stats.rejected} rejected`);
+      log(`backfill done: ${sender.stats.stored} stored, ${sender.stats.rejected} rejected; weather ${sender.weatherStats.stored} stored, ${sender.weatherStats.rejected} rejected`);
     }
 
     info(options.once ? 'catching up to now' : `live from ${new Date(generator.hour).toISOString()} at ${options.speed}x`);
@@ -55,6 +66,7 @@ export async function run(options: SimOptions, log: (line: string) => void): Pro
         const hour = generator.hour;
         const readings = generator.step();
         await sender.send(readings);
+        await sender.sendWeather(generator.takeWeather());
         sent = true;
         if (!options.once) info(`${new Date(hour).toISOString()}  ${readings.map((r) => `${r.zone} ${r.mw.toFixed(1)}`).join('  ')}`);
       }
@@ -86,6 +98,11 @@ if (require.main === module) {
   }
   if (options.help) {
     console.log(HELP);
+    process.exit(0);
+  }
+  if (options.export) {
+    const summary = exportDataSet({ ...options.export, seed: options.seed });
+    console.log(`wrote ${summary.hours} hours and ${summary.vintages} forecast vintages of ${options.export.zone}: ${summary.files.join(', ')}`);
     process.exit(0);
   }
   run(options, (line) => console.log(line))

@@ -5,11 +5,18 @@ import {
   MAX_READINGS_PER_BATCH,
   READINGS_EVENT,
   VersionClock,
+  WEATHER_EVENT,
+  type WeatherBatchAck,
   type FeedReading,
   type ReadingBatch,
   type ReadingBatchAck,
 } from '@morrowline/shared';
-import type { SimReading } from './generator';
+import type { SimReading, SimWeather } from './generator';
+
+/** Weather values per batch: well under the server's MAX_WEATHER_PER_BATCH and its message size. */
+const WEATHER_BATCH_VALUES = 5000;
+/** How long to wait for a weather ack before sending the batch again (a resend is harmless, see sendWeather). */
+const WEATHER_ACK_TIMEOUT_MS = 30_000;
 
 export interface SenderStats {
   sent: number;
@@ -76,6 +83,7 @@ export class FeedSender {
   private resumeTimer: NodeJS.Timeout | null = null;
   private waiters: (() => void)[] = [];
   readonly stats: SenderStats = { sent: 0, stored: 0, rejected: 0, resent: 0, superseded: 0, dropped: 0 };
+  readonly weatherStats = { sent: 0, stored: 0, rejected: 0 };
   private fatal: Error | null = null;
   private readonly onStored?: (batch: ReadingBatch, ack: ReadingBatchAck) => void;
 
@@ -140,6 +148,43 @@ export class FeedSender {
     this.stats.sent += stamped.length;
     for (const part of this.fit(stamped)) this.queue.push({ batch: { batchId: this.nextId(), readings: part }, attempt: 0, sends: 0 });
     this.pump();
+  }
+
+  /**
+   * Sends weather over the same socket, one batch at a time, each until the server acknowledges it.
+   * A resend is harmless: observations carry versions (the server keeps the highest), and a
+   * forecast value sent again with the same temperature is a repeat of its vintage.
+   */
+  async sendWeather(weather: SimWeather): Promise<void> {
+    const observations = weather.observations.map((o) => ({ ...o, version: this.clock.next() }));
+    const forecasts = weather.forecasts;
+    for (let i = 0; i < observations.length + forecasts.length; i += WEATHER_BATCH_VALUES) {
+      const end = i + WEATHER_BATCH_VALUES;
+      const batch = {
+        batchId: this.nextId(),
+        observations: observations.slice(Math.min(i, observations.length), Math.min(end, observations.length)),
+        forecasts: forecasts.slice(Math.max(0, i - observations.length), Math.max(0, end - observations.length)),
+      };
+      this.weatherStats.sent += batch.observations.length + batch.forecasts.length;
+      for (;;) {
+        if (this.fatal) throw this.fatal;
+        const ack = await new Promise<WeatherBatchAck | null>((resolve) => {
+          this.socket.timeout(WEATHER_ACK_TIMEOUT_MS).emit(WEATHER_EVENT, batch, (error: Error | null, answer: WeatherBatchAck) => resolve(error ? null : answer));
+        });
+        if (ack && !ack.error) {
+          this.weatherStats.stored += ack.stored;
+          this.weatherStats.rejected += ack.rejected.length;
+          if (ack.rejected.length > 0) this.log(`weather batch ${batch.batchId}: ${ack.rejected.length} rejected; first: ${ack.rejected[0].message}`);
+          break;
+        }
+        if (ack?.errorCode === 'revoked' || ack?.errorCode === 'malformed-batch' || ack?.errorCode === 'too-large') {
+          this.log(`weather batch ${batch.batchId} not stored: ${ack.error}`);
+          if (ack.errorCode === 'revoked') throw new Error(ack.error);
+          break;
+        }
+        await new Promise((resolve) => setTimeout(resolve, this.retryDelayMs));
+      }
+    }
   }
 
   /** Resolves once every batch is acknowledged. */

@@ -7,6 +7,7 @@ import { ReadingsRepository } from '../readings/readings.repository';
 import type { Zone } from '../zones/entities/zone.entity';
 import { ZonesRepository } from '../zones/zones.repository';
 import { systemInput, zoneAccuracy, type DaySource, type ZoneInput } from './accuracy-report';
+import { WeatherService } from '../weather/weather.service';
 import { ScheduleInForce } from './schedule-in-force';
 
 /** Reports kept; a changed key (new reading hour, run or publication) makes a new entry. */
@@ -30,6 +31,7 @@ export class AccuracyService {
     private readonly readings: ReadingsRepository,
     private readonly outages: OutagesService,
     private readonly schedules: ScheduleInForce,
+    private readonly weather: WeatherService,
   ) {}
 
   async report(codes: readonly string[] | undefined, from: string, to: string, now = Date.now()): Promise<AccuracyReportDto> {
@@ -62,9 +64,29 @@ export class AccuracyService {
       zones: inputs.map((input) => zoneAccuracy(input, now)),
       system: zoneAccuracy(systemInput(inputs, systemDays), now),
     };
+    await this.addTemperatureErrors(report, zones);
     if (this.cache.size >= CACHE_ENTRIES) this.cache.delete(this.cache.keys().next().value!);
     this.cache.set(key, { at: now, report });
     return report;
+  }
+
+  /**
+   * Beside each zone-day, the temperature forecast's error: the forecast known when the day's model
+   * forecast was issued (else at the day's gate closure) against what was observed.
+   */
+  private async addTemperatureErrors(report: AccuracyReportDto, zones: Zone[]): Promise<void> {
+    for (const entry of report.zones) {
+      const zone = zones.find((z) => z.code === entry.zone);
+      if (!zone) continue;
+      const days = operatingDays(report.from, report.to, zone.timeZone);
+      const spans = entry.days.map((d, i) => ({
+        from: days[i].start,
+        to: days[i].end,
+        asOf: d.model ? Date.parse(d.model.at) : gateClosureAt(d.operatingDay, zone.timeZone, zone.gateClosure),
+      }));
+      const errors = await this.weather.forecastErrors(zone.code, spans);
+      entry.days.forEach((d, i) => (d.temperature = errors[i]));
+    }
   }
 
   private async resolveZones(codes: readonly string[] | undefined): Promise<Zone[]> {

@@ -1,4 +1,5 @@
 import { IANAZone } from 'luxon';
+import { DEFAULT_FORECAST_STALE_HOURS } from '@morrowline/shared';
 
 /**
  * Configuration, read from the environment once at start-up and validated. Every variable has a
@@ -31,6 +32,8 @@ export interface AppConfig {
   trustProxy: false | number | string;
   /** The shift pattern: local start times in the desk's time zone. */
   shifts: { starts: string[]; timeZone: string };
+  /** WEATHER_FORECAST_STALE_HOURS: a station with no temperature forecast issued for longer is flagged stale. */
+  weather: { forecastStaleHours: number };
 }
 
 function int(env: NodeJS.ProcessEnv, key: string, fallback: number): number {
@@ -108,6 +111,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     passwordChecks: { concurrency: Math.max(1, int(env, 'PASSWORD_CHECK_CONCURRENCY', 2)), queue: int(env, 'PASSWORD_CHECK_QUEUE', 8) },
     trustProxy: parseTrustProxy(env.TRUST_PROXY),
     shifts: { starts: parseShiftStarts(env.SHIFT_STARTS ?? '06:00,14:00,22:00'), timeZone: timeZone(env, 'DESK_TIME_ZONE', 'America/Denver') },
+    weather: { forecastStaleHours: Math.max(1, int(env, 'WEATHER_FORECAST_STALE_HOURS', DEFAULT_FORECAST_STALE_HOURS)) },
   };
 }
 

@@ -15,5 +15,10 @@ import { ScheduleRevision } from '../schedules/entities/schedule-revision.entity
 import { ScheduleSubscriber } from '../schedules/entities/schedule-subscriber.entity';
 import { User } from '../users/entities/user.entity';
 import { Zone } from '../zones/entities/zone.entity';
+import { SpecialDay } from '../calendar/entities/special-day.entity';
+import { TemperatureForecast } from '../weather/entities/temperature-forecast.entity';
+import { TemperatureObservation } from '../weather/entities/temperature-observation.entity';
+import { WeatherStation } from '../weather/entities/weather-station.entity';
+import { ZoneStationWeight } from '../weather/entities/zone-station-weight.entity';
 
-export const ENTITIES = [User, AuditEntry, Zone, Reading, ReadingRevision, FeedKey, DeviationAlert, HandoverNote, HandoverItem, Outage, ModelVersion, RefitJob, ForecastRun, ScheduleRevision, ScheduleAdjustment, ScheduleSubscriber];
+export const ENTITIES = [User, AuditEntry, Zone, Reading, ReadingRevision, FeedKey, DeviationAlert, HandoverNote, HandoverItem, Outage, ModelVersion, RefitJob, ForecastRun, ScheduleRevision, ScheduleAdjustment, ScheduleSubscriber, WeatherStation, ZoneStationWeight, TemperatureObservation, TemperatureForecast, SpecialDay];

@@ -15,6 +15,7 @@ import { AuditRepository } from '../audit/audit.repository';
 import { AuditService } from '../audit/audit.service';
 import { FeedKeysRepository } from '../feeds/feed-keys.repository';
 import { FeedKeysService } from '../feeds/feed-keys.service';
+import { WeatherRepository } from '../weather/weather.repository';
 import { ZonesRepository } from '../zones/zones.repository';
 import { demoReplayCommand } from './demo-replay.command';
 import { ormConfig } from './mikro-orm.config';
@@ -39,7 +40,7 @@ async function main(command: string | undefined): Promise<void> {
       const name = process.argv[3];
       if (!name) throw new Error('usage: manage feed-key NAME');
       const em = orm.em.fork();
-      console.log(await new FeedKeysService(new FeedKeysRepository(em), new ZonesRepository(em), new AuditService(new AuditRepository(em))).rotate(name));
+      console.log(await new FeedKeysService(new FeedKeysRepository(em), new ZonesRepository(em), new WeatherRepository(em), new AuditService(new AuditRepository(em))).rotate(name));
     } else {
       throw new Error('usage: manage migrate|seed|feed-key NAME|demo-replay');
     }

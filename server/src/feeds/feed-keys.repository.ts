@@ -1,6 +1,7 @@
 import { EntityManager } from '@mikro-orm/mariadb';
 import { Injectable } from '@nestjs/common';
 import type { Zone } from '../zones/entities/zone.entity';
+import type { WeatherStation } from '../weather/entities/weather-station.entity';
 import { FeedKey } from './entities/feed-key.entity';
 
 export interface NewFeedKey {
@@ -8,6 +9,7 @@ export interface NewFeedKey {
   keyHash: string;
   prefix: string;
   zone: Zone | null;
+  station: WeatherStation | null;
   createdById: number | null;
   createdByEmail: string | null;
 }
@@ -23,11 +25,11 @@ export class FeedKeysRepository {
   }
 
   list(): Promise<FeedKey[]> {
-    return this.em.fork().find(FeedKey, {}, { populate: ['zone'], orderBy: { revokedAt: 'asc', name: 'asc' } });
+    return this.em.fork().find(FeedKey, {}, { populate: ['zone', 'station'], orderBy: { revokedAt: 'asc', name: 'asc' } });
   }
 
   byId(em: EntityManager, id: number): Promise<FeedKey | null> {
-    return em.findOne(FeedKey, { id }, { populate: ['zone'] });
+    return em.findOne(FeedKey, { id }, { populate: ['zone', 'station'] });
   }
 
   byName(name: string): Promise<FeedKey | null> {
@@ -35,7 +37,7 @@ export class FeedKeysRepository {
   }
 
   byHash(keyHash: string): Promise<FeedKey | null> {
-    return this.em.fork().findOne(FeedKey, { keyHash }, { populate: ['zone'] });
+    return this.em.fork().findOne(FeedKey, { keyHash }, { populate: ['zone', 'station'] });
   }
 
   /** A new key, written in the caller's transaction (its id is set on return). */

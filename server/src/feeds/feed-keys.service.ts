@@ -1,9 +1,10 @@
 import { UniqueConstraintViolationException } from '@mikro-orm/mariadb';
-import { ConflictException, Injectable, Logger, NotFoundException } from '@nestjs/common';
+import { BadRequestException, ConflictException, Injectable, Logger, NotFoundException } from '@nestjs/common';
 import type { CreateFeedKeyRequest, CreatedFeedKey, FeedKeyDto } from '@morrowline/shared';
 import { createHash, randomBytes } from 'node:crypto';
 import { AuditService, type Actor } from '../audit/audit.service';
 import { DATABASE_UNAVAILABLE_MESSAGE, isDatabaseUnavailable } from '../common/database-unavailable';
+import { WeatherRepository } from '../weather/weather.repository';
 import { ZonesRepository } from '../zones/zones.repository';
 import type { FeedKey } from './entities/feed-key.entity';
 import { FeedKeysRepository } from './feed-keys.repository';
@@ -22,6 +23,7 @@ export function toFeedKeyDto(key: FeedKey): FeedKeyDto {
     name: key.name,
     prefix: key.prefix,
     zone: key.zone ? key.zone.code : null,
+    station: key.station ? key.station.code : null,
     createdAt: key.createdAt.toISOString(),
     createdBy: key.createdByEmail,
     lastUsedAt: key.lastUsedAt ? key.lastUsedAt.toISOString() : null,
@@ -34,6 +36,8 @@ export interface FeedIdentity {
   id: number;
   name: string;
   zone: string | null;
+  /** Weather only, for this station. */
+  station: string | null;
 }
 
 /** Meter-feed API keys: created (shown once), listed and revoked by admins; checked on connect. */
@@ -45,6 +49,7 @@ export class FeedKeysService {
   constructor(
     private readonly keys: FeedKeysRepository,
     private readonly zones: ZonesRepository,
+    private readonly stations: WeatherRepository,
     private readonly audit: AuditService,
   ) {}
 
@@ -59,11 +64,15 @@ export class FeedKeysService {
       return await this.keys.fork().transactional(async (tx) => {
         const zone = request.zone ? await this.zones.byCode(request.zone, tx) : null;
         if (request.zone && !zone) throw new NotFoundException(`No zone with code ${request.zone}`);
+        if (request.zone && request.station) throw new BadRequestException('A feed key may be limited to a zone (readings) or to a weather station (weather), not both');
+        const station = request.station ? await this.stations.stationByCode(request.station, tx) : null;
+        if (request.station && !station) throw new NotFoundException(`No weather station with code ${request.station}`);
         const key = await this.keys.insert(tx, {
           name: request.name.trim(),
           keyHash: hashFeedKey(apiKey),
           prefix: apiKey.slice(0, KEY_PREFIX.length + 6),
           zone,
+          station,
           createdById: actor?.id ?? null,
           createdByEmail: actor?.email ?? null,
         });
@@ -118,7 +127,7 @@ export class FeedKeysService {
     if (!key) throw new Error('This feed key is not known');
     if (key.revokedAt) throw new Error('This feed key has been revoked');
     this.touch(key.id);
-    return { id: key.id, name: key.name, zone: key.zone ? key.zone.code : null };
+    return { id: key.id, name: key.name, zone: key.zone ? key.zone.code : null, station: key.station ? key.station.code : null };
   }
 
   /** Is the key still good? (checked for every batch, so a revocation takes effect at once). */

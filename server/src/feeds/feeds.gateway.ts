@@ -1,8 +1,18 @@
 import { type BeforeApplicationShutdown, Logger } from '@nestjs/common';
 import { type OnGatewayConnection, WebSocketGateway, WebSocketServer } from '@nestjs/websockets';
-import { FEED_NAMESPACE, MAX_BATCH_BYTES, MAX_READINGS_PER_BATCH, READINGS_EVENT, type ReadingBatchAck } from '@morrowline/shared';
+import {
+  FEED_NAMESPACE,
+  MAX_BATCH_BYTES,
+  MAX_READINGS_PER_BATCH,
+  MAX_WEATHER_PER_BATCH,
+  READINGS_EVENT,
+  WEATHER_EVENT,
+  type ReadingBatchAck,
+  type WeatherBatchAck,
+} from '@morrowline/shared';
 import type { Namespace, Socket } from 'socket.io';
 import { ReadingsService, type IngestResult } from '../readings/readings.service';
+import { WeatherService } from '../weather/weather.service';
 import { FeedKeysService, type FeedIdentity } from './feed-keys.service';
 
 type Ack = (ack: ReadingBatchAck) => void;
@@ -33,6 +43,7 @@ export class FeedsGateway implements OnGatewayConnection, BeforeApplicationShutd
   constructor(
     private readonly keys: FeedKeysService,
     private readonly readings: ReadingsService,
+    private readonly weather: WeatherService,
   ) {}
 
   afterInit(namespace: Namespace): void {
@@ -55,6 +66,12 @@ export class FeedsGateway implements OnGatewayConnection, BeforeApplicationShutd
     socket.on(READINGS_EVENT, (batch: unknown, ack: unknown) => {
       const answer = typeof ack === 'function' ? (ack as Ack) : () => undefined;
       const tail = (this.chains.get(socket.id) ?? Promise.resolve()).then(() => this.onBatch(socket, feed, batch, answer));
+      this.chains.set(socket.id, tail);
+    });
+    // Weather batches join the same chain: one socket's batches of either kind are handled in arrival order.
+    socket.on(WEATHER_EVENT, (batch: unknown, ack: unknown) => {
+      const answer = typeof ack === 'function' ? (ack as (ack: WeatherBatchAck) => void) : () => undefined;
+      const tail = (this.chains.get(socket.id) ?? Promise.resolve()).then(() => this.onWeather(socket, feed, batch, answer));
       this.chains.set(socket.id, tail);
     });
     socket.on('disconnect', () => {
@@ -93,6 +110,11 @@ export class FeedsGateway implements OnGatewayConnection, BeforeApplicationShutd
       ack({ batchId, stored: 0, rejected: [], error: 'The server is shutting down; nothing was stored, send it again later', errorCode: 'server-error' });
       return;
     }
+    if (feed.station) {
+      const message = `This feed key may only send weather for ${feed.station}`;
+      ack({ batchId, stored: 0, rejected: readings.map((_, index) => ({ index, reason: 'zone-not-allowed' as const, message })) });
+      return;
+    }
     let queued: { result: Promise<IngestResult> };
     try {
       if (!(await this.keys.isActive(feed.id))) {
@@ -112,6 +134,52 @@ export class FeedsGateway implements OnGatewayConnection, BeforeApplicationShutd
     );
     this.writing.add(written);
     void written.finally(() => this.writing.delete(written));
+  }
+
+  /**
+   * A weather batch: observations and forecast values checked like readings and stored in one
+   * transaction; the ack follows the commit, and the socket's next batch waits for it. Never rejects.
+   */
+  private async onWeather(socket: Socket, feed: FeedIdentity, batch: unknown, ack: (ack: WeatherBatchAck) => void): Promise<void> {
+    const body = typeof batch === 'object' && batch !== null ? (batch as { batchId?: unknown; observations?: unknown; forecasts?: unknown }) : {};
+    const batchId = typeof body.batchId === 'string' ? body.batchId : '';
+    const observations = body.observations ?? [];
+    const forecasts = body.forecasts ?? [];
+    if (typeof batch !== 'object' || batch === null || !Array.isArray(observations) || !Array.isArray(forecasts)) {
+      ack({ batchId, stored: 0, rejected: [], error: 'A weather batch must be { batchId, observations?: [...], forecasts?: [...] }', errorCode: 'malformed-batch' });
+      return;
+    }
+    if (observations.length + forecasts.length > MAX_WEATHER_PER_BATCH) {
+      ack({ batchId, stored: 0, rejected: [], error: `A weather batch may carry at most ${MAX_WEATHER_PER_BATCH} values; this one has ${observations.length + forecasts.length}. Split it; nothing was stored`, errorCode: 'too-large' });
+      return;
+    }
+    if (this.closing) {
+      ack({ batchId, stored: 0, rejected: [], error: 'The server is shutting down; nothing was stored, send it again later', errorCode: 'server-error' });
+      return;
+    }
+    if (feed.zone) {
+      const message = `This feed key may only send readings for ${feed.zone}`;
+      const refuse = (list: 'observations' | 'forecasts', n: number) => Array.from({ length: n }, (_, index) => ({ list, index, reason: 'station-not-allowed' as const, message }));
+      ack({ batchId, stored: 0, rejected: [...refuse('observations', observations.length), ...refuse('forecasts', forecasts.length)] });
+      return;
+    }
+    const written = (async () => {
+      try {
+        if (!(await this.keys.isActive(feed.id))) {
+          ack({ batchId, stored: 0, rejected: [], error: 'This feed key has been revoked', errorCode: 'revoked' });
+          socket.disconnect(true);
+          return;
+        }
+        const result = await this.weather.ingestBatch(observations, forecasts, { source: `feed:${feed.name}`, allowedStation: feed.station });
+        ack({ batchId, stored: result.stored, rejected: result.rejected });
+      } catch (error) {
+        this.logger.error(`weather batch ${batchId} from ${feed.name} failed: ${(error as Error).stack ?? String(error)}`);
+        ack({ batchId, stored: 0, rejected: [], error: 'The server could not store this batch; nothing of it was stored, send it again later', errorCode: 'server-error' });
+      }
+    })();
+    this.writing.add(written);
+    await written;
+    this.writing.delete(written);
   }
 
   private failed(batchId: string, feed: FeedIdentity, error: unknown, ack: Ack): void {

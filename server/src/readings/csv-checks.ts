@@ -14,7 +14,7 @@ const OTHER_DELIMITERS: [string, string][] = [
  * semicolon, tab or vertical bar, so one there means the file is in another dialect, and reading
  * it as commas would only refuse every row one by one.
  */
-export function delimiterProblem(text: string): string | null {
+export function delimiterProblem(text: string, form = 'timestamp,load_mw[,zone]'): string | null {
   const first = text
     .replace(/^\uFEFF/, '')
     .split(/\r?\n/)
@@ -22,7 +22,7 @@ export function delimiterProblem(text: string): string | null {
   if (first === undefined) return null;
   for (const [delimiter, name] of OTHER_DELIMITERS) {
     if (first.includes(delimiter)) {
-      return `The file's columns are separated by ${name}; Morrowline reads comma-separated files only (timestamp,load_mw[,zone], with a point for decimals). Nothing was stored`;
+      return `The file's columns are separated by ${name}; Morrowline reads comma-separated files only (${form}, with a point for decimals). Nothing was stored`;
     }
   }
   return null;

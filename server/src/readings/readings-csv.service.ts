@@ -1,8 +1,8 @@
 import { BadRequestException, Injectable } from '@nestjs/common';
-import { parse } from 'csv-parse';
 import { parseDecimal, type CsvRowRejection, type CsvUploadReport } from '@morrowline/shared';
 import { AuditService, type Actor } from '../audit/audit.service';
-import { delimiterProblem, duplicateRows } from './csv-checks';
+import { duplicateRows } from './csv-checks';
+import { csvRecords } from './csv-file';
 import { ReadingsService } from './readings.service';
 
 /** How many rejected rows a report lists in full (the count is always complete). */
@@ -65,56 +65,42 @@ export class ReadingsCsvService {
   }
 
   private async parse(content: Buffer, defaultZone: string | undefined): Promise<ParsedFile> {
-    if (content.length === 0) throw new BadRequestException('The file is empty');
-    if (content.includes(0)) throw new BadRequestException('The file is not a text CSV file (it contains binary data); nothing was stored');
-    const text = content.toString('utf8');
-    if (text.includes('\uFFFD')) throw new BadRequestException('The file is not UTF-8 text; nothing was stored');
-    const delimiter = delimiterProblem(text);
-    if (delimiter) throw new BadRequestException(delimiter);
-    const parser = parse(text, { relax_column_count: true, skip_empty_lines: true, trim: true, bom: true, info: true, comment: '#' });
     const rows: CsvRow[] = [];
     const refused: CsvRowRejection[] = [];
     let columns: { hour: number; mw: number; zone: number } | null = null;
-    try {
-      for await (const item of parser as AsyncIterable<{ record: string[]; info: { lines: number } }>) {
-        const { record, info } = item;
-        if (columns === null) {
-          const first = record.map((c) => c.toLowerCase());
-          if (first.includes('timestamp') || first.includes('load_mw')) {
-            const hour = first.indexOf('timestamp');
-            const mw = first.indexOf('load_mw');
-            const unknown = first.filter((c) => !(c in HEADER_NAMES));
-            if (hour < 0 || mw < 0 || unknown.length > 0) {
-              throw new BadRequestException(`The header must be timestamp,load_mw[,zone]; found ${record.join(',')}. Nothing was stored`);
-            }
-            columns = { hour, mw, zone: first.indexOf('zone') };
-            continue;
+    for await (const { record, line } of csvRecords(content, 'timestamp,load_mw[,zone]')) {
+      if (columns === null) {
+        const first = record.map((c) => c.toLowerCase());
+        if (first.includes('timestamp') || first.includes('load_mw')) {
+          const hour = first.indexOf('timestamp');
+          const mw = first.indexOf('load_mw');
+          const unknown = first.filter((c) => !(c in HEADER_NAMES));
+          if (hour < 0 || mw < 0 || unknown.length > 0) {
+            throw new BadRequestException(`The header must be timestamp,load_mw[,zone]; found ${record.join(',')}. Nothing was stored`);
           }
-          columns = { hour: 0, mw: 1, zone: 2 };
-        }
-        const zoneCell = columns.zone >= 0 ? record[columns.zone] : undefined;
-        const zone = zoneCell && zoneCell.length > 0 ? zoneCell.toUpperCase() : defaultZone;
-        if (record.length < 2 || record.length > 3) {
-          refused.push({ line: info.lines, reason: 'malformed', message: `expected timestamp,load_mw[,zone]; found ${record.length} columns` });
+          columns = { hour, mw, zone: first.indexOf('zone') };
           continue;
         }
-        if (!zone) {
-          refused.push({ line: info.lines, reason: 'unknown-zone', message: 'no zone: add a zone column or pass ?zone=CODE' });
-          continue;
-        }
-        // One number parser: plain decimals only ("0x10", "0b101", "1e3", "" are refused, not read).
-        const mw = parseDecimal(record[columns.mw], 'load_mw');
-        if (!mw.ok) {
-          const empty = (record[columns.mw] ?? '').trim() === '';
-          refused.push({ line: info.lines, reason: empty ? 'empty-load' : 'not-a-number', message: mw.message });
-          continue;
-        }
-        rows.push({ line: info.lines, reading: { zone, hour: record[columns.hour], mw: mw.value } });
-        if (rows.length % 10000 === 0) await new Promise((resolve) => setImmediate(resolve));
+        columns = { hour: 0, mw: 1, zone: 2 };
       }
-    } catch (error) {
-      if (error instanceof BadRequestException) throw error;
-      throw new BadRequestException(`The file could not be read as CSV (${(error as Error).message}); nothing was stored`);
+      const zoneCell = columns.zone >= 0 ? record[columns.zone] : undefined;
+      const zone = zoneCell && zoneCell.length > 0 ? zoneCell.toUpperCase() : defaultZone;
+      if (record.length < 2 || record.length > 3) {
+        refused.push({ line, reason: 'malformed', message: `expected timestamp,load_mw[,zone]; found ${record.length} columns` });
+        continue;
+      }
+      if (!zone) {
+        refused.push({ line, reason: 'unknown-zone', message: 'no zone: add a zone column or pass ?zone=CODE' });
+        continue;
+      }
+      // One number parser: plain decimals only ("0x10", "0b101", "1e3", "" are refused, not read).
+      const mw = parseDecimal(record[columns.mw], 'load_mw');
+      if (!mw.ok) {
+        const empty = (record[columns.mw] ?? '').trim() === '';
+        refused.push({ line, reason: empty ? 'empty-load' : 'not-a-number', message: mw.message });
+        continue;
+      }
+      rows.push({ line, reading: { zone, hour: record[columns.hour], mw: mw.value } });
     }
     if (rows.length + refused.length === 0) throw new BadRequestException('The file holds no readings; nothing was stored');
     return { rows, refused };

@@ -1,7 +1,7 @@
 import { applyDecorators } from '@nestjs/common';
 import { Transform } from 'class-transformer';
 import { ValidateBy } from 'class-validator';
-import { parseInstant } from '@morrowline/shared';
+import { parseDay, parseInstant } from '@morrowline/shared';
 
 /** How a field words its refusal of text that is not a date and time at all (its published message). */
 export interface InstantMessages {
@@ -47,4 +47,18 @@ export function IsInstantDate(messages?: InstantMessages): PropertyDecorator {
       },
     }),
   );
+}
+
+/** Text that shared/src/instant.ts reads as an operating day, YYYY-MM-DD (a real date in the window). */
+export function IsDay(): PropertyDecorator {
+  return ValidateBy({
+    name: 'isDay',
+    validator: {
+      validate: (value: unknown) => parseDay(value).ok,
+      defaultMessage: (args) => {
+        const result = parseDay(args?.value, args?.property ?? 'day');
+        return result.ok ? '' : result.message;
+      },
+    },
+  });
 }

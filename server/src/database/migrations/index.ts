@@ -9,6 +9,7 @@ import { Migration20261202221500 } from './Migration20261202221500';
 import { Migration20261202221600 } from './Migration20261202221600';
 import { Migration20261202230000 } from './Migration20261202230000';
 import { Migration20261202230100 } from './Migration20261202230100';
+import { Migration20261203050000 } from './Migration20261203050000';
 import { Migration20261203050500 } from './Migration20261203050500';
 
 export const MIGRATIONS = [
@@ -22,5 +23,6 @@ export const MIGRATIONS = [
   { name: 'Migration20261202221600', class: Migration20261202221600 },
   { name: 'Migration20261202230000', class: Migration20261202230000 },
   { name: 'Migration20261202230100', class: Migration20261202230100 },
+  { name: 'Migration20261203050000', class: Migration20261203050000 },
   { name: 'Migration20261203050500', class: Migration20261203050500 },
 ];

@@ -2,6 +2,7 @@ import type { EntityManager } from '@mikro-orm/core';
 import { Seeder } from '@mikro-orm/seeder';
 import { DEMO_TIME_ZONE, DEMO_USERS, DEMO_ZONES } from '@morrowline/shared';
 import { AuditEntry } from '../../audit/entities/audit-entry.entity';
+import { seedDemoWeather } from './demo-weather';
 import { seedDemoSubscribers } from '../../schedules/demo-subscribers';
 import { User } from '../../users/entities/user.entity';
 import { hashPassword } from '../../users/password';
@@ -15,7 +16,10 @@ export class DatabaseSeeder extends Seeder {
   async run(em: EntityManager): Promise<void> {
     // Its own idempotent step, so databases seeded before schedules existed get the subscribers too.
     await seedDemoSubscribers(em);
-    if ((await em.count(User, {})) > 0) return;
+    if ((await em.count(User, {})) > 0) {
+      await seedDemoWeather(em);
+      return;
+    }
     for (const demo of DEMO_USERS) {
       em.create(User, {
         email: demo.email,
@@ -52,5 +56,6 @@ export class DatabaseSeeder extends Seeder {
       reason: 'Demo scenario loaded',
     });
     await em.flush();
+    await seedDemoWeather(em);
   }
 }

@@ -3,6 +3,7 @@ import { IsString, MaxLength, MinLength } from 'class-validator';
 import { IsOptional, IsOptionalOrNull } from '../../common/validation/is-optional';
 import type { CreateFeedKeyRequest } from '@morrowline/shared';
 import { IsZoneCode } from '../../common/validation/is-zone-code';
+import { IsStationCode } from '../../weather/dto/station-code';
 
 export class CreateFeedKeyDto implements CreateFeedKeyRequest {
   @ApiProperty({ example: 'Millrace substation RTU' })
@@ -13,6 +14,11 @@ export class CreateFeedKeyDto implements CreateFeedKeyRequest {
   @IsOptionalOrNull()
   @IsZoneCode()
   zone?: string | null;
+
+  @ApiPropertyOptional({ description: 'Limit the key to one weather station (weather only)', example: 'VALLEYFLOOR' })
+  @IsOptionalOrNull()
+  @IsStationCode()
+  station?: string | null;
 }
 
 export class RevokeFeedKeyDto {

@@ -1,4 +1,5 @@
 import { Entity, ManyToOne, PrimaryKey, Property } from '@mikro-orm/core';
+import { WeatherStation } from '../../weather/entities/weather-station.entity';
 import { Zone } from '../../zones/entities/zone.entity';
 
 /**
@@ -24,6 +25,10 @@ export class FeedKey {
   /** When set, the key may only send readings for this zone. */
   @ManyToOne(() => Zone, { nullable: true, deleteRule: 'restrict' })
   zone: Zone | null = null;
+
+  /** When set, the key may only send weather for this station (and no readings). */
+  @ManyToOne(() => WeatherStation, { nullable: true, deleteRule: 'restrict' })
+  station: WeatherStation | null = null;
 
   @Property({ type: 'datetime', length: 3 })
   createdAt: Date = new Date();

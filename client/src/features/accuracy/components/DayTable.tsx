@@ -1,8 +1,15 @@
 import { Badge, Group, Table } from '@mantine/core';
-import type { AccuracyZoneDto } from '@morrowline/shared';
+import type { AccuracyDayDto, AccuracyZoneDto } from '@morrowline/shared';
 import { dayStatus, signedMw } from '../model/accuracy-data';
 
 const pct = (v: number | null | undefined) => (v === null || v === undefined ? '—' : `${v.toFixed(2)} %`);
+
+/** "1.4 °C (+0.6)": the day's temperature forecast MAE and its bias, or a dash. */
+export function temperatureError(t: AccuracyDayDto['temperature']): string {
+  if (!t || t.maeC === null || t.biasC === null) return '—';
+  const bias = Math.round(t.biasC * 10) / 10;
+  return `${t.maeC.toFixed(1)} °C (${bias > 0 ? '+' : bias < 0 ? '−' : '±'}${Math.abs(bias).toFixed(1)})`;
+}
 
 /** What the badge means, on hover: a replay is never to be read as the forecast the desk issued. */
 export const REPLAYED_TITLE = 'Replayed forecast: worked out when this installation first started, as the desk would have issued it before the gate closure from the readings it had then. Not a forecast the desk issued at the time.';
@@ -10,7 +17,7 @@ export const REPLAYED_TITLE = 'Replayed forecast: worked out when this installat
 /** Every day of the range, scored or not, with why not. */
 export function DayTable({ subject }: { subject: AccuracyZoneDto }) {
   return (
-    <Table.ScrollContainer minWidth={820}>
+    <Table.ScrollContainer minWidth={940}>
       <Table striped withTableBorder fz="sm" data-testid="accuracy-days" aria-label="Accuracy per day">
         <Table.Thead>
           <Table.Tr>
@@ -21,6 +28,9 @@ export function DayTable({ subject }: { subject: AccuracyZoneDto }) {
             <Table.Th ta="right">Model peak error</Table.Th>
             <Table.Th>Peak hour</Table.Th>
             <Table.Th ta="right">Schedule − model</Table.Th>
+            <Table.Th ta="right" title="The temperature forecast known when the model forecast was issued, against the observed temperature: mean absolute error (bias, + = forecast too warm)">
+              Temperature forecast error
+            </Table.Th>
             <Table.Th>Notes</Table.Th>
           </Table.Tr>
         </Table.Thead>
@@ -45,6 +55,7 @@ export function DayTable({ subject }: { subject: AccuracyZoneDto }) {
               <Table.Td ta="right">{signedMw(d.model?.score?.peakErrorMw)}</Table.Td>
               <Table.Td>{d.model?.peakHourEnding ?? d.schedule?.peakHourEnding ?? '—'}</Table.Td>
               <Table.Td ta="right">{d.adjustmentEffect === null ? '—' : `${d.adjustmentEffect > 0 ? '+' : d.adjustmentEffect < 0 ? '−' : ''}${Math.abs(d.adjustmentEffect).toFixed(2)} pts`}</Table.Td>
+              <Table.Td ta="right" data-testid="accuracy-temperature-error">{temperatureError(d.temperature)}</Table.Td>
               <Table.Td ff="text">{dayStatus(d)}</Table.Td>
             </Table.Tr>
           ))}

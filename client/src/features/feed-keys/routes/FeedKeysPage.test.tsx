@@ -13,7 +13,7 @@ const zone: ZoneDto = {
   gateClosure: '10:00', minPlausibleMw: 0, maxPlausibleMw: 500, active: true,
 };
 const key = (overrides: Partial<FeedKeyDto>): FeedKeyDto => ({
-  id: 1, name: 'Millrace RTU', prefix: 'mlf_ab12', zone: 'MILLRACE', createdAt: '2026-12-01T17:00:00.000Z',
+  id: 1, name: 'Millrace RTU', prefix: 'mlf_ab12', zone: 'MILLRACE', station: null, createdAt: '2026-12-01T17:00:00.000Z',
   createdBy: 'dana.oakes@tallowmere.example', lastUsedAt: null, revokedAt: null, ...overrides,
 });
 

@@ -2,6 +2,7 @@ import { ATTENTION_TEXT } from '../../../lib/text-colors';
 import { Group, Stack, Text, UnstyledButton } from '@mantine/core';
 import { hourEndingLabel } from '@morrowline/shared';
 import { formatMw, formatPercent } from '../../../lib/format';
+import { formatTemperature } from '../../weather';
 import type { LineBasis } from '../model/committed-line';
 import type { LoadView } from '../model/zone-view';
 import { deviationWords } from '../model/deviation-words';
@@ -13,6 +14,8 @@ interface ZoneCardProps {
   selected: boolean;
   thresholdPct: number | null;
   onSelect: () => void;
+  /** The zone's latest observed temperature; undefined leaves the line out (the system total). */
+  temperatureC?: number | null;
 }
 
 /** The card's word for what the latest hour was measured against. */
@@ -28,7 +31,7 @@ export function basisWord(basis: LineBasis | null): string {
  * published schedule or the day-ahead forecast, named), the deviation from it, the latest run's
  * value for the next hour as a line of its own, and the feed.
  */
-export function ZoneCard({ view, hours, selected, thresholdPct, onSelect }: ZoneCardProps) {
+export function ZoneCard({ view, hours, selected, thresholdPct, onSelect, temperatureC }: ZoneCardProps) {
   const at = view.latestIndex === null ? null : hours[view.latestIndex];
   const deviation = deviationWords(view.deviationPct, thresholdPct);
   const beyond = deviation.beyond;
@@ -71,6 +74,12 @@ export function ZoneCard({ view, hours, selected, thresholdPct, onSelect }: Zone
           <Text size="xs" c="dimmed" title="The latest run’s forecast for the hour after the latest reading">Run, next hour</Text>
           <Text size="xs" ff="monospace" data-testid="next-run">{formatMw(view.nextRunMw)}</Text>
         </Group>
+        {temperatureC !== undefined && (
+          <Group gap="xs" wrap="nowrap" justify="space-between">
+            <Text size="xs" c="dimmed" title="The latest observed temperature of the zone's weather stations">Temperature</Text>
+            <Text size="xs" ff="monospace" data-testid="zone-temperature">{formatTemperature(temperatureC)}</Text>
+          </Group>
+        )}
         {view.leftOut.length > 0 && (
           <Text size="xs" c="dimmed" data-testid="left-out-count">
             {view.leftOut.length} {view.leftOut.length === 1 ? 'zone' : 'zones'} left out

@@ -6,6 +6,7 @@ import { ErrorNotice } from '../../../components/ErrorNotice';
 import { PageHeader } from '../../../components/PageHeader';
 import { useSignedInUser } from '../../auth';
 import { outageHoursOf, useOutages } from '../../outages';
+import { latestObserved, useWeatherStatus, useZoneWeather } from '../../weather';
 import { AlertHistory } from '../components/AlertHistory';
 import { AlertsPanel } from '../components/AlertsPanel';
 import { ConnectionBadge } from '../components/ConnectionBadge';
@@ -13,6 +14,7 @@ import { DaySummaryLine } from '../components/DaySummaryLine';
 import { IncompleteNote } from '../components/IncompleteNote';
 import { LeftOutNote } from '../components/LeftOutNote';
 import { LoadChart } from '../components/LoadChart';
+import { TemperaturePanel } from '../components/TemperaturePanel';
 import { ZoneStrip } from '../components/ZoneStrip';
 import { daySummary } from '../model/day-summary';
 import { useLoadViews } from '../hooks/use-load-views';
@@ -29,6 +31,10 @@ export function LiveLoadPage() {
   const user = useSignedInUser();
   const [params, setParams] = useSearchParams();
   const { zones, activeZones, timeZone, window, series, forecastError, committed, views, thresholds, nowHour } = useLoadViews();
+  const codes = useMemo(() => activeZones.map((z) => z.code), [activeZones]);
+  const weather = useZoneWeather(codes, window.displayFrom, window.to);
+  const weatherStatus = useWeatherStatus();
+  const temperatures = useMemo(() => latestObserved(weather.data), [weather.data]);
 
   const requested = params.get('zone') ?? SYSTEM;
   const selected = views.find((v) => v.key === requested) ?? views[0];
@@ -55,7 +61,7 @@ export function LiveLoadPage() {
         {(zones.isPending || series.isPending) && !series.isError && <Loader />}
         {zones.data && activeZones.length === 0 && <Text c="dimmed">No active zones: an administrator adds them under Zones.</Text>}
         {views.length > 0 && (
-          <ZoneStrip views={views} hours={series.data?.hours ?? []} selected={selected.key} thresholds={thresholds} onSelect={(key) => setParams(key === SYSTEM ? {} : { zone: key })} />
+          <ZoneStrip views={views} hours={series.data?.hours ?? []} selected={selected.key} thresholds={thresholds} onSelect={(key) => setParams(key === SYSTEM ? {} : { zone: key })} temperatures={temperatures} />
         )}
         {selected && series.data && (
           <Card withBorder padding="md">
@@ -64,6 +70,17 @@ export function LiveLoadPage() {
             <LeftOutNote view={selected} />
             <IncompleteNote view={selected} first={0} />
             <LoadChart view={selected} hours={series.data.hours} displayFrom={Date.parse(window.displayFrom)} nowHour={nowHour} excluded={selected.key === SYSTEM ? undefined : excluded} />
+            {selected.key !== SYSTEM && (
+              <TemperaturePanel
+                zone={selected.key}
+                timeZone={selected.timeZone}
+                hours={series.data.hours}
+                displayFrom={Date.parse(window.displayFrom)}
+                nowHour={nowHour}
+                weather={weather.data}
+                status={weatherStatus.data}
+              />
+            )}
           </Card>
         )}
         {zones.data && <AlertsPanel zones={activeZones} mayAcknowledge={mayAcknowledge} />}

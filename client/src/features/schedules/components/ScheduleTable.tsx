@@ -1,6 +1,7 @@
 import { ATTENTION_TEXT } from '../../../lib/text-colors';
 import { Table, Text } from '@mantine/core';
 import { formatMw } from '../../../lib/format';
+import { formatTemperature } from '../../weather';
 import type { ScheduleRow } from '../model/rows';
 
 function signed(mw: number | null): string {
@@ -14,8 +15,27 @@ function band(row: ScheduleRow): string {
   return `${row.lower80.toFixed(1)} – ${row.upper80.toFixed(1)}`;
 }
 
-/** One row per hour ending: model MW, its 80 % band, the adjusted MW and the difference. */
-export function ScheduleTable({ rows, label, showBand = true }: { rows: readonly ScheduleRow[]; label: string; showBand?: boolean }) {
+/** A row's temperature forecast and the issue time of the vintage it comes from. */
+export interface HourTemperature {
+  tempC: number | null;
+  issuedAt: string | null;
+}
+
+interface ScheduleTableProps {
+  rows: readonly ScheduleRow[];
+  label: string;
+  showBand?: boolean;
+  /** Per row, the temperature forecast known when the model forecast was issued (a column when given). */
+  temperatures?: readonly HourTemperature[];
+  /** Shows an issue time in the zone's time zone. */
+  formatIssued?: (iso: string) => string;
+}
+
+/**
+ * One row per hour ending: model MW, its 80 % band, the adjusted MW and the difference, and when
+ * given the temperature forecast of the hour with its issue time.
+ */
+export function ScheduleTable({ rows, label, showBand = true, temperatures, formatIssued = (iso) => iso }: ScheduleTableProps) {
   return (
     <Table aria-label={label} striped withTableBorder stickyHeader ff="monospace" fz="sm" data-testid="schedule-table">
       <Table.Thead>
@@ -25,6 +45,8 @@ export function ScheduleTable({ rows, label, showBand = true }: { rows: readonly
           {showBand && <Table.Th ta="right">80 % band (MW)</Table.Th>}
           <Table.Th ta="right">Adjusted</Table.Th>
           <Table.Th ta="right">Difference (MW)</Table.Th>
+          {temperatures && <Table.Th ta="right">Temperature forecast</Table.Th>}
+          {temperatures && <Table.Th>Issued</Table.Th>}
         </Table.Tr>
       </Table.Thead>
       <Table.Tbody>
@@ -37,6 +59,16 @@ export function ScheduleTable({ rows, label, showBand = true }: { rows: readonly
               {showBand && <Table.Td ta="right"><Text span inherit c="dimmed">{band(row)}</Text></Table.Td>}
               <Table.Td ta="right" fw={changed ? 700 : undefined}>{formatMw(row.adjustedMw)}</Table.Td>
               <Table.Td ta="right" c={changed ? ATTENTION_TEXT : 'dimmed'}>{signed(row.differenceMw)}</Table.Td>
+              {temperatures && (
+                <Table.Td ta="right" data-testid="hour-temperature">
+                  {formatTemperature(temperatures[row.index]?.tempC)}
+                </Table.Td>
+              )}
+              {temperatures && (
+                <Table.Td>
+                  <Text span inherit c="dimmed">{temperatures[row.index]?.issuedAt ? formatIssued(temperatures[row.index].issuedAt!) : '—'}</Text>
+                </Table.Td>
+              )}
             </Table.Tr>
           );
         })}

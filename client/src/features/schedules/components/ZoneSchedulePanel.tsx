@@ -12,6 +12,7 @@ import { GateCountdownBadge } from './GateCountdownBadge';
 import { RevisionHistory } from './RevisionHistory';
 import { ScheduleChart } from './ScheduleChart';
 import { ScheduleTable } from './ScheduleTable';
+import { useScheduleTemperatures } from '../api/use-schedule-temperatures';
 import { WorkflowPanel } from './WorkflowPanel';
 
 interface ZoneSchedulePanelProps {
@@ -28,6 +29,7 @@ export function ZoneSchedulePanel({ day, zone, user, caution, clockOffsetMs }: Z
   const revision = shownRevision(zone);
   const summary = scheduleSummary(rows);
   const mayUndo = isForecaster(user) && isEditable(zone.working);
+  const temperatures = useScheduleTemperatures(zone, rows);
   return (
     <Stack gap="md" data-testid={`zone-schedule-${zone.zone}`}>
       <Group justify="space-between" align="center" wrap="wrap">
@@ -57,7 +59,12 @@ export function ZoneSchedulePanel({ day, zone, user, caution, clockOffsetMs }: Z
         <Accordion.Item value="hours">
           <Accordion.Control>Hours ({rows.length})</Accordion.Control>
           <Accordion.Panel>
-            <ScheduleTable rows={rows} label={`Hours of ${zone.zoneName}`} />
+            {temperatures.note && (
+              <Text size="xs" c="dimmed" mb={4} data-testid="schedule-temperature-note">
+                {temperatures.note}
+              </Text>
+            )}
+            <ScheduleTable rows={rows} label={`Hours of ${zone.zoneName}`} temperatures={temperatures.hours} formatIssued={(iso) => formatDateTime(iso, zone.timeZone)} />
           </Accordion.Panel>
         </Accordion.Item>
         <Accordion.Item value="adjustments">

@@ -1,5 +1,5 @@
 import { Center, Group, Loader, SegmentedControl, Select, Stack, Text } from '@mantine/core';
-import { may, WORKBENCH_DEFAULT_WEEKS } from '@morrowline/shared';
+import { DEMO_TIME_ZONE, may, WORKBENCH_DEFAULT_WEEKS } from '@morrowline/shared';
 import { useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { ErrorNotice } from '../../../components/ErrorNotice';
@@ -9,6 +9,7 @@ import { useQuery } from '@tanstack/react-query';
 import type { ZoneDto } from '@morrowline/shared';
 import { useSignedInUser } from '../../auth';
 import { useModelReport, useStationarity } from '../api/use-workbench';
+import { LoadTemperaturePanel } from '../components/LoadTemperaturePanel';
 import { BacktestPanel } from '../components/BacktestPanel';
 import { ModelPanel } from '../components/ModelPanel';
 import { StationarityPanel } from '../components/StationarityPanel';
@@ -78,6 +79,7 @@ export function WorkbenchPage() {
           {model.isError && !stationarity.isError && <ErrorNotice title="The model could not be fitted" error={model.error} onRetry={() => void model.refetch()} />}
           {model.data && <ModelPanel report={model.data} />}
           {stationarity.data && <BacktestPanel key={zone} zone={zone} canRun={canRun} />}
+          <LoadTemperaturePanel zone={zone} weeks={Number(weeks)} timeZone={active.find((z) => z.code === zone)?.timeZone ?? DEMO_TIME_ZONE} />
         </Stack>
       )}
     </>
