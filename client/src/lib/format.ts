@@ -21,3 +21,9 @@ export function formatPercent(value: number | null | undefined, fractionDigits =
   if (value === null || value === undefined || !Number.isFinite(value)) return '—';
   return `${value.toFixed(fractionDigits)} %`;
 }
+
+/** A deviation in percent with its sign, e.g. "+7.1 %" or "-3.8 %"; "—" when there is none. */
+export function formatSignedPercent(value: number | null | undefined, fractionDigits = 1): string {
+  const text = formatPercent(value, fractionDigits);
+  return value != null && value > 0 ? `+${text}` : text;
+}

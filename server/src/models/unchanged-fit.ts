@@ -7,10 +7,11 @@ export type FitIdentity = Pick<ModelVersion, 'differencing' | 'p' | 'q' | 'coeff
  * True when an hourly update re-estimated the in-service model on the same window of data and
  * came out with the same orders, coefficients and innovation variance: nothing has changed, so
  * storing it would only add a copy to the version list. Estimation is deterministic on the same
- * input, so "the same" is equality to rounding: a refit started from the stored coefficients
- * carries them through the stationarity transform and back (natural → unconstrained → natural),
- * which moves the last bits (about 1e-15 of a coefficient, 1e-13 of σ² measured); any new or
- * corrected reading moves the estimates by far more than SAME_RELATIVE.
+ * input, and a refit from the stored coefficients that cannot improve on them returns them bit
+ * for bit (fitArma's kept start), so on the same data the two are normally equal; SAME_RELATIVE
+ * only forgives round-off of the last bits should another path carry the coefficients through the
+ * stationarity transform and back (about 1e-15 of a coefficient, 1e-13 of σ² measured). Any new
+ * or corrected reading moves the estimates by far more than that.
  */
 export const SAME_RELATIVE = 1e-11;
 

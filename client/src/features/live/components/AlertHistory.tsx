@@ -1,7 +1,7 @@
 import { Card, Loader, Table, Text, Title } from '@mantine/core';
 import type { ZoneDto } from '@morrowline/shared';
 import { ErrorNotice } from '../../../components/ErrorNotice';
-import { formatDateTime, formatPercent } from '../../../lib/format';
+import { formatDateTime, formatSignedPercent } from '../../../lib/format';
 import { ALERT_HISTORY_SIZE, useAlertHistory } from '../api/use-alert-history';
 import { alertComparedWith } from './alert-compared-with';
 import { alertHours } from './alert-hours';
@@ -40,8 +40,7 @@ export function AlertHistory({ zones }: { zones: readonly ZoneDto[] }) {
                     <Table.Td>{zone?.name ?? alert.zone}</Table.Td>
                     <Table.Td ff="monospace">{alertHours(alert, tz)}</Table.Td>
                     <Table.Td ff="monospace">
-                      {alert.peakDeviationPct > 0 ? '+' : ''}
-                      {formatPercent(alert.peakDeviationPct)}
+                      {formatSignedPercent(alert.peakDeviationPct)}
                     </Table.Td>
                     <Table.Td>{alertComparedWith(alert)}</Table.Td>
                     <Table.Td>{alert.acknowledgedByName ?? alert.acknowledgedBy ?? '—'}</Table.Td>

@@ -1,7 +1,7 @@
 import { ATTENTION_TEXT } from '../../../lib/text-colors';
 import { Alert, Badge, Card, Group, Loader, Table, Text, Title } from '@mantine/core';
 import type { ZoneDto } from '@morrowline/shared';
-import { formatDateTime, formatPercent } from '../../../lib/format';
+import { formatDateTime, formatPercent, formatSignedPercent } from '../../../lib/format';
 import { ErrorNotice } from '../../../components/ErrorNotice';
 import { useOpenAlerts } from '../api/use-open-alerts';
 import { AcknowledgeAlert } from './AcknowledgeAlert';
@@ -50,8 +50,7 @@ export function AlertsPanel({ zones, mayAcknowledge }: AlertsPanelProps) {
                   <Table.Td>{zone?.name ?? alert.zone}</Table.Td>
                   <Table.Td ff="monospace">{alertHours(alert, tz)}</Table.Td>
                   <Table.Td ff="monospace" c={ATTENTION_TEXT}>
-                    {alert.peakDeviationPct > 0 ? '+' : ''}
-                    {formatPercent(alert.peakDeviationPct)} <Text span size="xs" c="dimmed">(threshold {formatPercent(alert.thresholdPct, 0)})</Text>
+                    {formatSignedPercent(alert.peakDeviationPct)} <Text span size="xs" c="dimmed">(threshold {formatPercent(alert.thresholdPct, 0)})</Text>
                   </Table.Td>
                   <Table.Td>{alertComparedWith(alert)}</Table.Td>
                   <Table.Td ff="monospace">{formatDateTime(alert.raisedAt, tz)}</Table.Td>

@@ -1,4 +1,4 @@
-import { formatPercent } from '../../../lib/format';
+import { formatSignedPercent } from '../../../lib/format';
 
 /** A deviation told in words and signs as well as colour, so colour never carries it alone. */
 export interface DeviationWords {
@@ -14,7 +14,7 @@ export interface DeviationWords {
 
 export function deviationWords(pct: number | null, thresholdPct: number | null): DeviationWords {
   if (pct === null || !Number.isFinite(pct)) return { figure: '—', direction: '', beyond: false, mark: '' };
-  const figure = `${pct > 0 ? '+' : ''}${formatPercent(pct)}`;
+  const figure = formatSignedPercent(pct);
   const rounded = Number(pct.toFixed(1));
   const direction = rounded > 0 ? 'above committed' : rounded < 0 ? 'below committed' : 'on committed';
   const beyond = thresholdPct !== null && Math.abs(pct) > thresholdPct;
