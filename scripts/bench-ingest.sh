@@ -45,11 +45,22 @@ npm run -s build -w server || die "server build failed"
 key="$(cd server && node dist/database/manage.js feed-key bench-feed)"
 
 log "starting the server on 127.0.0.1:$app_port"
-PORT="$app_port" node server/dist/main.js >"$out/server.log" 2>&1 &
+PORT="$app_port" node ${BENCH_NODE_FLAGS:-} server/dist/main.js >"$out/server.log" 2>&1 &
 server_pid=$!
 for _ in $(seq 1 120); do curl -fs "http://127.0.0.1:$app_port/api/health" >/dev/null && break; sleep 0.5; done
 curl -fs "http://127.0.0.1:$app_port/api/health" >/dev/null || { tail -20 "$out/server.log" >&2; die "server did not start"; }
 
-log "measuring (raw upsert first, then the feed path)"
+log "measuring (raw upsert and feed path in alternating rounds)"
+# The server's CPU time (user + system, in clock ticks) around the measurement: the raw rounds do
+# not touch the server, so what it spends is the feed path's, per reading.
+server_ticks() { awk '{print $14 + $15}' "/proc/$server_pid/stat" 2>/dev/null || echo 0; }
+ticks_before="$(server_ticks)"
 cd server
-BENCH_URL="http://127.0.0.1:$app_port" MORROWLINE_FEED_KEY="$key" npx tsx src/cli/bench-ingest.ts
+BENCH_URL="http://127.0.0.1:$app_port" MORROWLINE_FEED_KEY="$key" npx tsx src/cli/bench-ingest.ts | tee "$out/result.txt" | grep -v '^ingest:'
+ticks_after="$(server_ticks)"
+readings="$(sed -n 's/^feed ingest: .*(\([0-9]*\) stored.*/\1/p' "$out/result.txt")"
+if [ -n "$readings" ] && [ "$ticks_after" -gt 0 ]; then
+  awk -v t="$((ticks_after - ticks_before))" -v hz="$(getconf CLK_TCK)" -v n="$readings" \
+    'BEGIN { printf "server CPU on the feed path: %.1f us per reading (%.2f s for %d readings)\n", t / hz / n * 1e6, t / hz, n }'
+fi
+grep '^ingest:' "$out/result.txt"
