@@ -42,8 +42,12 @@ function quote(text: string): string {
   return JSON.stringify(text.length > 40 ? `${text.slice(0, 40)}…` : text);
 }
 
+const MONTH_DAYS = [31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
+
+/** Days in a month (1–12) of the proleptic Gregorian calendar. */
 export function daysInMonth(year: number, month: number): number {
-  return new Date(Date.UTC(year, month, 0)).getUTCDate();
+  if (month === 2) return (year % 4 === 0 && year % 100 !== 0) || year % 400 === 0 ? 29 : 28;
+  return MONTH_DAYS[month - 1] ?? 0; // no such month: no day of it exists
 }
 
 /** Month and day checked against the calendar; null when the date exists. */
@@ -62,7 +66,11 @@ export function parseInstant(text: unknown, field = 'time'): Parsed<number> {
   const m = INSTANT.exec(text);
   if (!m && NO_OFFSET.test(text)) return fail(`${field} ${quote(text)} has no offset: add Z or ±hh:mm (without one it would be read in whatever time zone the reader runs in)`);
   if (!m) return fail(`${field} must be an ISO 8601 date and time`);
-  const [year, month, day, hour, minute] = [m[1], m[2], m[3], m[4], m[5]].map(Number);
+  const year = Number(m[1]);
+  const month = Number(m[2]);
+  const day = Number(m[3]);
+  const hour = Number(m[4]);
+  const minute = Number(m[5]);
   const second = m[6] === undefined ? 0 : Number(m[6]);
   const fraction = m[7] === undefined ? 0 : Number(m[7]);
   const calendar = calendarProblem(field, text, year, month, day);

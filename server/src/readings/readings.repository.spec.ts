@@ -1,11 +1,11 @@
 import { VersionClock } from '@morrowline/shared';
-import { planBatch, type VersionedReading } from './readings.repository';
+import { planBatch, readingKey, type VersionedReading } from './readings.repository';
 
 const HOUR = Date.UTC(2026, 2, 8, 9);
 const NOW = Date.UTC(2026, 2, 8, 12);
 const reading = (mw: number, version: number | null, hourStart = HOUR): VersionedReading => ({ zoneId: 1, zone: 'MILLRACE', hourStart, mw, quality: 'good', version });
 const held = (mw: number, version: number) => ({ mw, quality: 'good' as const, source: 'feed:a', receivedAt: NOW - 1000, version });
-const key = `1|${HOUR}`;
+const key = readingKey(1, HOUR);
 /** A clock fixed at NOW, so stamped versions are known: NOW µs, then +1 each. */
 const clock = () => new VersionClock(() => NOW);
 

@@ -34,6 +34,27 @@ export function sqlDateTime(ms: number): string {
   return new Date(ms).toISOString().slice(0, 19).replace('T', ' ');
 }
 
+/**
+ * One (zone, hour) as a number, for the maps a batch is planned in: a group holds up to 20,000
+ * readings, and number keys spare a string built and hashed for each. Exact while the hour
+ * index (about 5.0e5 in 2026, 1.2e6 in 2100) times 2^31 stays below 2^53, i.e. for every hour the
+ * time window allows; zone ids are below 2^31 (INT UNSIGNED keys would be refused by
+ * sqlInteger long before).
+ */
+export function readingKey(zoneId: number, hourStart: number): number {
+  return (hourStart / HOUR_MS) * 2_147_483_648 + zoneId;
+}
+
+/** The SQL text of each hour a group writes, made once per hour rather than once per reading. */
+function hourTextCache(): (ms: number) => string {
+  const texts = new Map<number, string>();
+  return (ms) => {
+    let text = texts.get(ms);
+    if (text === undefined) texts.set(ms, (text = sqlDateTime(ms)));
+    return text;
+  };
+}
+
 function sqlDateTime3(ms: number): string {
   return new Date(ms).toISOString().slice(0, 23).replace('T', ' ');
 }
@@ -82,12 +103,12 @@ interface Held {
 /** What store() decided for one batch, before it is written. */
 interface Plan {
   /** Final value per key, with its version: the upsert's rows. */
-  finals: Map<string, { reading: VersionedReading; version: number }>;
+  finals: Map<number, { reading: VersionedReading; version: number }>;
   /** reading_revisions rows, 9 values each. */
   revisions: (string | number | null)[];
   revised: number;
   superseded: number;
-  changed: Map<string, StoredRow>;
+  changed: Map<number, StoredRow>;
 }
 
 /**
@@ -96,12 +117,19 @@ interface Plan {
  * No I/O: the SQL below applies the same rule again (the upsert is conditional on the version),
  * so a stored row never goes back to an older value.
  */
-export function planBatch(readings: readonly VersionedReading[], current: Map<string, Held>, source: string, now: number, clock: VersionClock): Plan {
+export function planBatch(
+  readings: readonly VersionedReading[],
+  current: Map<number, Held>,
+  source: string,
+  now: number,
+  clock: VersionClock,
+  hourText: (ms: number) => string = sqlDateTime,
+): Plan {
   const plan: Plan = { finals: new Map(), revisions: [], revised: 0, superseded: 0, changed: new Map() };
   const revision = (zoneId: number, hourStart: number, held: Held, replacedBy: string) =>
-    plan.revisions.push(zoneId, sqlDateTime(hourStart), held.mw, held.quality, held.source, sqlDateTime3(held.receivedAt), sqlDateTime3(now), replacedBy, held.version > 0 ? String(held.version) : null);
+    plan.revisions.push(zoneId, hourText(hourStart), held.mw, held.quality, held.source, sqlDateTime3(held.receivedAt), sqlDateTime3(now), replacedBy, held.version > 0 ? String(held.version) : null);
   for (const r of readings) {
-    const key = `${r.zoneId}|${r.hourStart}`;
+    const key = readingKey(r.zoneId, r.hourStart);
     const before = current.get(key);
     // No version: the latest value at the moment it is stored (CSV uploads, unversioned feeds).
     const version = r.version ?? clock.nextAbove(before?.version ?? 0);
@@ -227,6 +255,7 @@ export class ReadingsRepository {
     const knex = this.em.getKnex();
     return knex.transaction(async (trx) => {
       const now = Date.now();
+      const hourText = hourTextCache();
       // 1. What is stored now for these keys, locked until we commit.
       const hoursByZone = new Map<number, Set<number>>();
       for (const request of group) {
@@ -236,11 +265,11 @@ export class ReadingsRepository {
           hours.add(r.hourStart);
         }
       }
-      const current = new Map<string, Held>();
+      const current = new Map<number, Held>();
       for (const [zoneId, hours] of hoursByZone) {
         for (const rows of await this.lockStored(trx, zoneId, [...hours])) {
           for (const row of rows) {
-            current.set(`${row.zone_id}|${fromSqlDateTime(row.hour_start)}`, {
+            current.set(readingKey(row.zone_id, fromSqlDateTime(row.hour_start)), {
               mw: Number(row.mw),
               quality: row.quality,
               source: row.source,
@@ -251,9 +280,9 @@ export class ReadingsRepository {
         }
       }
       // 2. Walk the batches in order: which value each key ends with, which values are revisions.
-      const plans = group.map((request) => planBatch(request.readings, current, request.source, now, this.clock));
+      const plans = group.map((request) => planBatch(request.readings, current, request.source, now, this.clock, hourText));
       const revisions = plans.flatMap((plan) => plan.revisions);
-      const finals = new Map<string, { reading: VersionedReading; version: number; source: string }>();
+      const finals = new Map<number, { reading: VersionedReading; version: number; source: string }>();
       plans.forEach((plan, i) => {
         for (const [key, final] of plan.finals) finals.set(key, { ...final, source: group[i].source });
       });
@@ -279,7 +308,7 @@ export class ReadingsRepository {
       for (let i = 0; i < rows.length; i += UPSERT_CHUNK) {
         const tuples = rows
           .slice(i, i + UPSERT_CHUNK)
-          .map(({ reading: r, version, source }) => `(${sqlInteger(r.zoneId)},'${sqlDateTime(r.hourStart)}',${sqlNumber(r.mw)},'${sqlQuality(r.quality)}',${sourceVariable.get(source)},${received},${sqlInteger(version)})`);
+          .map(({ reading: r, version, source }) => `(${sqlInteger(r.zoneId)},'${hourText(r.hourStart)}',${sqlNumber(r.mw)},'${sqlQuality(r.quality)}',${sourceVariable.get(source)},${received},${sqlInteger(version)})`);
         await trx.raw(
           `insert into readings (zone_id, hour_start, mw, quality, source, received_at, version) values ${tuples.join(',')}
            on duplicate key update
