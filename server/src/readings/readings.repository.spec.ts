@@ -62,3 +62,13 @@ describe('planBatch (which value each hour ends with)', () => {
     expect(plan.finals.get(key)).toMatchObject({ version: NOW * 1000 + 1, reading: { mw: 2 } });
   });
 });
+
+describe('readingKey (one number per zone and hour)', () => {
+  it('tells neighbouring zones and hours apart, up to the last hour of the time window', () => {
+    // The window ends with 2100 (shared/src/instant.ts); zone ids are INT keys below 2^31.
+    const last = Date.UTC(2100, 11, 31, 23);
+    const keys = [readingKey(1, HOUR), readingKey(2, HOUR), readingKey(1, HOUR + 3_600_000), readingKey(2 ** 31 - 1, last), readingKey(2 ** 31 - 2, last), readingKey(1, last)];
+    expect(new Set(keys).size).toBe(keys.length);
+    for (const key of keys) expect(Number.isSafeInteger(key)).toBe(true);
+  });
+});

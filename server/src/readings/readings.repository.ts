@@ -100,10 +100,17 @@ interface Held {
   version: number;
 }
 
+/** The value a (zone, hour) ends with after a group, and who sent it: one row of the upsert. */
+interface FinalRow {
+  reading: VersionedReading;
+  version: number;
+  source: string;
+}
+
 /** What store() decided for one batch, before it is written. */
 interface Plan {
   /** Final value per key, with its version: the upsert's rows. */
-  finals: Map<number, { reading: VersionedReading; version: number }>;
+  finals: Map<number, FinalRow>;
   /** reading_revisions rows, 9 values each. */
   revisions: (string | number | null)[];
   revised: number;
@@ -124,8 +131,9 @@ export function planBatch(
   now: number,
   clock: VersionClock,
   hourText: (ms: number) => string = sqlDateTime,
+  finals: Map<number, FinalRow> = new Map(),
 ): Plan {
-  const plan: Plan = { finals: new Map(), revisions: [], revised: 0, superseded: 0, changed: new Map() };
+  const plan: Plan = { finals, revisions: [], revised: 0, superseded: 0, changed: new Map() };
   const revision = (zoneId: number, hourStart: number, held: Held, replacedBy: string) =>
     plan.revisions.push(zoneId, hourText(hourStart), held.mw, held.quality, held.source, sqlDateTime3(held.receivedAt), sqlDateTime3(now), replacedBy, held.version > 0 ? String(held.version) : null);
   for (const r of readings) {
@@ -149,7 +157,7 @@ export function planBatch(
     }
     // The same value under a later version: only the version (and who said it last) moves on.
     current.set(key, incoming);
-    plan.finals.set(key, { reading: r, version });
+    plan.finals.set(key, { reading: r, version, source });
     if (!sameValue) plan.changed.set(key, { zoneId: r.zoneId, hourStart: r.hourStart, mw: r.mw, quality: r.quality });
   }
   return plan;
@@ -280,12 +288,11 @@ export class ReadingsRepository {
         }
       }
       // 2. Walk the batches in order: which value each key ends with, which values are revisions.
-      const plans = group.map((request) => planBatch(request.readings, current, request.source, now, this.clock, hourText));
+      // The batches of a group share one map of final values: a later batch's value for a key
+      // replaces an earlier one's, and what is left is the upsert.
+      const finals = new Map<number, FinalRow>();
+      const plans = group.map((request) => planBatch(request.readings, current, request.source, now, this.clock, hourText, finals));
       const revisions = plans.flatMap((plan) => plan.revisions);
-      const finals = new Map<number, { reading: VersionedReading; version: number; source: string }>();
-      plans.forEach((plan, i) => {
-        for (const [key, final] of plan.finals) finals.set(key, { ...final, source: group[i].source });
-      });
       const fields = 9;
       for (let i = 0; i < revisions.length; i += UPSERT_CHUNK * fields) {
         const values = revisions.slice(i, i + UPSERT_CHUNK * fields);
@@ -297,20 +304,26 @@ export class ReadingsRepository {
         );
       }
       // 3. The upsert, conditional on the version in SQL as well: a row never goes back to an older
-      // value. Rows are written as literals (numbers, fixed-form times, a checked quality) and the
-      // sources as session variables bound once: thousands of bound parameters cost more CPU in the
-      // driver than the database spends on the rows.
-      const rows = [...finals.values()];
-      const sources = [...new Set(rows.map((row) => row.source))];
-      if (sources.length > 0) await trx.raw(`set ${sources.map((_, i) => `@morrowline_source_${i} = ?`).join(', ')}`, sources);
-      const sourceVariable = new Map(sources.map((source, i) => [source, `@morrowline_source_${i}`]));
-      const received = `'${sqlDateTime3(now)}'`;
-      for (let i = 0; i < rows.length; i += UPSERT_CHUNK) {
-        const tuples = rows
-          .slice(i, i + UPSERT_CHUNK)
-          .map(({ reading: r, version, source }) => `(${sqlInteger(r.zoneId)},'${hourText(r.hourStart)}',${sqlNumber(r.mw)},'${sqlQuality(r.quality)}',${sourceVariable.get(source)},${received},${sqlInteger(version)})`);
+      // value. Rows are written as literals (numbers, fixed-form times, a checked quality), the
+      // sources and the time received as session variables bound once: thousands of bound
+      // parameters cost more CPU in the driver than the database spends on the rows, and every
+      // byte of the statement is encoded and sent.
+      const sources: string[] = [];
+      const sourceVariable = new Map<string, string>();
+      for (const final of finals.values()) {
+        if (!sourceVariable.has(final.source)) {
+          sourceVariable.set(final.source, `@morrowline_source_${sources.length}`);
+          sources.push(final.source);
+        }
+      }
+      if (sources.length > 0) {
+        await trx.raw(`set @morrowline_received = ?, ${sources.map((_, i) => `@morrowline_source_${i} = ?`).join(', ')}`, [sqlDateTime3(now), ...sources]);
+      }
+      let tuples = '';
+      let inStatement = 0;
+      const flush = async () => {
         await trx.raw(
-          `insert into readings (zone_id, hour_start, mw, quality, source, received_at, version) values ${tuples.join(',')}
+          `insert into readings (zone_id, hour_start, mw, quality, source, received_at, version) values ${tuples}
            on duplicate key update
              mw = if(values(version) > version, values(mw), mw),
              quality = if(values(version) > version, values(quality), quality),
@@ -318,7 +331,14 @@ export class ReadingsRepository {
              received_at = if(values(version) > version, values(received_at), received_at),
              version = greatest(version, values(version))`,
         );
+        tuples = '';
+        inStatement = 0;
+      };
+      for (const { reading: r, version, source } of finals.values()) {
+        tuples += `${inStatement === 0 ? '' : ','}(${sqlInteger(r.zoneId)},'${hourText(r.hourStart)}',${sqlNumber(r.mw)},'${sqlQuality(r.quality)}',${sourceVariable.get(source)},@morrowline_received,${sqlInteger(version)})`;
+        if (++inStatement === UPSERT_CHUNK) await flush();
       }
+      if (inStatement > 0) await flush();
       return plans.map((plan, i) => ({ stored: group[i].readings.length, revised: plan.revised, superseded: plan.superseded, changed: [...plan.changed.values()] }));
     });
   }
