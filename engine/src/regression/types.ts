@@ -77,7 +77,8 @@ export interface RegressionFit {
   fitMs: number;
   /**
    * Forecasts of the load for the hours after the last hour of y, given the regressors' values
-   * for those hours (one Regressor per fitted name, each of the horizon's length).
+   * for those hours (one Regressor per fitted name, each of the horizon's length; in any order).
+   * Throws on a missing, unknown or repeated name, unequal lengths or a non-finite value.
    */
   forecast(future: readonly Regressor[], opts?: RegressionForecastOptions): RegressionForecast;
 }
@@ -90,6 +91,8 @@ export interface RegressionForecastOptions {
    * independent of the load's innovations).
    */
   extraVariance?: ArrayLike<number>;
+  /** the number of steps, needed only by a model without regressors (otherwise the future values' length) */
+  horizon?: number;
 }
 
 /** Load forecasts with standard errors and 80 % / 95 % intervals (R's predict(fit, newxreg=) for the mean and se when no extra variance is given). */
