@@ -52,9 +52,19 @@ export function buildDesign(yIn: ArrayLike<number>, regressors: readonly Regress
     names.push(r.name);
   }
   const w = difference(y, diff);
-  const wColumns = columns.map((c) => {
+  const wColumns = columns.map((c, j) => {
     const d = difference(c, diff);
-    for (let t = 0; t < d.length; t++) if (w[t] !== w[t]) d[t] = NaN;
+    let before = 0;
+    let after = 0;
+    for (let t = 0; t < d.length; t++) {
+      if (w[t] !== w[t]) d[t] = NaN;
+      else {
+        before += c[t + n - d.length] ** 2;
+        after += d[t] ** 2;
+      }
+    }
+    // a shape the differencing removes (a daily profile under (1 − B^24)) leaves round-off only
+    if (!(after > 1e-20 * before)) throw new Error(`regressor "${names[j]}" is zero on every hour used${diff.length ? ' after the differencing' : ''}`);
     return d;
   });
   return { y, names, columns, w, wColumns };
