@@ -6,10 +6,9 @@
  * series are laid on an hourly timeline (one value per hour from 2024-01-01T00:00Z): the fit
  * sees only the sequence, as R does.
  */
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import fixture from '../fixtures/r-arima-xreg.json';
 import { runFit } from './fit';
 
 interface RFit {
@@ -27,7 +26,7 @@ interface Case {
   ml: RFit;
   mlTight: RFit;
 }
-const cases = (fixture as unknown as { cases: Case[] }).cases;
+const cases = (JSON.parse(readFileSync(join(__dirname, '../fixtures/r-arima-xreg.json'), 'utf8')) as { cases: Case[] }).cases;
 const byData = (prefix: string): Case => cases.find((c) => c.name.startsWith(prefix)) as Case;
 const best = (c: Case): RFit => [c.cssMl, c.ml, c.mlTight].sort((a, b) => b.loglik - a.loglik)[0];
 

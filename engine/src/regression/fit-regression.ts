@@ -61,18 +61,14 @@ function armaNames(o: Required<ArmaSpec>): string[] {
   return names;
 }
 
-/** n* of forecast::Arima: observed hours from the first observed to the last, less the differencing's degree. */
+/**
+ * n* of forecast::Arima: the observed hours (those between the first observed and the last, which
+ * is all of them) less the differencing's degree.
+ */
 function effectiveLength(y: Float64Array, degree: number): number {
-  let first = -1;
-  let last = -1;
   let count = 0;
-  for (let t = 0; t < y.length; t++) {
-    if (y[t] !== y[t]) continue;
-    if (first < 0) first = t;
-    last = t;
-    count++;
-  }
-  return first < 0 ? 0 : count - degree;
+  for (let t = 0; t < y.length; t++) if (y[t] === y[t]) count++;
+  return count - degree;
 }
 
 export function fitRegression(y: ArrayLike<number>, regressors: readonly Regressor[], spec: RegressionSpec, opts: RegressionFitOptions = {}): RegressionFit {
