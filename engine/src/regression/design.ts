@@ -5,7 +5,7 @@
  * same differencing Δ(B) applied to the load and to every column (R's arima(x, order, seasonal,
  * xreg=) differences both; Harvey 1989, §7.4).
  */
-import { difference } from '../differencing';
+import { difference } from '../series/differencing';
 import type { Regressor } from './types';
 
 export const INTERCEPT = 'intercept';

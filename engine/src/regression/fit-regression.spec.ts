@@ -7,9 +7,10 @@
  * (fixtures/taylor-hourly.json; forecast's taylor, hourly means).
  */
 import taylor from '../fixtures/taylor-hourly.json';
-import { fitArima, forecastArima } from '../forecast';
+import { fitArima, forecastArima, IntervalForecast, Z80 as ARIMA_Z80, Z95 as ARIMA_Z95 } from '../forecast';
+import { Z80, Z95 } from './forecast-regression';
 import { applyRegression, fitRegression } from './fit-regression';
-import type { Regressor } from './types';
+import type { Regressor, RegressionForecast } from './types';
 
 const load = Float64Array.from((taylor as { load: number[] }).load.slice(0, 1344));
 const hours = load.length;
@@ -129,5 +130,14 @@ describe('regression with ARMA errors: the estimator', () => {
       expect(() => fit.forecast(future, { extraVariance: [1] })).toThrow('forecast: extraVariance has 1 values for 2 steps');
       expect(() => fit.forecast(future, { extraVariance: [1, -1] })).toThrow('forecast: extraVariance 2 must be a finite variance ≥ 0, got -1');
     });
+  });
+
+  it("bands on the ARIMA forecast's normal quantiles, in its shape", () => {
+    expect(Z80).toBeCloseTo(ARIMA_Z80, 14);
+    expect(Z95).toBeCloseTo(ARIMA_Z95, 14);
+    const fit = fitRegression(load, [weekend], { diff: [24], p: 1, q: 0 }, { computeSe: false });
+    const f: RegressionForecast = fit.forecast([{ name: 'weekend', values: [0] }]);
+    const asArima: IntervalForecast = f;
+    expect(asArima.upper95[0] - asArima.mean[0]).toBeCloseTo(Z95 * f.se[0], 9);
   });
 });

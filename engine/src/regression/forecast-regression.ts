@@ -9,10 +9,17 @@
  */
 import { forecastState } from '../arma/fit';
 import { ArmaStateSpace } from '../arma/state-space';
-import { extendForecast, integratedVariance } from '../differencing';
-import { Z80, Z95 } from '../forecast';
+import { extendForecast, integratedVariance } from '../series/differencing';
 import { INTERCEPT } from './design';
 import type { Regressor, RegressionForecast, RegressionForecastOptions } from './types';
+
+/**
+ * Standard normal quantiles for the 80 % and 95 % bands, qnorm(0.9) and qnorm(0.975) (R 4.2.2);
+ * forecast.ts computes the same values to 14 digits (a test holds them so), written out because
+ * this folder may not import the top level (scripts/folder-cycles.mjs).
+ */
+export const Z80 = 1.2815515655446004;
+export const Z95 = 1.959963984540054;
 
 /** What a forecast starts from (the end of the history the model was last run over). */
 export interface ForecastState {

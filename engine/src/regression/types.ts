@@ -6,7 +6,6 @@
  * (fit-regression.ts) and of its forecasts (forecast-regression.ts).
  */
 import type { ArmaSpec, Coefficient } from '../arma/fit';
-import type { ArimaSpec, IntervalForecast } from '../forecast';
 
 /** One named regressor column, hour by hour on the same timeline as the load. */
 export interface Regressor {
@@ -25,7 +24,10 @@ export interface Regressor {
  * block P, Q, period. `includeMean` adds an intercept column (default: only when there is no
  * differencing, as R does; after a differencing a constant vanishes and is refused).
  */
-export type RegressionSpec = ArimaSpec;
+export interface RegressionSpec extends ArmaSpec {
+  /** differencing lags, e.g. [24, 168]; [] for none */
+  diff: number[];
+}
 
 export interface RegressionFitOptions {
   /** standard errors from the Hessian of the full likelihood (default true) */
@@ -95,8 +97,22 @@ export interface RegressionForecastOptions {
   horizon?: number;
 }
 
-/** Load forecasts with standard errors and 80 % / 95 % intervals (R's predict(fit, newxreg=) for the mean and se when no extra variance is given). */
-export interface RegressionForecast extends IntervalForecast {
+/**
+ * Load forecasts with standard errors and 80 % / 95 % intervals, the shape of the ARIMA
+ * forecast's IntervalForecast (forecast.ts; a test holds one assignable to the other). The mean
+ * and `modelSe` are R's predict(fit, newxreg=) pred and se.
+ */
+export interface RegressionForecast {
+  /** forecast of the load per step */
+  mean: number[];
+  /** standard error per step, the extra variance included */
+  se: number[];
+  /** mean ∓ 1.2816·se */
+  lower80: number[];
+  upper80: number[];
+  /** mean ∓ 1.9600·se */
+  lower95: number[];
+  upper95: number[];
   /** the regression part x'β per step */
   regression: number[];
   /** the standard error without the extra variance (R's predict se) */
