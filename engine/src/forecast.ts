@@ -12,6 +12,7 @@
  */
 import { difference, extendForecast, integratedVariance } from './differencing';
 import { fillHistory } from './series/fill-history';
+import type { IntervalForecast } from './series/interval-forecast';
 import { applyArma, ArmaFit, ArmaSpec, fitArma, FitOptions } from './arma/fit';
 import { normalQuantile } from './distributions';
 
@@ -29,14 +30,7 @@ export interface ArimaFit {
   filledCount: number;
 }
 
-export interface IntervalForecast {
-  mean: number[];
-  se: number[];
-  lower80: number[];
-  upper80: number[];
-  lower95: number[];
-  upper95: number[];
-}
+export type { IntervalForecast };
 
 export { fillHistory };
 

@@ -24,12 +24,10 @@
  */
 import { minimizeBfgs, BfgsResult } from '../arma/bfgs';
 import { cssStart } from '../arma/css';
-import { normalizeSpec, onBoundary, needsSecondStart, ArmaSpec, Coefficient } from '../arma/fit';
+import { fromUnconstrained, normalizeSpec, onBoundary, needsSecondStart, stateSpaceOf, toUnconstrained, ArmaSpec, Coefficient, Natural } from '../arma/fit';
 import { hannanRissanen } from '../arma/hannan-rissanen';
 import { kalmanFilter } from '../arma/kalman';
 import { ArmaStateSpace } from '../arma/state-space';
-import { ArmaParts, splitArma, stateSpaceOf } from './arma-parts';
-import { fromInvertible, fromStationary, toInvertible, toStationary } from '../arma/transform';
 import { differenceOrder } from '../series/differencing';
 import { fillHistory } from '../series/fill-history';
 import { buildDesign, Design, INTERCEPT } from './design';
@@ -38,19 +36,6 @@ import { crossProducts, solveNormal } from './least-squares';
 import { differencedErrors, profileLikelihood, profileWork } from './profile';
 import { forecastFromState, ForecastState } from './forecast-regression';
 import type { Regressor, RegressionFit, RegressionFitOptions, RegressionSpec } from './types';
-
-function fromUnconstrained(u: ArrayLike<number>, o: Required<ArmaSpec>): ArmaParts {
-  const raw = splitArma(u, o);
-  return { ar: toStationary(raw.ar), ma: toInvertible(raw.ma), sar: toStationary(raw.sar), sma: toInvertible(raw.sma) };
-}
-
-function toUnconstrained(nat: ArmaParts): Float64Array | null {
-  const parts = [fromStationary(nat.ar), fromInvertible(nat.ma), fromStationary(nat.sar), fromInvertible(nat.sma)];
-  if (parts.some((p) => p === null)) return null;
-  const out: number[] = [];
-  for (const p of parts) out.push(...(p as Float64Array));
-  return Float64Array.from(out);
-}
 
 function armaNames(o: Required<ArmaSpec>): string[] {
   const names: string[] = [];
@@ -97,7 +82,7 @@ export function fitRegression(y: ArrayLike<number>, regressors: readonly Regress
   const orders = { p: o.p, q: o.q, P: o.P, Q: o.Q, period: s || 1 };
   const st = opts.start;
   const hr = hannanRissanen(olsErrors, orders);
-  const startNat: ArmaParts = {
+  const startNat: Natural = {
     ar: st?.ar ? Float64Array.from(st.ar) : hr.ar,
     ma: st?.ma ? Float64Array.from(st.ma) : hr.ma,
     sar: st?.sar ? Float64Array.from(st.sar) : hr.sar,

@@ -9,11 +9,11 @@
  * standard errors are checked to.
  */
 import { inverse, Matrix } from 'ml-matrix';
-import { ArmaSpec } from '../arma/fit';
+import { ArmaSpec, splitNatural, stateSpaceOf } from '../arma/fit';
 import { concentratedLogLik, kalmanFilter } from '../arma/kalman';
 import type { Design } from './design';
 import { differencedErrors } from './profile';
-import { splitArma, stateSpaceOf } from './arma-parts';
+
 
 export function regressionHessianSe(
   d: Design,
@@ -34,7 +34,7 @@ export function regressionHessianSe(
   const hs = values.map((_, i) => (i < ka ? 1e-4 : 1e-3 * Math.sqrt(sigma2 * glsInverse[(i - ka) * kb + (i - ka)]) || 1e-6));
   const f = (v: number[]): number => {
     try {
-      const ss = stateSpaceOf(splitArma(v, o), o.period);
+      const ss = stateSpaceOf(splitNatural(v, o), o.period);
       const e = differencedErrors(d, v.slice(ka));
       const ll = concentratedLogLik(kalmanFilter(e, ss, { mean: 0, tol, complete }));
       return Number.isFinite(ll) ? -ll : NaN;

@@ -6,6 +6,7 @@
  * (fit-regression.ts) and of its forecasts (forecast-regression.ts).
  */
 import type { ArmaSpec, Coefficient } from '../arma/fit';
+import type { IntervalForecast } from '../series/interval-forecast';
 
 /** One named regressor column, hour by hour on the same timeline as the load. */
 export interface Regressor {
@@ -98,21 +99,10 @@ export interface RegressionForecastOptions {
 }
 
 /**
- * Load forecasts with standard errors and 80 % / 95 % intervals, the shape of the ARIMA
- * forecast's IntervalForecast (forecast.ts; a test holds one assignable to the other). The mean
- * and `modelSe` are R's predict(fit, newxreg=) pred and se.
+ * Load forecasts with standard errors and 80 % / 95 % intervals; the mean and `modelSe` are R's
+ * predict(fit, newxreg=) pred and se, `se` includes the extra variance.
  */
-export interface RegressionForecast {
-  /** forecast of the load per step */
-  mean: number[];
-  /** standard error per step, the extra variance included */
-  se: number[];
-  /** mean ∓ 1.2816·se */
-  lower80: number[];
-  upper80: number[];
-  /** mean ∓ 1.9600·se */
-  lower95: number[];
-  upper95: number[];
+export interface RegressionForecast extends IntervalForecast {
   /** the regression part x'β per step */
   regression: number[];
   /** the standard error without the extra variance (R's predict se) */
