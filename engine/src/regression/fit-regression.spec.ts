@@ -51,7 +51,9 @@ describe('regression with ARMA errors: the estimator', () => {
     const b = fitRegression(gapY, [weekend], { diff: [24], p: 1, q: 1 }, { computeSe: false });
     expect(a.loglik).toBe(b.loglik);
     expect(a.beta[0].value).toBe(b.beta[0].value);
-    expect(a.nUsed).toBe(hours - 24 - 4);
+    // a differenced series with gaps takes the diffuse form (R's n.used: observed hours less 24)
+    expect(a.likelihood).toBe('diffuse');
+    expect(a.nUsed).toBe(hours - 2 - 24);
     expect(Number.isNaN(a.errors[300])).toBe(true);
   });
 
@@ -139,5 +141,25 @@ describe('regression with ARMA errors: the estimator', () => {
     const f: RegressionForecast = fit.forecast([{ name: 'weekend', values: [0] }]);
     const asArima: IntervalForecast = f;
     expect(asArima.upper95[0] - asArima.mean[0]).toBeCloseTo(Z95 * f.se[0], 9);
+  });
+});
+
+describe('regression with ARMA errors: the diffuse form', () => {
+  it("a gap switches a differenced series to the diffuse form, which agrees with the differenced form where both apply", () => {
+    const y = load.slice(0, 600);
+    const x = [{ name: 'weekend', values: weekendValues.slice(0, 600) }];
+    const a = fitRegression(y, x, { diff: [24], p: 1, q: 1 }, { computeSe: false });
+    expect(a.likelihood).toBe('differenced');
+    // one hour missing at the very end changes little, and switches the form
+    const yGap = Float64Array.from(y);
+    yGap[599] = NaN;
+    const b = fitRegression(yGap, x, { diff: [24], p: 1, q: 1 }, { computeSe: false });
+    expect(b.likelihood).toBe('diffuse');
+    expect(b.nUsed).toBe(600 - 1 - 24);
+    const c = fitRegression(y.slice(0, 599), [{ name: 'weekend', values: weekendValues.slice(0, 599) }], { diff: [24], p: 1, q: 1 }, { computeSe: false });
+    // the last hour missing is the same as the series ending an hour earlier, up to R's finite
+    // κ = 10⁶ for the 24 diffuse levels (a few thousandths of log L on loads of 30,000 MW)
+    expect(Math.abs(b.loglik - c.loglik)).toBeLessThan(0.01);
+    expect(b.beta[0].value).toBeCloseTo(c.beta[0].value, 2);
   });
 });

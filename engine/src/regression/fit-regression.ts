@@ -24,17 +24,15 @@
  */
 import { minimizeBfgs, BfgsResult } from '../arma/bfgs';
 import { cssStart } from '../arma/css';
-import { fromUnconstrained, normalizeSpec, onBoundary, needsSecondStart, stateSpaceOf, toUnconstrained, ArmaSpec, Coefficient, Natural } from '../arma/fit';
+import { fromUnconstrained, normalizeSpec, onBoundary, needsSecondStart, splitNatural, stateSpaceOf, toUnconstrained, ArmaSpec, Coefficient, Natural } from '../arma/fit';
 import { hannanRissanen } from '../arma/hannan-rissanen';
-import { kalmanFilter } from '../arma/kalman';
-import { ArmaStateSpace } from '../arma/state-space';
 import { differenceOrder } from '../series/differencing';
-import { fillHistory } from '../series/fill-history';
-import { buildDesign, Design, INTERCEPT } from './design';
-import { regressionHessianSe } from './hessian';
+import { buildDesign, INTERCEPT } from './design';
+import { forecastFromState } from './forecast-regression';
+import { hessianStandardErrors } from './hessian';
 import { crossProducts, solveNormal } from './least-squares';
-import { differencedErrors, profileLikelihood, profileWork } from './profile';
-import { forecastFromState, ForecastState } from './forecast-regression';
+import { chooseForm, differencedForm, diffuseForm, LikelihoodForm } from './likelihood-forms';
+import { differencedErrors } from './profile';
 import type { Regressor, RegressionFit, RegressionFitOptions, RegressionSpec } from './types';
 
 function armaNames(o: Required<ArmaSpec>): string[] {
@@ -68,9 +66,10 @@ export function fitRegression(y: ArrayLike<number>, regressors: readonly Regress
   let observed = 0;
   for (let t = 0; t < design.w.length; t++) if (design.w[t] === design.w[t]) observed++;
   if (observed < k + nBeta + 3) throw new Error(`too few observed hours after the differencing (${observed}) for ${k + nBeta} coefficients`);
-  const tol = 1e-10;
   const s = o.period;
-  const work = profileWork(design, tol);
+  // the ARMA state's size, for the choice of the likelihood's form
+  const r = Math.max(o.p + o.P * s, o.q + o.Q * s + 1, 1);
+  const form = chooseForm(design, diff, r);
 
   // starting values: OLS of the differenced load on the differenced regressors, then
   // Hannan–Rissanen on its residuals (or the start given)
@@ -92,9 +91,7 @@ export function fitRegression(y: ArrayLike<number>, regressors: readonly Regress
 
   const objective = (u: Float64Array): number => {
     try {
-      const pr = profileLikelihood(design, stateSpaceOf(fromUnconstrained(u, o), s), work);
-      if (!(pr.ssq > 0)) return Infinity;
-      return 0.5 * Math.log(pr.ssq / pr.nUsed) + (0.5 * pr.sumLogF) / pr.nUsed;
+      return form.objective(stateSpaceOf(fromUnconstrained(u, o), s));
     } catch {
       // a root on the unit circle to machine precision: no stationary covariance, no likelihood
       return Infinity;
@@ -102,7 +99,7 @@ export function fitRegression(y: ArrayLike<number>, regressors: readonly Regress
   };
   const search = (from: Float64Array): BfgsResult => minimizeBfgs(objective, from, { maxIter: opts.maxIter ?? 200, gradTol: 1e-7, fTol: opts.fTol ?? 1e-13, step: 1e-6 });
   // fail early and by name when a regressor is collinear (the objective would only say Infinity)
-  profileLikelihood(design, stateSpaceOf(fromUnconstrained(u0, o), s), work);
+  form.estimate(stateSpaceOf(fromUnconstrained(u0, o), s));
   let opt = search(u0);
   const tried: Float64Array[] = [];
   const tryFrom = (from: Float64Array | null): void => {
@@ -124,10 +121,8 @@ export function fitRegression(y: ArrayLike<number>, regressors: readonly Regress
 
   const nat = fromUnconstrained(opt.x, o);
   const ss = stateSpaceOf(nat, s);
-  const pr = profileLikelihood(design, ss, work);
-  const n = pr.nUsed;
-  const sigma2 = pr.ssq / n;
-  const loglik = -0.5 * (n * Math.log(2 * Math.PI * sigma2) + pr.sumLogF + n);
+  const est = form.estimate(ss);
+  const { sigma2, loglik } = est;
   const nParams = k + nBeta + 1;
   const nStar = effectiveLength(design.y, differenceOrder(diff));
   const aic = -2 * loglik + 2 * nParams;
@@ -136,11 +131,11 @@ export function fitRegression(y: ArrayLike<number>, regressors: readonly Regress
 
   const armaValues = [...nat.ar, ...nat.ma, ...nat.sar, ...nat.sma];
   let se = new Array<number>(k + nBeta).fill(NaN);
-  if (opts.computeSe ?? true) se = regressionHessianSe(design, o, armaValues, pr.beta, sigma2, pr.inverse, tol);
+  if (opts.computeSe ?? true) se = standardErrors(form, o, armaValues, est.beta, sigma2, est.inverse);
   const armaCoefficients: Coefficient[] = armaNames(o).map((name, i) => ({ name, value: armaValues[i], se: se[i] }));
-  const beta: Coefficient[] = design.names.map((name, j) => ({ name, value: pr.beta[j], se: se[k + j] }));
+  const beta: Coefficient[] = design.names.map((name, j) => ({ name, value: est.beta[j], se: se[k + j] }));
 
-  const state = filterErrors(design, diff, ss, pr.beta, sigma2, tol);
+  const state = form.state(ss, est.beta, sigma2);
   const fit: RegressionFit = {
     spec: o,
     diff,
@@ -158,7 +153,8 @@ export function fitRegression(y: ArrayLike<number>, regressors: readonly Regress
     aicc,
     bic,
     nParams,
-    nUsed: n,
+    nUsed: est.nUsed,
+    likelihood: form.kind,
     hours: design.y.length,
     errors: state.errors,
     residuals: state.residuals,
@@ -172,30 +168,14 @@ export function fitRegression(y: ArrayLike<number>, regressors: readonly Regress
 }
 
 /**
- * Runs the errors of the regression through the fitted ARMA: the one-step innovations (the
- * residuals), the errors on the load's timeline with missing hours filled by the model's
- * predictions (what undoing the differencing needs), and the final state the forecasts start from.
+ * Standard errors of the ARMA coefficients and β together (hessian.ts): steps of 1e-4 for the
+ * ARMA coefficients and 1e-3 of β_j's GLS standard error for fixed ARMA coefficients.
  */
-function filterErrors(design: Design, diff: number[], ss: ArmaStateSpace, beta: Float64Array, sigma2: number, tol: number): { errors: Float64Array; residuals: Float64Array; forecast: ForecastState } {
-  const n = design.y.length;
-  const D = n - design.w.length;
-  const e = differencedErrors(design, beta);
-  const res = new Float64Array(e.length);
-  const pred = new Float64Array(e.length);
-  const f = kalmanFilter(e, ss, { mean: 0, tol, residuals: res, predictions: pred, keepState: true });
-  const errors = Float64Array.from(design.y);
-  for (let j = 0; j < design.columns.length; j++) {
-    const c = design.columns[j];
-    for (let t = 0; t < n; t++) errors[t] -= c[t] * beta[j];
-  }
-  const residuals = new Float64Array(n).fill(NaN);
-  residuals.set(res, D);
-  const filled = diff.length ? fillHistory(errors, diff, pred).filled : errors;
-  return {
-    errors,
-    residuals,
-    forecast: { ss, aEnd: f.aPred as Float64Array, PEnd: f.PPred as Float64Array, sigma2, diff, filledErrors: filled, names: design.names, beta },
-  };
+function standardErrors(form: LikelihoodForm, o: Required<ArmaSpec>, armaValues: number[], beta: Float64Array, sigma2: number, glsInverse: Float64Array): number[] {
+  const ka = armaValues.length;
+  const kb = beta.length;
+  const steps = [...armaValues.map(() => 1e-4), ...Array.from(beta, (_, j) => 1e-3 * Math.sqrt(sigma2 * glsInverse[j * kb + j]) || 1e-6)];
+  return hessianStandardErrors([...armaValues, ...beta], steps, (v) => form.negLogLik(stateSpaceOf(splitNatural(v, o), o.period), v.slice(ka)));
 }
 
 /**
@@ -216,7 +196,9 @@ export function applyRegression(fit: RegressionFit, y: ArrayLike<number>, regres
   const design = buildDesign(y, ordered, fit.diff, includeMean);
   const beta = Float64Array.from(fit.beta, (b) => b.value);
   const ss = stateSpaceOf(fit, fit.spec.period);
-  const state = filterErrors(design, fit.diff, ss, beta, fit.sigma2, 1e-10);
+  // the form the model was estimated in, when the new history still allows it
+  const form = fit.likelihood === 'diffuse' ? diffuseForm(design, fit.diff) : differencedForm(design, fit.diff);
+  const state = form.state(ss, beta, fit.sigma2);
   return {
     ...fit,
     hours: design.y.length,

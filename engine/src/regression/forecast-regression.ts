@@ -11,6 +11,7 @@ import { forecastState } from '../arma/fit';
 import { ArmaStateSpace } from '../arma/state-space';
 import { extendForecast, integratedVariance } from '../series/differencing';
 import { INTERCEPT } from './design';
+import { DiffuseModel, predictCovariance, predictState } from './diffuse-filter';
 import type { Regressor, RegressionForecast, RegressionForecastOptions } from './types';
 
 /**
@@ -33,6 +34,47 @@ export interface ForecastState {
   /** β's names ("intercept" first when included) and values */
   names: string[];
   beta: Float64Array;
+  /**
+   * for the diffuse form (a differenced series with gaps): the filtered state a_{n|n}, P_{n|n}
+   * of the errors' levels, forecast in that state space as R's KalmanForecast does
+   */
+  diffuse?: { model: DiffuseModel; a: Float64Array; P: Float64Array };
+}
+
+/** Means and variances of the errors u for h steps from the diffuse form's filtered state. */
+function diffuseErrorForecast(st: NonNullable<ForecastState['diffuse']>, sigma2: number, h: number): { uMean: Float64Array; variance: Float64Array } {
+  const md = st.model;
+  const { m, zCols, zCoefs } = md;
+  const a = Float64Array.from(st.a);
+  const an = new Float64Array(m);
+  const P = Float64Array.from(st.P);
+  const work = new Float64Array(m * m);
+  const mean = new Float64Array(h);
+  const variance = new Float64Array(h);
+  for (let i = 0; i < h; i++) {
+    predictState(md, a, an);
+    a.set(an);
+    predictCovariance(md, P, work);
+    let mu = 0;
+    let v = 0;
+    for (let k = 0; k < zCols.length; k++) {
+      mu += zCoefs[k] * a[zCols[k]];
+      for (let l = 0; l < zCols.length; l++) v += zCoefs[k] * P[zCols[k] * m + zCols[l]] * zCoefs[l];
+    }
+    mean[i] = mu;
+    variance[i] = v * sigma2;
+  }
+  return { uMean: mean, variance };
+}
+
+/** Means and variances of the errors u for h steps: ARMA forecasts of Δ(B)u carried back through the differencing. */
+function errorForecast(st: ForecastState, h: number): { uMean: Float64Array; variance: Float64Array } {
+  const wf = forecastState(st.ss, st.aEnd, st.PEnd, st.sigma2, 0, h);
+  const uMean = st.diff.length ? extendForecast(st.filledErrors, wf.mean, st.diff) : wf.mean;
+  if (st.diff.length) return { uMean, variance: integratedVariance(wf.cov, h, st.diff) };
+  const variance = new Float64Array(h);
+  for (let i = 0; i < h; i++) variance[i] = wf.cov[i * h + i];
+  return { uMean, variance };
 }
 
 /** The future regressor values as columns in β's order (the intercept a column of ones); strict. */
@@ -71,14 +113,7 @@ export function forecastFromState(st: ForecastState, future: readonly Regressor[
     if (extra.length !== h) throw new Error(`forecast: extraVariance has ${extra.length} values for ${h} steps`);
     for (let i = 0; i < h; i++) if (!(extra[i] >= 0) || !Number.isFinite(extra[i])) throw new Error(`forecast: extraVariance ${i + 1} must be a finite variance ≥ 0, got ${extra[i]}`);
   }
-  const wf = forecastState(st.ss, st.aEnd, st.PEnd, st.sigma2, 0, h);
-  const uMean = st.diff.length ? extendForecast(st.filledErrors, wf.mean, st.diff) : wf.mean;
-  let variance: Float64Array;
-  if (st.diff.length) variance = integratedVariance(wf.cov, h, st.diff);
-  else {
-    variance = new Float64Array(h);
-    for (let i = 0; i < h; i++) variance[i] = wf.cov[i * h + i];
-  }
+  const { uMean, variance } = st.diffuse ? diffuseErrorForecast(st.diffuse, st.sigma2, h) : errorForecast(st, h);
   const out: RegressionForecast = { mean: [], se: [], lower80: [], upper80: [], lower95: [], upper95: [], regression: [], modelSe: [] };
   for (let i = 0; i < h; i++) {
     let xb = 0;

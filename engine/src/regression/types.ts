@@ -65,8 +65,15 @@ export interface RegressionFit {
   bic: number;
   /** parameters counted in the criteria: ARMA coefficients + regression coefficients + 1 (σ²), as R's forecast package */
   nParams: number;
-  /** differenced hours in the likelihood */
+  /** hours in the likelihood: observed differenced values (R's n.used under the diffuse form) */
   nUsed: number;
+  /**
+   * the likelihood's form: 'differenced' (the exact likelihood of the differenced data) or
+   * 'diffuse' (a differenced series with gaps, in the state space of the undifferenced errors
+   * with a diffuse start, as R's arima: it keeps what differencing loses at a gap); see
+   * likelihood-forms.ts
+   */
+  likelihood: 'differenced' | 'diffuse';
   /** hours of the load given (the timeline of y and of every regressor) */
   hours: number;
   /** regression errors u_t = y_t − x_t'β on the load's timeline (NaN where y or a regressor is missing) */
