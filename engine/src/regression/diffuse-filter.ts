@@ -45,13 +45,23 @@ export function diffuseModel(ss: ArmaStateSpace, diff: readonly number[]): Diffu
   for (let i = 0; i < r; i++) {
     const cols: number[] = [];
     const coefs: number[] = [];
-    if (phi[i] !== 0) (cols.push(0), coefs.push(phi[i]));
-    if (i + 1 < r) (cols.push(i + 1), coefs.push(1));
+    if (phi[i] !== 0) {
+      cols.push(0);
+      coefs.push(phi[i]);
+    }
+    if (i + 1 < r) {
+      cols.push(i + 1);
+      coefs.push(1);
+    }
     row(cols, coefs);
   }
   const zc = [0];
   const zv = [1];
-  for (let j = 1; j <= D; j++) if (c[j] !== 0) (zc.push(r + j - 1), zv.push(-c[j]));
+  for (let j = 1; j <= D; j++) {
+    if (c[j] === 0) continue;
+    zc.push(r + j - 1);
+    zv.push(-c[j]);
+  }
   if (D > 0) row(zc, zv);
   for (let i = r + 1; i < m; i++) row([i - 1], [1]);
   const V = new Float64Array(m * m);
