@@ -51,9 +51,10 @@ describe('regression with ARMA errors: the estimator', () => {
     const b = fitRegression(gapY, [weekend], { diff: [24], p: 1, q: 1 }, { computeSe: false });
     expect(a.loglik).toBe(b.loglik);
     expect(a.beta[0].value).toBe(b.beta[0].value);
-    // a differenced series with gaps takes the diffuse form (R's n.used: observed hours less 24)
-    expect(a.likelihood).toBe('diffuse');
-    expect(a.nUsed).toBe(hours - 2 - 24);
+    // eight weeks of hours are too long for the diffuse form: the differenced form loses the
+    // four daily differences that touch the two missing hours
+    expect(a.likelihood).toBe('differenced');
+    expect(a.nUsed).toBe(hours - 24 - 4);
     expect(Number.isNaN(a.errors[300])).toBe(true);
   });
 
@@ -150,7 +151,8 @@ describe('regression with ARMA errors: the diffuse form', () => {
     const x = [{ name: 'weekend', values: weekendValues.slice(0, 600) }];
     const a = fitRegression(y, x, { diff: [24], p: 1, q: 1 }, { computeSe: false });
     expect(a.likelihood).toBe('differenced');
-    // one hour missing at the very end changes little, and switches the form
+    // one hour missing at the very end changes little, and switches the form (600 hours under
+    // (1 − B^24) ARMA(1,1): a state of 26, within the diffuse form's reach)
     const yGap = Float64Array.from(y);
     yGap[599] = NaN;
     const b = fitRegression(yGap, x, { diff: [24], p: 1, q: 1 }, { computeSe: false });
