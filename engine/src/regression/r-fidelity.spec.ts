@@ -11,6 +11,9 @@
  *    engine's diffuse form, as R's state space),
  *  - log(Seatbelts drivers) with eight months removed, under the seasonal differencing,
  *  - freeny.y ARIMA(1,1,0) on price.index and income.level: a first difference,
+ *  - intervention steps and trends: Nile ARMA(1,1) on the Aswan dam step, USAccDeaths
+ *    (0,1,1)(0,1,1)12 on a 1978 step, presidents AR(1) with its 6 missing quarters on a Watergate
+ *    step, austres ARIMA(2,1,0) with a drift column, nottem (1,0,0)(1,1,0)12 on a linear trend,
  *  - the open hourly demand series (forecast's taylor) ARMA(2,1) on daily harmonics.
  * R fitted each by "CSS-ML", "ML" and "ML" with a tight tolerance; the target is the highest
  * likelihood of the three. Targets: log-likelihood within 0.01, coefficients within 0.002
