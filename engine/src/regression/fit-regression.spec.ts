@@ -163,5 +163,12 @@ describe('regression with ARMA errors: the diffuse form', () => {
     // κ = 10⁶ for the 24 diffuse levels (a few thousandths of log L on loads of 30,000 MW)
     expect(Math.abs(b.loglik - c.loglik)).toBeLessThan(0.01);
     expect(Math.abs(b.beta[0].value / c.beta[0].value - 1)).toBeLessThan(1e-4);
+    // re-run over its own history the diffuse fit reproduces its forecast
+    const next = [{ name: 'weekend', values: weekendValues.slice(600, 624) }];
+    expect(applyRegression(b, yGap, x).forecast(next).mean).toEqual(b.forecast(next).mean);
+    // and its day-ahead forecast follows the hour it had not seen when that hour is given
+    const later = applyRegression(b, load.slice(0, 624), [{ name: 'weekend', values: weekendValues.slice(0, 624) }]);
+    expect(later.likelihood).toBe('diffuse');
+    expect(later.hours).toBe(624);
   });
 });
