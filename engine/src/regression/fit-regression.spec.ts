@@ -166,7 +166,7 @@ describe('regression with ARMA errors: the diffuse form', () => {
     // re-run over its own history the diffuse fit reproduces its forecast
     const next = [{ name: 'weekend', values: weekendValues.slice(600, 624) }];
     expect(applyRegression(b, yGap, x).forecast(next).mean).toEqual(b.forecast(next).mean);
-    // and its day-ahead forecast follows the hour it had not seen when that hour is given
+    // and it runs on over a longer history in the form it was estimated in
     const later = applyRegression(b, load.slice(0, 624), [{ name: 'weekend', values: weekendValues.slice(0, 624) }]);
     expect(later.likelihood).toBe('diffuse');
     expect(later.hours).toBe(624);
