@@ -29,7 +29,7 @@ import { hannanRissanen } from '../arma/hannan-rissanen';
 import { differenceOrder } from '../series/differencing';
 import { buildDesign, INTERCEPT } from './design';
 import { forecastFromState } from './forecast-regression';
-import { hessianStandardErrors } from './hessian';
+import { Covariance, hessianStandardErrors } from './hessian';
 import { crossProducts, solveNormal } from './least-squares';
 import { chooseForm, differencedForm, diffuseForm, LikelihoodForm } from './likelihood-forms';
 import { differencedErrors } from './profile';
@@ -130,8 +130,8 @@ export function fitRegression(y: ArrayLike<number>, regressors: readonly Regress
   const bic = aic + nParams * (Math.log(nStar) - 2);
 
   const armaValues = [...nat.ar, ...nat.ma, ...nat.sar, ...nat.sma];
-  let se = new Array<number>(k + nBeta).fill(NaN);
-  if (opts.computeSe ?? true) se = standardErrors(form, o, armaValues, est.beta, sigma2, est.inverse);
+  const m = k + nBeta;
+  const { se, cov } = (opts.computeSe ?? true) ? standardErrors(form, o, armaValues, est.beta, sigma2, est.inverse) : { se: new Array<number>(m).fill(NaN), cov: new Float64Array(m * m).fill(NaN) };
   const armaCoefficients: Coefficient[] = armaNames(o).map((name, i) => ({ name, value: armaValues[i], se: se[i] }));
   const beta: Coefficient[] = design.names.map((name, j) => ({ name, value: est.beta[j], se: se[k + j] }));
 
@@ -143,6 +143,7 @@ export function fitRegression(y: ArrayLike<number>, regressors: readonly Regress
     beta,
     armaCoefficients,
     coefficients: [...armaCoefficients, ...beta],
+    covariance: cov,
     ar: nat.ar,
     ma: nat.ma,
     sar: nat.sar,
@@ -171,7 +172,7 @@ export function fitRegression(y: ArrayLike<number>, regressors: readonly Regress
  * Standard errors of the ARMA coefficients and β together (hessian.ts): steps of 1e-4 for the
  * ARMA coefficients and 1e-3 of β_j's GLS standard error for fixed ARMA coefficients.
  */
-function standardErrors(form: LikelihoodForm, o: Required<ArmaSpec>, armaValues: number[], beta: Float64Array, sigma2: number, glsInverse: Float64Array): number[] {
+function standardErrors(form: LikelihoodForm, o: Required<ArmaSpec>, armaValues: number[], beta: Float64Array, sigma2: number, glsInverse: Float64Array): Covariance {
   const ka = armaValues.length;
   const kb = beta.length;
   const steps = [...armaValues.map(() => 1e-4), ...Array.from(beta, (_, j) => 1e-3 * Math.sqrt(sigma2 * glsInverse[j * kb + j]) || 1e-6)];

@@ -8,9 +8,16 @@
  */
 import { inverse, Matrix } from 'ml-matrix';
 
-export function hessianStandardErrors(values: readonly number[], steps: readonly number[], negLogLik: (v: number[]) => number): number[] {
+export interface Covariance {
+  /** standard errors, NaN where the inverse has no positive diagonal */
+  se: number[];
+  /** the inverse Hessian, row-major m×m (NaN when it could not be inverted) */
+  cov: Float64Array;
+}
+
+export function hessianStandardErrors(values: readonly number[], steps: readonly number[], negLogLik: (v: number[]) => number): Covariance {
   const m = values.length;
-  if (m === 0) return [];
+  if (m === 0) return { se: [], cov: new Float64Array(0) };
   const f = (v: number[]): number => {
     try {
       const x = negLogLik(v);
@@ -36,11 +43,14 @@ export function hessianStandardErrors(values: readonly number[], steps: readonly
   }
   try {
     const V = inverse(H);
-    return values.map((_, i) => {
+    const cov = new Float64Array(m * m);
+    for (let i = 0; i < m; i++) for (let j = 0; j < m; j++) cov[i * m + j] = V.get(i, j);
+    const se = values.map((_, i) => {
       const v = V.get(i, i);
       return v > 0 && Number.isFinite(v) ? Math.sqrt(v) : NaN;
     });
+    return { se, cov };
   } catch {
-    return values.map(() => NaN);
+    return { se: values.map(() => NaN), cov: new Float64Array(m * m).fill(NaN) };
   }
 }

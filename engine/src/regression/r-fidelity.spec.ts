@@ -33,6 +33,8 @@ interface RFit {
   sigma2: number;
   coef: Record<string, number>;
   se: Record<string, number>;
+  /** var.coef, rows in the order of coef */
+  cov: number[][];
   pred?: number[];
   predSe?: number[];
   forecastArima?: { loglik: number; aicc: number; bic: number };
@@ -102,6 +104,18 @@ describe.each(cases.map((c) => [c.name, c] as const))('regression with ARMA erro
 
   it('standard errors within 1 % of R (Hessian of the full likelihood)', () => {
     for (const k of fit.coefficients) expect(Math.abs(k.se / r.se[k.name] - 1)).toBeLessThan(0.01);
+  });
+
+  it("the coefficients' correlations as R's var.coef has them (within 0.01)", () => {
+    const m = fit.coefficients.length;
+    const corr = (c: (i: number, j: number) => number, i: number, j: number) => c(i, j) / Math.sqrt(c(i, i) * c(j, j));
+    for (let i = 0; i < m; i++) {
+      for (let j = 0; j < i; j++) {
+        const ours = corr((a, b) => fit.covariance[a * m + b], i, j);
+        const theirs = corr((a, b) => r.cov[a][b], i, j);
+        expect(Math.abs(ours - theirs)).toBeLessThan(0.01);
+      }
+    }
   });
 
   it('AICc and BIC as forecast::Arima counts them', () => {

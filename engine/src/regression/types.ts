@@ -52,6 +52,12 @@ export interface RegressionFit {
   armaCoefficients: Coefficient[];
   /** every coefficient in R's order: ARMA first, then intercept and regressors */
   coefficients: Coefficient[];
+  /**
+   * their joint covariance (R's var.coef), row-major in the order of `coefficients`; the block of
+   * β gives the uncertainty of a combination such as a temperature response. NaN without
+   * standard errors (computeSe false).
+   */
+  covariance: Float64Array;
   ar: Float64Array;
   ma: Float64Array;
   sar: Float64Array;
