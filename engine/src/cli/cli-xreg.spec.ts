@@ -67,6 +67,7 @@ describe('command line: fit --xreg', () => {
     expect(Math.abs((r.loglik as number) - want.loglik)).toBeLessThan(0.01);
     expect(r.missingHours).toBe(c.y.slice(0, c.y.length - c.holdout).filter((v) => v === null).length);
     expect(r.regressors).toEqual(['Temp', 'Wind']);
+    expect(r.likelihood).toBe('differenced');
   });
 
   it('Seatbelts with a seasonal differencing and a seasonal MA, as text: regression rows beside the ARMA rows', () => {

@@ -58,6 +58,7 @@ export function runXregFit(a: XregFitArgs): { text: string; json: Record<string,
     ...{ sigma2: m.sigma2, loglik: m.loglik, aic: m.aic, aicc: m.aicc, bic: m.bic },
     ljungBox: lb,
     n: m.nUsed,
+    likelihood: m.likelihood,
     converged: m.converged,
     fitMs,
     firstFitMs: times[0],
@@ -75,7 +76,7 @@ export function runXregFit(a: XregFitArgs): { text: string; json: Record<string,
     '',
     `sigma2 ${f(m.sigma2)}   loglik ${f(m.loglik, 2)}   AIC ${f(m.aic, 2)}   AICc ${f(m.aicc, 2)}   BIC ${f(m.bic, 2)}`,
     ...lb.map((l) => `Ljung–Box lag ${l.lag}: Q ${f(l.statistic, 2)} on ${l.df} df, p ${f(l.pValue, 4)}`),
-    `n ${m.nUsed}   estimation ${a.repeat > 1 ? `${f(fitMs, 1)} ms (median of ${a.repeat - 1} warm fits; first ${f(times[0], 1)} ms)` : `${f(fitMs, 1)} ms`}${m.converged ? '' : '   (optimiser did not fully converge)'}`,
+    `n ${m.nUsed}   likelihood ${m.likelihood === 'diffuse' ? 'in the diffuse state space (gaps under a differencing, as R)' : 'of the differenced series'}   estimation ${a.repeat > 1 ? `${f(fitMs, 1)} ms (median of ${a.repeat - 1} warm fits; first ${f(times[0], 1)} ms)` : `${f(fitMs, 1)} ms`}${m.converged ? '' : '   (optimiser did not fully converge)'}`,
   ];
   return { text: lines.join('\n'), json };
 }
