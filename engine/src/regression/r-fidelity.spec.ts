@@ -14,12 +14,14 @@
  *  - intervention steps and trends: Nile ARMA(1,1) on the Aswan dam step, USAccDeaths
  *    (0,1,1)(0,1,1)12 on a 1978 step, presidents AR(1) with its 6 missing quarters on a Watergate
  *    step, austres ARIMA(2,1,0) with a drift column, nottem (1,0,0)(1,1,0)12 on a linear trend,
+ *  - BJsales ARIMA(1,1,1) on its leading indicator three periods earlier, mdeaths
+ *    (1,0,1)(1,0,0)12 on fdeaths, uspop ARIMA(1,2,0) on a 1940s step (a second difference),
  *  - the open hourly demand series (forecast's taylor) ARMA(2,1) on daily harmonics.
  * R fitted each by "CSS-ML", "ML" and "ML" with a tight tolerance; the target is the highest
  * likelihood of the three. Targets: log-likelihood within 0.01, coefficients within 0.002
- * (for the hourly load's coefficients in MW, 2e-4 of a standard error, about 0.05 MW: R's own
- * three fits differ among themselves by 13 MW on its intercept, the likelihood being that
- * flat), standard errors within 1 %, forecasts and their standard errors within 0.1 % (a
+ * (for coefficients counted in MW or deaths, 2e-4 of a standard error, about 0.05 MW on the
+ * hourly load: R's own three fits differ among themselves by 13 MW on its intercept, the
+ * likelihood being that flat), standard errors within 1 %, forecasts and their standard errors within 0.1 % (a
  * forecast near zero, airquality's first day, within 0.1 % of its standard error); AICc
  * and BIC against forecast::Arima's within 0.02 (twice the log-likelihood's tolerance).
  */
