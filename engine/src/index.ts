@@ -18,3 +18,4 @@ export * from './adf';
 export * from './kpss';
 export * from './mackinnon';
 export * from './stationarity';
+export * from './regression';

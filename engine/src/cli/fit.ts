@@ -1,6 +1,8 @@
 /**
  * `npm run fit -- --input FILE.csv [--diff 24,168] [--order p,q] [--seasonal P,Q,s]
- *  [--mean|--no-mean] [--repeat N] [--json]` (`--help` prints the usage)
+ *  [--mean|--no-mean] [--xreg REGRESSORS.csv] [--repeat N] [--json]` (`--help` prints the usage)
+ * With --xreg (`timestamp,NAME1,NAME2,…`, one row per hour of the load) the model is a
+ * regression with ARMA errors on those columns, fitted as given (fit-xreg.ts).
  * Fits a model to an hourly load history and prints coefficients with standard errors, σ²,
  * log-likelihood, AIC, AICc, BIC, Ljung–Box at lags 24 and 48, n and the estimation time.
  * Without --order the orders are chosen by AICc (p, q ≤ 3); without --diff and --order the
@@ -12,9 +14,10 @@
 import { readFileSync } from 'node:fs';
 import { parseArgs } from 'node:util';
 import { parseLoadCsv } from './csv-series';
+import { runXregFit } from './fit-xreg';
 import { difference, describeDifferencing, fitArima, ljungBox, median, runPipeline, selectOrder, ArimaFit } from '@morrowline/engine';
 
-const USAGE = 'usage: npm run fit -- --input FILE.csv [--diff 24,168|none] [--order p,q] [--seasonal P,Q,s] [--mean|--no-mean] [--repeat N] [--json]';
+const USAGE = 'usage: npm run fit -- --input FILE.csv [--diff 24,168|none] [--order p,q] [--seasonal P,Q,s] [--mean|--no-mean] [--xreg REGRESSORS.csv (with --order)] [--repeat N] [--json]';
 
 const START_LABELS: Record<ArimaFit['arma']['startedFrom'], string> = {
   given: 'given',
@@ -43,6 +46,7 @@ export function runFit(argv: string[]): { text: string; json: Record<string, unk
       mean: { type: 'boolean' },
       'no-mean': { type: 'boolean' },
       repeat: { type: 'string' },
+      xreg: { type: 'string' },
       json: { type: 'boolean' },
       help: { type: 'boolean', short: 'h' },
     },
@@ -60,6 +64,7 @@ export function runFit(argv: string[]): { text: string; json: Record<string, unk
   let order = a.order ? parseIntList(a.order, 'order', 2) : undefined;
   const seasonal = a.seasonal ? parseIntList(a.seasonal, 'seasonal', 3) : undefined;
   const includeMean = a.mean ? true : a['no-mean'] ? false : undefined;
+  if (a.xreg) return runXregFit({ input: a.input, series, xreg: a.xreg, diff: diff ?? [], order, seasonal, includeMean, repeat });
   let chosenBy = 'given';
   let pipelineMs: number | undefined;
   if (!diff && !order) {
