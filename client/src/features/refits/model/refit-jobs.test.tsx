@@ -58,4 +58,23 @@ describe('refit job list from progress events', () => {
     expect(queryClient.getQueryData<RefitJobDto[]>(refitJobsKey)?.[0]).toMatchObject({ state: 'done', progress: 100 });
     expect(queryClient.getQueryState(modelVersionsKey('QUARRY'))?.isInvalidated).toBe(true);
   });
+
+  it('fetches the jobs and versions again after the connection dropped and came back (a job may have ended meanwhile)', () => {
+    const sessionStore = createSessionStore({ storage: window.sessionStorage });
+    sessionStore.start('token', 3600);
+    const { connect, opened } = fakeSocketFactory();
+    const socket = createDeskSocket({ sessionStore, connect: connect as never });
+    const queryClient = new QueryClient();
+    const wrapper = ({ children }: { children: ReactNode }) => <QueryClientProvider client={queryClient}>{children}</QueryClientProvider>;
+    renderHook(() => useRefitProgress(socket), { wrapper });
+    const server = opened[0].socket;
+    queryClient.setQueryData<RefitJobDto[]>(refitJobsKey, [job(6, { state: 'running', progress: 20 })]);
+    queryClient.setQueryData(modelVersionsKey('QUARRY'), []);
+    act(() => server.fire('connect'));
+    expect(queryClient.getQueryState(refitJobsKey)?.isInvalidated).toBe(false);
+    act(() => server.fire('disconnect'));
+    act(() => server.fire('connect'));
+    expect(queryClient.getQueryState(refitJobsKey)?.isInvalidated).toBe(true);
+    expect(queryClient.getQueryState(modelVersionsKey('QUARRY'))?.isInvalidated).toBe(true);
+  });
 });
