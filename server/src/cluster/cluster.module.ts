@@ -30,7 +30,7 @@ export class ClusterModule {
           provide: REFIT_QUEUE,
           useFactory: async (): Promise<Queue> => {
             const { Queue: BullQueue } = await import('bullmq');
-            return new BullQueue(REFIT_QUEUE_NAME, { connection: await openRedis(config, 'queue') });
+            return new BullQueue(REFIT_QUEUE_NAME, { connection: await openRedis(config, 'queue', { failFast: true }) });
           },
         },
         { provide: REFIT_DISPATCH, useFactory: (queue: Queue) => new BullRefitDispatch(queue, config), inject: [REFIT_QUEUE] },
