@@ -5,7 +5,8 @@
  * processes (scripts/test.sh cluster), here job by job: a stored job goes to the queue and is not
  * run in-process; a job taken over from a worker that died mid-fit completes; two workers finishing
  * the same job store one model version and one forecast run; a retry after the result is stored
- * changes nothing; a job the queue gave up on is failed and frees its zone.
+ * changes nothing; a job the queue gave up on is failed and frees its zone; unfinished jobs are
+ * queued again.
  */
 import { EntityManager } from '@mikro-orm/mariadb';
 import { Global, Module } from '@nestjs/common';
@@ -71,6 +72,7 @@ describe('refit jobs handed to a queue and run by workers (real MariaDB, queue r
   });
 
   let jobId: number;
+  let thirdId: number;
 
   it('queues a requested refit and does not run it in this process', async () => {
     const res = await request(app.getHttpServer()).post('/api/models/refits').set('Authorization', `Bearer ${operator}`).send({ zone, reason: 'queued refit' }).expect(202);
@@ -112,6 +114,14 @@ describe('refit jobs handed to a queue and run by workers (real MariaDB, queue r
     expect(await em().findOneOrFail(RefitJob, second)).toMatchObject({ state: 'failed', activeZoneId: null, message: 'the workers running it stopped (job stalled more than allowable limit)' });
     expect(await counts()).toEqual({ versions: 1, runs: 1 });
     const third = await request(app.getHttpServer()).post('/api/models/refits').set('Authorization', `Bearer ${operator}`).send({ zone, reason: 'third refit' }).expect(202);
-    expect((third.body as RefitJobDto[])[0].id).toBeGreaterThan(second);
+    thirdId = (third.body as RefitJobDto[])[0].id;
+    expect(thirdId).toBeGreaterThan(second);
+  });
+
+  it('puts an unfinished job on the queue again each hour (its node may have stopped before queueing it), as the same queue job', async () => {
+    pushed.length = 0;
+    await app.get(RefitsService).requeueUnfinished();
+    expect(pushed).toContainEqual({ refitJobId: thirdId, zoneId, mode: 'full', trigger: 'operator' });
+    expect(pushed.map((p) => p.refitJobId)).not.toContain(jobId);
   });
 });

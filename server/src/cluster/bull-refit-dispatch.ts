@@ -17,13 +17,17 @@ export class BullRefitDispatch implements RefitDispatch {
 
   async push(job: RefitDispatchJob): Promise<void> {
     const data: QueuedRefit = { refitJobId: job.refitJobId, zoneId: job.zoneId };
-    await this.queue.add(jobNameFor(job.mode), data, {
-      jobId: jobIdFor(job.refitJobId),
+    const jobId = jobIdFor(job.refitJobId);
+    const added = await this.queue.add(jobNameFor(job.mode), data, {
+      jobId,
       deduplication: { id: deduplicationIdFor(job.zoneId, job.mode) },
       priority: priorityFor(job),
       attempts: 1,
       removeOnComplete: { age: this.config.keepCompletedSeconds },
       removeOnFail: { age: this.config.keepFailedSeconds },
     });
+    // Joined to another queue job of the same zone and purpose: that stored job has finished but
+    // its queue job has not quite (the moment between the two); this one would never run.
+    if (added.id !== jobId) throw new Error(`the zone's previous ${jobNameFor(job.mode)} is still finishing on a worker; ask again in a moment`);
   }
 }

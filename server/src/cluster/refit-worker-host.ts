@@ -59,6 +59,7 @@ export class RefitWorkerHost implements OnApplicationShutdown {
         await this.refits.scheduled('full');
         return;
       case QUEUE_JOB.hourly:
+        await this.refits.requeueUnfinished();
         await this.refits.scheduled('update');
         return;
       default:

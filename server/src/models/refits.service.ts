@@ -202,6 +202,19 @@ export class RefitsService implements OnApplicationShutdown {
     await this.run(id, true, beforeFit);
   }
 
+  /**
+   * Puts every unfinished job on the queue again (cluster mode, each hour before the forecast
+   * update): a node that stopped between storing a job and queueing it would otherwise leave the
+   * zone blocked. A job still in the queue is the same queue job (its id is the stored job's), so
+   * this adds nothing for it. Answers how many were pushed.
+   */
+  async requeueUnfinished(): Promise<number> {
+    if (!this.dispatch) return 0;
+    const unfinished = await this.jobs.unfinished(this.jobs.fork());
+    for (const job of unfinished) await this.dispatch.push({ refitJobId: job.id, zoneId: job.zone.id, mode: job.mode, trigger: job.trigger });
+    return unfinished.length;
+  }
+
   /** A job BullMQ gave up on (stalled too often): marked failed, so the zone can be refitted again. */
   async failFromQueue(id: number, message: string): Promise<void> {
     const job = await this.jobs.byId(id);
