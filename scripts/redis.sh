@@ -37,13 +37,7 @@ start() {
 }
 
 stop() {
-  if running; then
-    local pid; pid="$(cat "$pidfile")"
-    log "stopping Redis '$name' (pid $pid)"
-    kill "$pid" 2>/dev/null || true
-    for _ in $(seq 1 40); do kill -0 "$pid" 2>/dev/null || break; sleep 0.25; done
-    kill -9 "$pid" 2>/dev/null || true
-  fi
+  stop_pid_file "Redis '$name'" "$pidfile" 10
 }
 
 flush() {
