@@ -64,13 +64,7 @@ start() {
 }
 
 stop() {
-  if running; then
-    local pid; pid="$(cat "$pidfile")"
-    log "stopping MariaDB '$name' (pid $pid)"
-    kill "$pid" 2>/dev/null || true
-    for _ in $(seq 1 60); do kill -0 "$pid" 2>/dev/null || break; sleep 0.5; done
-    kill -9 "$pid" 2>/dev/null || true
-  fi
+  stop_pid_file "MariaDB '$name'" "$pidfile" 30
 }
 
 reset() {

@@ -65,3 +65,15 @@ build_all() {
   npm run -s build >"$ROOT/.data/build.log" 2>&1 || { tail -30 "$ROOT/.data/build.log" >&2; rm -f "$stamp.new"; die "build failed (full output in .data/build.log)"; }
   mv "$stamp.new" "$stamp"
 }
+
+# stop_pid_file WHAT PIDFILE SECONDS — stops the process a pid file names (the private MariaDB and
+# Redis servers): SIGTERM, up to SECONDS for it to finish writing and go, then SIGKILL.
+stop_pid_file() {
+  local what="$1" pidfile="$2" seconds="$3" pid
+  [ -f "$pidfile" ] && kill -0 "$(cat "$pidfile")" 2>/dev/null || return 0
+  pid="$(cat "$pidfile")"
+  log "stopping $what (pid $pid)"
+  kill "$pid" 2>/dev/null || true
+  for _ in $(seq 1 $((seconds * 4))); do kill -0 "$pid" 2>/dev/null || return 0; sleep 0.25; done
+  kill -9 "$pid" 2>/dev/null || true
+}

@@ -2,10 +2,11 @@
 # npm test: every suite, with what they need started here and stopped afterwards.
 #   engine (jest) · shared rules (jest) · server unit (jest) · server integration (jest, real
 #   MariaDB on 127.0.0.1:3308, fresh schema) · simulator (jest) · client (vitest) · browser (vitest
-#   + playwright-core + Debian Chromium) · start (a clean clone of HEAD through npm run dev,
+#   + playwright-core + Debian Chromium) · cluster (Debian Redis on 127.0.0.1:6390, two API nodes
+#   and two workers on the test database) · start (a clean clone of HEAD through npm run dev,
 #   bench:ingest and npm start, twice)
 # Ends with one line "N passed, N failed" and a non-zero exit if anything failed.
-# Run one suite alone: scripts/test.sh engine|shared|unit|integration|simulators|client|e2e|lint|start
+# Run one suite alone: scripts/test.sh engine|shared|unit|integration|simulators|client|e2e|cluster|lint|start
 # (unit includes shared: the operating-day, role and zone-code rules the server and the desk both use)
 set -uo pipefail
 source "$(dirname "$0")/lib.sh"
@@ -16,6 +17,7 @@ reports="$ROOT/.data/test-reports"
 rm -rf "$reports"; mkdir -p "$reports"
 export TEST_DB_PORT="${TEST_DB_PORT:-3308}"
 export TEST_APP_PORT="${TEST_APP_PORT:-3100}"
+export TEST_REDIS_PORT="${TEST_REDIS_PORT:-6390}"
 failures=()
 pids=()
 
@@ -24,6 +26,7 @@ cleanup() {
   for pid in "${pids[@]}"; do kill "$pid" 2>/dev/null; done
   wait 2>/dev/null
   bash "$ROOT/scripts/db.sh" stop test >/dev/null 2>&1 || true
+  bash "$ROOT/scripts/redis.sh" stop test >/dev/null 2>&1 || true
 }
 trap cleanup EXIT
 trap 'exit 130' INT TERM
@@ -64,7 +67,7 @@ if want simulators; then
   suite simulators npx --workspace simulators jest --json --outputFile="$reports/simulators.json"
 fi
 
-if want integration || want e2e; then
+if want integration || want e2e || want cluster; then
   # The SMTP fake the schedule publication tests read their e-mails from.
   export SMTP_PORT="${TEST_SMTP_PORT:-2526}" MAIL_FAKE_DIR="$ROOT/.data/mail/test"
   node scripts/smtp-fake.mjs --port "$SMTP_PORT" --dir "$MAIL_FAKE_DIR" >"$reports/smtp-fake.log" 2>&1 &
@@ -101,6 +104,22 @@ if want e2e; then
   else
     failures+=(build)
   fi
+fi
+
+if want cluster; then
+  # Cluster mode on this machine: Redis (Debian's redis-server, installed if missing), a fresh
+  # schema, the compiled server; the suite starts two API nodes (TEST_APP_PORT+1, +2), a fail-over
+  # proxy (+3) and two workers itself, their logs in .data/test-reports/cluster-*.log.
+  bash "$ROOT/scripts/redis.sh" start test "$TEST_REDIS_PORT" && bash "$ROOT/scripts/redis.sh" flush test "$TEST_REDIS_PORT" \
+    || die "test Redis did not start"
+  bash "$ROOT/scripts/db.sh" reset test "$TEST_DB_PORT" >/dev/null
+  if npm run -s build -w server && (cd server && node dist/database/manage.js migrate >/dev/null && node dist/database/manage.js seed >/dev/null); then
+    REDIS_URL="redis://127.0.0.1:$TEST_REDIS_PORT" CLUSTER_LOG_DIR="$reports" \
+      suite cluster npx --workspace server jest --selectProjects cluster --runInBand --json --outputFile="$reports/cluster.json"
+  else
+    failures+=(cluster-build)
+  fi
+  bash "$ROOT/scripts/redis.sh" stop test >/dev/null
 fi
 
 if want lint; then

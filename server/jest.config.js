@@ -30,5 +30,13 @@ module.exports = {
       testMatch: ['<rootDir>/test/**/*.e2e-spec.ts'],
       transform: { '^.+\\.ts$': swc },
     },
+    {
+      // Redis, two API nodes and two workers (scripts/test.sh cluster starts Redis and the database)
+      displayName: 'cluster',
+      testEnvironment: 'node',
+      rootDir: __dirname,
+      testMatch: ['<rootDir>/test/cluster/**/*.cluster-spec.ts'],
+      transform: { '^.+\\.ts$': swc },
+    },
   ],
 };

@@ -7,6 +7,7 @@ import { AccuracyModule } from './accuracy/accuracy.module';
 import { AlertsModule } from './alerts/alerts.module';
 import { AuditModule } from './audit/audit.module';
 import { ClockModule } from './clock/clock.module';
+import { ClusterModule } from './cluster/cluster.module';
 import { AuthModule } from './auth/auth.module';
 import { configFactory, type AppConfig } from './config/configuration';
 import { ormConfig } from './database/mikro-orm.config';
@@ -57,6 +58,8 @@ import { ZonesModule } from './zones/zones.module';
     SchedulesModule,
     WeatherModule,
     CalendarModule,
+    // empty without REDIS_URL: one machine needs no Redis
+    ClusterModule.forRoot(),
   ],
 })
 export class AppModule {}

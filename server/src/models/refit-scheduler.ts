@@ -13,6 +13,7 @@ const FIRST_MODEL_DELAY_MS = 3 * 60_000;
  * When refits start by themselves: on start, jobs a stopped server left behind are marked failed;
  * then the nightly full refit and the hourly forecast update run on cron in desk time
  * (refit-schedule.ts), and a first check for zones without a model a little after start.
+ * One machine only: in cluster mode the queue's job schedulers do this once per cluster.
  */
 @Injectable()
 export class RefitScheduler implements OnApplicationBootstrap, OnApplicationShutdown {
@@ -29,6 +30,9 @@ export class RefitScheduler implements OnApplicationBootstrap, OnApplicationShut
   }
 
   async onApplicationBootstrap(): Promise<void> {
+    // In cluster mode another node may be running any unfinished job, and the schedules are the
+    // queue's (../cluster/refit-job-schedulers.ts): nothing here.
+    if (this.refits.clustered) return;
     await this.refits.recoverInterrupted();
     const schedule = loadRefitSchedule();
     if (!schedule.enabled) return;

@@ -1,5 +1,5 @@
 import { UniqueConstraintViolationException } from '@mikro-orm/mariadb';
-import { BadRequestException, Injectable, Logger, NotFoundException, type OnApplicationShutdown } from '@nestjs/common';
+import { BadRequestException, Inject, Injectable, Logger, NotFoundException, Optional, type OnApplicationShutdown } from '@nestjs/common';
 import { HOUR_MS, type RefitJobDto, type RefitJobState, type RefitTrigger } from '@morrowline/shared';
 import { AuditService, type Actor } from '../audit/audit.service';
 import { ComputeService } from '../compute/compute.service';
@@ -17,6 +17,7 @@ import { choiceOf, toRefitJobDto } from './model-dto';
 import { modelVersionFields } from './model-version-fields';
 import { ModelVersionsRepository } from './model-versions.repository';
 import { decidePromotion } from './promotion-policy';
+import { REFIT_DISPATCH, type RefitDispatch } from './refit-dispatch';
 import { RefitQueue } from './refit-queue';
 import { RefitJobsRepository } from './refit-jobs.repository';
 import { repeatsVersion } from './unchanged-fit';
@@ -57,7 +58,13 @@ export class RefitsService implements OnApplicationShutdown {
     private readonly events: DomainEventsPublisher,
     private readonly forecasts: ForecastsService,
     private readonly history: ZoneHistoryLoader,
+    @Optional() @Inject(REFIT_DISPATCH) private readonly dispatch: RefitDispatch | null = null,
   ) {}
+
+  /** Whether jobs go to the cluster's queue (REDIS_URL) rather than this process's. */
+  get clustered(): boolean {
+    return this.dispatch !== null;
+  }
 
   async onApplicationShutdown(): Promise<void> {
     await this.queue.stop();
@@ -128,7 +135,16 @@ export class RefitsService implements OnApplicationShutdown {
     }
     job.zone = zone;
     this.broadcast(job);
-    this.queue.push(job.id);
+    if (!this.dispatch) {
+      this.queue.push(job.id);
+      return job;
+    }
+    try {
+      await this.dispatch.push({ refitJobId: job.id, zoneId: zone.id, mode, trigger });
+    } catch (error) {
+      // stored but never queued: the zone must not stay blocked by a job nobody will run
+      await this.fail(job, `could not be queued: ${(error as Error).message}`);
+    }
     return job;
   }
 
@@ -175,9 +191,39 @@ export class RefitsService implements OnApplicationShutdown {
     this.broadcast(job);
   }
 
-  private async run(id: number): Promise<void> {
+  /**
+   * Runs a job taken from the cluster's queue. A job found `running` is one whose worker died or
+   * stalled mid-fit (BullMQ gave it to this worker after its lock ran out): it starts again from
+   * the history. A finished one is left alone, so a retry after the result was stored applies
+   * nothing twice; and `finish` locks the job's row and stores only while it is `running`, so two
+   * workers that both reach the end store one model version and one forecast run.
+   */
+  async runFromQueue(id: number, beforeFit?: () => Promise<void>): Promise<void> {
+    await this.run(id, true, beforeFit);
+  }
+
+  /**
+   * Puts every unfinished job on the queue again (cluster mode, each hour before the forecast
+   * update): a node that stopped between storing a job and queueing it would otherwise leave the
+   * zone blocked. A job still in the queue is the same queue job (its id is the stored job's), so
+   * this adds nothing for it. Answers how many were pushed.
+   */
+  async requeueUnfinished(): Promise<number> {
+    if (!this.dispatch) return 0;
+    const unfinished = await this.jobs.unfinished(this.jobs.fork());
+    for (const job of unfinished) await this.dispatch.push({ refitJobId: job.id, zoneId: job.zone.id, mode: job.mode, trigger: job.trigger });
+    return unfinished.length;
+  }
+
+  /** A job BullMQ gave up on (stalled too often): marked failed, so the zone can be refitted again. */
+  async failFromQueue(id: number, message: string): Promise<void> {
     const job = await this.jobs.byId(id);
-    if (!job || job.state !== 'queued') return;
+    if (job) await this.fail(job, message);
+  }
+
+  private async run(id: number, retryable = false, beforeFit?: () => Promise<void>): Promise<void> {
+    const job = await this.jobs.byId(id);
+    if (!job || !(job.state === 'queued' || (retryable && job.state === 'running'))) return;
     const started = Date.now();
     try {
       await this.step(job, 5, 'reading the history');
@@ -188,6 +234,7 @@ export class RefitsService implements OnApplicationShutdown {
       if (!history) throw new Error(`zone ${zone.code} has no readings yet`);
       const horizon = forecastHorizon(history.lastHourMs, zone.timeZone);
       await this.step(job, 20, job.mode === 'full' ? 'choosing the differencing and ARMA orders' : 'refitting with the orders kept');
+      await beforeFit?.();
       const payload: RefitPayload = {
         values: history.values,
         excluded: history.excluded,

@@ -18,6 +18,18 @@ function job(id: number, changes: Partial<RefitJobDto> = {}): RefitJobDto {
   };
 }
 
+/** useRefitProgress on a desk socket whose server side the test drives. */
+function renderRefitProgress() {
+  const sessionStore = createSessionStore({ storage: window.sessionStorage });
+  sessionStore.start('token', 3600);
+  const { connect, opened } = fakeSocketFactory();
+  const socket = createDeskSocket({ sessionStore, connect: connect as never });
+  const queryClient = new QueryClient();
+  const wrapper = ({ children }: { children: ReactNode }) => <QueryClientProvider client={queryClient}>{children}</QueryClientProvider>;
+  renderHook(() => useRefitProgress(socket), { wrapper });
+  return { queryClient, server: opened[0].socket };
+}
+
 describe('refit job list from progress events', () => {
   it('adds a new job at the top and moves a known one on in place', () => {
     let list = mergeJobs([job(3, { state: 'done', progress: 100 })], job(4));
@@ -39,14 +51,7 @@ describe('refit job list from progress events', () => {
   });
 
   it('writes socket events into the cached list and refetches the zone’s versions once a job is done', () => {
-    const sessionStore = createSessionStore({ storage: window.sessionStorage });
-    sessionStore.start('token', 3600);
-    const { connect, opened } = fakeSocketFactory();
-    const socket = createDeskSocket({ sessionStore, connect: connect as never });
-    const queryClient = new QueryClient();
-    const wrapper = ({ children }: { children: ReactNode }) => <QueryClientProvider client={queryClient}>{children}</QueryClientProvider>;
-    renderHook(() => useRefitProgress(socket), { wrapper });
-    const server = opened[0].socket;
+    const { queryClient, server } = renderRefitProgress();
     queryClient.setQueryData<RefitJobDto[]>(refitJobsKey, []);
     queryClient.setQueryData(modelVersionsKey('QUARRY'), []);
 
@@ -56,6 +61,18 @@ describe('refit job list from progress events', () => {
 
     act(() => server.emitFromServer(DESK_EVENTS.refitProgress, job(5, { state: 'done', progress: 100, modelVersionId: 12 })));
     expect(queryClient.getQueryData<RefitJobDto[]>(refitJobsKey)?.[0]).toMatchObject({ state: 'done', progress: 100 });
+    expect(queryClient.getQueryState(modelVersionsKey('QUARRY'))?.isInvalidated).toBe(true);
+  });
+
+  it('fetches the jobs and versions again after the connection dropped and came back (a job may have ended meanwhile)', () => {
+    const { queryClient, server } = renderRefitProgress();
+    queryClient.setQueryData<RefitJobDto[]>(refitJobsKey, [job(6, { state: 'running', progress: 20 })]);
+    queryClient.setQueryData(modelVersionsKey('QUARRY'), []);
+    act(() => server.fire('connect'));
+    expect(queryClient.getQueryState(refitJobsKey)?.isInvalidated).toBe(false);
+    act(() => server.fire('disconnect'));
+    act(() => server.fire('connect'));
+    expect(queryClient.getQueryState(refitJobsKey)?.isInvalidated).toBe(true);
     expect(queryClient.getQueryState(modelVersionsKey('QUARRY'))?.isInvalidated).toBe(true);
   });
 });
