@@ -19,3 +19,4 @@ export * from './kpss';
 export * from './mackinnon';
 export * from './stationarity';
 export * from './regression';
+export * from './weather';

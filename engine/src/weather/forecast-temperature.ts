@@ -1,0 +1,134 @@
+/**
+ * The temperature a forecast issued at time `at` works with, and how uncertain it is, from what
+ * was known then only (./vintages):
+ *  - hours that ended by `at` keep their observed temperature (no uncertainty);
+ *  - later hours take the latest vintage issued at or before `at` that covers them (an older one
+ *    where the latest has no value), its member mean, and each member's path for the spread;
+ *  - hours no known vintage covers take the observed temperature 24 hours (48, …) earlier
+ *    (persistence), with the error of that rule measured on the history.
+ * The standard error of a forecast temperature at lead L hours is the root mean square error of
+ * the vintages known at `at` against the temperature observed later, at leads in the same
+ * 12-hour bin (the measured error of past forecasts by lead time: Hyndman & Athanasopoulos,
+ * Forecasting: Principles and Practice, 3rd ed. 2021, §7.6, on forecasting with predictors that
+ * must be forecast themselves; the error grows with the lead, so one figure for all leads would
+ * be too wide for the first day and too narrow for the second). Bins with fewer than 24 errors
+ * take the nearest shorter-lead bin that has them, scaled up by the ratio of the leads (errors
+ * grow about linearly with the lead; common practice); with no measured error at all the
+ * persistence error stands in.
+ */
+import { knownVintages, TemperatureVintage, vintageMean } from './vintages';
+
+export const LEAD_BIN_HOURS = 12;
+const MIN_ERRORS_PER_BIN = 24;
+
+export interface ForecastTemperature {
+  /** temperature path over hours 0..at+h: observed before `at`, forecast after (NaN where nothing is known) */
+  path: Float64Array;
+  /** the member paths over the same hours (one per member of the vintage used; empty without members) */
+  members: Float64Array[];
+  /** standard error of each forecast hour's temperature (steps 0..h−1 from the first hour at or after `at`), °C */
+  sd: Float64Array;
+  /** issue time of the vintage used for the first forecast hour (NaN: none, persistence) */
+  vintageIssued: number;
+}
+
+/**
+ * Root mean square error of known vintages by lead bin, measured on the hours observed by `at`.
+ * Returns one value per bin (index floor(lead / 12)), NaN where too few errors.
+ */
+export function leadErrors(observed: ArrayLike<number>, vintages: readonly TemperatureVintage[], at: number, bins = 15): Float64Array {
+  const ss = new Float64Array(bins);
+  const cnt = new Float64Array(bins);
+  const lastObserved = Math.min(observed.length, Math.floor(at));
+  for (const v of knownVintages(vintages, at)) {
+    const end = Math.min(lastObserved, v.first + v.members[0].length);
+    for (let i = Math.max(0, v.first); i < end; i++) {
+      const o = observed[i];
+      const f = vintageMean(v, i);
+      if (!Number.isFinite(o) || !Number.isFinite(f)) continue;
+      const b = Math.floor(Math.max(0, i - v.issued) / LEAD_BIN_HOURS);
+      if (b >= bins) continue;
+      ss[b] += (o - f) * (o - f);
+      cnt[b]++;
+    }
+  }
+  const out = new Float64Array(bins).fill(NaN);
+  for (let b = 0; b < bins; b++) if (cnt[b] >= MIN_ERRORS_PER_BIN) out[b] = Math.sqrt(ss[b] / cnt[b]);
+  return out;
+}
+
+/** Root mean square of T_t − T_{t−24} over the observed hours before `at`: the persistence rule's error. */
+export function persistenceError(observed: ArrayLike<number>, at: number): number {
+  let s = 0;
+  let k = 0;
+  for (let t = 24; t < Math.min(observed.length, Math.floor(at)); t++) {
+    const d = observed[t] - observed[t - 24];
+    if (Number.isFinite(d)) {
+      s += d * d;
+      k++;
+    }
+  }
+  return k ? Math.sqrt(s / k) : NaN;
+}
+
+function sdAtLead(byBin: Float64Array, lead: number, fallback: number): number {
+  const b = Math.min(byBin.length - 1, Math.floor(Math.max(0, lead) / LEAD_BIN_HOURS));
+  if (Number.isFinite(byBin[b])) return byBin[b];
+  for (let c = b - 1; c >= 0; c--) if (Number.isFinite(byBin[c])) return byBin[c] * ((b + 0.5) / (c + 0.5));
+  for (let c = b + 1; c < byBin.length; c++) if (Number.isFinite(byBin[c])) return byBin[c];
+  return fallback;
+}
+
+/**
+ * The temperature path and its uncertainty for a forecast issued at `at` (an hour index: hours
+ * before it are observed) covering h hours from `at`. `observed` may be longer than `at`: later
+ * values are never read. `vintagesAt` (default `at`) is the issue time when it is later than the
+ * last observed hour: vintages issued up to it are used.
+ */
+export function forecastTemperature(observed: ArrayLike<number>, vintages: readonly TemperatureVintage[], at: number, h: number, vintagesAt = at): ForecastTemperature {
+  const o = Math.floor(at);
+  const path = new Float64Array(o + h).fill(NaN);
+  for (let i = 0; i < Math.min(o, observed.length); i++) path[i] = observed[i];
+  const known = knownVintages(vintages, vintagesAt);
+  const latest = known.length ? known[known.length - 1] : undefined;
+  const byBin = leadErrors(observed, vintages, at);
+  const persistence = persistenceError(observed, at);
+  const sd = new Float64Array(h);
+  for (let j = 0; j < h; j++) {
+    const i = o + j;
+    let v = NaN;
+    let used: TemperatureVintage | undefined;
+    for (let k = known.length - 1; k >= 0 && !Number.isFinite(v); k--) {
+      v = vintageMean(known[k], i);
+      if (Number.isFinite(v)) used = known[k];
+    }
+    if (used) {
+      path[i] = v;
+      sd[j] = sdAtLead(byBin, i - used.issued, persistence);
+    } else {
+      for (let u = i - 24; u >= 0 && !Number.isFinite(v); u -= 24) if (u < o) v = path[u];
+      path[i] = v;
+      sd[j] = Number.isFinite(persistence) ? persistence : 0;
+    }
+  }
+  const members: Float64Array[] = [];
+  if (latest && latest.members.length > 1) {
+    for (const m of latest.members) {
+      const p = Float64Array.from(path);
+      for (let j = 0; j < h; j++) {
+        const k = o + j - latest.first;
+        if (k >= 0 && k < m.length && Number.isFinite(m[k])) p[o + j] = m[k];
+      }
+      members.push(p);
+    }
+  }
+  return { path, members, sd, vintageIssued: latest ? latest.issued : NaN };
+}
+
+/** The path for "perfect weather": the observed temperature of the forecast hours too, no uncertainty. */
+export function observedTemperature(observed: ArrayLike<number>, at: number, h: number): ForecastTemperature {
+  const o = Math.floor(at);
+  const path = new Float64Array(o + h).fill(NaN);
+  for (let i = 0; i < Math.min(o + h, observed.length); i++) path[i] = observed[i];
+  return { path, members: [], sd: new Float64Array(h), vintageIssued: NaN };
+}
