@@ -5,3 +5,4 @@ export * from './vintages';
 export * from './forecast-temperature';
 export * from './response-uncertainty';
 export * from './weather-pipeline';
+export * from './weather-backtest';

@@ -227,7 +227,8 @@ export function runWeatherPipeline(input: WeatherPipelineInput): WeatherPipeline
       best = fitTerms(o.fixed.terms, o.fixed.model);
       candidates.push({ label: describeTerms(best.terms), terms: best.terms, mape: best.score.mape });
     } else {
-      const withCalendar = input.calendar !== undefined;
+      // calendar candidates only when the calendar has a special day in the history or the forecast
+      const withCalendar = input.calendar !== undefined && hasSpecialDay(cal, n + h);
       const sets = o.termSets ?? [
         NO_TERMS,
         ...(withCalendar ? [{ temperature: false, recency: false, calendar: true }] : []),
@@ -325,4 +326,9 @@ export function runWeatherPipeline(input: WeatherPipelineInput): WeatherPipeline
 function startOf(coefficients: ReadonlyArray<{ name: string; value: number }>, m: { p: number; q: number; P: number; Q: number }): ModelChoice['start'] {
   const pick = (prefix: string, k: number): number[] => Array.from({ length: k }, (_, i) => coefficients.find((c) => c.name === `${prefix}${i + 1}`)?.value ?? 0);
   return { ar: pick('ar', m.p), ma: pick('ma', m.q), sar: pick('sar', m.P), sma: pick('sma', m.Q) };
+}
+
+function hasSpecialDay(c: CalendarHours, hours: number): boolean {
+  for (let i = 0; i < Math.min(hours, c.holiday.length); i++) if (c.holiday[i] || c.bridge[i]) return true;
+  return false;
 }
