@@ -15,10 +15,28 @@
  * take the nearest shorter-lead bin that has them, scaled up by the ratio of the leads (errors
  * grow about linearly with the lead; common practice); with no measured error at all the
  * persistence error stands in.
+ *
+ * The vintage's own error so far. By the issue time the latest vintage has already been wrong
+ * for some hours (it was issued hours earlier, and those hours have been observed), and a
+ * temperature forecast's errors persist over many hours (a front early or late). So its forecast
+ * for the hours ahead is corrected by its recent error: with e₀ its mean error over the last
+ * three observed hours and g the hours from the last observed one, the correction is b_g·e₀,
+ * b_g the least-squares slope (no intercept) of the error g hours later on e₀ over the past
+ * vintages at the same age (each taken at as many hours after its issue as the latest one is
+ * now), and the standard error of the corrected value is the root mean square of those
+ * regressions' residuals. Where the errors do not persist b_g is near 0 and nothing changes.
+ * This is the measured-error approach above made conditional on what has been observed
+ * (regression on the current error is a common practice of updating a forecast with
+ * observations, as in model output statistics: Glahn & Lowry 1972, J. Appl. Meteor. 11,
+ * 1203–1211).
  */
 import { knownVintages, TemperatureVintage, vintageMean } from './vintages';
 
 export const LEAD_BIN_HOURS = 12;
+/** hours of the vintage's latest errors averaged into e₀ */
+export const RECENT_ERROR_HOURS = 3;
+/** past vintages needed for a slope b_g */
+const MIN_PAST_VINTAGES = 10;
 const MIN_ERRORS_PER_BIN = 24;
 
 export interface ForecastTemperature {
@@ -94,6 +112,7 @@ export function forecastTemperature(observed: ArrayLike<number>, vintages: reado
   const byBin = leadErrors(observed, vintages, at);
   const persistence = persistenceError(observed, at);
   const sd = new Float64Array(h);
+  const update = latest ? recentErrorUpdate(observed, known, latest, at, h) : null;
   for (let j = 0; j < h; j++) {
     const i = o + j;
     let v = NaN;
@@ -105,6 +124,10 @@ export function forecastTemperature(observed: ArrayLike<number>, vintages: reado
     if (used) {
       path[i] = v;
       sd[j] = sdAtLead(byBin, i - used.issued, persistence);
+      if (used === latest && update && Number.isFinite(update.shift[j])) {
+        path[i] = v + update.shift[j];
+        sd[j] = update.sd[j];
+      }
     } else {
       for (let u = i - 24; u >= 0 && !Number.isFinite(v); u -= 24) if (u < o) v = path[u];
       path[i] = v;
@@ -117,7 +140,7 @@ export function forecastTemperature(observed: ArrayLike<number>, vintages: reado
       const p = Float64Array.from(path);
       for (let j = 0; j < h; j++) {
         const k = o + j - latest.first;
-        if (k >= 0 && k < m.length && Number.isFinite(m[k])) p[o + j] = m[k];
+        if (k >= 0 && k < m.length && Number.isFinite(m[k])) p[o + j] = m[k] + (update && Number.isFinite(update.shift[j]) ? update.shift[j] : 0);
       }
       members.push(p);
     }
@@ -131,4 +154,64 @@ export function observedTemperature(observed: ArrayLike<number>, at: number, h: 
   const path = new Float64Array(o + h).fill(NaN);
   for (let i = 0; i < Math.min(o + h, observed.length); i++) path[i] = observed[i];
   return { path, members: [], sd: new Float64Array(h), vintageIssued: NaN };
+}
+
+function meanError(observed: ArrayLike<number>, v: TemperatureVintage, last: number, limit: number): number {
+  let s = 0;
+  let k = 0;
+  for (let i = last - RECENT_ERROR_HOURS + 1; i <= last; i++) {
+    if (i < 0 || i >= limit) continue;
+    const e = observed[i] - vintageMean(v, i);
+    if (Number.isFinite(e)) {
+      s += e;
+      k++;
+    }
+  }
+  return k ? s / k : NaN;
+}
+
+/**
+ * The correction b_g·e₀ of the latest vintage by its error so far, and the corrected values'
+ * standard errors, for steps 0..h−1 from `at` (NaN where it cannot be estimated; see header).
+ */
+export function recentErrorUpdate(observed: ArrayLike<number>, known: readonly TemperatureVintage[], latest: TemperatureVintage, at: number, h: number): { shift: Float64Array; sd: Float64Array } | null {
+  const o = Math.floor(at);
+  const limit = Math.min(o, observed.length);
+  const e0 = meanError(observed, latest, o - 1, limit);
+  if (!Number.isFinite(e0)) return null;
+  const age = at - latest.issued;
+  const sxy = new Float64Array(h);
+  const sxx = new Float64Array(h);
+  const cnt = new Float64Array(h);
+  const pairs: Array<{ x: number; ys: Float64Array }> = [];
+  for (const v of known) {
+    if (v === latest) continue;
+    const anchor = Math.floor(v.issued + age) - 1;
+    if (anchor + 1 >= limit) continue;
+    const x = meanError(observed, v, anchor, limit);
+    if (!Number.isFinite(x)) continue;
+    const ys = new Float64Array(h).fill(NaN);
+    for (let j = 0; j < h; j++) {
+      const i = anchor + 1 + j;
+      if (i >= limit) break;
+      const e = observed[i] - vintageMean(v, i);
+      if (!Number.isFinite(e)) continue;
+      ys[j] = e;
+      sxy[j] += x * e;
+      sxx[j] += x * x;
+      cnt[j]++;
+    }
+    pairs.push({ x, ys });
+  }
+  const shift = new Float64Array(h).fill(NaN);
+  const sd = new Float64Array(h).fill(NaN);
+  for (let j = 0; j < h; j++) {
+    if (cnt[j] < MIN_PAST_VINTAGES || !(sxx[j] > 0)) continue;
+    const b = sxy[j] / sxx[j];
+    let ss = 0;
+    for (const p of pairs) if (Number.isFinite(p.ys[j])) ss += (p.ys[j] - b * p.x) ** 2;
+    shift[j] = b * e0;
+    sd[j] = Math.sqrt(ss / (cnt[j] - 1));
+  }
+  return { shift, sd };
 }

@@ -19,7 +19,7 @@
  * the smallest residual sum of squares wins (Hinkley 1969 on the likelihood of a broken line;
  * grids of degree-day thresholds are common practice).
  */
-import { ols } from '../ols';
+import { inverse, Matrix, solve } from 'ml-matrix';
 import { CalendarHours, termColumns, termNames, TermSet } from './load-terms';
 
 export const RESPONSE_LAG = 168;
@@ -56,46 +56,63 @@ export function estimateResponse(y: ArrayLike<number>, temp: ArrayLike<number>, 
   const cols = termColumns(terms, temp, cal, 0, n);
   const k = cols.length;
   const L = RESPONSE_LAG;
-  const used: number[] = [];
-  const dy: number[] = [];
-  const dx: Float64Array[] = [];
-  const nonzero = new Array<boolean>(k).fill(false);
+  // normal equations accumulated in typed arrays: the threshold grid runs some thirty of these
+  const xtx = new Float64Array(k * k);
+  const xty = new Float64Array(k);
+  const row = new Float64Array(k);
+  let yty = 0;
+  let rows = 0;
   for (let t = L; t < n; t++) {
     const d = y[t] - y[t - L];
-    if (!Number.isFinite(d)) continue;
-    const row = new Float64Array(k);
+    if (!(d === d)) continue;
     let ok = true;
     for (let c = 0; c < k && ok; c++) {
       row[c] = cols[c][t] - cols[c][t - L];
-      ok = Number.isFinite(row[c]);
+      ok = row[c] === row[c];
     }
     if (!ok) continue;
-    for (let c = 0; c < k; c++) if (row[c] !== 0) nonzero[c] = true;
-    used.push(t);
-    dy.push(d);
-    dx.push(row);
+    rows++;
+    yty += d * d;
+    for (let i = 0; i < k; i++) {
+      const ri = row[i];
+      if (ri === 0) continue;
+      xty[i] += ri * d;
+      for (let j = 0; j <= i; j++) xtx[i * k + j] += ri * row[j];
+    }
   }
   const keep: number[] = [];
-  for (let c = 0; c < k; c++) if (nonzero[c]) keep.push(c);
+  for (let c = 0; c < k; c++) if (xtx[c * k + c] > 0) keep.push(c);
   const beta = new Float64Array(k);
   const se = new Float64Array(k).fill(NaN);
   const estimated = new Array<boolean>(k).fill(false);
-  if (!keep.length || dy.length <= keep.length + 10) return { terms, names, beta, se, estimated, rss: NaN, n: dy.length };
-  const rows = dx.map((r) => Float64Array.from(keep, (c) => r[c]));
-  let fit;
-  try {
-    fit = ols(rows, dy);
-  } catch {
-    return { terms, names, beta, se, estimated, rss: NaN, n: dy.length };
-  }
-  keep.forEach((c, i) => {
-    if (Number.isFinite(fit.beta[i])) {
-      beta[c] = fit.beta[i];
-      se[c] = fit.se[i];
-      estimated[c] = true;
-    }
+  const m = keep.length;
+  if (!m || rows <= m + 10) return { terms, names, beta, se, estimated, rss: NaN, n: rows };
+  const A = new Matrix(m, m);
+  const b = new Array<number>(m);
+  keep.forEach((ci, i) => {
+    b[i] = xty[ci];
+    keep.forEach((cj, j) => A.set(i, j, ci >= cj ? xtx[ci * k + cj] : xtx[cj * k + ci]));
   });
-  return { terms, names, beta, se, estimated, rss: fit.rss, n: dy.length };
+  let sol: number[];
+  let inv: Matrix;
+  try {
+    sol = solve(A, Matrix.columnVector(b)).getColumn(0);
+    inv = inverse(A);
+  } catch {
+    return { terms, names, beta, se, estimated, rss: NaN, n: rows };
+  }
+  if (!sol.every(Number.isFinite)) return { terms, names, beta, se, estimated, rss: NaN, n: rows };
+  // RSS = y'y − 2β'X'y + β'X'Xβ = y'y − β'X'y at the least-squares solution
+  let rss = yty;
+  for (let i = 0; i < m; i++) rss -= sol[i] * b[i];
+  rss = Math.max(rss, 0);
+  const s2 = rss / Math.max(rows - m, 1);
+  keep.forEach((c, i) => {
+    beta[c] = sol[i];
+    se[c] = Math.sqrt(Math.max(inv.get(i, i) * s2, 0));
+    estimated[c] = true;
+  });
+  return { terms, names, beta, se, estimated, rss, n: rows };
 }
 
 /** The thresholds of the grid with the smallest residual sum of squares (profile likelihood, see header). */

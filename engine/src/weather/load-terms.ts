@@ -81,7 +81,10 @@ export const cooling = (t: number, theta: number): number => (t > theta ? t - th
  * `temp` is the temperature path indexed like the hours (observed, or observed then forecast);
  * a missing temperature makes that hour's temperature columns NaN (the hour is then left out of
  * the estimation, and a forecast hour falls back as ./forecast-temperature says). The moving
- * average uses the finite values of the 24 hours before t, NaN when fewer than 12 are known.
+ * average uses the finite values of the 24 hours before t, NaN when fewer than 12 are known; at
+ * the very start of the timeline, where fewer than 24 hours exist, those that exist (the hour
+ * itself at hour 0), and the 3-hour lag the first hour's: a gap there would make every fit of the
+ * error model take the slow path of a series with missing hours (../pipeline).
  */
 export function termColumns(s: TermSet, temp: ArrayLike<number>, cal: CalendarHours, from: number, to: number): Float64Array[] {
   const n = Math.max(0, to - from);
@@ -109,8 +112,7 @@ export function termColumns(s: TermSet, temp: ArrayLike<number>, cal: CalendarHo
       const m = movingMean(temp, from + i);
       hm[i] = Number.isFinite(m) ? heating(m, s.heatBelow) : NaN;
       cm[i] = Number.isFinite(m) ? cooling(m, s.coolAbove) : NaN;
-      const j = from + i - RECENCY_LAG;
-      const l = j >= 0 ? temp[j] : NaN;
+      const l = temp[Math.max(0, from + i - RECENCY_LAG)];
       hl[i] = Number.isFinite(l) ? heating(l, s.heatBelow) : NaN;
       cl[i] = Number.isFinite(l) ? cooling(l, s.coolAbove) : NaN;
     }
@@ -133,10 +135,11 @@ export function termColumns(s: TermSet, temp: ArrayLike<number>, cal: CalendarHo
   return cols;
 }
 
-/** Mean of the finite temperatures of the 24 hours before t; NaN with fewer than 12 known. */
+/** Mean of the finite temperatures of the 24 hours before t (fewer at the start); NaN with fewer than half of them known. */
 export function movingMean(temp: ArrayLike<number>, t: number): number {
   let s = 0;
   let k = 0;
+  if (t === 0) return temp[0];
   for (let j = Math.max(0, t - RECENCY_WINDOW); j < t; j++) {
     const v = temp[j];
     if (Number.isFinite(v)) {
@@ -144,5 +147,5 @@ export function movingMean(temp: ArrayLike<number>, t: number): number {
       k++;
     }
   }
-  return k >= RECENCY_WINDOW / 2 ? s / k : NaN;
+  return k >= Math.min(t, RECENCY_WINDOW) / 2 ? s / k : NaN;
 }

@@ -21,7 +21,8 @@
  * As in the pipeline, a model that loses to the weekly seasonal-naive forecast on the test days
  * is not served; the forecast is never negative.
  */
-import { bandScaleFromErrors, BandScale, scaleBands, UNSCALED } from '../band-calibration';
+import { bandScaleFromErrors, BandScale, quantileSorted, scaleBands, UNSCALED } from '../band-calibration';
+import { Z95 } from '../forecast';
 import { DayAheadScore, scoreDayAhead } from '../day-ahead-score';
 import { ArimaFit, fitArima, forecastArima, IntervalForecast } from '../forecast';
 import { originForecaster } from '../origin-forecasts';
@@ -294,7 +295,7 @@ export function runWeatherPipeline(input: WeatherPipelineInput): WeatherPipeline
     upper95: [],
   };
   if (!raw.mean.every(Number.isFinite) || !raw.se.every(Number.isFinite)) return empty('the model produced a non-finite forecast (is the temperature known for every forecast hour?)');
-  const bandScale = calibrate ? bandScaleFromErrors(best.score.z) : UNSCALED;
+  const bandScale = calibrate ? weatherBandScale(best.score.z) : UNSCALED;
   const scenarios = (input.scenarios ?? []).map((s) => {
     const path = Float64Array.from(ft.path);
     for (let j = 0; j < h; j++) path[n + j] = s.temperature[j];
@@ -331,4 +332,24 @@ function startOf(coefficients: ReadonlyArray<{ name: string; value: number }>, m
 function hasSpecialDay(c: CalendarHours, hours: number): boolean {
   for (let i = 0; i < Math.min(hours, c.holiday.length); i++) if (c.holiday[i] || c.bridge[i]) return true;
   return false;
+}
+
+/**
+ * Band scales for the model with weather: the calibration of ../band-calibration (empirical
+ * quantiles of the standardised backtest errors, Williams & Goodman 1971), except that the 95 %
+ * band may also be narrowed (down to half). The pipeline without weather never narrows it,
+ * because a calm month of errors would narrow the band before a rough week; here the rough weeks
+ * are the weather's, and their variance is already in the standard error (the temperature
+ * forecast's error, measured by lead), while that variance is an upper bound (the delta method
+ * with the temperature errors taken as perfectly correlated over the hours a term reads), so
+ * the errors may show it too wide. The 80 % band keeps its width relative to the 95 % band.
+ */
+export function weatherBandScale(z: ArrayLike<number>): BandScale {
+  const base = bandScaleFromErrors(z);
+  if (base.hours === 0) return base;
+  const abs: number[] = [];
+  for (let i = 0; i < z.length; i++) if (Number.isFinite(z[i])) abs.push(Math.abs(z[i]));
+  abs.sort((a, b) => a - b);
+  const k95 = Math.min(3, Math.max(0.5, quantileSorted(abs, 0.95) / Z95));
+  return { k80: (base.k80 * k95) / base.k95, k95, hours: base.hours };
 }
