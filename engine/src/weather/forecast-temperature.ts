@@ -33,6 +33,8 @@
 import { knownVintages, TemperatureVintage, vintageMean } from './vintages';
 
 export const LEAD_BIN_HOURS = 12;
+/** the latest vintages combined (./forecast-temperature, combineVintages) */
+export const COMBINED_VINTAGES = 4;
 /** hours of the vintage's latest errors averaged into e₀ */
 export const RECENT_ERROR_HOURS = 3;
 /** past vintages needed for a slope b_g */
@@ -112,7 +114,8 @@ export function forecastTemperature(observed: ArrayLike<number>, vintages: reado
   const byBin = leadErrors(observed, vintages, at);
   const persistence = persistenceError(observed, at);
   const sd = new Float64Array(h);
-  const update = latest ? recentErrorUpdate(observed, known, latest, at, h) : null;
+  const combined = combineVintages(observed, known, at, h);
+  const update = latest && !combined ? recentErrorUpdate(observed, known, latest, at, h) : null;
   for (let j = 0; j < h; j++) {
     const i = o + j;
     let v = NaN;
@@ -124,7 +127,11 @@ export function forecastTemperature(observed: ArrayLike<number>, vintages: reado
     if (used) {
       path[i] = v;
       sd[j] = sdAtLead(byBin, i - used.issued, persistence);
-      if (used === latest && update && Number.isFinite(update.shift[j])) {
+      const c = combined ? combined.value(i, j) : NaN;
+      if (combined && Number.isFinite(c)) {
+        path[i] = c;
+        sd[j] = combined.sd[j];
+      } else if (used === latest && update && Number.isFinite(update.shift[j])) {
         path[i] = v + update.shift[j];
         sd[j] = update.sd[j];
       }
@@ -135,7 +142,7 @@ export function forecastTemperature(observed: ArrayLike<number>, vintages: reado
     }
   }
   const members: Float64Array[] = [];
-  if (latest && latest.members.length > 1) {
+  if (latest && latest.members.length > 1 && !combined) {
     for (const m of latest.members) {
       const p = Float64Array.from(path);
       for (let j = 0; j < h; j++) {
@@ -214,4 +221,92 @@ export function recentErrorUpdate(observed: ArrayLike<number>, known: readonly T
     sd[j] = Math.sqrt(ss / (cnt[j] - 1));
   }
   return { shift, sd };
+}
+
+/**
+ * The latest few vintages combined with minimum-variance weights (Bates & Granger 1969, "The
+ * combination of forecasts", Oper. Res. Q. 20, 451–468): w = Σ⁻¹1 / 1′Σ⁻¹1, with Σ the covariance
+ * of the vintages' errors at the same ages, measured on the days before (the same issue time
+ * 1, 2, … days earlier, each with the vintages it knew then, on hours observed by now), per
+ * 12-hour bin of the steps ahead; the combined value's variance is 1 / 1′Σ⁻¹1. Where successive
+ * forecasts err alike the weights go to the latest (it is the best informed); where their errors
+ * are independent the older ones are averaged in. Returns null when the days before give too
+ * few errors (fewer than 48 per bin), when the ages of the vintages differ from those of the
+ * days before (a late or missed issue), or when a weight comes out below −0.5 (an unstable Σ);
+ * the latest vintage alone is used then.
+ */
+export function combineVintages(observed: ArrayLike<number>, known: readonly TemperatureVintage[], at: number, h: number): { value: (i: number, j: number) => number; sd: Float64Array; weights: Float64Array[] } | null {
+  const K = COMBINED_VINTAGES;
+  if (known.length < K) return null;
+  const current = known.slice(-K);
+  const ages = current.map((v) => at - v.issued);
+  const o = Math.floor(at);
+  const limit = Math.min(o, observed.length);
+  const bins = Math.ceil(h / LEAD_BIN_HOURS);
+  const S = Array.from({ length: bins }, () => new Float64Array(K * K));
+  const cnt = new Float64Array(bins);
+  const e = new Float64Array(K);
+  for (let d = 1; at - 24 * d > 0; d++) {
+    const o2 = at - 24 * d;
+    const then = knownVintages(known, o2).slice(-K);
+    if (then.length < K || then.some((v, k) => Math.abs(o2 - v.issued - ages[k]) > 0.01)) continue;
+    const base = Math.floor(o2);
+    for (let j = 0; j < h; j++) {
+      const i = base + j;
+      if (i >= limit) break;
+      let ok = Number.isFinite(observed[i]);
+      for (let k = 0; k < K && ok; k++) {
+        e[k] = observed[i] - vintageMean(then[k], i);
+        ok = Number.isFinite(e[k]);
+      }
+      if (!ok) continue;
+      const b = Math.floor(j / LEAD_BIN_HOURS);
+      for (let k = 0; k < K; k++) for (let l = 0; l < K; l++) S[b][k * K + l] += e[k] * e[l];
+      cnt[b]++;
+    }
+  }
+  const weights: Float64Array[] = [];
+  const varByBin = new Float64Array(bins);
+  for (let b = 0; b < bins; b++) {
+    if (cnt[b] < 48) return null;
+    const w = solveSmall(S[b].map((x) => x / cnt[b]), K);
+    if (!w) return null;
+    let sum = 0;
+    for (let k = 0; k < K; k++) sum += w[k];
+    if (!(sum > 0)) return null;
+    for (let k = 0; k < K; k++) w[k] /= sum;
+    if (w.some((x) => x < -0.5)) return null;
+    weights.push(w);
+    varByBin[b] = 1 / sum;
+  }
+  const sd = new Float64Array(h);
+  for (let j = 0; j < h; j++) sd[j] = Math.sqrt(varByBin[Math.floor(j / LEAD_BIN_HOURS)]);
+  const value = (i: number, j: number): number => {
+    const w = weights[Math.floor(j / LEAD_BIN_HOURS)];
+    let s = 0;
+    for (let k = 0; k < K; k++) {
+      const v = vintageMean(current[k], i);
+      if (!Number.isFinite(v)) return NaN;
+      s += w[k] * v;
+    }
+    return s;
+  };
+  return { value, sd, weights };
+}
+
+/** Σ⁻¹1 for a small symmetric positive-definite Σ (Gaussian elimination with partial pivoting); null when singular. */
+function solveSmall(sigma: Float64Array, K: number): Float64Array | null {
+  const a = Array.from({ length: K }, (_, r) => [...Array.from(sigma.subarray(r * K, r * K + K)), 1]);
+  for (let c = 0; c < K; c++) {
+    let p = c;
+    for (let r = c + 1; r < K; r++) if (Math.abs(a[r][c]) > Math.abs(a[p][c])) p = r;
+    if (!(Math.abs(a[p][c]) > 1e-12)) return null;
+    [a[c], a[p]] = [a[p], a[c]];
+    for (let r = 0; r < K; r++) {
+      if (r === c) continue;
+      const f = a[r][c] / a[c][c];
+      for (let k = c; k <= K; k++) a[r][k] -= f * a[c][k];
+    }
+  }
+  return Float64Array.from({ length: K }, (_, r) => a[r][K] / a[r][r]);
 }
