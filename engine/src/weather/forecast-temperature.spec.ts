@@ -1,5 +1,6 @@
 /** The temperature a forecast is issued on, as known at its issue time; values worked out by hand. */
-import { forecastTemperature, leadErrors, observedTemperature, recentErrorUpdate } from './forecast-temperature';
+import { combineVintages, forecastTemperature, leadErrors, observedTemperature, recentErrorUpdate } from './forecast-temperature';
+import { syntheticZone } from './synthetic-zone';
 import { knownVintages, TemperatureVintage, vintagesFromRows } from './vintages';
 
 const HOUR = 3_600_000;
@@ -70,8 +71,34 @@ describe('forecast temperature', () => {
       expect(u.shift[j]).toBeCloseTo(c24, 10);
       expect(u.sd[j]).toBeCloseTo(0, 10);
     }
+  });
+  it('errors that move together across vintages (one miss a day shared by all) give no combination: the latest alone, corrected', () => {
+    const obs = new Float64Array(400).fill(5);
+    const vs: TemperatureVintage[] = [];
+    for (let k = 0; k < 25; k++) vs.push({ issued: k * 12 + 0.5, first: k * 12 + 1, members: [new Float64Array(60).fill(5 - 1.5)] });
+    const at = 24 * 12 + 6;
+    expect(combineVintages(obs, knownVintages(vs, at), at, 10)).toBeNull(); // Σ of rank one
     const f = forecastTemperature(obs, vs, at, 10);
-    expect(f.path[at]).toBeCloseTo(5, 10); // corrected back to the truth
+    expect(f.path[at]).toBeCloseTo(5, 10); // the latest, corrected by its error so far (slope 1)
+  });
+  it('independent errors growing with the lead: the latest vintage weighs most and the combination is more certain than it', () => {
+    const z = syntheticZone(8 * 168, 11);
+    const at = 8 * 168 - 14 + 0.0;
+    const known = knownVintages(z.vintages, at);
+    const c = combineVintages(z.temperature, known, at, 38)!;
+    expect(c).not.toBeNull();
+    for (const w of c.weights) {
+      expect(w.reduce((s, x) => s + x, 0)).toBeCloseTo(1, 12);
+      expect(w[3]).toBe(Math.max(...w));
+    }
+    const single = leadErrors(z.temperature, z.vintages, at);
+    const latest = known[known.length - 1];
+    for (const j of [0, 20, 37]) expect(c.sd[j]).toBeLessThan(single[Math.floor((at + j - latest.issued) / 12)]);
+    const f = forecastTemperature(z.temperature, z.vintages, at, 38);
+    const w = c.weights[1];
+    const i = Math.floor(at) + 15;
+    const byHand = known.slice(-4).reduce((s, v, k) => s + w[k] * v.members[0][i - v.first], 0);
+    expect(f.path[i]).toBeCloseTo(byHand, 12);
   });
   it('perfect weather is the observed temperature with no uncertainty', () => {
     const f = observedTemperature(observed, 10, 5);

@@ -1,6 +1,6 @@
 /**
  * A small synthetic zone for the weather specs: hourly temperature (a daily swing and a slowly
- * wandering anomaly), its forecast vintages (issued every 12 hours at half past, 48 hours ahead,
+ * wandering anomaly), its forecast vintages (issued every 12 hours at half past, 168 hours ahead,
  * erring by (1 + 0.5·L/24)·z °C at lead L with z an AR(1) over the lead hours), and a load that
  * answers it through known degree terms (12 MW per °C below 14 °C, 15 MW per °C above 22 °C) on a
  * daily and weekly shape, with holidays that run like Sundays and AR(1) noise. Deterministic for a
@@ -33,7 +33,7 @@ export const SYNTHETIC_COOL_PER_C = 15;
 export function syntheticZone(hours: number, seed: number, o: { meanC?: number; weatherScale?: number; holidays?: number[] } = {}): SyntheticZone {
   const u = mulberry32(seed);
   const normal = () => Math.sqrt(-2 * Math.log(u() + 1e-12)) * Math.cos(2 * Math.PI * u());
-  const extra = 48;
+  const extra = 168;
   const temperature = new Float64Array(hours + extra);
   let anomaly = 0;
   for (let t = 0; t < hours + extra; t++) {
@@ -60,9 +60,9 @@ export function syntheticZone(hours: number, seed: number, o: { meanC?: number; 
   const vintages: TemperatureVintage[] = [];
   for (let issued = 4.5; issued < hours; issued += 12) {
     const first = Math.floor(issued) + 1;
-    const path = new Float64Array(48);
+    const path = new Float64Array(168);
     let z = normal();
-    for (let j = 0; j < 48; j++) {
+    for (let j = 0; j < 168; j++) {
       if (j > 0) z = 0.97 * z + Math.sqrt(1 - 0.97 * 0.97) * normal();
       const lead = first + j - issued;
       path[j] = Math.round((temperature[first + j] + (1 + (0.5 * lead) / 24) * z) * 10) / 10;

@@ -194,7 +194,14 @@ export function runWeatherPipeline(input: WeatherPipelineInput): WeatherPipeline
 
   const score = (terms: TermSet, response: LoadResponse, fit: ArimaFit, u: Float64Array): DayAheadScore => {
     const zf = originForecaster(fit, u, lastOrigin, lead + 24);
-    return scoreDayAhead(y, testStart, days, lead, (origin, hh) => {
+    const issued = new Map<number, IntervalForecast>();
+    const s = scoreDayAhead(y, testStart, days, lead, (origin, hh) => {
+      const f = forecastFrom(origin, hh);
+      issued.set(origin, f);
+      return f;
+    });
+    return { ...s, z: ordinaryDayErrors(issued) };
+    function forecastFrom(origin: number, hh: number): IntervalForecast {
       const f = zf(origin, hh);
       if (!hasTerms(terms)) return f;
       const ft = temperatureAt(origin, hh);
@@ -208,7 +215,37 @@ export function runWeatherPipeline(input: WeatherPipelineInput): WeatherPipeline
         lower95: [],
         upper95: [],
       };
-    });
+    }
+  };
+
+  /**
+   * Standardised errors for the band calibration from ordinary days only: a day that is, or whose
+   * day or week before was, a public holiday or bridge day is left out. Their errors belong to
+   * the special days (a holiday's own, and its echo through the daily and weekly differences);
+   * with Christmas in the four weeks, they widened every band of the weeks after by a third.
+   * Kept only when at least half of the days remain.
+   */
+  const ordinaryDayErrors = (issued: Map<number, IntervalForecast>): number[] => {
+    const all: number[] = [];
+    const ordinary: number[] = [];
+    let kept = 0;
+    for (let d = 0; d < days; d++) {
+      const ws = testStart + d * 24;
+      const f = issued.get(ws - lead);
+      if (!f) continue;
+      let special = false;
+      for (let t = Math.max(0, ws - 168); t < ws + 24 && !special; t++) special = !!(cal.holiday[t] || cal.bridge[t]);
+      if (!special) kept++;
+      for (let i = 0; i < 24 && ws + i < n; i++) {
+        const a = y[ws + i];
+        const se = f.se[lead + i];
+        if (!Number.isFinite(a) || !(se > 0)) continue;
+        const zv = (a - f.mean[lead + i]) / se;
+        all.push(zv);
+        if (!special) ordinary.push(zv);
+      }
+    }
+    return kept * 2 >= days ? ordinary : all;
   };
 
   const fitTerms = (terms: TermSet, model: ModelChoice): Scored => {
