@@ -83,6 +83,7 @@ export function readWeatherInputs(a: WeatherArgs, series: HourlySeries, extraHou
   const hourOfDay = new Uint8Array(total);
   const holiday = new Uint8Array(total);
   const bridge = new Uint8Array(total);
+  const weekday = new Uint8Array(total);
   const localDays: string[] = [];
   for (let i = 0; i < total; i++) {
     const p = localParts(series.startMs + i * HOUR, series.offsets[Math.min(i, n - 1)], fmt);
@@ -91,6 +92,7 @@ export function readWeatherInputs(a: WeatherArgs, series: HourlySeries, extraHou
     const k = special.get(p.day);
     holiday[i] = k === 'public-holiday' ? 1 : 0;
     bridge[i] = k === 'bridge-day' ? 1 : 0;
+    weekday[i] = new Date(`${p.day}T00:00:00Z`).getUTCDay();
   }
-  return { temperature, vintages, calendar: { hourOfDay, holiday, bridge }, localDays };
+  return { temperature, vintages, calendar: { hourOfDay, holiday, bridge, weekday }, localDays };
 }

@@ -70,4 +70,15 @@ describe('load terms', () => {
     expect(br[80]).toBe(1);
     expect(br[50]).toBe(0);
   });
+  it('a holiday on a Saturday or Sunday counts as the weekend day it is, and has no day after', () => {
+    const holiday = new Uint8Array(96);
+    for (let h = 24; h < 48; h++) holiday[h] = 1;
+    const weekday = Uint8Array.from({ length: 96 }, (_, t) => [5, 6, 0, 1][Math.floor(t / 24)]); // Friday, Saturday (the holiday), Sunday, Monday
+    const cols = termColumns({ ...ALL, temperature: false, recency: false }, new Float64Array(96), { ...plainCalendar(96), holiday, weekday }, 0, 96);
+    expect(cols.every((c) => c.every((v) => v === 0))).toBe(true);
+    const friday = Uint8Array.from({ length: 96 }, (_, t) => [4, 5, 6, 0][Math.floor(t / 24)]); // Thursday, Friday (the holiday), Saturday, Sunday
+    const c2 = termColumns({ ...ALL, temperature: false, recency: false }, new Float64Array(96), { ...plainCalendar(96), holiday, weekday: friday }, 0, 96);
+    expect(c2[1][24 + 8]).toBe(1); // holiday morning on the Friday
+    expect(c2[5].every((v) => v === 0)).toBe(true); // the Saturday after is no working day
+  });
 });

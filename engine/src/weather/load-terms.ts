@@ -14,7 +14,10 @@
  *
  * The calendar enters as dummies: a public holiday (split by part of the day, since a holiday
  * runs like a Sunday and a Sunday differs from a weekday most in working hours), a bridge day, and
- * the day after a holiday (common practice).
+ * the day after a holiday (common practice). Only on working days (Monday to Friday, when the
+ * weekday is given): a holiday that falls on a Saturday or Sunday runs like the weekend day it
+ * is, and a dummy there would carry a working-day holiday's effect onto it and, through the
+ * weekly difference, onto the same day a week later.
  *
  * Every column is a function of the temperature path and the calendar only, so the same code
  * builds the history's regressors (observed temperature) and the forecast's (forecast
@@ -42,6 +45,8 @@ export interface CalendarHours {
   holiday: ArrayLike<number>;
   /** 1 where the hour's local day is a bridge day, else 0 */
   bridge: ArrayLike<number>;
+  /** local day of the week of each hour, 0 = Sunday … 6 = Saturday (optional: without it every special day counts) */
+  weekday?: ArrayLike<number>;
 }
 
 export const DAY_PARTS = 4;
@@ -122,13 +127,15 @@ export function termColumns(s: TermSet, temp: ArrayLike<number>, cal: CalendarHo
     const hol = Array.from({ length: DAY_PARTS }, () => new Float64Array(n));
     const bridge = new Float64Array(n);
     const after = new Float64Array(n);
+    const wd = cal.weekday;
+    const working = (t: number) => !wd || (wd[t] >= 1 && wd[t] <= 5);
     for (let i = 0; i < n; i++) {
       const t = from + i;
-      const h = cal.holiday[t] ? 1 : 0;
+      const h = cal.holiday[t] && working(t) ? 1 : 0;
       hol[dayPart(cal.hourOfDay[t])][i] = h;
-      bridge[i] = cal.bridge[t] ? 1 : 0;
-      // the day after a holiday: the same hour 24 hours earlier was a holiday, this one is not
-      after[i] = !h && t >= 24 && cal.holiday[t - 24] ? 1 : 0;
+      bridge[i] = cal.bridge[t] && working(t) ? 1 : 0;
+      // the day after a working-day holiday: the same hour 24 hours earlier was one, this one is a working day and not a holiday
+      after[i] = !cal.holiday[t] && working(t) && t >= 24 && cal.holiday[t - 24] && working(t - 24) ? 1 : 0;
     }
     cols.push(...hol, bridge, after);
   }

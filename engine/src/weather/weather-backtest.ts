@@ -63,7 +63,7 @@ export interface WeatherBacktestResult extends BacktestSummary {
 
 function sliceCalendar(c: CalendarHours, from: number, to: number): CalendarHours {
   const s = (a: ArrayLike<number>) => Float64Array.from({ length: to - from }, (_, i) => a[from + i] ?? NaN);
-  return { hourOfDay: s(c.hourOfDay), holiday: s(c.holiday), bridge: s(c.bridge) };
+  return { hourOfDay: s(c.hourOfDay), holiday: s(c.holiday), bridge: s(c.bridge), ...(c.weekday ? { weekday: s(c.weekday) } : {}) };
 }
 
 /** The data as known at `origin`, on a timeline starting at `from`. */
@@ -104,7 +104,7 @@ export function weatherBacktest(values: ArrayLike<number>, o: WeatherBacktestOpt
       vintages: known.vintages,
       calendar: o.calendar ? sliceCalendar(o.calendar, from, de) : undefined,
       scenarios: [{ name: 'observed', temperature: Array.from({ length: h }, (_, j) => T[origin + j]) }],
-      options: { ...o.weather, pipeline: o.pipeline, fixed: reselect ? undefined : fixed },
+      options: { ...o.weather, pipeline: { ...o.pipeline, computeSe: false }, fixed: reselect ? undefined : fixed },
     });
     if (reselect) since = 0;
     since++;

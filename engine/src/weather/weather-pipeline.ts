@@ -2,22 +2,22 @@
  * The automatic pipeline with the weather and the calendar, for one zone: regression with ARIMA
  * errors, y_t = x_t'β + u_t with the same seasonal differencing and ARMA on u as the pipeline
  * without weather (../pipeline), fitted in two steps (β by least squares on the weekly
- * difference, ./load-response; then the differencing and ARMA on u = y − Xβ by the pipeline's own
- * selection).
- *  1. The thresholds of the degree terms are chosen per zone by profile likelihood (./load-response).
- *  2. The differencing and ARMA orders of u are chosen by ../pipeline on u of the fullest term set.
+ * difference, ./load-response; then the ARMA by exact maximum likelihood on u = y − Xβ).
+ *  1. The pipeline without weather runs as it does today (differencing, orders, its bands).
+ *  2. The thresholds of the degree terms are chosen per zone by profile likelihood (./load-response).
  *  3. Which terms the zone gets is decided like the differencing, by the rolling day-ahead
  *     backtest over the last four weeks of the history (Tashman 2000): each candidate term set
  *     (none, the calendar, the temperature, the temperature with its recency terms; Wang, Liu &
- *     Hong 2016) gets its β and its ARMA fitted, and from each origin its forecast of the next day
- *     is issued on the temperature forecast known at that origin (./forecast-temperature: never a
- *     vintage issued later, never a temperature observed later), with the error model's
- *     forecast of u added. The lowest mean daily MAPE wins: a zone whose load does not answer the
- *     weather keeps the model without it.
+ *     Hong 2016) gets its β and its ARMA (the differencing and orders of step 1) fitted, and from
+ *     each origin its forecast of the next day is issued on the temperature forecast known at
+ *     that origin (./forecast-temperature: never a vintage issued later, never a temperature
+ *     observed later), with the error model's forecast of u added. The simplest set within 2 % of
+ *     the lowest mean daily MAPE wins (TERM_MARGIN): a zone whose load does not answer the weather
+ *     keeps the model without it, and then gets exactly the result of step 1.
  *  4. The bands: the error model's variance plus the temperature forecast's, propagated through
  *     the fitted response (./response-uncertainty), then calibrated on the standardised errors of
- *     the same backtest (../band-calibration), so the calibration sees the weather forecast's
- *     misses as they were.
+ *     the same backtest (weatherBandScale), so the calibration sees the weather forecast's misses
+ *     as they were.
  * As in the pipeline, a model that loses to the weekly seasonal-naive forecast on the test days
  * is not served; the forecast is never negative.
  */
@@ -26,8 +26,8 @@ import { Z95 } from '../forecast';
 import { DayAheadScore, scoreDayAhead } from '../day-ahead-score';
 import { ArimaFit, fitArima, forecastArima, IntervalForecast } from '../forecast';
 import { originForecaster } from '../origin-forecasts';
-import { floorAtZero, ModelChoice, PipelineOptions, runPipeline } from '../pipeline';
-import { choiceOf } from '../backtest';
+import { floorAtZero, ModelChoice, PipelineOptions, PipelineResult, runPipeline } from '../pipeline';
+import { choiceOf, describeModel } from '../backtest';
 import { seasonalNaive } from '../seasonal-naive';
 import { countFinite, SeriesInput, toSeries, withExcluded } from '../series/series';
 import { describeDifferencing } from '../differencing';
@@ -118,6 +118,13 @@ export interface WeatherPipelineResult {
 }
 
 const MIN_HOURS = 3 * 168;
+/**
+ * Parsimony in the choice of terms: the simplest set whose backtest MAPE is within 2 % (relative)
+ * of the lowest wins, so terms must earn their place by more than the noise of four weeks of
+ * origins (in the spirit of the one-standard-error rule, Hastie, Tibshirani & Friedman 2009, The
+ * Elements of Statistical Learning, §7.10; the 2 % is ours, measured on the simulator's zones).
+ */
+export const TERM_MARGIN = 0.02;
 const NO_TERMS = { temperature: false, recency: false, calendar: false };
 
 export function describeTerms(t: TermSet): string {
@@ -258,10 +265,41 @@ export function runWeatherPipeline(input: WeatherPipelineInput): WeatherPipeline
     return { terms, response, fit, u, score: score(terms, response, fit, u) };
   };
 
+  /** The pipeline without weather's own result, as this pipeline's (the zone keeps the model without weather). */
+  const fromPlain = (p: PipelineResult, terms: TermSet, selectionMs: number): WeatherPipelineResult => {
+    const ft = forecastTemperature(obs, vintages, n, h, issuedAt);
+    const m = p.model;
+    return {
+      method: p.method,
+      fallbackReason: p.fallbackReason,
+      choice: m ? { terms: { ...terms, ...NO_TERMS }, model: { ...choiceOf(m), start: startOf(m.coefficients, m) } } : undefined,
+      description: p.method === 'arima' && m ? `${describeModel(m)}, no weather or calendar terms` : 'weekly seasonal naive',
+      response: [],
+      errorModel: m ? { sigma2: m.sigma2, loglik: m.loglik, aicc: m.aicc, coefficients: m.coefficients.map((c) => ({ name: c.name, value: c.value, se: c.se })) } : undefined,
+      forecast: p.forecast,
+      regression: new Array(h).fill(0),
+      temperature: Array.from(ft.path.subarray(n, n + h)),
+      weatherSd: new Array(h).fill(0),
+      vintageIssued: ft.vintageIssued,
+      candidates,
+      baselineMape: p.baselineMape,
+      selectionDays: p.selectionDays,
+      bandScale: p.bandScale,
+      scenarios: (input.scenarios ?? []).map((sc) => ({ name: sc.name, forecast: p.forecast })),
+      timings: { totalMs: performance.now() - t0, selectionMs },
+      warnings: [...warnings, ...p.warnings],
+    };
+  };
+
   const ts = performance.now();
   let best: Scored;
+  // The model without weather is the pipeline without weather itself (../pipeline), so a zone that
+  // keeps it gets exactly today's forecast and bands.
+  const plainResult = (model?: ModelChoice): PipelineResult =>
+    runPipeline({ history: y, horizon: h, options: { ...o.pipeline, selectionDays: days, ...(model ? { fixed: model } : {}) } });
   try {
     if (o.fixed) {
+      if (!hasTerms(o.fixed.terms)) return fromPlain(plainResult(o.fixed.model), o.fixed.terms, performance.now() - ts);
       best = fitTerms(o.fixed.terms, o.fixed.model);
       candidates.push({ label: describeTerms(best.terms), terms: best.terms, mape: best.score.mape });
     } else {
@@ -275,27 +313,26 @@ export function runWeatherPipeline(input: WeatherPipelineInput): WeatherPipeline
       ];
       const fullest = sets.reduce((a, b) => (+b.temperature + +b.recency + +b.calendar > +a.temperature + +a.recency + +a.calendar ? b : a));
       const thresholds = chooseThresholds(y, obs, cal, { ...fullest, heatBelow: 14, coolAbove: 20 }).terms;
-      const full = { ...fullest, heatBelow: thresholds.heatBelow, coolAbove: thresholds.coolAbove };
-      const fullResponse = estimateResponse(y, obs, cal, full);
-      const g = responseValues(fullResponse, obs, cal, 0, n);
-      const u = new Float64Array(n);
-      for (let t = 0; t < n; t++) u[t] = y[t] - g[t];
-      const sel = runPipeline({ history: u, horizon: h, options: { ...o.pipeline, calibrateBands: false, requireBeatBaseline: false, computeSe: false, selectionDays: days } });
-      if (!sel.model) throw new Error(sel.fallbackReason ?? 'no error model could be fitted');
-      const model = { ...choiceOf(sel.model), start: startOf(sel.model.coefficients, sel.model) };
-      let found: Scored | null = null;
+      const plain = plainResult();
+      if (!plain.model) return fromPlain(plain, { ...NO_TERMS, heatBelow: thresholds.heatBelow, coolAbove: thresholds.coolAbove }, performance.now() - ts);
+      // the weather candidates keep the differencing and orders the pipeline chose for the load
+      const model = { ...choiceOf(plain.model), start: startOf(plain.model.coefficients, plain.model) };
+      const scored: Scored[] = [];
       for (const set of sets) {
-        const terms = { ...set, heatBelow: full.heatBelow, coolAbove: full.coolAbove };
+        const terms = { ...set, heatBelow: thresholds.heatBelow, coolAbove: thresholds.coolAbove };
         try {
-          const s = fitTerms(terms, model);
-          candidates.push({ label: describeTerms(terms), terms, mape: s.score.mape });
-          if (Number.isFinite(s.score.mape) && (!found || s.score.mape < found.score.mape)) found = s;
+          const sc = fitTerms(terms, model);
+          candidates.push({ label: describeTerms(terms), terms, mape: sc.score.mape });
+          if (Number.isFinite(sc.score.mape)) scored.push(sc);
         } catch (e) {
           candidates.push({ label: describeTerms(terms), terms, mape: NaN, error: (e as Error).message });
         }
       }
-      if (!found) throw new Error('no term set could be fitted');
-      best = found;
+      if (!scored.length) throw new Error('no term set could be fitted');
+      // parsimony: the first (simplest) set within TERM_MARGIN of the lowest MAPE
+      const lowest = Math.min(...scored.map((c) => c.score.mape));
+      best = scored.find((c) => c.score.mape <= lowest * (1 + TERM_MARGIN))!;
+      if (!hasTerms(best.terms)) return fromPlain(plain, best.terms, performance.now() - ts);
     }
   } catch (e) {
     return empty(`model selection failed: ${(e as Error).message}`);
