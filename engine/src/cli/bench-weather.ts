@@ -46,9 +46,9 @@ export function runWeatherBench(seeds: number[], dataDir: string): void {
         const nw = backtest(series.values, { days: 28, issueHour: 10, dayStarts });
         const full = wx.days.filter((_, i) => i % 7 === 0).map((d) => d.fitMs);
         choiceMs.push(...full);
-        // the full choice timed on its own (warm, median of 3): 8 weeks before the first scored day's issue time,
+        // the full choice timed on its own (warm, median of 3): 8 weeks before the last scored day's issue time,
         // with the seasonal block as `npm run fit` runs it and without it as the server's refits run it
-        const origin = wx.days[0].origin;
+        const origin = wx.days[wx.days.length - 1].origin;
         const from = origin - 8 * 168;
         const known = cutAt(w.temperature, w.vintages, from, origin);
         const calendar = { hourOfDay: w.calendar.hourOfDay, holiday: w.calendar.holiday, bridge: w.calendar.bridge, weekday: w.calendar.weekday };
