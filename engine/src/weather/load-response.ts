@@ -3,7 +3,7 @@
  *   y_t = x_t'β + u_t,   Δ(B) u_t an ARMA,
  * estimated by ordinary least squares on the weekly-differenced equation
  * (1 − B^168) y_t = (1 − B^168) x_t'β + (1 − B^168) u_t over the hours where everything is known.
- * The ARMA is then estimated on the load with the response taken out, u = y − Xβ (./weather-pipeline):
+ * The ARMA is then estimated on the load with the response taken out, u = y − Xβ (../weather-pipeline):
  * a two-step estimator of regression with ARIMA errors, consistent because OLS is under
  * autocorrelated stationary errors (Hamilton 1994, §8.2), chosen over the joint exact likelihood
  * for the many fits of a term choice and a backtest (one OLS is about a millisecond; the joint

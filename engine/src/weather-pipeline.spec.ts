@@ -1,11 +1,11 @@
 /**
  * The choice of terms by the rolling backtest, on synthetic zones whose response is known by
- * construction (./synthetic-zone): one that answers the temperature gets the temperature terms and
+ * construction (./weather/synthetic-zone): one that answers the temperature gets the temperature terms and
  * beats the model without them; one that does not keeps the model without them.
  */
 import { runWeatherPipeline } from './weather-pipeline';
-import { runPipeline } from '../pipeline';
-import { syntheticZone } from './synthetic-zone';
+import { runPipeline } from './pipeline';
+import { syntheticZone } from './weather/synthetic-zone';
 
 describe('weather pipeline', () => {
   const hours = 8 * 168;
