@@ -19,3 +19,6 @@ export * from './kpss';
 export * from './mackinnon';
 export * from './stationarity';
 export * from './regression';
+export * from './weather';
+export * from './weather-pipeline';
+export * from './weather-backtest';

@@ -16,8 +16,11 @@ import { parseArgs } from 'node:util';
 import { parseLoadCsv } from './csv-series';
 import { runXregFit } from './fit-xreg';
 import { difference, describeDifferencing, fitArima, ljungBox, median, runPipeline, selectOrder, ArimaFit } from '@morrowline/engine';
+import { readWeatherInputs, WEATHER_OPTIONS } from './weather-inputs';
+import { weatherFitReport } from './weather-fit-command';
 
-const USAGE = 'usage: npm run fit -- --input FILE.csv [--diff 24,168|none] [--order p,q] [--seasonal P,Q,s] [--mean|--no-mean] [--xreg REGRESSORS.csv (with --order)] [--repeat N] [--json]';
+const USAGE =
+  'usage: npm run fit -- --input FILE.csv [--diff 24,168|none] [--order p,q] [--seasonal P,Q,s] [--mean|--no-mean] [--xreg REGRESSORS.csv (with --order)] [--repeat N] [--temperature FILE.csv [--temperature-forecasts FILE.csv] [--calendar FILE.csv] [--time-zone TZ]] [--json]';
 
 const START_LABELS: Record<ArimaFit['arma']['startedFrom'], string> = {
   given: 'given',
@@ -47,6 +50,7 @@ export function runFit(argv: string[]): { text: string; json: Record<string, unk
       'no-mean': { type: 'boolean' },
       repeat: { type: 'string' },
       xreg: { type: 'string' },
+      ...WEATHER_OPTIONS,
       json: { type: 'boolean' },
       help: { type: 'boolean', short: 'h' },
     },
@@ -58,6 +62,12 @@ export function runFit(argv: string[]): { text: string; json: Record<string, unk
   if (a.repeat !== undefined && !/^[1-9]\d{0,3}$/.test(a.repeat)) throw new Error(`--repeat expects a whole number from 1 to 9999, got "${a.repeat}"`);
   const repeat = a.repeat === undefined ? 1 : Number(a.repeat);
   const series = parseLoadCsv(readFileSync(a.input, 'utf8'));
+  const weather = readWeatherInputs(a, series, 24);
+  if (weather) {
+    if (a.xreg) throw new Error('--xreg fits the columns given; --temperature chooses the weather terms itself: use one or the other');
+    if (a.diff || a.order || a.seasonal || a.mean || a['no-mean'] || a.repeat) throw new Error('--temperature fits the automatic pipeline with weather; --diff, --order, --seasonal, --mean and --repeat do not apply');
+    return weatherFitReport(a.input, series, weather);
+  }
   const y = series.values;
   let diff: number[] | undefined;
   if (a.diff !== undefined) diff = a.diff === 'none' || a.diff === '0' ? [] : parseIntList(a.diff, 'diff').filter((d) => d > 0);
