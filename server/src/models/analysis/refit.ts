@@ -25,6 +25,7 @@ import {
   type IntervalForecast,
   type ModelChoice,
   type ModelSummary,
+  type PipelineOptions,
 } from '@morrowline/engine';
 import type { StoredModel } from '../stored-model';
 
@@ -44,6 +45,13 @@ export const REFIT_SCREEN = 2;
  * refit far past its two minutes. The engine's own pipeline, backtest and command line try it.
  */
 export const REFIT_SEASONAL_BLOCK = false;
+
+/**
+ * How the desk's pipeline chooses a zone's model: the engine's four weeks of rolling day-ahead
+ * origins for the differencing and the bands, with the screening and seasonal block above. The
+ * workbench's model report runs the same, so that what it shows is what a refit would choose.
+ */
+export const DESK_PIPELINE_OPTIONS: PipelineOptions = { screen: REFIT_SCREEN, ...(REFIT_SEASONAL_BLOCK ? {} : { seasonalBlock: false as const }) };
 
 /** Days of the short backtest that scores each fit (kept short so refits stay fast). */
 export const REFIT_BACKTEST_DAYS = 7;
@@ -116,7 +124,7 @@ export function refitZone(payload: RefitPayload): RefitResult {
     excluded: payload.excluded,
     horizon: payload.horizon,
     // the differencing is chosen on the engine's four weeks of origins, not on the short score
-    options: { fixed: payload.fixed, requireBeatBaseline: false, screen: payload.screen ?? REFIT_SCREEN, ...(REFIT_SEASONAL_BLOCK ? {} : { seasonalBlock: false as const }) },
+    options: { ...DESK_PIPELINE_OPTIONS, fixed: payload.fixed, requireBeatBaseline: false, screen: payload.screen ?? REFIT_SCREEN },
   });
   const model = r.method === 'arima' ? (r.model ?? null) : null;
   let score: ScoreResult | null = null;
