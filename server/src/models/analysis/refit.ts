@@ -38,11 +38,12 @@ export const REFIT_SCREEN = 2;
 
 /**
  * Whether the nightly and hourly refits try the engine's lag-24 seasonal block on the
- * weekly-differenced series. Off for now: on the synthesised demo zones (`npm run bench:refit`,
- * a few missing hours each) a refit with it took about 6 s a zone against 0.7 s without (the
- * filter with a state of about 28 and gaps gets neither the exact gradient nor the steady state,
- * and the seven-day score refits the model each day), which would take the 200-zone nightly
- * refit far past its two minutes. The engine's own pipeline, backtest and command line try it.
+ * weekly-differenced series. Off for now: on the synthesised demo zones of `npm run bench:refit`
+ * (a few missing hours each) a refit with it took a median 1.7 times as long as without, 0.7–8.4×
+ * zone by zone (README, Benchmarks: the filter with a state of about 28 and gaps gets no exact
+ * gradient, and the seven-day score refits the model each day), which would take the 200-zone
+ * nightly refit, 73.5 s quiet without it, past its two minutes. Turn it on when bench:refit with
+ * it stays within that. The engine's own pipeline, backtest and command line try it.
  */
 export const REFIT_SEASONAL_BLOCK = false;
 
