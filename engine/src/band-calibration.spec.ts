@@ -1,11 +1,11 @@
 /**
  * Band calibration from standardised out-of-sample errors. Expected values from outside the code:
- * R 4.2.2 `quantile(c(1, 2, 3, 4, 10), c(.8, .95))` = 5.2, 8.8 (type 7); normal quantiles
+ * R 4.2.2 `quantile(c(1, 2, 3, 4, 10), c(.8, .95))` = 5.2, 8.8 (type 7) and 4, 10 (type = 1); normal quantiles
  * `qnorm(c(.9, .975))` = 1.281551566, 1.959963985 (jStat's inverse normal for the half-normal grid); the Laplace distribution's |z| is exponential,
  * whose c-quantile is −b·ln(1 − c) (textbook).
  */
 import { jStat } from 'jstat';
-import { bandScaleFromErrors, MIN_CALIBRATION_HOURS, quantileSorted, scaleBands, UNSCALED } from './band-calibration';
+import { bandScaleFromErrors, HALF_LIFE_DAYS, MIN_CALIBRATION_HOURS, quantileSorted, scaleBands, UNSCALED, weightedQuantile } from './band-calibration';
 
 const Z80 = 1.281551566;
 const Z95 = 1.959963985;
@@ -20,6 +20,26 @@ describe('quantileSorted (R type 7)', () => {
     expect(quantileSorted(x, 0.95)).toBeCloseTo(8.8, 12);
     expect(quantileSorted(x, 0)).toBe(1);
     expect(quantileSorted(x, 1)).toBe(10);
+  });
+});
+
+describe('weightedQuantile', () => {
+  it('with equal weights is R type 1 (the inverse of the ECDF)', () => {
+    // R 4.2.2: quantile(c(1, 2, 3, 4, 10), c(.8, .95), type = 1) = 4, 10
+    const x = [10, 3, 1, 4, 2];
+    const w = [1, 1, 1, 1, 1];
+    expect(weightedQuantile(x, w, 0.8)).toBe(4);
+    expect(weightedQuantile(x, w, 0.95)).toBe(10);
+  });
+
+  it('with weights: the smallest value whose cumulative weight reaches p of the total', () => {
+    // weights 0.5^((4:0)/3); R: cumsum(w)/sum(w) = 0.1195 0.2701 0.4598 0.6988 1.0000
+    const x = [1, 2, 3, 4, 10];
+    const w = [4, 3, 2, 1, 0].map((a) => Math.pow(0.5, a / 3));
+    expect(weightedQuantile(x, w, 0.1)).toBe(1);
+    expect(weightedQuantile(x, w, 0.27)).toBe(2);
+    expect(weightedQuantile(x, w, 0.5)).toBe(4);
+    expect(weightedQuantile(x, w, 0.7)).toBe(10);
   });
 });
 
@@ -39,20 +59,45 @@ describe('bandScaleFromErrors', () => {
     expect(s.k80).toBeCloseTo(2, 2);
   });
 
-  it('on heavy-tailed (Laplace) errors: the 95 % scale from the tail, the 80 % band narrower in proportion', () => {
+  it('calibrates each level on its own quantile: heavy-tailed (Laplace) errors narrow the 80 % band and widen the 95 %', () => {
     const b = 1 / Math.SQRT2; // unit variance
     const s = bandScaleFromErrors(grid(20000, (u) => -b * Math.log(1 - u)));
-    const q80 = b * Math.log(5);
-    const q95 = b * Math.log(20);
-    expect(s.k95).toBeCloseTo(Math.max(1, q95 / Z95), 2); // 1.0807
-    expect(s.k80).toBeCloseTo((s.k95 * (q80 / q95)) / (Z80 / Z95), 2); // 0.9711
-    expect(s.k80).toBeLessThan(1);
+    expect(s.k80).toBeCloseTo((b * Math.log(5)) / Z80, 2); // 0.8881
+    expect(s.k95).toBeCloseTo((b * Math.log(20)) / Z95, 2); // 1.0807
   });
 
-  it('never narrows the 95 % band below the model’s own, even on a calm month', () => {
+  it('on a calm spell narrows the 80 % band but never the 95 % band below the model’s own', () => {
     const s = bandScaleFromErrors(grid(2000, (u) => 0.5 * halfNormalQuantile(u)));
+    expect(s.k80).toBeCloseTo(0.5, 2);
     expect(s.k95).toBe(1);
-    expect(s.k80).toBeCloseTo(1, 2); // normal shape: the 80 % band keeps its place relative to the 95 %
+  });
+
+  it('keeps the 95 % scale at least the 80 % one when the errors are lighter-tailed than the normal', () => {
+    // |z| uniform on [0, 2]: 80 % quantile 1.6, 95 % quantile 1.9 → 1.6/Z80 = 1.248 > 1.9/Z95 = 0.969
+    const s = bandScaleFromErrors(grid(4000, (u) => 2 * u));
+    expect(s.k80).toBeCloseTo(1.6 / Z80, 2);
+    expect(s.k95).toBe(s.k80);
+  });
+
+  it('weighs recent days more: errors doubled over the last three days move the scales most of the way', () => {
+    // 28 days of 24 hours; weights halve every HALF_LIFE_DAYS (3) days back
+    const calm = grid(24, (u) => halfNormalQuantile(u));
+    const z: number[] = [];
+    const day: number[] = [];
+    for (let d = 0; d < 28; d++) for (const v of calm) {
+      z.push(d >= 25 ? 2 * v : v);
+      day.push(d);
+    }
+    const weighted = bandScaleFromErrors(z, day);
+    const equal = bandScaleFromErrors(z);
+    // the last three days hold half the weight (geometric series); the weighted 80 % quantile x
+    // solves ½·P(|Z| ≤ x) + ½·P(|Z| ≤ x/2) = 0.8, x ≈ 1.9 (k80 ≈ 1.48); with equal weights
+    // 25/28·P(|Z| ≤ x) + 3/28·P(|Z| ≤ x/2) = 0.8, x ≈ 1.35 (k80 ≈ 1.05)
+    expect(HALF_LIFE_DAYS).toBe(3);
+    expect(weighted.k80).toBeGreaterThan(1.35);
+    expect(weighted.k80).toBeLessThan(1.6);
+    expect(equal.k80).toBeGreaterThan(0.98);
+    expect(equal.k80).toBeLessThan(1.12);
   });
 
   it('signs do not matter, non-finite errors are skipped, too few hours leave the bands alone', () => {

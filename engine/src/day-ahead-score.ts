@@ -17,6 +17,8 @@ export interface DayAheadScore {
   daily: number[];
   /** (actual − forecast) / se per scored hour, oldest first */
   z: number[];
+  /** the test day (0 = the first) each entry of `z` belongs to, for weighting by age */
+  zDay: number[];
 }
 
 /** `forecastFrom(origin, h)` forecasts h hours after y[origin − 1] from y[0..origin). */
@@ -30,6 +32,7 @@ export function scoreDayAhead(
   let sum = 0;
   let count = 0;
   const z: number[] = [];
+  const zDay: number[] = [];
   const daily: number[] = [];
   for (let d = 0; d < days; d++) {
     const ws = testStart + d * 24;
@@ -45,8 +48,11 @@ export function scoreDayAhead(
     }
     for (let i = 0; i < 24; i++) {
       const se = f.se[lead + i];
-      if (Number.isFinite(actual[i]) && se > 0) z.push((actual[i] - mean[i]) / se);
+      if (Number.isFinite(actual[i]) && se > 0) {
+        z.push((actual[i] - mean[i]) / se);
+        zDay.push(d);
+      }
     }
   }
-  return { mape: count ? sum / count : NaN, days: count, daily, z };
+  return { mape: count ? sum / count : NaN, days: count, daily, z, zDay };
 }

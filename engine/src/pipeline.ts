@@ -174,7 +174,7 @@ export function runPipeline(input: PipelineInput): PipelineResult {
   let evidence: Evidence | null = null;
   let selectionMs = 0;
   const naive = (reason: string, model?: ModelSummary, fitMs = 0): PipelineResult => {
-    const bandScale = calibrate && evidence ? bandScaleFromErrors(evidence.baseline.z) : UNSCALED;
+    const bandScale = calibrate && evidence ? bandScaleFromErrors(evidence.baseline.z, evidence.baseline.zDay) : UNSCALED;
     return {
       method: 'seasonal-naive',
       fallbackReason: reason,
@@ -232,7 +232,7 @@ export function runPipeline(input: PipelineInput): PipelineResult {
   if ((o.requireBeatBaseline ?? true) && !o.fixed && Number.isFinite(ev.baseline.mape) && chosenMape > ev.baseline.mape) {
     return naive(`the model (MAPE ${chosenMape.toFixed(2)} %) did not beat seasonal naive (${ev.baseline.mape.toFixed(2)} %) on the last ${ev.days} days`, model, model.fitMs);
   }
-  const bandScale = calibrate && chosenScore ? bandScaleFromErrors(chosenScore.z) : UNSCALED;
+  const bandScale = calibrate && chosenScore ? bandScaleFromErrors(chosenScore.z, chosenScore.zDay) : UNSCALED;
   return {
     method: 'arima',
     model,

@@ -151,8 +151,14 @@ describe('workbench: stationarity, model and backtest of a zone (real MariaDB)',
     expect(body.candidates.map((c) => c.label)).toEqual(['(1−B^24)', '(1−B^168)', '(1−B^24)(1−B^168)']);
     expect(body.candidates.filter((c) => c.chosen)).toHaveLength(1);
     expect(body.baselineMape).toBeGreaterThan(0);
+    // chosen on the same evidence as the desk's refits: four weeks of rolling day-ahead origins
+    // (eight weeks of history leave room for all 28), not one week
+    expect(body.selectionDays).toBe(28);
     if (body.method === 'seasonal-naive') expect(body.fallbackReason).toEqual(expect.any(String));
-    else expect(body.fallbackReason).toBeNull();
+    else {
+      expect(body.fallbackReason).toBeNull();
+      expect(body.summary).toMatch(/smallest day-ahead error over the last 28 days/);
+    }
   });
 
   it('runs the backtest for an operator and refuses it to a viewer', async () => {

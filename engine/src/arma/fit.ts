@@ -108,7 +108,8 @@ export interface FitOptions {
    */
   secondStart?: boolean;
   /**
-   * Search again from other starts when the search ends on the boundary (onBoundary). Default
+   * Search again from other starts when the search ends on the boundary (onBoundary), and, with
+   * a seasonal block, from the CSS estimate when that lies above where the search ended. Default
    * on; order selection turns it off for its candidates (a candidate that stops on the boundary
    * is rarely the best, and the chosen order's final fit searches again): with a seasonal block
    * each restart costs seconds on a series whose filter never reaches its steady state.
@@ -302,6 +303,29 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       if (fourth.f < opt.f - 1e-9) {
         opt = fourth;
         startedFrom = 'css';
+      }
+    }
+  }
+  if (!st && !cssTried && o.P + o.Q > 0 && (opts.boundaryRestarts ?? true)) {
+    // A search that ends below a point we already know is at a lower local maximum: with a
+    // seasonal block the conditional-sum-of-squares estimate costs little beside the fit (one
+    // CSS search and one likelihood pass) to look at. On the daily-differenced demand series
+    // ARMA(0,3)×(1,1)_24 from Hannan–Rissanen ended 240 below R's maximum, inside the region;
+    // the CSS estimate was above that end, and the search from it reaches R's maximum. (Without
+    // a seasonal block the CSS search costs more than the fit of a small order, and orders with
+    // p, q ≥ 2 search from the CSS estimate anyway.)
+    const css = cssStart(centred, { p: o.p, q: o.q, P: o.P, Q: o.Q, period: s || 1 });
+    if (css) {
+      cssTried = true;
+      const fCss = objective(css);
+      evaluations++;
+      if (fCss < opt.f) {
+        const other = search(css);
+        evaluations += other.evaluations;
+        if (other.f < opt.f - 1e-9) {
+          opt = other;
+          startedFrom = 'css';
+        }
       }
     }
   }

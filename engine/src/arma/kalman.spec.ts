@@ -1,5 +1,6 @@
 import { simulateArma21 } from '../cli/bench-series';
-import { concentratedLogLik, kalmanFilter } from './kalman';
+import { concentratedLogLik, kalmanFilter, steadyCovarianceFromRow } from './kalman';
+import { expandAr, expandMa } from './polynomials';
 import { armaStateSpace } from './state-space';
 
 /**
@@ -47,5 +48,44 @@ describe('kalmanFilter: Chandrasekhar recursions against the full Riccati recurs
     const a = kalmanFilter(gap, ss, { tol: 0 });
     const b = kalmanFilter(behind, ss, { tol: 0 });
     expect(Math.abs(concentratedLogLik(a) - concentratedLogLik(b))).toBeLessThan(1e-8);
+  });
+});
+
+/**
+ * A seasonal state (r = 26) with missing hours: the start-up by the quick recursions up to the
+ * first missing hour and the whole covariance rebuilt from its steady first row, against the
+ * full Riccati recursion throughout (the same series behind one leading missing hour, as above).
+ */
+describe('kalmanFilter: a large state with missing hours', () => {
+  const y = Float64Array.from(simulateArma21(1200, 4));
+  const ss = armaStateSpace(expandAr([0.5], [0.6], 24), expandMa([0.3], [-0.5], 24));
+  const withGaps = (at: number[]) => {
+    const g = Float64Array.from(y);
+    for (const t of at) g[t] = NaN;
+    return g;
+  };
+  it.each([
+    ['gaps after the steady state', [500, 501, 900]],
+    ['a gap before the steady state (tracked from the start instead)', [3, 800]],
+  ])('%s: same log-likelihood as the full recursion', (_name, at) => {
+    const g = withGaps(at as number[]);
+    const behind = Float64Array.from([NaN, ...g]);
+    for (const tol of [1e-10, 0]) {
+      const a = kalmanFilter(g, ss, { tol });
+      const b = kalmanFilter(behind, ss, { tol });
+      expect(a.nUsed).toBe(b.nUsed);
+      expect(Math.abs(concentratedLogLik(a) - concentratedLogLik(b))).toBeLessThan(1e-7);
+    }
+  });
+
+  it('steadyCovarianceFromRow rebuilds the steady covariance the filter tracked in full', () => {
+    const r = ss.r;
+    const s = r + 1;
+    const f = kalmanFilter(y, ss, { tol: 0, keepState: true });
+    const full = f.PPred as Float64Array;
+    const P = new Float64Array(s * s);
+    for (let j = 0; j < r; j++) P[j] = full[j];
+    steadyCovarianceFromRow(P, ss.R, r);
+    for (let i = 0; i < r; i++) for (let j = i; j < r; j++) expect(Math.abs(P[i * s + j] - full[i * r + j])).toBeLessThan(1e-9 * full[0]);
   });
 });

@@ -422,6 +422,34 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       logFss = Math.log(Fss);
       steadyConstants(P, phi, r, K, ws.cd);
     }
+  } else if (chandra && !complete && r > 4 && !opts.keepState && !profile && !wantRes && !wantPred && !wantTrace && stopAt < 0) {
+    // The likelihood of a large state (a seasonal block) with missing hours: the full covariance
+    // is needed from the first missing hour on, but tracking it from the start costs O(r²) an
+    // hour. So the start-up runs by the quick O(r) recursions up to the first missing hour and,
+    // when the filter is steady by then, the whole of P is rebuilt from its first row
+    // (steadyCovarianceFromRow); otherwise it starts again with P tracked.
+    const first = nextMissing(x, 0);
+    const sums = ws.sums;
+    const last = quickStartUp(x.subarray(0, first), mu0, r, phi, P, a, w, wn, mw, tol, sums);
+    if (sums[2] === 1) {
+      ssq = sums[0];
+      sumLogF = sums[1];
+      nUsed = last + 1;
+      tStart = last + 1;
+      steady = true;
+      steadyAt = last;
+      Fss = P[0];
+      logFss = Math.log(Fss);
+      steadyConstants(P, phi, r, K, ws.cd);
+      steadyCovarianceFromRow(P, R, r);
+      chandra = false;
+    } else {
+      const P0 = ws.P0;
+      for (let j = 0; j < r; j++) P[j] = P0[j];
+      a.fill(0);
+      for (let i = 0; i < r; i++) w[i] = phi[i] * P[0] + P[i + 1];
+      mw = -1 / P[0];
+    }
   }
   for (let t = tStart; t < n; t++) {
     const yt = x[t] - mu0;
@@ -682,6 +710,23 @@ function riccatiStep(P: Float64Array, Pn: Float64Array, RR: Float64Array, phi: F
     }
   }
   return change;
+}
+
+/**
+ * The whole steady predicted covariance (upper triangle, stride r + 1) from its first row, in
+ * place. At the steady state P = T (P − p p'/F) T' + R R' with p = P e₀ and F = p₀; the first
+ * row and column of P − p p'/F vanish, so by the shift structure of T
+ *   P_ij = P_{i+1,j+1} − p_{i+1} p_{j+1} / F + R_i R_j,
+ * filled from the last row up (row r is the zero padding). O(r²).
+ */
+export function steadyCovarianceFromRow(P: Float64Array, R: Float64Array, r: number): void {
+  const s = r + 1;
+  const F = P[0];
+  for (let i = r - 1; i >= 1; i--) {
+    const pi = P[i + 1] / F; // p_{i+1}/F (P[r] is the padding: 0)
+    const below = (i + 1) * s + 1;
+    for (let j = i; j < r; j++) P[i * s + j] = P[below + j] - pi * P[j + 1] + R[i] * R[j];
+  }
 }
 
 /** Index of the first missing value at or after `from` (x.length when there is none). */

@@ -8,6 +8,8 @@
  * higher of the two (R's "ML" itself stops on the boundary for sunspot.month ARMA(2,1)).
  */
 import fixture from '../fixtures/r-arima-real.json';
+import taylor from '../fixtures/taylor-hourly.json';
+import { difference } from '../differencing';
 import { fitArima } from '../forecast';
 import { cssStart } from './css';
 import { fitArma, onBoundary } from './fit';
@@ -103,5 +105,16 @@ describe('conditional-sum-of-squares start against R arima(method = "CSS")', () 
     const ma = toInvertible(u.subarray(p));
     for (let i = 0; i < p; i++) expect(Math.abs(ar[i] - k.coef[`ar${i + 1}`])).toBeLessThan(1e-3);
     for (let i = 0; i < q; i++) expect(Math.abs(ma[i] - k.coef[`ma${i + 1}`])).toBeLessThan(1e-3);
+  });
+});
+
+describe('a search that stops at an interior lower maximum', () => {
+  // The open demand series daily-differenced, ARMA(0,3)×(1,1)_24 without a mean: R 4.2.2
+  // stats::arima "CSS-ML" reached −15747.660 (read from `npm run bench -- --real-only`,
+  // 2026-12-03, twice); the Hannan–Rissanen search stopped inside the region 240 below it.
+  it('looks at the CSS estimate and searches on from it when it lies above', () => {
+    const w = difference(taylor.load as number[], [24]);
+    const fit = fitArma(w, { p: 0, q: 3, P: 1, Q: 1, period: 24, includeMean: false }, { computeSe: false });
+    expect(fit.loglik).toBeGreaterThan(-15747.66 - 0.01);
   });
 });

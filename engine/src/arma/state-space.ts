@@ -6,10 +6,13 @@
  * The initial state covariance is the stationary solution of P = T P T' + R R' (in units of σ²),
  * found as Gardner, Harvey & Phillips (1980) do by solving the linear system in the r(r+1)/2
  * distinct elements of P. For large r (seasonal blocks at long periods) that system is too big;
- * there the same solution, the convergent series P = Σ_k (T^k R)(T^k R)', is summed by doubling
+ * there P is built from the process's autocovariances, which costs little for the few non-zero
+ * coefficients of a seasonal model (autocovariance-covariance.ts), and where that system is
+ * singular the convergent series P = Σ_k (T^k R)(T^k R)' is summed by doubling
  * (doubling-covariance.ts); `seriesCovariance` sums it term by term (the tangents still do).
  */
 
+import { autocovarianceCovariance } from './autocovariance-covariance';
 import { doublingCovariance } from './doubling-covariance';
 import { scratch } from './scratch';
 
@@ -35,7 +38,8 @@ const GARDNER_MAX_R = 12;
 
 /** Stationary covariance of the state, row-major r×r, in units of σ² (into `out` when it has that size). */
 export function stationaryCovariance(ss: ArmaStateSpace, out?: Float64Array): Float64Array {
-  return ss.r <= GARDNER_MAX_R ? gardnerCovariance(ss, out) : doublingCovariance(ss.r, ss.phi, ss.R);
+  if (ss.r <= GARDNER_MAX_R) return gardnerCovariance(ss, out);
+  return autocovarianceCovariance(ss.r, ss.phi, ss.R, out) ?? doublingCovariance(ss.r, ss.phi, ss.R);
 }
 
 /** Position of (i, j), i ≤ j, in the row-wise upper triangle of an r×r matrix, for each r. */

@@ -25,6 +25,7 @@ import {
   type IntervalForecast,
   type ModelChoice,
   type ModelSummary,
+  type PipelineOptions,
 } from '@morrowline/engine';
 import type { StoredModel } from '../stored-model';
 
@@ -37,13 +38,21 @@ export const REFIT_SCREEN = 2;
 
 /**
  * Whether the nightly and hourly refits try the engine's lag-24 seasonal block on the
- * weekly-differenced series. Off for now: on the synthesised demo zones (`npm run bench:refit`,
- * a few missing hours each) a refit with it took about 6 s a zone against 0.7 s without (the
- * filter with a state of about 28 and gaps gets neither the exact gradient nor the steady state,
- * and the seven-day score refits the model each day), which would take the 200-zone nightly
- * refit far past its two minutes. The engine's own pipeline, backtest and command line try it.
+ * weekly-differenced series. Off for now: on the synthesised demo zones of `npm run bench:refit`
+ * (a few missing hours each) a refit with it took a median 1.7 times as long as without, 0.7–8.4×
+ * zone by zone (README, Benchmarks: the filter with a state of about 28 and gaps gets no exact
+ * gradient, and the seven-day score refits the model each day), which would take the 200-zone
+ * nightly refit, 73.5 s quiet without it, past its two minutes. Turn it on when bench:refit with
+ * it stays within that. The engine's own pipeline, backtest and command line try it.
  */
 export const REFIT_SEASONAL_BLOCK = false;
+
+/**
+ * How the desk's pipeline chooses a zone's model: the engine's four weeks of rolling day-ahead
+ * origins for the differencing and the bands, with the screening and seasonal block above. The
+ * workbench's model report runs the same, so that what it shows is what a refit would choose.
+ */
+export const DESK_PIPELINE_OPTIONS: PipelineOptions = { screen: REFIT_SCREEN, ...(REFIT_SEASONAL_BLOCK ? {} : { seasonalBlock: false as const }) };
 
 /** Days of the short backtest that scores each fit (kept short so refits stay fast). */
 export const REFIT_BACKTEST_DAYS = 7;
@@ -116,7 +125,7 @@ export function refitZone(payload: RefitPayload): RefitResult {
     excluded: payload.excluded,
     horizon: payload.horizon,
     // the differencing is chosen on the engine's four weeks of origins, not on the short score
-    options: { fixed: payload.fixed, requireBeatBaseline: false, screen: payload.screen ?? REFIT_SCREEN, ...(REFIT_SEASONAL_BLOCK ? {} : { seasonalBlock: false as const }) },
+    options: { ...DESK_PIPELINE_OPTIONS, fixed: payload.fixed, requireBeatBaseline: false, screen: payload.screen ?? REFIT_SCREEN },
   });
   const model = r.method === 'arima' ? (r.model ?? null) : null;
   let score: ScoreResult | null = null;

@@ -1,14 +1,14 @@
 /**
  * The workbench's model report (pure; runs in the compute pool): the automatic pipeline of the
- * engine (./forecasting/pipeline) on the zone's history, reshaped for the wire, with the
- * residual checks in plain words.
+ * engine on the zone's history with the options the desk's refits use (DESK_PIPELINE_OPTIONS:
+ * the same four weeks of rolling day-ahead origins, fewer only when the history is short),
+ * reshaped for the wire, with the residual checks in plain words.
  */
 import type { ModelCandidateDto, ModelFitDto, ModelReportDto } from '@morrowline/shared';
-import { runPipeline } from '@morrowline/engine';
+import { describeModel, runPipeline } from '@morrowline/engine';
+import { DESK_PIPELINE_OPTIONS } from '../../models/analysis/refit';
 import { num, toWire } from './stationarity-analysis';
 import { differencingLabel, residualVerdict } from './verdict';
-
-export const MODEL_SELECTION_DAYS = 7;
 
 export interface ModelInput {
   values: Float64Array;
@@ -21,7 +21,7 @@ export type ModelOutput = Pick<ModelReportDto, 'method' | 'fallbackReason' | 'mo
 const sameLags = (a: readonly number[], b: readonly number[]) => a.length === b.length && a.every((v, i) => v === b[i]);
 
 export function analyseModel(input: ModelInput): ModelOutput {
-  const r = runPipeline({ history: input.values, excluded: input.excluded, horizon: 24, options: { selectionDays: MODEL_SELECTION_DAYS } });
+  const r = runPipeline({ history: input.values, excluded: input.excluded, horizon: 24, options: DESK_PIPELINE_OPTIONS });
   const m = r.model;
   let model: ModelFitDto | null = null;
   if (m) {
@@ -63,7 +63,8 @@ export function analyseModel(input: ModelInput): ModelOutput {
   const chosen = candidates.find((c) => c.chosen);
   let summary: string;
   if (r.method === 'arima' && model) {
-    summary = `The desk would forecast with ARMA(${model.p},${model.q}) on ${model.label}: it had the smallest day-ahead error over the last ${MODEL_SELECTION_DAYS} days${
+    const orders = describeModel({ label: '', p: model.p, q: model.q, P: model.P, Q: model.Q, period: model.period }).trim();
+    summary = `The desk would forecast with ${orders} on ${model.label}: it had the smallest day-ahead error over the last ${r.selectionDays} days${
       chosen?.mape != null ? ` (MAPE ${chosen.mape.toFixed(2)} %` + (baselineMape !== null ? ` against ${baselineMape.toFixed(2)} % for the same hour last week)` : ')') : ''
     }, and its orders have the lowest AICc.`;
   } else {
@@ -75,7 +76,7 @@ export function analyseModel(input: ModelInput): ModelOutput {
     model,
     candidates,
     baselineMape,
-    selectionDays: MODEL_SELECTION_DAYS,
+    selectionDays: r.selectionDays,
     warnings: r.warnings,
     summary,
   };
