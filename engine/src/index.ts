@@ -18,3 +18,5 @@ export * from './adf';
 export * from './kpss';
 export * from './mackinnon';
 export * from './stationarity';
+export * from './regression';
+export * from './weather';

@@ -5,11 +5,13 @@
  *   temperature.csv             timestamp,temp_c                     (the zone's weighted stations)
  *   temperature-forecasts.csv   issued_at,timestamp,temp_c           (every vintage issued in the span,
  *                                                                      the zone's weighted stations)
+ *   special-days.csv            day,kind                             (the valley's calendar days in the span
+ *                                                                      that apply to the zone, local dates)
  * Nothing depends on the wall clock: the same options give byte-identical files.
  */
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { DEMO_TIME_ZONE, DEMO_ZONES, HOUR_MS, WEEK_HOURS, operatingDayStart } from '@morrowline/shared';
+import { DEMO_TIME_ZONE, DEMO_ZONES, HOUR_MS, WEEK_HOURS, demoSpecialDays, operatingDayStart } from '@morrowline/shared';
 import { FeedGenerator, type Mishaps } from './generator';
 import { zoneTemperature } from './weather';
 
@@ -65,11 +67,23 @@ export function exportDataSet(options: ExportOptions): ExportSummary {
       }
     }
   }
+  // the calendar of the span, local dates, as the desk's calendar holds it for the zone
+  const firstDay = options.from;
+  const lastDay = new Date(Date.parse(`${options.from}T00:00:00Z`) + (options.weeks * 7 - 1) * 24 * HOUR_MS).toISOString().slice(0, 10);
+  const special = ['day,kind'];
+  for (let year = Number(firstDay.slice(0, 4)); year <= Number(lastDay.slice(0, 4)); year++) {
+    for (const d of demoSpecialDays(year).sort((x, y) => x.day.localeCompare(y.day))) {
+      if (d.day < firstDay || d.day > lastDay) continue;
+      if (d.zones.length && !d.zones.includes(demo.code)) continue;
+      special.push(`${d.day},${d.kind}`);
+    }
+  }
   mkdirSync(options.dir, { recursive: true });
   const files = [
     ['load.csv', load],
     ['temperature.csv', temperature],
     ['temperature-forecasts.csv', forecasts],
+    ['special-days.csv', special],
   ] as const;
   for (const [name, lines] of files) writeFileSync(join(options.dir, name), `${lines.join('\n')}\n`);
   return { hours, vintages, files: files.map(([name]) => join(options.dir, name)) };

@@ -87,7 +87,7 @@ describe('the weather the generator sends', () => {
 describe('--export', () => {
   it('writes byte-identical files for the same seed, and different ones for another seed', () => {
     const root = mkdtempSync(join(tmpdir(), 'morrowline-export-'));
-    const files = ['load.csv', 'temperature.csv', 'temperature-forecasts.csv'];
+    const files = ['load.csv', 'temperature.csv', 'temperature-forecasts.csv', 'special-days.csv'];
     const run = (name: string, seed: number) => {
       exportDataSet({ dir: join(root, name), zone: 'LANTERN', weeks: 2, seed, from: '2026-01-05' });
       return files.map((f) => readFileSync(join(root, name, f)));
@@ -107,5 +107,16 @@ describe('--export', () => {
       const [issued, hour] = line.split(',');
       expect(Date.parse(hour)).toBeGreaterThan(Date.parse(issued));
     }
+  });
+  it('writes the calendar days of the span that apply to the zone', () => {
+    const root = mkdtempSync(join(tmpdir(), 'morrowline-export-'));
+    // 2025-12-22 for 3 weeks: Winter Eve and Winter Feast (24, 25 Dec; shared/src/demo-weather.ts), the New Year Rest Day (2 Jan)
+    exportDataSet({ dir: root, zone: 'LANTERN', weeks: 3, seed: 1, from: '2025-12-22' });
+    const lines = readFileSync(join(root, 'special-days.csv'), 'utf8').trimEnd().split('\n');
+    expect(lines[0]).toBe('day,kind');
+    expect(lines).toContain('2025-12-24,public-holiday');
+    expect(lines).toContain('2025-12-25,public-holiday');
+    expect(lines).toContain('2026-01-02,public-holiday');
+    for (const l of lines.slice(1)) expect(l >= '2025-12-22' && l < '2026-01-12').toBe(true);
   });
 });

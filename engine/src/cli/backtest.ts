@@ -11,8 +11,10 @@ import { parseArgs } from 'node:util';
 import { localDate, parseLoadCsv } from './csv-series';
 import { parseIntList } from './fit';
 import { backtest, BacktestMethod } from '@morrowline/engine';
+import { dayStartsIn, readWeatherInputs, WEATHER_OPTIONS } from './weather-inputs';
+import { weatherBacktestReport } from './weather-backtest-command';
 
-const USAGE = 'usage: npm run backtest -- --input FILE.csv [--days N] [--issue-hour H] [--method auto|seasonal-naive|fixed --diff 24,168 --order p,q] [--json]';
+const USAGE = 'usage: npm run backtest -- --input FILE.csv [--days N] [--issue-hour H] [--method auto|seasonal-naive|fixed --diff 24,168 --order p,q] [--temperature FILE.csv [--temperature-forecasts FILE.csv] [--calendar FILE.csv]] [--time-zone TZ] [--json]';
 
 export function runBacktest(argv: string[]): { text: string; json: Record<string, unknown> } {
   const { values: a } = parseArgs({
@@ -25,6 +27,7 @@ export function runBacktest(argv: string[]): { text: string; json: Record<string
       diff: { type: 'string' },
       order: { type: 'string' },
       'reselect-every': { type: 'string' },
+      ...WEATHER_OPTIONS,
       json: { type: 'boolean' },
       help: { type: 'boolean', short: 'h' },
     },
@@ -48,11 +51,17 @@ export function runBacktest(argv: string[]): { text: string; json: Record<string
     method = { diff: a.diff === 'none' ? [] : parseIntList(a.diff, 'diff'), p: order[0], q: order[1] };
   } else throw new Error(`--method must be auto, seasonal-naive or fixed, got "${methodName}"`);
   const series = parseLoadCsv(readFileSync(a.input, 'utf8'));
+  const dayStarts = a['time-zone'] ? dayStartsIn(series, a['time-zone']) : series.dayStarts;
+  const weather = readWeatherInputs(a, series, 0);
+  if (weather) {
+    if (methodName !== 'auto') throw new Error('--temperature backtests the automatic pipeline with weather; --method must be auto');
+    return weatherBacktestReport(a.input, series, weather, { days, issueHour, dayStarts, reselectEvery: a['reselect-every'] ? Number(a['reselect-every']) : undefined });
+  }
   const r = backtest(series.values, {
     days,
     method,
     issueHour,
-    dayStarts: series.dayStarts,
+    dayStarts,
     reselectEveryDays: a['reselect-every'] ? Number(a['reselect-every']) : undefined,
   });
   if (!r.days.length) throw new Error('no day could be scored: the file needs at least three weeks of history before the scored days');

@@ -14,7 +14,9 @@
  *     means): the automatic pipeline vs the weekly seasonal-naive forecast and vs R's arima with
  *     the same differencing and orders at every origin; then the last 7, 14 and 28 days of that
  *     backtest (MAPE, 80 % and 95 % coverage) beside R's auto.arima with weekly seasonal
- *     differencing on the same origins (fixtures/r-auto-arima-backtest.json).
+ *     differencing on the same origins (fixtures/r-auto-arima-backtest.json);
+ *  5. `--weather-only [--seeds 1,2] [--data DIR]`: the pipeline with weather on the simulator's
+ *     exported zones, winter and summer, beside the same pipeline without weather (bench-weather.ts).
  * Prints a table and the machine (CPU model, cores, Node and R versions).
  */
 import { spawnSync } from 'node:child_process';
@@ -24,6 +26,12 @@ import { join } from 'node:path';
 import { accuracy, backtest, describeModel, fitArma, median, runPipeline, type BacktestResult } from '@morrowline/engine';
 import { simulateArma21 as simulate } from './bench-series';
 import { printRealTable, realCases, RFitTiming, timeEngine } from './bench-real';
+import { runWeatherBench } from './bench-weather';
+
+function valueOf(args: string[], name: string): string | undefined {
+  const i = args.indexOf(name);
+  return i >= 0 ? args[i + 1] : undefined;
+}
 
 // from src/cli (jest, tsx) or dist/cli (compiled, as `npm run bench` runs it): the fixtures stay in src
 const FIX = [join(__dirname, '../fixtures'), join(__dirname, '../../src/fixtures')].find((d) => existsSync(d)) ?? '';
@@ -112,9 +120,16 @@ function main(): void {
   const rVersion = hasR();
   console.log(`machine: ${cpu}, ${cpus().length} cores, Node ${process.version}${rVersion ? `, ${rVersion}` : ', R not found'}; ${new Date().toISOString().slice(0, 16)} UTC\n`);
   const args = process.argv.slice(2);
-  const known = ['--real-only', '--no-real', '--pipeline-only'];
-  const unknown = args.filter((a) => !known.includes(a));
+  const known = ['--real-only', '--no-real', '--pipeline-only', '--weather-only'];
+  const weatherSeeds = valueOf(args, '--seeds') ?? '1,2';
+  const weatherData = valueOf(args, '--data') ?? join(tmpdir(), 'morrowline-bench-weather');
+  const unknown = args.filter((a, i) => !known.includes(a) && !['--seeds', '--data'].includes(a) && !['--seeds', '--data'].includes(args[i - 1]));
   if (unknown.length) throw new Error(`bench: unknown argument ${unknown[0]} (known: ${known.join(', ')})`);
+  if (args.includes('--weather-only')) {
+    if (!/^\d+(,\d+)*$/.test(weatherSeeds)) throw new Error(`bench: --seeds expects whole numbers separated by commas, got "${weatherSeeds}"`);
+    runWeatherBench(weatherSeeds.split(',').map(Number), weatherData);
+    return;
+  }
   const taylorLoad = JSON.parse(readFileSync(join(FIX, 'taylor-hourly.json'), 'utf8')).load as number[];
   if (!args.includes('--no-real') && !args.includes('--pipeline-only')) {
     const cases = realCases();

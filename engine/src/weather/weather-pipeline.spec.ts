@@ -1,0 +1,41 @@
+/**
+ * The choice of terms by the rolling backtest, on synthetic zones whose response is known by
+ * construction (./synthetic-zone): one that answers the temperature gets the temperature terms and
+ * beats the model without them; one that does not keeps the model without them.
+ */
+import { runWeatherPipeline } from './weather-pipeline';
+import { syntheticZone } from './synthetic-zone';
+
+describe('weather pipeline', () => {
+  const hours = 8 * 168;
+  it('a zone that answers the temperature gets the temperature terms, and they beat the model without them on the test days', () => {
+    const z = syntheticZone(hours, 21);
+    const r = runWeatherPipeline({ history: z.load, horizon: 38, temperature: z.temperature, vintages: z.vintages });
+    expect(r.method).toBe('regression-arima');
+    expect(r.choice!.terms.temperature).toBe(true);
+    const without = r.candidates.find((c) => !c.terms.temperature && !c.terms.recency)!;
+    const chosen = r.candidates.find((c) => c.terms.temperature === r.choice!.terms.temperature && c.terms.recency === r.choice!.terms.recency)!;
+    expect(chosen.mape).toBeLessThan(without.mape);
+    expect(r.forecast.mean).toHaveLength(38);
+    expect(r.weatherSd.every((v) => v >= 0)).toBe(true);
+    expect(r.weatherSd.some((v) => v > 0)).toBe(true); // the temperature forecast's uncertainty is in the bands
+    expect(r.forecast.upper95.every((u, j) => u >= r.forecast.mean[j])).toBe(true);
+  });
+  it('a zone whose load does not answer the temperature keeps the model without it', () => {
+    const z = syntheticZone(hours, 21, { weatherScale: 0 });
+    const r = runWeatherPipeline({ history: z.load, horizon: 38, temperature: z.temperature, vintages: z.vintages });
+    expect(r.choice!.terms.temperature).toBe(false);
+    expect(r.method).not.toBe('regression-arima'); // the ARMA, or seasonal naive where that beat it
+    expect(r.response).toEqual([]);
+  });
+  it('a what-if temperature moves the forecast by the fitted response', () => {
+    const z = syntheticZone(hours, 21, { meanC: 0 }); // cold: always heating
+    const base = runWeatherPipeline({ history: z.load, horizon: 24, temperature: z.temperature, vintages: z.vintages });
+    const colder = base.temperature.map((t) => t - 2);
+    const r = runWeatherPipeline({ history: z.load, horizon: 24, temperature: z.temperature, vintages: z.vintages, scenarios: [{ name: '−2 °C', temperature: colder }] });
+    const diff = r.scenarios[0].forecast.mean.map((m, j) => m - r.forecast.mean[j]);
+    // 2 degrees more heating at about 12 MW per degree (the construction); recency terms, if chosen, add their share
+    for (const d of diff) expect(d).toBeGreaterThan(2 * 12 * 0.6);
+    for (const d of diff) expect(d).toBeLessThan(2 * 12 * 1.6);
+  });
+});
