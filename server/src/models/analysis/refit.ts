@@ -20,13 +20,18 @@ import {
   forecastArima,
   normalizeSpec,
   runPipeline,
+  runWeatherPipeline,
   type ArmaFit,
+  type CalendarHours,
+  type TemperatureVintage,
+  type WeatherChoice,
+  type WeatherPipelineResult,
   type CandidateResult,
   type IntervalForecast,
   type ModelChoice,
   type ModelSummary,
 } from '@morrowline/engine';
-import type { StoredModel } from '../stored-model';
+import type { StoredModel, StoredWeather } from '../stored-model';
 
 
 /**
@@ -61,6 +66,22 @@ export interface RefitPayload {
   backtestDays?: number;
   /** exact-ML fits per differencing after the screening (default REFIT_SCREEN) */
   screen?: number;
+  /** the zone's weather and calendar on the history's timeline (./zone-weather-inputs); absent: no observed temperature */
+  weather?: RefitWeather;
+}
+
+export interface RefitWeather {
+  /** UTC ms of hour 0 of the timeline (for the vintage's issue time in the result) */
+  firstHourMs: number;
+  /** observed zone temperature of the history's hours, NaN missing */
+  temperature: Float64Array;
+  /** only vintages issued at or before `issuedAt` are sent (and the engine reads no later one) */
+  vintages: TemperatureVintage[];
+  calendar: CalendarHours;
+  /** the forecast's issue time, hours from the start of hour 0 */
+  issuedAt: number;
+  /** update: the terms and thresholds of the version in service, kept */
+  fixed?: WeatherChoice;
 }
 
 export interface ScoreResult {
@@ -87,6 +108,8 @@ export interface RefitResult {
   inServiceScore: ScoreResult | null;
   fitMs: number;
   totalMs: number;
+  /** the weather terms tried (used or not); null without weather */
+  weather?: StoredWeather | null;
 }
 
 const finiteOrNull = (v: number): number | null => (Number.isFinite(v) ? v : null);
@@ -126,18 +149,61 @@ export function refitZone(payload: RefitPayload): RefitResult {
     score = scoreChoice(payload.values, payload.excluded, choice, days);
     if (payload.inService) inServiceScore = scoreChoice(payload.values, payload.excluded, payload.inService, days);
   }
+  const w = model && payload.weather ? withWeather(payload, choiceOf(model)) : null;
   return {
     method: model ? 'arima' : 'seasonal-naive',
     fallbackReason: r.fallbackReason ?? null,
     model,
     stored: model ? storedOf(model, r.bandScale) : null,
-    forecast: r.forecast,
+    // a model with weather terms forecasts on the temperature forecast known at the issue time,
+    // its bands widened by that forecast's uncertainty (the engine's weather pipeline)
+    forecast: w && w.stored.used ? w.result.forecast : r.forecast,
+    weather: w ? w.stored : null,
     candidates: r.candidates,
     warnings: r.warnings,
     score,
     inServiceScore,
     fitMs: r.timings.fitMs,
     totalMs: performance.now() - t0,
+  };
+}
+
+/**
+ * The engine's weather pipeline on the same history, the ARMA orders and differencing of the
+ * model without weather kept (so it is not chosen twice): it decides by its rolling day-ahead
+ * backtest on forecast weather whether the zone's load answers the temperature and the calendar.
+ */
+function withWeather(payload: RefitPayload, plain: ModelChoice): { result: WeatherPipelineResult; stored: StoredWeather } {
+  const w = payload.weather!;
+  const result = runWeatherPipeline({
+    history: payload.values,
+    excluded: payload.excluded,
+    horizon: payload.horizon,
+    temperature: w.temperature,
+    vintages: w.vintages,
+    calendar: w.calendar,
+    issuedAt: w.issuedAt,
+    options: {
+      pipeline: { fixed: plain, requireBeatBaseline: false, screen: payload.screen ?? REFIT_SCREEN, ...(REFIT_SEASONAL_BLOCK ? {} : { seasonalBlock: false as const }) },
+      requireBeatBaseline: false,
+      ...(w.fixed ? { fixed: w.fixed } : {}),
+    },
+  });
+  const terms = result.choice?.terms ?? { temperature: false, recency: false, calendar: false, heatBelow: NaN, coolAbove: NaN };
+  const finite = (v: number): number | null => (Number.isFinite(v) ? v : null);
+  return {
+    result,
+    stored: {
+      used: result.method === 'regression-arima',
+      description: result.description,
+      terms: { temperature: terms.temperature, recency: terms.recency, calendar: terms.calendar, heatBelow: finite(terms.heatBelow) ?? 0, coolAbove: finite(terms.coolAbove) ?? 0 },
+      response: result.response.map((c) => ({ name: c.name, value: c.value, se: finite(c.se) })),
+      candidates: result.candidates.map((c) => ({ label: c.label, mape: finite(c.mape) })),
+      baselineMape: finite(result.baselineMape),
+      selectionDays: result.selectionDays,
+      vintageIssuedAt: Number.isFinite(result.vintageIssued) ? new Date(w.firstHourMs + result.vintageIssued * 3_600_000).toISOString() : null,
+      choice: result.method === 'regression-arima' && result.choice ? result.choice : null,
+    },
   };
 }
 
