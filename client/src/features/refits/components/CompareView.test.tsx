@@ -88,4 +88,29 @@ describe('CompareView', () => {
     expect(cell('candidate-80 % band held')).toHaveTextContent('78.00 %');
     expect(cell('candidate-Mean error')).toHaveTextContent('-1.5 MW');
   });
+
+  it('sets with and without weather side by side: what each refit tried and which terms it kept', () => {
+    const tried = (temperatureMape: number) => [
+      { label: 'no weather or calendar terms', mape: 4.1 },
+      { label: 'temperature (heating below 14 °C, cooling above 20 °C)', mape: temperatureMape },
+    ];
+    const terms = { temperature: true, recency: false, calendar: false, heatBelow: 14, coolAbove: 20 };
+    const withWeather = {
+      used: true, description: '(1−B^168) ARMA(2,1) + temperature (heating below 14 °C, cooling above 20 °C)', terms,
+      response: [{ name: 'hdd_morning', value: 21.5, se: 1.2 }], candidates: tried(2.6), baselineMape: 6.2, selectionDays: 28, vintageIssuedAt: '2026-07-14T05:00:00Z',
+    };
+    const c = compare(3.05, 4.4, { weather: { ...withWeather, used: false, description: '(1−B^168) ARMA(2,1), no weather or calendar terms', response: [], candidates: tried(4.3) } });
+    c.candidate = { ...c.candidate, weather: withWeather };
+    renderWithProviders(<CompareView compare={c} />);
+    expect(cell('compare-weather-candidate')).toHaveTextContent('Forecasts with the weather: (1−B^168) ARMA(2,1) + temperature');
+    expect(cell('compare-weather-in-service')).toHaveTextContent('did not beat the model without them');
+    const row = cell('weather-row-temperature (heating below 14 °C, cooling above 20 °C)');
+    expect(row).toHaveTextContent(/2\.60 %\s*kept\s*4\.30 %/);
+    expect(cell('weather-row-no weather or calendar terms')).toHaveTextContent(/4\.10 %\s*4\.10 %\s*kept/);
+  });
+
+  it('shows no weather section when neither version had observed temperature', () => {
+    renderWithProviders(<CompareView compare={compare(3.05, 4.4)} />);
+    expect(screen.queryByTestId('compare-weather')).toBeNull();
+  });
 });
