@@ -1,7 +1,7 @@
 import { EntityManager } from '@mikro-orm/mariadb';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import request from 'supertest';
-import { temperatureResponseCurve, type ModelVersionDto, type RefitJobDto } from '@morrowline/shared';
+import { operatingDayOf, temperatureResponseCurve, type ModelVersionDto, type RefitJobDto, type WeatherWhatIfDto } from '@morrowline/shared';
 import { refitZone, REFIT_BACKTEST_DAYS } from '../src/models/analysis/refit';
 import { forecastHorizon } from '../src/forecasts/forecast-horizon';
 import { ZoneHistoryLoader } from '../src/history/zone-history.loader';
@@ -75,13 +75,13 @@ describe('refits with weather: temperature response and forecasts on the vintage
     await app.get(ReadingsService).zones(true);
 
     // observed temperature of every history hour; a vintage issued each day at 05:00 UTC for the
-    // next 48 hours, its error growing with the lead (about 0.04 °C per hour ahead)
+    // next 96 hours, its error growing with the lead (about 0.04 °C per hour ahead)
     const observed = readings.map((r) => ({ stationId, station, hourStart: r.hourStart, tempC: Math.round(temperatureAt(r.hourStart) * 100) / 100 }));
     const err = stream(19);
     const forecasts = [];
     for (let issued = Math.floor(first / (24 * H)) * 24 * H + 5 * H; issued <= Date.now() - 10 * 60_000; issued += 24 * H) {
       if (issued < first) continue;
-      for (let k = 1; k <= 48; k++) {
+      for (let k = 1; k <= 96; k++) {
         const hourStart = issued - 5 * H + (5 + k) * H;
         forecasts.push({ stationId, station, issuedAt: issued, hourStart, member: '', tempC: Math.round((temperatureAt(hourStart) + 0.04 * k * err()) * 100) / 100 });
       }
@@ -146,4 +146,33 @@ describe('refits with weather: temperature response and forecasts on the vintage
     const mean = (xs: number[]) => xs.reduce((a, b) => a + b, 0) / xs.length;
     expect(mean(informed.forecast.mean)).toBeLessThan(mean(before.forecast.mean) - 100);
   });
+
+  it('answers a weather what-if for the next day beside the model forecast: 2 °C colder means HEAT_MW_PER_C × 2 more on heating hours', async () => {
+    const day = operatingDayOf(last + 24 * H, 'America/Denver');
+    const before = (await api().get(`/api/forecasts/latest?zone=${zone}`).set(as(operator)).expect(200)).body;
+    const res = await api().get(`/api/schedules/${day}/${zone}/weather-what-if`).query({ shift: '-2' }).set(as(operator)).expect(200);
+    const w = res.body as WeatherWhatIfDto;
+    expect(w.shiftC).toBe(-2);
+    expect(w.hours.length).toBeGreaterThanOrEqual(23);
+    const heating = w.hours.filter((h) => h.changeMw !== null && h.temperatureC !== null && h.temperatureC <= 11);
+    expect(heating.length).toBeGreaterThan(3);
+    for (const h of heating) expect(h.whatIfTemperatureC).toBeCloseTo(h.temperatureC! - 2, 6);
+    const mean = heating.reduce((a, h) => a + h.changeMw!, 0) / heating.length;
+    expect(mean).toBeGreaterThan(0.7 * 2 * HEAT_MW_PER_C);
+    expect(mean).toBeLessThan(1.3 * 2 * HEAT_MW_PER_C);
+    // warm hours above the heating threshold answer less (nothing above 16 °C after the shift)
+    for (const h of w.hours.filter((x) => x.changeMw !== null && x.whatIfTemperatureC !== null && x.whatIfTemperatureC > 16)) expect(Math.abs(h.changeMw!)).toBeLessThan(0.5 * 2 * HEAT_MW_PER_C);
+    // the what-if changes nothing stored
+    expect((await api().get(`/api/forecasts/latest?zone=${zone}`).set(as(operator)).expect(200)).body).toEqual(before);
+
+    // another vintage: the one issued a day before the newest, as known then
+    const older = new Date(Date.parse(w.baseVintageIssuedAt!) - 24 * H).toISOString();
+    const v = (await api().get(`/api/schedules/${day}/${zone}/weather-what-if`).query({ vintage: older }).set(as(operator)).expect(200)).body as WeatherWhatIfDto;
+    expect(v.shiftC).toBeNull();
+    expect(v.whatIfVintageIssuedAt).toBe(older);
+    await api().get(`/api/schedules/${day}/${zone}/weather-what-if`).query({ shift: '2' }).set(as((await tokenFor(app, 'viewer')))).expect(403);
+    const future = new Date(Date.now() + 3600_000).toISOString();
+    await api().get(`/api/schedules/${day}/${zone}/weather-what-if`).query({ vintage: future }).set(as(operator)).expect(400);
+  });
 });
+

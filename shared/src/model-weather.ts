@@ -97,3 +97,34 @@ export function calendarEffects(w: Pick<ModelWeatherDto, 'terms' | 'response'>):
   }
   return effects;
 }
+
+/** The largest temperature shift a weather what-if takes, °C either way (a day-ahead forecast rarely misses by more). */
+export const WHAT_IF_MAX_SHIFT_C = 10;
+
+/**
+ * GET /api/schedules/:day/:zone/weather-what-if?shift=N | ?vintage=ISO — the load the model that
+ * made the day's latest forecast would mean if the temperature forecast were N °C warmer (or
+ * colder), or were another vintage; beside the model forecast, never changing it.
+ */
+export interface WeatherWhatIfDto {
+  zone: string;
+  operatingDay: string;
+  forecastRunId: number | null;
+  modelVersionId: number;
+  /** the shift asked for, °C (null when another vintage was asked for) */
+  shiftC: number | null;
+  /** issue time of the temperature forecast under the model forecast, and of the one the what-if used */
+  baseVintageIssuedAt: string | null;
+  whatIfVintageIssuedAt: string | null;
+  hours: Array<{
+    hourStart: string;
+    modelMw: number | null;
+    temperatureC: number | null;
+    whatIfTemperatureC: number | null;
+    whatIfMw: number | null;
+    /** whatIfMw − modelMw */
+    changeMw: number | null;
+  }>;
+  /** how the what-if is made, for the desk */
+  method: string;
+}

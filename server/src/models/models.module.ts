@@ -12,13 +12,15 @@ import { ModelsService } from './models.service';
 import { RefitJobsRepository } from './refit-jobs.repository';
 import { RefitScheduler } from './refit-scheduler';
 import { RefitsService } from './refits.service';
+import { WeatherWhatIfController } from './weather-what-if.controller';
+import { WeatherWhatIfService } from './weather-what-if.service';
 import { ZoneWeatherLoader } from './zone-weather.loader';
 
 /** Refit jobs (scheduled and on demand, in the compute pool) and model versions. */
 @Module({
   imports: [ComputeModule, ReadingsModule, ZoneHistoryModule, ZonesModule, ForecastsModule, WeatherModule, CalendarModule],
-  controllers: [ModelsController],
-  providers: [ModelsService, RefitsService, RefitScheduler, ModelVersionsRepository, RefitJobsRepository, ZoneWeatherLoader],
+  controllers: [ModelsController, WeatherWhatIfController],
+  providers: [ModelsService, RefitsService, RefitScheduler, ModelVersionsRepository, RefitJobsRepository, ZoneWeatherLoader, WeatherWhatIfService],
   exports: [RefitsService, ModelsService, ModelVersionsRepository, ZoneWeatherLoader],
 })
 export class ModelsModule {}
