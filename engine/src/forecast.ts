@@ -10,10 +10,11 @@
  * prediction of it (the Kalman filter's prediction of the differenced value, turned back into
  * load), so an outage dip never comes back through the seasonal lags.
  */
-import { difference, differencePolynomial, extendForecast, integratedVariance } from './differencing';
+import { difference, extendForecast, integratedVariance } from './differencing';
+import { fillHistory } from './series/fill-history';
+import type { IntervalForecast } from './series/interval-forecast';
 import { applyArma, ArmaFit, ArmaSpec, fitArma, FitOptions } from './arma/fit';
 import { normalQuantile } from './distributions';
-import { meanFinite, toSeries } from './series/series';
 
 export interface ArimaSpec extends ArmaSpec {
   /** differencing lags, e.g. [24, 168]; [] for none */
@@ -29,14 +30,9 @@ export interface ArimaFit {
   filledCount: number;
 }
 
-export interface IntervalForecast {
-  mean: number[];
-  se: number[];
-  lower80: number[];
-  upper80: number[];
-  lower95: number[];
-  upper95: number[];
-}
+export type { IntervalForecast };
+
+export { fillHistory };
 
 export const Z80 = normalQuantile(0.9);
 export const Z95 = normalQuantile(0.975);
@@ -56,32 +52,6 @@ export function applyArima(fit: ArimaFit, y: ArrayLike<number>): ArimaFit {
   const arma = applyArma(fit.arma, w);
   const { filled, count } = fillHistory(y, fit.diff, arma.predictions);
   return { diff: fit.diff, arma, filled, filledCount: count };
-}
-
-/** Replace missing load values by the model's one-step predictions (see header). */
-export function fillHistory(y: ArrayLike<number>, diff: number[], wPred: ArrayLike<number>): { filled: Float64Array; count: number } {
-  const c = differencePolynomial(diff);
-  const D = c.length - 1;
-  const n = y.length;
-  const filled = toSeries(y);
-  let count = 0;
-  const longest = diff.length ? Math.max(...diff) : 1;
-  const fallback = meanFinite(y);
-  for (let t = 0; t < Math.min(D, n); t++) {
-    if (filled[t] === filled[t]) continue;
-    let v = NaN;
-    for (let u = t + longest; u < n && !(v === v); u += longest) v = filled[u];
-    filled[t] = v === v ? v : fallback;
-    count++;
-  }
-  for (let t = D; t < n; t++) {
-    if (filled[t] === filled[t]) continue;
-    let s = wPred[t - D];
-    for (let k = 1; k <= D; k++) if (c[k] !== 0) s -= c[k] * filled[t - k];
-    filled[t] = s;
-    count++;
-  }
-  return { filled, count };
 }
 
 /** h-step forecasts of the load with standard errors and 80 % / 95 % intervals. */

@@ -573,3 +573,6 @@ export function forecastState(ss: ArmaStateSpace, aEnd: Float64Array, PEnd: Floa
   }
   return { mean: out, cov };
 }
+
+/** For the regression with ARMA errors (../regression), which searches the same ARMA parameters. */
+export { fromUnconstrained, toUnconstrained, splitNatural, stateSpaceOf, type Natural };

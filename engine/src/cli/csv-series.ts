@@ -30,6 +30,9 @@ export interface HourlySeries {
   missing: number;
 }
 
+/** A decimal number as the CSV files write it (sign, digits, optional fraction and exponent). */
+export const CSV_NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+
 const TS = /^(\d{4})-(\d{2})-(\d{2})T(\d{2}):(\d{2})(?::(\d{2})(?:\.(\d+))?)?(Z|[+-]\d{2}:?\d{2})$/;
 const HOUR = 3600_000;
 
@@ -74,7 +77,7 @@ export function parseLoadCsv(text: string): HourlySeries {
     const lv = parts[1].trim();
     let v = NaN;
     if (lv !== '') {
-      if (!/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(lv)) throw new CsvFormatError(ln, `load "${lv}" is not a number`);
+      if (!CSV_NUMBER.test(lv)) throw new CsvFormatError(ln, `load "${lv}" is not a number`);
       v = Number(lv);
       if (!Number.isFinite(v)) throw new CsvFormatError(ln, `load "${lv}" is not a finite number`);
       if (v < 0) throw new CsvFormatError(ln, `load ${lv} MW is negative`);

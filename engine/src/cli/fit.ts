@@ -1,6 +1,8 @@
 /**
  * `npm run fit -- --input FILE.csv [--diff 24,168] [--order p,q] [--seasonal P,Q,s]
- *  [--mean|--no-mean] [--repeat N] [--json]` (`--help` prints the usage)
+ *  [--mean|--no-mean] [--xreg REGRESSORS.csv] [--repeat N] [--json]` (`--help` prints the usage)
+ * With --xreg (`timestamp,NAME1,NAME2,…`, one row per hour of the load) the model is a
+ * regression with ARMA errors on those columns, fitted as given (fit-xreg.ts).
  * Fits a model to an hourly load history and prints coefficients with standard errors, σ²,
  * log-likelihood, AIC, AICc, BIC, Ljung–Box at lags 24 and 48, n and the estimation time.
  * Without --order the orders are chosen by AICc (p, q ≤ 3); without --diff and --order the
@@ -12,9 +14,13 @@
 import { readFileSync } from 'node:fs';
 import { parseArgs } from 'node:util';
 import { parseLoadCsv } from './csv-series';
+import { runXregFit } from './fit-xreg';
 import { difference, describeDifferencing, fitArima, ljungBox, median, runPipeline, selectOrder, ArimaFit } from '@morrowline/engine';
+import { readWeatherInputs, WEATHER_OPTIONS } from './weather-inputs';
+import { weatherFitReport } from './weather-fit-command';
 
-const USAGE = 'usage: npm run fit -- --input FILE.csv [--diff 24,168|none] [--order p,q] [--seasonal P,Q,s] [--mean|--no-mean] [--repeat N] [--json]';
+const USAGE =
+  'usage: npm run fit -- --input FILE.csv [--diff 24,168|none] [--order p,q] [--seasonal P,Q,s] [--mean|--no-mean] [--xreg REGRESSORS.csv (with --order)] [--repeat N] [--temperature FILE.csv [--temperature-forecasts FILE.csv] [--calendar FILE.csv] [--time-zone TZ]] [--json]';
 
 const START_LABELS: Record<ArimaFit['arma']['startedFrom'], string> = {
   given: 'given',
@@ -43,6 +49,8 @@ export function runFit(argv: string[]): { text: string; json: Record<string, unk
       mean: { type: 'boolean' },
       'no-mean': { type: 'boolean' },
       repeat: { type: 'string' },
+      xreg: { type: 'string' },
+      ...WEATHER_OPTIONS,
       json: { type: 'boolean' },
       help: { type: 'boolean', short: 'h' },
     },
@@ -54,12 +62,19 @@ export function runFit(argv: string[]): { text: string; json: Record<string, unk
   if (a.repeat !== undefined && !/^[1-9]\d{0,3}$/.test(a.repeat)) throw new Error(`--repeat expects a whole number from 1 to 9999, got "${a.repeat}"`);
   const repeat = a.repeat === undefined ? 1 : Number(a.repeat);
   const series = parseLoadCsv(readFileSync(a.input, 'utf8'));
+  const weather = readWeatherInputs(a, series, 24);
+  if (weather) {
+    if (a.xreg) throw new Error('--xreg fits the columns given; --temperature chooses the weather terms itself: use one or the other');
+    if (a.diff || a.order || a.seasonal || a.mean || a['no-mean'] || a.repeat) throw new Error('--temperature fits the automatic pipeline with weather; --diff, --order, --seasonal, --mean and --repeat do not apply');
+    return weatherFitReport(a.input, series, weather);
+  }
   const y = series.values;
   let diff: number[] | undefined;
   if (a.diff !== undefined) diff = a.diff === 'none' || a.diff === '0' ? [] : parseIntList(a.diff, 'diff').filter((d) => d > 0);
   let order = a.order ? parseIntList(a.order, 'order', 2) : undefined;
   const seasonal = a.seasonal ? parseIntList(a.seasonal, 'seasonal', 3) : undefined;
   const includeMean = a.mean ? true : a['no-mean'] ? false : undefined;
+  if (a.xreg) return runXregFit({ input: a.input, series, xreg: a.xreg, diff: diff ?? [], order, seasonal, includeMean, repeat });
   let chosenBy = 'given';
   let pipelineMs: number | undefined;
   if (!diff && !order) {

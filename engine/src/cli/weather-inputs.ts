@@ -45,8 +45,8 @@ function localParts(ms: number, offsetMin: number, fmt?: Intl.DateTimeFormat): {
 export function timeZoneFormat(tz: string): Intl.DateTimeFormat {
   try {
     return new Intl.DateTimeFormat('en-CA', { timeZone: tz, year: 'numeric', month: '2-digit', day: '2-digit', hour: '2-digit', hourCycle: 'h23' });
-  } catch {
-    throw new Error(`--time-zone "${tz}" is not an IANA time zone (e.g. America/Denver)`);
+  } catch (e) {
+    throw new Error(`--time-zone "${tz}" is not an IANA time zone (e.g. America/Denver)`, { cause: e });
   }
 }
 
@@ -69,7 +69,7 @@ export function readWeatherInputs(a: WeatherArgs, series: HourlySeries, extraHou
     try {
       f();
     } catch (e) {
-      throw new Error(`${what} ${file}: ${(e as Error).message}`);
+      throw new Error(`${what} ${file}: ${(e as Error).message}`, { cause: e });
     }
   };
   let temperature: Float64Array = new Float64Array(0);

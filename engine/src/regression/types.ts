@@ -6,7 +6,7 @@
  * (fit-regression.ts) and of its forecasts (forecast-regression.ts).
  */
 import type { ArmaSpec, Coefficient } from '../arma/fit';
-import type { ArimaSpec, IntervalForecast } from '../forecast';
+import type { IntervalForecast } from '../series/interval-forecast';
 
 /** One named regressor column, hour by hour on the same timeline as the load. */
 export interface Regressor {
@@ -25,7 +25,10 @@ export interface Regressor {
  * block P, Q, period. `includeMean` adds an intercept column (default: only when there is no
  * differencing, as R does; after a differencing a constant vanishes and is refused).
  */
-export type RegressionSpec = ArimaSpec;
+export interface RegressionSpec extends ArmaSpec {
+  /** differencing lags, e.g. [24, 168]; [] for none */
+  diff: number[];
+}
 
 export interface RegressionFitOptions {
   /** standard errors from the Hessian of the full likelihood (default true) */
@@ -49,6 +52,12 @@ export interface RegressionFit {
   armaCoefficients: Coefficient[];
   /** every coefficient in R's order: ARMA first, then intercept and regressors */
   coefficients: Coefficient[];
+  /**
+   * their joint covariance (R's var.coef), row-major in the order of `coefficients`; the block of
+   * β gives the uncertainty of a combination such as a temperature response. NaN without
+   * standard errors (computeSe false).
+   */
+  covariance: Float64Array;
   ar: Float64Array;
   ma: Float64Array;
   sar: Float64Array;
@@ -62,8 +71,15 @@ export interface RegressionFit {
   bic: number;
   /** parameters counted in the criteria: ARMA coefficients + regression coefficients + 1 (σ²), as R's forecast package */
   nParams: number;
-  /** differenced hours in the likelihood */
+  /** hours in the likelihood: observed differenced values (R's n.used under the diffuse form) */
   nUsed: number;
+  /**
+   * the likelihood's form: 'differenced' (the exact likelihood of the differenced data) or
+   * 'diffuse' (a differenced series with gaps, in the state space of the undifferenced errors
+   * with a diffuse start, as R's arima: it keeps what differencing loses at a gap); see
+   * likelihood-forms.ts
+   */
+  likelihood: 'differenced' | 'diffuse';
   /** hours of the load given (the timeline of y and of every regressor) */
   hours: number;
   /** regression errors u_t = y_t − x_t'β on the load's timeline (NaN where y or a regressor is missing) */
@@ -77,7 +93,8 @@ export interface RegressionFit {
   fitMs: number;
   /**
    * Forecasts of the load for the hours after the last hour of y, given the regressors' values
-   * for those hours (one Regressor per fitted name, each of the horizon's length).
+   * for those hours (one Regressor per fitted name, each of the horizon's length; in any order).
+   * Throws on a missing, unknown or repeated name, unequal lengths or a non-finite value.
    */
   forecast(future: readonly Regressor[], opts?: RegressionForecastOptions): RegressionForecast;
 }
@@ -90,9 +107,14 @@ export interface RegressionForecastOptions {
    * independent of the load's innovations).
    */
   extraVariance?: ArrayLike<number>;
+  /** the number of steps, needed only by a model without regressors (otherwise the future values' length) */
+  horizon?: number;
 }
 
-/** Load forecasts with standard errors and 80 % / 95 % intervals (R's predict(fit, newxreg=) for the mean and se when no extra variance is given). */
+/**
+ * Load forecasts with standard errors and 80 % / 95 % intervals; the mean and `modelSe` are R's
+ * predict(fit, newxreg=) pred and se, `se` includes the extra variance.
+ */
 export interface RegressionForecast extends IntervalForecast {
   /** the regression part x'β per step */
   regression: number[];

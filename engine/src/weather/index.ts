@@ -6,3 +6,4 @@ export * from './forecast-temperature';
 export * from './response-uncertainty';
 export * from './weather-pipeline';
 export * from './weather-backtest';
+export * from './synthetic-zone';

@@ -8,7 +8,8 @@
  *  3. Which terms the zone gets is decided like the differencing, by the rolling day-ahead
  *     backtest over the last four weeks of the history (Tashman 2000): each candidate term set
  *     (none, the calendar, the temperature, the temperature with its recency terms; Wang, Liu &
- *     Hong 2016) gets its β and its ARMA (the differencing and orders of step 1) fitted, and from
+ *     Hong 2016) gets its β and its ARMA fitted (none: the model of step 1; the others: the
+ *     differencing and orders the pipeline chooses on u of the fullest set), and from
  *     each origin its forecast of the next day is issued on the temperature forecast known at
  *     that origin (./forecast-temperature: never a vintage issued later, never a temperature
  *     observed later), with the error model's forecast of u added. The simplest set within 2 % of
@@ -315,13 +316,22 @@ export function runWeatherPipeline(input: WeatherPipelineInput): WeatherPipeline
       const thresholds = chooseThresholds(y, obs, cal, { ...fullest, heatBelow: 14, coolAbove: 20 }).terms;
       const plain = plainResult();
       if (!plain.model) return fromPlain(plain, { ...NO_TERMS, heatBelow: thresholds.heatBelow, coolAbove: thresholds.coolAbove }, performance.now() - ts);
-      // the weather candidates keep the differencing and orders the pipeline chose for the load
-      const model = { ...choiceOf(plain.model), start: startOf(plain.model.coefficients, plain.model) };
+      // the model without weather: today's pipeline, scored like the others
+      const plainModel = { ...choiceOf(plain.model), start: startOf(plain.model.coefficients, plain.model) };
+      // the weather candidates' differencing and orders: the pipeline's choice on u of the fullest set
+      // (the load's own orders describe weather-driven swings the terms take out; measured on the
+      // simulator's zones, they doubled the perfect-weather error)
+      const full = { ...fullest, heatBelow: thresholds.heatBelow, coolAbove: thresholds.coolAbove };
+      const gFull = responseValues(estimateResponse(y, obs, cal, full), obs, cal, 0, n);
+      const uFull = new Float64Array(n);
+      for (let t = 0; t < n; t++) uFull[t] = y[t] - gFull[t];
+      const sel = runPipeline({ history: uFull, horizon: h, options: { ...o.pipeline, calibrateBands: false, requireBeatBaseline: false, computeSe: false, selectionDays: days } });
+      const weatherModel = sel.model ? { ...choiceOf(sel.model), start: startOf(sel.model.coefficients, sel.model) } : plainModel;
       const scored: Scored[] = [];
       for (const set of sets) {
         const terms = { ...set, heatBelow: thresholds.heatBelow, coolAbove: thresholds.coolAbove };
         try {
-          const sc = fitTerms(terms, model);
+          const sc = fitTerms(terms, hasTerms(terms) ? weatherModel : plainModel);
           candidates.push({ label: describeTerms(terms), terms, mape: sc.score.mape });
           if (Number.isFinite(sc.score.mape)) scored.push(sc);
         } catch (e) {
@@ -338,6 +348,16 @@ export function runWeatherPipeline(input: WeatherPipelineInput): WeatherPipeline
     return empty(`model selection failed: ${(e as Error).message}`);
   }
   const selectionMs = performance.now() - ts;
+  if (o.pipeline?.computeSe ?? true) {
+    // the served model's standard errors (the choice's fits skip the Hessian)
+    const b = best.fit.arma;
+    try {
+      const fit = fitArima(best.u, { diff: best.fit.diff, p: b.spec.p, q: b.spec.q, P: b.spec.P, Q: b.spec.Q, period: b.spec.period, includeMean: false }, { start: { ar: b.ar, ma: b.ma, sar: b.sar, sma: b.sma }, computeSe: true });
+      best = { ...best, fit };
+    } catch (e) {
+      warnings.push(`standard errors of the error model could not be computed: ${(e as Error).message}`);
+    }
+  }
 
   const a = best.fit.arma;
   const modelChoice: ModelChoice = {
