@@ -6,7 +6,7 @@ import { ErrorNotice } from '../../../components/ErrorNotice';
 import { axis, CHART_COLORS, UplotChart } from '../../../components/UplotChart';
 import { formatDateTime } from '../../../lib/format';
 import { notifySuccess } from '../../../lib/notify';
-import { useAddAdjustment } from '../api/use-schedule-actions';
+import { useAddAdjustments } from '../api/use-schedule-actions';
 import { useWeatherWhatIf, type WhatIfAsk } from '../api/use-weather-what-if';
 import { isEditable, isForecaster } from '../model/permissions';
 import { checkShift, whatIfAdjustments } from '../model/what-if';
@@ -24,8 +24,7 @@ export function WeatherWhatIfPanel({ day, zone, user }: { day: string; zone: Zon
   const [reason, setReason] = useState('');
   const [reasonError, setReasonError] = useState<string | null>(null);
   const whatIf = useWeatherWhatIf(day, zone.zone, ask);
-  const add = useAddAdjustment(day);
-  const [applying, setApplying] = useState(false);
+  const add = useAddAdjustments(day);
   const canApply = isForecaster(user) && isEditable(zone.working);
 
   const label = ask && 'shift' in ask ? `${Number(ask.shift) > 0 ? '+' : ''}${ask.shift} °C` : ask ? `vintage issued ${ask.vintage}` : '';
@@ -43,19 +42,17 @@ export function WeatherWhatIfPanel({ day, zone, user }: { day: string; zone: Zon
     }
   };
 
-  const apply = async () => {
+  const apply = () => {
     if (!whatIf.data) return;
     if (!reason.trim()) return setReasonError('Say why the schedule should follow this what-if');
     setReasonError(null);
     const requests = whatIfAdjustments(whatIf.data, zone.slots, zone.zone, reason.trim(), label);
-    setApplying(true);
-    try {
-      for (const request of requests) await add.mutateAsync(request);
-      notifySuccess(`${requests.length} hourly adjustment${requests.length === 1 ? '' : 's'} added from the what-if (${label})`);
-      setReason('');
-    } finally {
-      setApplying(false);
-    }
+    add.mutate(requests, {
+      onSuccess: () => {
+        notifySuccess(`${requests.length} hourly adjustment${requests.length === 1 ? '' : 's'} added from the what-if (${label})`);
+        setReason('');
+      },
+    });
   };
 
   const data = useMemo<uPlot.AlignedData | null>(() => {
@@ -129,7 +126,7 @@ export function WeatherWhatIfPanel({ day, zone, user }: { day: string; zone: Zon
               <Stack gap={4}>
                 <Group align="flex-end" gap="sm">
                   <TextInput label="Reason for following the what-if" withAsterisk value={reason} onChange={(e) => setReason(e.currentTarget.value)} error={reasonError} w={420} data-testid="what-if-reason" />
-                  <Button onClick={() => void apply()} loading={applying}>Turn into adjustments</Button>
+                  <Button onClick={apply} loading={add.isPending}>Turn into adjustments</Button>
                 </Group>
                 {add.isError && <ErrorNotice title="Not every adjustment was added" error={add.error} />}
                 <Text size="xs" c="dimmed">One added adjustment per hour, each undoable. {SCHEDULE_CAUTION}</Text>
