@@ -134,4 +134,25 @@ describe('a model that knows the weather, on the refits and schedule screens', (
     const adjustments = zonePanel.getByRole('button', { name: /^Adjustments \(\d+\)/ });
     await expect.poll(async () => Number(/\((\d+)\)/.exec(await adjustments.innerText())?.[1]), { timeout: 30_000 }).toBeGreaterThan(12);
   }, 180_000);
+
+  it('sets a second version beside the one in service with and without weather', async () => {
+    const operator = await apiToken('operator');
+    const started = await call(operator, 'POST', '/models/refits', { zone: ZONE, reason: 'second fit of Coldharbour' });
+    expect(started.status).toBe(202);
+    const { page } = desk;
+    await page.goto(`/refits?zone=${ZONE}`);
+    const candidate = page.getByTestId('model-versions').locator('[data-status="candidate"]').first();
+    await candidate.waitFor({ timeout: 120_000 });
+    await candidate.getByRole('button', { name: 'Compare' }).click();
+    const compare = page.getByRole('dialog', { name: /beside the model in service/ });
+    const weather = compare.getByTestId('compare-weather');
+    await weather.waitFor({ timeout: 120_000 });
+    expect(await weather.getByTestId('compare-weather-candidate').innerText()).toMatch(/Forecasts with the weather/);
+    expect(await weather.getByTestId('compare-weather-in-service').innerText()).toMatch(/In service: Forecasts with the weather/);
+    const without = weather.getByTestId('weather-row-no weather or calendar terms');
+    expect(await without.innerText()).toMatch(/no weather or calendar terms\s+\d+\.\d\d %\s+\d+\.\d\d %/);
+    await weather.scrollIntoViewIfNeeded();
+    await page.screenshot({ path: await screenshot(page, 'refits-compare-weather').then((f) => f.replace('.png', '-dialog.png')) });
+  }, 300_000);
 });
+
