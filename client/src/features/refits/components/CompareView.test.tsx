@@ -92,11 +92,12 @@ describe('CompareView', () => {
   it('sets with and without weather side by side: what each refit tried and which terms it kept', () => {
     const tried = (temperatureMape: number) => [
       { label: 'no weather or calendar terms', mape: 4.1 },
-      { label: 'temperature (heating below 14 °C, cooling above 20 °C)', mape: temperatureMape },
+      { label: 'calendar', mape: 4.0 },
+      { label: 'temperature (heating below 14 °C, cooling above 20 °C), calendar', mape: temperatureMape },
     ];
-    const terms = { temperature: true, recency: false, calendar: false, heatBelow: 14, coolAbove: 20 };
+    const terms = { temperature: true, recency: false, calendar: true, heatBelow: 14, coolAbove: 20 };
     const withWeather = {
-      used: true, description: '(1−B^168) ARMA(2,1) + temperature (heating below 14 °C, cooling above 20 °C)', terms,
+      used: true, description: '(1−B^168) ARMA(2,1) + temperature (heating below 14 °C, cooling above 20 °C), calendar', terms,
       response: [{ name: 'hdd_morning', value: 21.5, se: 1.2 }], candidates: tried(2.6), baselineMape: 6.2, selectionDays: 28, vintageIssuedAt: '2026-07-14T05:00:00Z',
     };
     const c = compare(3.05, 4.4, { weather: { ...withWeather, used: false, description: '(1−B^168) ARMA(2,1), no weather or calendar terms', response: [], candidates: tried(4.3) } });
@@ -104,7 +105,9 @@ describe('CompareView', () => {
     renderWithProviders(<CompareView compare={c} />);
     expect(cell('compare-weather-candidate')).toHaveTextContent('Forecasts with the weather: (1−B^168) ARMA(2,1) + temperature');
     expect(cell('compare-weather-in-service')).toHaveTextContent('did not beat the model without them');
-    const row = cell('weather-row-temperature (heating below 14 °C, cooling above 20 °C)');
+    const row = cell('weather-row-temperature (heating below 14 °C, cooling above 20 °C), calendar');
+    // the calendar alone was tried too, and is not what either version kept
+    expect(cell('weather-row-calendar')).not.toHaveTextContent('kept');
     expect(row).toHaveTextContent(/2\.60 %\s*kept\s*4\.30 %/);
     expect(cell('weather-row-no weather or calendar terms')).toHaveTextContent(/4\.10 %\s*4\.10 %\s*kept/);
   });

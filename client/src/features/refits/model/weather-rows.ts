@@ -24,7 +24,8 @@ export function weatherCandidateRows(candidate: ModelVersionDto, inService: Mode
   const chosen = (v: ModelVersionDto | null, label: string): boolean => {
     const w = v?.weather;
     if (!w) return false;
-    return w.used ? w.description.endsWith(label) : label === 'no weather or calendar terms';
+    // the description is "<error model> + <terms>"; a shorter label ("calendar") must not match a longer set's tail
+    return w.used ? w.description.endsWith(` + ${label}`) : label === 'no weather or calendar terms';
   };
   return labels.map((label) => ({
     label,
