@@ -31,4 +31,9 @@ export interface StoredModel {
  * chosen terms with their error model (`choice`) that the hourly update keeps. `choice` is null
  * when the terms lost to the model without them.
  */
-export type StoredWeather = ModelWeatherDto & { choice: WeatherChoice | null };
+export type StoredWeather = ModelWeatherDto & {
+  choice: WeatherChoice | null;
+  /** the error model's innovation variance and the bands' calibration, to forecast with the coefficients held (absent on the first versions with weather) */
+  sigma2?: number;
+  bandScale?: { k80: number; k95: number };
+};

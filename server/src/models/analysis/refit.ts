@@ -21,6 +21,9 @@ import {
   normalizeSpec,
   runPipeline,
   runWeatherPipeline,
+  forecastTemperature,
+  responseSd,
+  responseValues,
   type ArmaFit,
   type CalendarHours,
   type TemperatureVintage,
@@ -32,6 +35,7 @@ import {
   type ModelSummary,
 } from '@morrowline/engine';
 import type { StoredModel, StoredWeather } from '../stored-model';
+import { storedResponse } from './weather-what-if';
 
 
 /**
@@ -203,6 +207,8 @@ function withWeather(payload: RefitPayload, plain: ModelChoice): { result: Weath
       selectionDays: result.selectionDays,
       vintageIssuedAt: Number.isFinite(result.vintageIssued) ? new Date(w.firstHourMs + result.vintageIssued * 3_600_000).toISOString() : null,
       choice: result.method === 'regression-arima' && result.choice ? result.choice : null,
+      ...(result.errorModel ? { sigma2: result.errorModel.sigma2 } : {}),
+      bandScale: { k80: result.bandScale.k80, k95: result.bandScale.k95 },
     },
   };
 }
@@ -228,6 +234,8 @@ export interface ForecastPayload {
   excluded: number[];
   horizon: number;
   model: StoredModel;
+  /** a version with weather terms: its stored terms and the zone's weather as known at the issue time */
+  weather?: { stored: StoredWeather; inputs: RefitWeather };
 }
 
 /**
@@ -236,6 +244,7 @@ export interface ForecastPayload {
  * as they were calibrated when it was fitted.
  */
 export function forecastStored(payload: ForecastPayload): { forecast: IntervalForecast } {
+  if (payload.weather?.stored.used && payload.weather.stored.choice && payload.weather.stored.sigma2 !== undefined) return forecastStoredWithWeather(payload, payload.weather.stored, payload.weather.inputs);
   const m = payload.model;
   const y = Float64Array.from(payload.values);
   for (const i of payload.excluded) if (i >= 0 && i < y.length) y[i] = NaN;
@@ -253,4 +262,42 @@ export function forecastStored(payload: ForecastPayload): { forecast: IntervalFo
   const fit = applyArima({ diff: m.diff, arma, filled: new Float64Array(0), filledCount: 0 }, y);
   const scale = m.bandScale ? { ...m.bandScale, hours: 0 } : UNSCALED;
   return { forecast: floorAtZero(scaleBands(forecastArima(fit, payload.horizon), scale)) };
+}
+
+/**
+ * Forecast from a stored version with weather terms, every coefficient held: the error model
+ * (its differencing and ARMA as fitted) filtered over u = y − x'β on the observed temperature,
+ * plus the response on the temperature forecast known at the issue time, the temperature
+ * forecast's variance added through the response (the engine's responseSd, as in its pipeline),
+ * bands scaled as calibrated at the fit.
+ */
+function forecastStoredWithWeather(payload: ForecastPayload, w: StoredWeather, inputs: RefitWeather): { forecast: IntervalForecast } {
+  const y = Float64Array.from(payload.values);
+  for (const i of payload.excluded) if (i >= 0 && i < y.length) y[i] = NaN;
+  const n = y.length;
+  const h = payload.horizon;
+  const r = storedResponse(w);
+  const obs = inputs.temperature.subarray(0, n);
+  const g0 = responseValues(r, obs, inputs.calendar, 0, n);
+  const u = y.map((v, t) => v - g0[t]);
+  const c = w.choice!.model;
+  const spec = normalizeSpec({ p: c.p, q: c.q, P: c.P ?? 0, Q: c.Q ?? 0, period: c.period, includeMean: false });
+  const arma = {
+    spec,
+    coefficients: [],
+    ar: Float64Array.from(c.start?.ar ?? []),
+    ma: Float64Array.from(c.start?.ma ?? []),
+    sar: Float64Array.from(c.start?.sar ?? []),
+    sma: Float64Array.from(c.start?.sma ?? []),
+    mean: 0,
+    sigma2: w.sigma2!,
+  } as unknown as ArmaFit;
+  const fit = applyArima({ diff: c.diff, arma, filled: new Float64Array(0), filledCount: 0 }, u);
+  const zf = forecastArima(fit, h);
+  const ft = forecastTemperature(obs, inputs.vintages, n, h, inputs.issuedAt);
+  const g = responseValues(r, ft.path, inputs.calendar, n, n + h);
+  const sdg = w.terms.temperature || w.terms.recency ? responseSd(r, ft.path, ft.members, ft.sd, inputs.calendar, n) : new Float64Array(h);
+  const raw: IntervalForecast = { mean: zf.mean.map((m, j) => m + g[j]), se: zf.se.map((s, j) => Math.sqrt(s * s + sdg[j] * sdg[j])), lower80: [], upper80: [], lower95: [], upper95: [] };
+  const scale = w.bandScale ? { ...w.bandScale, hours: 0 } : UNSCALED;
+  return { forecast: floorAtZero(scaleBands(raw, scale)) };
 }
