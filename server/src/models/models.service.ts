@@ -68,11 +68,14 @@ export class ModelsService {
     }
     const sides = inService ? [candidate, inService] : [candidate];
     const runs = await this.runs.ofVersions(zone.id, sides.map((v) => v.id), new Date(days[0].issuedAt - 2 * 24 * HOUR_MS), new Date(days[days.length - 1].issuedAt));
+    // versions with weather terms re-forecast each day on the temperature forecast known at its issue time
+    const weather = sides.some((v) => v.weather?.used) ? await this.weather.forRefit(zone, history, 0, Date.now()) : undefined;
     const result = await this.compute.run('models.score-at-issue', {
       values: history.values,
       excluded: history.excluded,
-      days: days.map(({ dayStart, hours, cut }) => ({ dayStart, hours, cut })),
-      versions: sides.map((v) => ({ model: v.parameters, issued: issuedForDays(v.id, runs, days) })),
+      days: days.map(({ dayStart, hours, cut, issuedAt }) => ({ dayStart, hours, cut, issuedAt: (issuedAt - history.firstHourMs) / HOUR_MS })),
+      versions: sides.map((v) => ({ model: v.parameters, issued: issuedForDays(v.id, runs, days), weather: v.weather })),
+      ...(weather ? { weather } : {}),
     });
     return { ...base, ...sameDaysOf(candidate, inService, result, days, issueTime) };
   }

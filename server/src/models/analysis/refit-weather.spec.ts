@@ -1,4 +1,5 @@
 import { plainCalendar } from '@morrowline/engine';
+import { scoreAtIssueTimes } from './issue-time-score';
 import { forecastStored, refitZone, type RefitWeather } from './refit';
 
 /** Six weeks of a zone whose load answers the temperature (12 MW per °C below 14 °C), and daily vintages for 48 hours. */
@@ -37,4 +38,25 @@ describe('a stored version with weather terms forecasts as the refit that made i
     const plain = forecastStored({ values, excluded: [], horizon: 48, model: fitted.stored! }).forecast;
     expect(plain.mean.some((m, j) => Math.abs(m - fitted.forecast.mean[j]) > 1)).toBe(true);
   });
+
+  it('is scored on past days on the temperature forecast known at each day\'s issue time, never a later vintage', () => {
+    const { values, weather } = zone();
+    const n = values.length;
+    const fitted = refitZone({ values: values.subarray(0, n - 72), excluded: [], horizon: 48, backtestDays: 3, weather: { ...weather, temperature: weather.temperature.subarray(0, n - 72), issuedAt: n - 72 } });
+    expect(fitted.weather?.used).toBe(true);
+    // the last three days, each issued 14 hours before it starts
+    const days = [3, 2, 1].map((k) => ({ dayStart: n - 24 * k, hours: 24, cut: n - 24 * k - 14, issuedAt: n - 24 * k - 14 }));
+    const score = (w: typeof weather, withTerms: boolean) =>
+      scoreAtIssueTimes({ values, excluded: [], days, weather: w, versions: [{ model: fitted.stored!, issued: [null, null, null], weather: withTerms ? fitted.weather : null }] }).versions[0];
+    const withWeather = score(weather, true);
+    const without = score(weather, false);
+    expect(withWeather.perDay.every((d) => d.source === 're-forecast')).toBe(true);
+    expect(withWeather.mape!).toBeLessThan(without.mape!);
+    // every vintage issued after the first day's issue time set to 40 °C: that day's score does not move, a later one's does
+    const corrupted = { ...weather, vintages: weather.vintages.map((v) => (v.issued > days[0].issuedAt ? { ...v, members: v.members.map((m) => m.map(() => 40)) } : v)) };
+    const after = score(corrupted, true);
+    expect(after.perDay[0].mape).toBe(withWeather.perDay[0].mape);
+    expect(after.perDay[2].mape).not.toBe(withWeather.perDay[2].mape);
+  });
 });
+
