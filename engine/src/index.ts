@@ -20,3 +20,5 @@ export * from './mackinnon';
 export * from './stationarity';
 export * from './regression';
 export * from './weather';
+export * from './weather-pipeline';
+export * from './weather-backtest';

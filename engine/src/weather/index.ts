@@ -1,9 +1,7 @@
-/** Forecasts that know the weather and the calendar: terms, forecast temperature, the pipeline and its backtest. */
+/** The weather and calendar pieces of the forecasts that know them: terms, response, vintages, forecast temperature (the pipeline and its backtest are ../weather-pipeline.ts, ../weather-backtest.ts). */
 export * from './load-terms';
 export * from './load-response';
 export * from './vintages';
 export * from './forecast-temperature';
 export * from './response-uncertainty';
-export * from './weather-pipeline';
-export * from './weather-backtest';
 export * from './synthetic-zone';

@@ -3,7 +3,7 @@
  *   y_t = x_t'β + u_t,   Δ(B) u_t an ARMA,
  * estimated by ordinary least squares on the weekly-differenced equation
  * (1 − B^168) y_t = (1 − B^168) x_t'β + (1 − B^168) u_t over the hours where everything is known.
- * The ARMA is then estimated on the load with the response taken out, u = y − Xβ (./weather-pipeline):
+ * The ARMA is then estimated on the load with the response taken out, u = y − Xβ (../weather-pipeline):
  * a two-step estimator of regression with ARIMA errors, consistent because OLS is under
  * autocorrelated stationary errors (Hamilton 1994, §8.2), chosen over the joint exact likelihood
  * for the many fits of a term choice and a backtest (one OLS is about a millisecond; the joint
@@ -12,7 +12,10 @@
  * weather moved from one week to the next.
  *
  * A column whose weekly difference is zero on every usable hour (no cooling hour in winter, no
- * holiday in the history) carries no information: its β is 0 and it is reported as not estimated.
+ * holiday in the history), or is a linear combination of earlier columns on the hours used (a
+ * bridge day that is also the only day after a holiday), carries no information of its own: its
+ * β is 0 and it is reported as not estimated (columns taken in order, each kept when the
+ * Cholesky pivot of X′X it adds is above 1e-9 of its own sum of squares).
  *
  * The thresholds θ_h and θ_c are chosen by profile likelihood over a grid: for each pair the
  * Gaussian likelihood of the OLS fit with σ² concentrated out, −n/2·log(RSS/n), so the pair with
@@ -80,8 +83,7 @@ export function estimateResponse(y: ArrayLike<number>, temp: ArrayLike<number>, 
       for (let j = 0; j <= i; j++) xtx[i * k + j] += ri * row[j];
     }
   }
-  const keep: number[] = [];
-  for (let c = 0; c < k; c++) if (xtx[c * k + c] > 0) keep.push(c);
+  const keep = independentColumns(xtx, k);
   const beta = new Float64Array(k);
   const se = new Float64Array(k).fill(NaN);
   const estimated = new Array<boolean>(k).fill(false);
@@ -140,4 +142,30 @@ export function responseValues(r: LoadResponse, temp: ArrayLike<number>, cal: Ca
     for (let i = 0; i < out.length; i++) out[i] += b * col[i];
   }
   return out;
+}
+
+/** Indices of the columns, in order, that are not linear combinations of those kept before them (pivoted Cholesky of X′X). */
+export function independentColumns(xtx: Float64Array, k: number): number[] {
+  const keep: number[] = [];
+  const L: number[][] = []; // rows of the Cholesky factor of the kept block
+  for (let c = 0; c < k; c++) {
+    const diag = xtx[c * k + c];
+    if (!(diag > 0)) continue;
+    const z: number[] = [];
+    let zz = 0;
+    for (let i = 0; i < keep.length; i++) {
+      const ci = keep[i];
+      let v = c >= ci ? xtx[c * k + ci] : xtx[ci * k + c];
+      for (let j = 0; j < i; j++) v -= L[i][j] * z[j];
+      const zi = v / L[i][i];
+      z.push(zi);
+      zz += zi * zi;
+    }
+    const d = diag - zz;
+    if (d > 1e-9 * diag) {
+      keep.push(c);
+      L.push([...z, Math.sqrt(d)]);
+    }
+  }
+  return keep;
 }

@@ -134,8 +134,8 @@ export function termColumns(s: TermSet, temp: ArrayLike<number>, cal: CalendarHo
       const h = cal.holiday[t] && working(t) ? 1 : 0;
       hol[dayPart(cal.hourOfDay[t])][i] = h;
       bridge[i] = cal.bridge[t] && working(t) ? 1 : 0;
-      // the day after a working-day holiday: the same hour 24 hours earlier was one, this one is a working day and not a holiday
-      after[i] = !cal.holiday[t] && working(t) && t >= 24 && cal.holiday[t - 24] && working(t - 24) ? 1 : 0;
+      // the day after a working-day holiday: the same hour 24 hours earlier was one, this one is a working day, no holiday and no bridge day
+      after[i] = !cal.holiday[t] && !cal.bridge[t] && working(t) && t >= 24 && cal.holiday[t - 24] && working(t - 24) ? 1 : 0;
     }
     cols.push(...hol, bridge, after);
   }

@@ -3,21 +3,21 @@
  * peeking (Tashman 2000 on rolling origins): each origin's forecast is made from a copy of the
  * data cut at its issue time, so nothing it is given could have been known later — the load and
  * the observed temperature of the hours that ended by then, the temperature forecast vintages
- * issued by then (./vintages), and the calendar (known in advance). Beside the model it scores
+ * issued by then (./weather/vintages), and the calendar (known in advance). Beside the model it scores
  * the weekly seasonal-naive forecast issued at the same time and the same fitted model fed the
  * temperature that was then observed ("perfect weather"), so the share of the error that is the
  * weather forecast's can be seen. Between full choices (every `reselectEveryDays` days) the terms,
  * thresholds and orders are kept and β and the ARMA re-estimated, as the desk's hourly updates
  * keep the nightly refit's orders.
  */
-import { accuracy, Accuracy } from '../metrics';
-import { IntervalForecast } from '../forecast';
-import { PipelineOptions } from '../pipeline';
-import { seasonalNaive } from '../seasonal-naive';
-import { toSeries, withExcluded } from '../series/series';
-import { BacktestSummary } from '../backtest';
-import { CalendarHours } from './load-terms';
-import { TemperatureVintage } from './vintages';
+import { accuracy, Accuracy } from './metrics';
+import { IntervalForecast } from './forecast';
+import { PipelineOptions } from './pipeline';
+import { seasonalNaive } from './seasonal-naive';
+import { toSeries, withExcluded } from './series/series';
+import { BacktestSummary } from './backtest';
+import { CalendarHours } from './weather/load-terms';
+import { TemperatureVintage } from './weather/vintages';
 import { runWeatherPipeline, WeatherChoice, WeatherPipelineOptions } from './weather-pipeline';
 
 export interface WeatherBacktestOptions {
@@ -151,7 +151,7 @@ export function weatherBacktest(values: ArrayLike<number>, o: WeatherBacktestOpt
   };
 }
 
-/** The backtest's summary: mean daily MAPE, MAE, bias and peak error; RMSE and coverage over all hours (as ../backtest). */
+/** The backtest's summary: mean daily MAPE, MAE, bias and peak error; RMSE and coverage over all hours (as ./backtest). */
 export function summarize(all: Accuracy[]): BacktestSummary {
   const list = all.filter((a) => a.n > 0);
   const mean = (f: (a: Accuracy) => number) => {

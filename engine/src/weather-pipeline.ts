@@ -1,42 +1,42 @@
 /**
  * The automatic pipeline with the weather and the calendar, for one zone: regression with ARIMA
  * errors, y_t = x_t'β + u_t with the same seasonal differencing and ARMA on u as the pipeline
- * without weather (../pipeline), fitted in two steps (β by least squares on the weekly
+ * without weather (./pipeline), fitted in two steps (β by least squares on the weekly
  * difference, ./load-response; then the ARMA by exact maximum likelihood on u = y − Xβ).
  *  1. The pipeline without weather runs as it does today (differencing, orders, its bands).
- *  2. The thresholds of the degree terms are chosen per zone by profile likelihood (./load-response).
+ *  2. The thresholds of the degree terms are chosen per zone by profile likelihood (./weather/load-response).
  *  3. Which terms the zone gets is decided like the differencing, by the rolling day-ahead
  *     backtest over the last four weeks of the history (Tashman 2000): each candidate term set
  *     (none, the calendar, the temperature, the temperature with its recency terms; Wang, Liu &
  *     Hong 2016) gets its β and its ARMA fitted (none: the model of step 1; the others: the
  *     differencing and orders the pipeline chooses on u of the fullest set), and from
  *     each origin its forecast of the next day is issued on the temperature forecast known at
- *     that origin (./forecast-temperature: never a vintage issued later, never a temperature
+ *     that origin (./weather/forecast-temperature: never a vintage issued later, never a temperature
  *     observed later), with the error model's forecast of u added. The simplest set within 2 % of
  *     the lowest mean daily MAPE wins (TERM_MARGIN): a zone whose load does not answer the weather
  *     keeps the model without it, and then gets exactly the result of step 1.
  *  4. The bands: the error model's variance plus the temperature forecast's, propagated through
- *     the fitted response (./response-uncertainty), then calibrated on the standardised errors of
+ *     the fitted response (./weather/response-uncertainty), then calibrated on the standardised errors of
  *     the same backtest (weatherBandScale), so the calibration sees the weather forecast's misses
  *     as they were.
  * As in the pipeline, a model that loses to the weekly seasonal-naive forecast on the test days
  * is not served; the forecast is never negative.
  */
-import { bandScaleFromErrors, BandScale, quantileSorted, scaleBands, UNSCALED } from '../band-calibration';
-import { Z95 } from '../forecast';
-import { DayAheadScore, scoreDayAhead } from '../day-ahead-score';
-import { ArimaFit, fitArima, forecastArima, IntervalForecast } from '../forecast';
-import { originForecaster } from '../origin-forecasts';
-import { floorAtZero, ModelChoice, PipelineOptions, PipelineResult, runPipeline } from '../pipeline';
-import { choiceOf, describeModel } from '../backtest';
-import { seasonalNaive } from '../seasonal-naive';
-import { countFinite, SeriesInput, toSeries, withExcluded } from '../series/series';
-import { describeDifferencing } from '../differencing';
-import { CalendarHours, plainCalendar, TermSet } from './load-terms';
-import { chooseThresholds, estimateResponse, hasTerms, LoadResponse, responseValues } from './load-response';
-import { ForecastTemperature, forecastTemperature } from './forecast-temperature';
-import { responseSd } from './response-uncertainty';
-import { TemperatureVintage } from './vintages';
+import { bandScaleFromErrors, BandScale, quantileSorted, scaleBands, UNSCALED } from './band-calibration';
+import { Z95 } from './forecast';
+import { DayAheadScore, scoreDayAhead } from './day-ahead-score';
+import { ArimaFit, fitArima, forecastArima, IntervalForecast } from './forecast';
+import { originForecaster } from './origin-forecasts';
+import { floorAtZero, ModelChoice, PipelineOptions, PipelineResult, runPipeline } from './pipeline';
+import { choiceOf, describeModel } from './backtest';
+import { seasonalNaive } from './seasonal-naive';
+import { countFinite, SeriesInput, toSeries, withExcluded } from './series/series';
+import { describeDifferencing } from './differencing';
+import { CalendarHours, plainCalendar, TermSet } from './weather/load-terms';
+import { chooseThresholds, estimateResponse, hasTerms, LoadResponse, responseValues } from './weather/load-response';
+import { ForecastTemperature, forecastTemperature } from './weather/forecast-temperature';
+import { responseSd } from './weather/response-uncertainty';
+import { TemperatureVintage } from './weather/vintages';
 
 /** Terms and error model of a zone's model: what a refit chooses and an hourly update keeps. */
 export interface WeatherChoice {
@@ -45,7 +45,7 @@ export interface WeatherChoice {
 }
 
 export interface WeatherPipelineOptions {
-  /** options of the error model's selection (../pipeline); bands are calibrated here */
+  /** options of the error model's selection (./pipeline); bands are calibrated here */
   pipeline?: PipelineOptions;
   /** candidate term sets (thresholds are chosen per zone); default: none, calendar, temperature, temperature with recency (with the calendar when one is given) */
   termSets?: Array<Pick<TermSet, 'temperature' | 'recency' | 'calendar'>>;
@@ -65,7 +65,7 @@ export interface WeatherPipelineInput {
   horizon: number;
   /** observed temperature on the load's timeline, °C (NaN missing); values from history.length on are never read */
   temperature: SeriesInput;
-  /** temperature forecast vintages on the same timeline (./vintages); only those issued by `issuedAt` are read */
+  /** temperature forecast vintages on the same timeline (./weather/vintages); only those issued by `issuedAt` are read */
   vintages?: readonly TemperatureVintage[];
   /** calendar facts for history.length + horizon hours (default: hour of day from 0, no special days) */
   calendar?: CalendarHours;
@@ -294,7 +294,7 @@ export function runWeatherPipeline(input: WeatherPipelineInput): WeatherPipeline
 
   const ts = performance.now();
   let best: Scored;
-  // The model without weather is the pipeline without weather itself (../pipeline), so a zone that
+  // The model without weather is the pipeline without weather itself (./pipeline), so a zone that
   // keeps it gets exactly today's forecast and bands.
   const plainResult = (model?: ModelChoice): PipelineResult =>
     runPipeline({ history: y, horizon: h, options: { ...o.pipeline, selectionDays: days, ...(model ? { fixed: model } : {}) } });

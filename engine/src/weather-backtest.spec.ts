@@ -3,8 +3,8 @@
  * after its issue time is corrupted (vintages issued later, temperatures and loads of later hours).
  */
 import { weatherBacktest } from './weather-backtest';
-import { syntheticZone } from './synthetic-zone';
-import { TemperatureVintage } from './vintages';
+import { syntheticZone } from './weather/synthetic-zone';
+import { TemperatureVintage } from './weather/vintages';
 
 describe('weather backtest', () => {
   const hours = 9 * 168 + 24;

@@ -1,10 +1,11 @@
 /**
  * The choice of terms by the rolling backtest, on synthetic zones whose response is known by
- * construction (./synthetic-zone): one that answers the temperature gets the temperature terms and
+ * construction (./weather/synthetic-zone): one that answers the temperature gets the temperature terms and
  * beats the model without them; one that does not keeps the model without them.
  */
 import { runWeatherPipeline } from './weather-pipeline';
-import { syntheticZone } from './synthetic-zone';
+import { runPipeline } from './pipeline';
+import { syntheticZone } from './weather/synthetic-zone';
 
 describe('weather pipeline', () => {
   const hours = 8 * 168;
@@ -27,6 +28,10 @@ describe('weather pipeline', () => {
     expect(r.choice!.terms.temperature).toBe(false);
     expect(r.method).not.toBe('regression-arima'); // the ARMA, or seasonal naive where that beat it
     expect(r.response).toEqual([]);
+    // exactly today's pipeline: the same forecast and bands
+    const today = runPipeline({ history: z.load, horizon: 38 });
+    expect(r.forecast).toEqual(today.forecast);
+    expect(r.method).toBe(today.method);
   });
   it('a what-if temperature moves the forecast by the fitted response', () => {
     const z = syntheticZone(hours, 21, { meanC: 0 }); // cold: always heating
