@@ -154,4 +154,32 @@ describe('malformed requests on every route (real MariaDB)', () => {
     expect(response.status).toBe(413);
     expect(response.body).toMatchObject({ statusCode: 413, error: 'Payload Too Large', message: 'The request body is larger than the 100 KiB limit', path: '/api/users/1' });
   });
+
+  it('refuses a weather what-if whose shift is not a plain decimal within ±10 °C, or whose vintage is not an instant, with 400 and the reason', async () => {
+    const operator = tokens.get('operator')!;
+    const path = `/api/schedules/${GOOD_PARAM.day}/${GOOD_PARAM.zone}/weather-what-if`;
+    const cases: Array<[Record<string, string | string[]>, RegExp]> = [
+      [{}, /exactly one of shift/],
+      [{ shift: '2', vintage: '2026-11-01T05:00:00Z' }, /exactly one of shift/],
+      [{ shift: '' }, /shift is empty/],
+      [{ shift: '0x10' }, /not a plain decimal/],
+      [{ shift: '1e1' }, /not a plain decimal/],
+      [{ shift: ' 2' }, /not a plain decimal/],
+      [{ shift: '+2' }, /not a plain decimal/],
+      [{ shift: 'NaN' }, /not a plain decimal/],
+      [{ shift: '10.5' }, /between −10 and 10 °C/],
+      [{ shift: '-11' }, /between −10 and 10 °C/],
+      [{ shift: ['1', '2'] }, /shift/],
+      [{ vintage: '2026-02-30T05:00:00Z' }, /vintage/],
+      [{ vintage: 'yesterday' }, /vintage/],
+      [{ shift: '2', unit: 'F' }, /Unknown query parameter unit/],
+    ];
+    for (const [query, message] of cases) {
+      const res = await request(app.getHttpServer()).get(path).query(query).set('Authorization', `Bearer ${operator}`);
+      expect({ query, status: res.status }).toEqual({ query, status: 400 });
+      expect(isErrorShape(res.body, 400)).toBe(true);
+      expect(String(res.body.message)).toMatch(message);
+    }
+  });
 });
+

@@ -14,6 +14,7 @@ export * from './forecasts';
 export * from './workbench';
 export * from './outages';
 export * from './models';
+export * from './model-weather';
 export * from './schedules';
 export * from './accuracy';
 export * from './instant';

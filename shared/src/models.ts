@@ -1,3 +1,4 @@
+import type { ModelWeatherDto } from './model-weather';
 /**
  * Refit jobs and model versions. A refit fits a zone's model in the worker pool; every fit is
  * stored as a model version. One version per zone is in service; a new fit is a candidate.
@@ -95,6 +96,8 @@ export interface ModelVersionDto {
   jobId: number | null;
   promotedAt: string | null;
   retiredAt: string | null;
+  /** weather and calendar terms tried by the refit (null: the zone had no observed temperature then, or a version from before them) */
+  weather: ModelWeatherDto | null;
 }
 
 /** One operating day of a version's score: how it was forecast and how it did. */

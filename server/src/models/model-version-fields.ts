@@ -61,5 +61,6 @@ export function modelVersionFields(
     jobId: job.id,
     promotedAt: promoted ? now : null,
     retiredAt: null,
+    weather: result.weather ?? null,
   };
 }

@@ -13,6 +13,7 @@ import type { ModelVersion } from './entities/model-version.entity';
 import { toModelVersionDto } from './model-dto';
 import { ModelVersionsRepository } from './model-versions.repository';
 import { ZoneHistoryLoader } from '../history/zone-history.loader';
+import { ZoneWeatherLoader } from './zone-weather.loader';
 
 /**
  * Model versions: the list per zone, a candidate beside the model in service (both scored on the
@@ -28,6 +29,7 @@ export class ModelsService {
     private readonly forecasts: ForecastsService,
     private readonly history: ZoneHistoryLoader,
     private readonly runs: ForecastRunsRepository,
+    private readonly weather: ZoneWeatherLoader,
   ) {}
 
   async list(zone: string | undefined, limit = 100): Promise<ModelVersionDto[]> {
@@ -66,11 +68,14 @@ export class ModelsService {
     }
     const sides = inService ? [candidate, inService] : [candidate];
     const runs = await this.runs.ofVersions(zone.id, sides.map((v) => v.id), new Date(days[0].issuedAt - 2 * 24 * HOUR_MS), new Date(days[days.length - 1].issuedAt));
+    // versions with weather terms re-forecast each day on the temperature forecast known at its issue time
+    const weather = sides.some((v) => v.weather?.used) ? await this.weather.forRefit(zone, history, 0, Date.now()) : undefined;
     const result = await this.compute.run('models.score-at-issue', {
       values: history.values,
       excluded: history.excluded,
-      days: days.map(({ dayStart, hours, cut }) => ({ dayStart, hours, cut })),
-      versions: sides.map((v) => ({ model: v.parameters, issued: issuedForDays(v.id, runs, days) })),
+      days: days.map(({ dayStart, hours, cut, issuedAt }) => ({ dayStart, hours, cut, issuedAt: (issuedAt - history.firstHourMs) / HOUR_MS })),
+      versions: sides.map((v) => ({ model: v.parameters, issued: issuedForDays(v.id, runs, days), weather: v.weather })),
+      ...(weather ? { weather } : {}),
     });
     return { ...base, ...sameDaysOf(candidate, inService, result, days, issueTime) };
   }
@@ -81,8 +86,12 @@ export class ModelsService {
     if (target.status === 'in-service') throw new ConflictException(`Version ${id} is already in service for ${target.zone.code}`);
     // its forecast from the latest history, computed before anything is written
     const history = await this.history.load(target.zone);
+    const horizon = history ? forecastHorizon(history.lastHourMs, target.zone.timeZone) : 0;
+    // a version with weather terms forecasts on the temperature forecast known now (none issued later)
+    const inputs = history && target.weather?.used ? await this.weather.forRefit(target.zone, history, horizon, Date.now()) : undefined;
+    const weather = target.weather && inputs ? { stored: target.weather, inputs } : undefined;
     const forecast = history
-      ? (await this.compute.run('models.forecast', { values: history.values, excluded: history.excluded, horizon: forecastHorizon(history.lastHourMs, target.zone.timeZone), model: target.parameters })).forecast
+      ? (await this.compute.run('models.forecast', { values: history.values, excluded: history.excluded, horizon, model: target.parameters, ...(weather ? { weather } : {}) })).forecast
       : null;
     const { dto, run } = await this.versions.fork().transactional(async (tx) => {
       const v = await this.versions.lockOrFail(tx, id);

@@ -22,6 +22,7 @@ import { RefitQueue } from './refit-queue';
 import { RefitJobsRepository } from './refit-jobs.repository';
 import { repeatsVersion } from './unchanged-fit';
 import { ZoneHistoryLoader, type ZoneHistory } from '../history/zone-history.loader';
+import { ZoneWeatherLoader } from './zone-weather.loader';
 
 /** Jobs in flight at once: the pool's threads plus one reading or storing meanwhile. */
 const JOB_CONCURRENCY = 2;
@@ -58,6 +59,7 @@ export class RefitsService implements OnApplicationShutdown {
     private readonly events: DomainEventsPublisher,
     private readonly forecasts: ForecastsService,
     private readonly history: ZoneHistoryLoader,
+    private readonly weather: ZoneWeatherLoader,
     @Optional() @Inject(REFIT_DISPATCH) private readonly dispatch: RefitDispatch | null = null,
   ) {}
 
@@ -233,6 +235,10 @@ export class RefitsService implements OnApplicationShutdown {
       const history = await this.history.load(zone);
       if (!history) throw new Error(`zone ${zone.code} has no readings yet`);
       const horizon = forecastHorizon(history.lastHourMs, zone.timeZone);
+      // the forecast is issued now: the temperature forecast vintages known now, none later.
+      // A full refit decides the weather terms afresh; an update keeps those in service (none if it has none).
+      const keptWeather = inService?.weather?.choice ?? undefined;
+      const weather = job.mode === 'full' || keptWeather ? await this.weather.forRefit(zone, history, horizon, Date.now(), job.mode === 'update' ? keptWeather : undefined) : undefined;
       await this.step(job, 20, job.mode === 'full' ? 'choosing the differencing and ARMA orders' : 'refitting with the orders kept');
       await beforeFit?.();
       const payload: RefitPayload = {
@@ -242,6 +248,7 @@ export class RefitsService implements OnApplicationShutdown {
         fixed: job.mode === 'update' && inService ? choiceOf(inService) : undefined,
         inService: job.mode === 'full' && inService ? choiceOf(inService) : null,
         backtestDays: REFIT_BACKTEST_DAYS,
+        ...(weather ? { weather } : {}),
       };
       // the nightly batch may use every core (the batch pool); a refit someone waits for runs in the ordinary pool
       const nightly = job.trigger === 'schedule' && job.mode === 'full';

@@ -1,3 +1,6 @@
+import type { ModelWeatherDto } from '@morrowline/shared';
+import type { WeatherChoice } from '@morrowline/engine';
+
 /**
  * A fitted model as stored with its version (ModelVersion.parameters) and handed back to the
  * engine to forecast from: the differencing, the orders and the natural parameters, the seasonal
@@ -22,3 +25,15 @@ export interface StoredModel {
   /** multipliers of the Gaussian 80 % and 95 % half-widths (engine band-calibration) */
   bandScale?: { k80: number; k95: number };
 }
+
+/**
+ * A version's weather and calendar terms (ModelVersion.weather): what the desk shows, and the
+ * chosen terms with their error model (`choice`) that the hourly update keeps. `choice` is null
+ * when the terms lost to the model without them.
+ */
+export type StoredWeather = ModelWeatherDto & {
+  choice: WeatherChoice | null;
+  /** the error model's innovation variance and the bands' calibration, to forecast with the coefficients held (absent on the first versions with weather) */
+  sigma2?: number;
+  bandScale?: { k80: number; k95: number };
+};

@@ -11,6 +11,7 @@ import { Migration20261202230000 } from './Migration20261202230000';
 import { Migration20261202230100 } from './Migration20261202230100';
 import { Migration20261203050000 } from './Migration20261203050000';
 import { Migration20261203050500 } from './Migration20261203050500';
+import { Migration20261203120000 } from './Migration20261203120000';
 
 export const MIGRATIONS = [
   { name: 'Migration20261201192005', class: Migration20261201192005 },
@@ -25,4 +26,5 @@ export const MIGRATIONS = [
   { name: 'Migration20261202230100', class: Migration20261202230100 },
   { name: 'Migration20261203050000', class: Migration20261203050000 },
   { name: 'Migration20261203050500', class: Migration20261203050500 },
+  { name: 'Migration20261203120000', class: Migration20261203120000 },
 ];

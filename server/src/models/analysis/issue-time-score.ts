@@ -9,8 +9,8 @@
  * differently, and a version is never flattered by a refit on the days it is scored on.
  */
 import { seasonalNaive } from '@morrowline/engine';
-import type { StoredModel } from '../stored-model';
-import { forecastStored } from './refit';
+import type { StoredModel, StoredWeather } from '../stored-model';
+import { forecastStored, type RefitWeather } from './refit';
 
 /** One operating day to score, as indices into the history. */
 export interface ScoredDay {
@@ -20,6 +20,8 @@ export interface ScoredDay {
   hours: number;
   /** hours of history that had ended at the issue time: indices below `cut` only */
   cut: number;
+  /** the issue time, hours from the start of hour 0 (what a version with weather terms may know of the temperature forecast) */
+  issuedAt?: number;
 }
 
 /** A forecast a version issued for one day: its values over the day's hours, in order. */
@@ -33,6 +35,8 @@ export interface VersionToScore {
   model: StoredModel;
   /** per scored day, the forecast the version issued for it, or null to re-forecast */
   issued: (IssuedDay | null)[];
+  /** its weather terms, when it has them: re-forecasts then use the temperature forecast known at each day's issue time */
+  weather?: StoredWeather | null;
 }
 
 export interface IssueTimeInput {
@@ -42,6 +46,8 @@ export interface IssueTimeInput {
   excluded: number[];
   days: ScoredDay[];
   versions: VersionToScore[];
+  /** the zone's weather on the history's timeline (every vintage issued by now; each day reads only those issued by its issue time) */
+  weather?: RefitWeather;
 }
 
 export interface DayScore {
@@ -124,14 +130,20 @@ function actualHours(values: Float64Array, excluded: ReadonlySet<number>, day: S
 }
 
 /** The version's forecast of the day made at the cut with its coefficients held; null if it cannot be made. */
-function reforecast(input: IssueTimeInput, model: StoredModel, day: ScoredDay): IssuedDay | null {
+function reforecast(input: IssueTimeInput, model: StoredModel, day: ScoredDay, stored?: StoredWeather | null): IssuedDay | null {
   const lead = day.dayStart - day.cut;
   const horizon = lead + day.hours;
   if (day.cut <= 0 || lead < 0 || horizon > HORIZON_LIMIT) return null;
   const values = input.values.subarray(0, day.cut);
   const excluded = input.excluded.filter((i) => i < day.cut);
   try {
-    const f = forecastStored({ values, excluded, horizon, model }).forecast;
+    const w = input.weather;
+    const at = day.issuedAt;
+    const weather =
+      stored?.used && w && at !== undefined
+        ? { stored, inputs: { ...w, temperature: w.temperature.subarray(0, day.cut), vintages: w.vintages.filter((v) => v.issued <= at), issuedAt: at } }
+        : undefined;
+    const f = forecastStored({ values, excluded, horizon, model, ...(weather ? { weather } : {}) }).forecast;
     const mean = f.mean.slice(lead);
     if (!mean.every(Number.isFinite)) return null;
     return { mean, lower80: f.lower80.slice(lead), upper80: f.upper80.slice(lead) };
@@ -148,7 +160,7 @@ export function scoreAtIssueTimes(input: IssueTimeInput): IssueTimeResult {
     const perDay: DayScore[] = input.days.map((day, k) => {
       const stored = v.issued[k];
       const fromStore = !!stored && stored.mean.length >= day.hours;
-      const forecast = fromStore ? (stored as IssuedDay) : reforecast(input, v.model, day);
+      const forecast = fromStore ? (stored as IssuedDay) : reforecast(input, v.model, day, v.weather);
       if (!forecast) return { source: null, hours: 0, mape: null };
       const source = fromStore ? 'issued' : 're-forecast';
       if (scored[k].length === 0) return { source, hours: 0, mape: null };

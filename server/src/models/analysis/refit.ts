@@ -20,14 +20,23 @@ import {
   forecastArima,
   normalizeSpec,
   runPipeline,
+  runWeatherPipeline,
+  forecastTemperature,
+  responseSd,
+  responseValues,
   type ArmaFit,
+  type CalendarHours,
+  type TemperatureVintage,
+  type WeatherChoice,
+  type WeatherPipelineResult,
   type CandidateResult,
   type IntervalForecast,
   type ModelChoice,
   type ModelSummary,
   type PipelineOptions,
 } from '@morrowline/engine';
-import type { StoredModel } from '../stored-model';
+import type { StoredModel, StoredWeather } from '../stored-model';
+import { storedResponse } from './weather-what-if';
 
 
 /**
@@ -70,6 +79,22 @@ export interface RefitPayload {
   backtestDays?: number;
   /** exact-ML fits per differencing after the screening (default REFIT_SCREEN) */
   screen?: number;
+  /** the zone's weather and calendar on the history's timeline (./zone-weather-inputs); absent: no observed temperature */
+  weather?: RefitWeather;
+}
+
+export interface RefitWeather {
+  /** UTC ms of hour 0 of the timeline (for the vintage's issue time in the result) */
+  firstHourMs: number;
+  /** observed zone temperature of the history's hours, NaN missing */
+  temperature: Float64Array;
+  /** only vintages issued at or before `issuedAt` are sent (and the engine reads no later one) */
+  vintages: TemperatureVintage[];
+  calendar: CalendarHours;
+  /** the forecast's issue time, hours from the start of hour 0 */
+  issuedAt: number;
+  /** update: the terms and thresholds of the version in service, kept */
+  fixed?: WeatherChoice;
 }
 
 export interface ScoreResult {
@@ -96,6 +121,8 @@ export interface RefitResult {
   inServiceScore: ScoreResult | null;
   fitMs: number;
   totalMs: number;
+  /** the weather terms tried (used or not); null without weather */
+  weather?: StoredWeather | null;
 }
 
 const finiteOrNull = (v: number): number | null => (Number.isFinite(v) ? v : null);
@@ -135,18 +162,63 @@ export function refitZone(payload: RefitPayload): RefitResult {
     score = scoreChoice(payload.values, payload.excluded, choice, days);
     if (payload.inService) inServiceScore = scoreChoice(payload.values, payload.excluded, payload.inService, days);
   }
+  const w = model && payload.weather ? withWeather(payload, choiceOf(model)) : null;
   return {
     method: model ? 'arima' : 'seasonal-naive',
     fallbackReason: r.fallbackReason ?? null,
     model,
     stored: model ? storedOf(model, r.bandScale) : null,
-    forecast: r.forecast,
+    // a model with weather terms forecasts on the temperature forecast known at the issue time,
+    // its bands widened by that forecast's uncertainty (the engine's weather pipeline)
+    forecast: w && w.stored.used ? w.result.forecast : r.forecast,
+    weather: w ? w.stored : null,
     candidates: r.candidates,
     warnings: r.warnings,
     score,
     inServiceScore,
     fitMs: r.timings.fitMs,
     totalMs: performance.now() - t0,
+  };
+}
+
+/**
+ * The engine's weather pipeline on the same history, the ARMA orders and differencing of the
+ * model without weather kept (so it is not chosen twice): it decides by its rolling day-ahead
+ * backtest on forecast weather whether the zone's load answers the temperature and the calendar.
+ */
+function withWeather(payload: RefitPayload, plain: ModelChoice): { result: WeatherPipelineResult; stored: StoredWeather } {
+  const w = payload.weather!;
+  const result = runWeatherPipeline({
+    history: payload.values,
+    excluded: payload.excluded,
+    horizon: payload.horizon,
+    temperature: w.temperature,
+    vintages: w.vintages,
+    calendar: w.calendar,
+    issuedAt: w.issuedAt,
+    options: {
+      pipeline: { fixed: plain, requireBeatBaseline: false, screen: payload.screen ?? REFIT_SCREEN, ...(REFIT_SEASONAL_BLOCK ? {} : { seasonalBlock: false as const }) },
+      requireBeatBaseline: false,
+      ...(w.fixed ? { fixed: w.fixed } : {}),
+    },
+  });
+  const terms = result.choice?.terms ?? { temperature: false, recency: false, calendar: false, heatBelow: NaN, coolAbove: NaN };
+  const finite = (v: number): number | null => (Number.isFinite(v) ? v : null);
+  return {
+    result,
+    stored: {
+      used: result.method === 'regression-arima',
+      description: result.description,
+      terms: { temperature: terms.temperature, recency: terms.recency, calendar: terms.calendar, heatBelow: finite(terms.heatBelow) ?? 0, coolAbove: finite(terms.coolAbove) ?? 0 },
+      response: result.response.map((c) => ({ name: c.name, value: c.value, se: finite(c.se) })),
+      candidates: result.candidates.map((c) => ({ label: c.label, mape: finite(c.mape) })),
+      baselineMape: finite(result.baselineMape),
+      selectionDays: result.selectionDays,
+      vintageIssuedAt: Number.isFinite(result.vintageIssued) ? new Date(w.firstHourMs + result.vintageIssued * 3_600_000).toISOString() : null,
+      choice: result.method === 'regression-arima' && result.choice ? result.choice : null,
+      ...(result.errorModel ? { sigma2: result.errorModel.sigma2 } : {}),
+      bandScale: { k80: result.bandScale.k80, k95: result.bandScale.k95 },
+    },
   };
 }
 
@@ -171,6 +243,8 @@ export interface ForecastPayload {
   excluded: number[];
   horizon: number;
   model: StoredModel;
+  /** a version with weather terms: its stored terms and the zone's weather as known at the issue time */
+  weather?: { stored: StoredWeather; inputs: RefitWeather };
 }
 
 /**
@@ -179,6 +253,7 @@ export interface ForecastPayload {
  * as they were calibrated when it was fitted.
  */
 export function forecastStored(payload: ForecastPayload): { forecast: IntervalForecast } {
+  if (payload.weather?.stored.used && payload.weather.stored.choice && payload.weather.stored.sigma2 !== undefined) return forecastStoredWithWeather(payload, payload.weather.stored, payload.weather.inputs);
   const m = payload.model;
   const y = Float64Array.from(payload.values);
   for (const i of payload.excluded) if (i >= 0 && i < y.length) y[i] = NaN;
@@ -196,4 +271,42 @@ export function forecastStored(payload: ForecastPayload): { forecast: IntervalFo
   const fit = applyArima({ diff: m.diff, arma, filled: new Float64Array(0), filledCount: 0 }, y);
   const scale = m.bandScale ? { ...m.bandScale, hours: 0 } : UNSCALED;
   return { forecast: floorAtZero(scaleBands(forecastArima(fit, payload.horizon), scale)) };
+}
+
+/**
+ * Forecast from a stored version with weather terms, every coefficient held: the error model
+ * (its differencing and ARMA as fitted) filtered over u = y − x'β on the observed temperature,
+ * plus the response on the temperature forecast known at the issue time, the temperature
+ * forecast's variance added through the response (the engine's responseSd, as in its pipeline),
+ * bands scaled as calibrated at the fit.
+ */
+function forecastStoredWithWeather(payload: ForecastPayload, w: StoredWeather, inputs: RefitWeather): { forecast: IntervalForecast } {
+  const y = Float64Array.from(payload.values);
+  for (const i of payload.excluded) if (i >= 0 && i < y.length) y[i] = NaN;
+  const n = y.length;
+  const h = payload.horizon;
+  const r = storedResponse(w);
+  const obs = inputs.temperature.subarray(0, n);
+  const g0 = responseValues(r, obs, inputs.calendar, 0, n);
+  const u = y.map((v, t) => v - g0[t]);
+  const c = w.choice!.model;
+  const spec = normalizeSpec({ p: c.p, q: c.q, P: c.P ?? 0, Q: c.Q ?? 0, period: c.period, includeMean: false });
+  const arma = {
+    spec,
+    coefficients: [],
+    ar: Float64Array.from(c.start?.ar ?? []),
+    ma: Float64Array.from(c.start?.ma ?? []),
+    sar: Float64Array.from(c.start?.sar ?? []),
+    sma: Float64Array.from(c.start?.sma ?? []),
+    mean: 0,
+    sigma2: w.sigma2!,
+  } as unknown as ArmaFit;
+  const fit = applyArima({ diff: c.diff, arma, filled: new Float64Array(0), filledCount: 0 }, u);
+  const zf = forecastArima(fit, h);
+  const ft = forecastTemperature(obs, inputs.vintages, n, h, inputs.issuedAt);
+  const g = responseValues(r, ft.path, inputs.calendar, n, n + h);
+  const sdg = w.terms.temperature || w.terms.recency ? responseSd(r, ft.path, ft.members, ft.sd, inputs.calendar, n) : new Float64Array(h);
+  const raw: IntervalForecast = { mean: zf.mean.map((m, j) => m + g[j]), se: zf.se.map((s, j) => Math.sqrt(s * s + sdg[j] * sdg[j])), lower80: [], upper80: [], lower95: [], upper95: [] };
+  const scale = w.bandScale ? { ...w.bandScale, hours: 0 } : UNSCALED;
+  return { forecast: floorAtZero(scaleBands(raw, scale)) };
 }

@@ -1,7 +1,7 @@
 import { Entity, Enum, Index, ManyToOne, PrimaryKey, Property } from '@mikro-orm/core';
 import { MODEL_STATUSES, REFIT_TRIGGERS, type LjungBoxDto, type ModelCoefficientDto, type ModelStatus, type RefitTrigger } from '@morrowline/shared';
 import { Zone } from '../../zones/entities/zone.entity';
-import type { StoredModel } from '../stored-model';
+import type { StoredModel, StoredWeather } from '../stored-model';
 
 /**
  * One fit of a zone's model, kept for good: what was fitted, on which hours, how well it did and
@@ -115,4 +115,8 @@ export class ModelVersion {
 
   @Property({ type: 'datetime', length: 3, nullable: true })
   retiredAt: Date | null = null;
+
+  /** Weather and calendar terms the refit tried (null: no observed temperature for the zone then). */
+  @Property({ type: 'json', nullable: true })
+  weather: StoredWeather | null = null;
 }

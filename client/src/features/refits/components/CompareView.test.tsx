@@ -10,7 +10,7 @@ function version(id: number, changes: Partial<ModelVersionDto> = {}): ModelVersi
     coefficients: [{ name: 'ar1', value: 0.8123, se: 0.0211 }, { name: 'ma1', value: -0.3, se: null }], sigma2: 14.2, loglik: -3000, aic: 6008, aicc: 6008.1, bic: 6030,
     ljungBox: [{ lag: 24, statistic: 20, df: 21, pValue: 0.41 }, { lag: 48, statistic: 50, df: 45, pValue: 0.2 }], residualAcf: { lags: [], band: 0.05, outside: 1, maxAbs: 0.06 },
     trainingFrom: '', trainingTo: '', trainingHours: 1344, excludedHours: 6, backtestDays: 7, backtestMape: 3.1, baselineMape: 6.2, backtestCoverage80: 79.5, backtestCoverage95: 95.1, warnings: [],
-    createdBy: 'ines.marlow@tallowmere.example', createdAt: '2026-07-14T15:00:00Z', durationMs: 900, jobId: 4, promotedAt: null, retiredAt: null,
+    createdBy: 'ines.marlow@tallowmere.example', createdAt: '2026-07-14T15:00:00Z', durationMs: 900, jobId: 4, promotedAt: null, retiredAt: null, weather: null,
     ...changes,
   };
 }
@@ -87,5 +87,33 @@ describe('CompareView', () => {
     expect(screen.getByTestId('compare-diagnostics')).toHaveTextContent('band is too narrow');
     expect(cell('candidate-80 % band held')).toHaveTextContent('78.00 %');
     expect(cell('candidate-Mean error')).toHaveTextContent('-1.5 MW');
+  });
+
+  it('sets with and without weather side by side: what each refit tried and which terms it kept', () => {
+    const tried = (temperatureMape: number) => [
+      { label: 'no weather or calendar terms', mape: 4.1 },
+      { label: 'calendar', mape: 4.0 },
+      { label: 'temperature (heating below 14 °C, cooling above 20 °C), calendar', mape: temperatureMape },
+    ];
+    const terms = { temperature: true, recency: false, calendar: true, heatBelow: 14, coolAbove: 20 };
+    const withWeather = {
+      used: true, description: '(1−B^168) ARMA(2,1) + temperature (heating below 14 °C, cooling above 20 °C), calendar', terms,
+      response: [{ name: 'hdd_morning', value: 21.5, se: 1.2 }], candidates: tried(2.6), baselineMape: 6.2, selectionDays: 28, vintageIssuedAt: '2026-07-14T05:00:00Z',
+    };
+    const c = compare(3.05, 4.4, { weather: { ...withWeather, used: false, description: '(1−B^168) ARMA(2,1), no weather or calendar terms', response: [], candidates: tried(4.3) } });
+    c.candidate = { ...c.candidate, weather: withWeather };
+    renderWithProviders(<CompareView compare={c} />);
+    expect(cell('compare-weather-candidate')).toHaveTextContent('Forecasts with the weather: (1−B^168) ARMA(2,1) + temperature');
+    expect(cell('compare-weather-in-service')).toHaveTextContent('did not beat the model without them');
+    const row = cell('weather-row-temperature (heating below 14 °C, cooling above 20 °C), calendar');
+    // the calendar alone was tried too, and is not what either version kept
+    expect(cell('weather-row-calendar')).not.toHaveTextContent('kept');
+    expect(row).toHaveTextContent(/2\.60 %\s*kept\s*4\.30 %/);
+    expect(cell('weather-row-no weather or calendar terms')).toHaveTextContent(/4\.10 %\s*4\.10 %\s*kept/);
+  });
+
+  it('shows no weather section when neither version had observed temperature', () => {
+    renderWithProviders(<CompareView compare={compare(3.05, 4.4)} />);
+    expect(screen.queryByTestId('compare-weather')).toBeNull();
   });
 });

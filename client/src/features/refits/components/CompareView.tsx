@@ -3,6 +3,7 @@ import { Alert, Badge, SimpleGrid, Stack, Table, Text, Title } from '@mantine/co
 import type { ModelCompareDto, ModelVersionDto, VersionIssueScoreDto } from '@morrowline/shared';
 import { formatDateTime } from '../../../lib/format';
 import { compareRows, compareVerdict, ordersOf, type Better } from '../model/compare-rows';
+import { weatherCandidateRows, weatherVerdict } from '../model/weather-rows';
 
 function Mark({ side, better }: { side: Exclude<Better, null>; better: Better }) {
   if (better === null) return null;
@@ -74,6 +75,42 @@ function DayScores({ compare }: { compare: ModelCompareDto }) {
   );
 }
 
+/** With and without weather, side by side: what each version's refit tried and which terms it kept. */
+function WeatherSideBySide({ compare }: { compare: ModelCompareDto }) {
+  const { candidate, inService } = compare;
+  if (!candidate.weather && !inService?.weather) return null;
+  const rows = weatherCandidateRows(candidate, inService);
+  return (
+    <div data-testid="compare-weather">
+      <Title order={5} mb={4}>With and without weather</Title>
+      <SimpleGrid cols={{ base: 1, md: 2 }} mb={4}>
+        <Text size="sm" data-testid="compare-weather-candidate">Version {candidate.id}: {weatherVerdict(candidate.weather)}</Text>
+        <Text size="sm" data-testid="compare-weather-in-service">{inService ? `In service: ${weatherVerdict(inService.weather)}` : 'None in service.'}</Text>
+      </SimpleGrid>
+      {rows.length > 0 && (
+        <Table aria-label="Weather terms, with and without" withTableBorder verticalSpacing={4}>
+          <Table.Thead>
+            <Table.Tr>
+              <Table.Th>Terms (backtest MAPE on forecast weather, each version's own refit)</Table.Th>
+              <Table.Th ta="right">Version {candidate.id}</Table.Th>
+              <Table.Th ta="right">In service</Table.Th>
+            </Table.Tr>
+          </Table.Thead>
+          <Table.Tbody>
+            {rows.map((r) => (
+              <Table.Tr key={r.label} data-testid={`weather-row-${r.label}`}>
+                <Table.Td>{r.label}</Table.Td>
+                <Table.Td ff="monospace" ta="right">{r.candidate}{r.chosenBy.includes('candidate') && <Badge size="xs" variant="light" color="tide" ml={6}>kept</Badge>}</Table.Td>
+                <Table.Td ff="monospace" ta="right">{r.inService}{r.chosenBy.includes('in-service') && <Badge size="xs" variant="light" color="tide" ml={6}>kept</Badge>}</Table.Td>
+              </Table.Tr>
+            ))}
+          </Table.Tbody>
+        </Table>
+      )}
+    </div>
+  );
+}
+
 /** A version beside the model in service: the same-days backtest decides, the rest explains. */
 export function CompareView({ compare }: { compare: ModelCompareDto }) {
   const rows = compareRows(compare);
@@ -113,6 +150,7 @@ export function CompareView({ compare }: { compare: ModelCompareDto }) {
           <Coefficients title="In service" version={compare.inService} />
         </SimpleGrid>
       </div>
+      <WeatherSideBySide compare={compare} />
       <DayScores compare={compare} />
       {(compare.diagnostics.length > 0 || compare.candidate.warnings.length > 0) && (
         <Stack gap={2} data-testid="compare-diagnostics">

@@ -8,6 +8,7 @@ import { useSignedInUser } from '../../auth';
 import { OutageWindowsPanel } from '../../outages';
 import { useZones } from '../../zones';
 import { ModelVersionsPanel } from '../components/ModelVersionsPanel';
+import { WeatherResponsePanel } from '../components/WeatherResponsePanel';
 import { RefitPanel } from '../components/RefitPanel';
 import { useRefitProgress } from '../hooks/use-refit-progress';
 
@@ -54,6 +55,7 @@ export function RefitsPage() {
         {zone && <OutageWindowsPanel zone={zone.code} zoneName={zone.name} timeZone={zone.timeZone ?? DEMO_TIME_ZONE} canEdit={canAct} />}
         {zone && <RefitPanel zone={zone.code} zoneName={zone.name} zoneNames={names} timeZone={zone.timeZone ?? DEMO_TIME_ZONE} canRefit={canAct} />}
         {zone && <ModelVersionsPanel zone={zone.code} zoneName={zone.name} timeZone={zone.timeZone ?? DEMO_TIME_ZONE} canPromote={canAct} />}
+        {zone && <WeatherResponsePanel zone={zone.code} zoneName={zone.name} timeZone={zone.timeZone ?? DEMO_TIME_ZONE} />}
       </Stack>
     </>
   );

@@ -24,6 +24,17 @@ export const useStartDraft = (day: string) =>
 export const useAddAdjustment = (day: string) =>
   useScheduleMutation((request: CreateScheduleAdjustmentRequest) => api.post<AdjustmentResultDto>(`/schedules/${day}/adjustments`, request));
 
+/**
+ * Several adjustments one after another (POST /:day/adjustments each, every one audited and
+ * undoable on its own), the screen refreshed once at the end; stops at the first refusal.
+ */
+export const useAddAdjustments = (day: string) =>
+  useScheduleMutation(async (requests: readonly CreateScheduleAdjustmentRequest[]) => {
+    const results: AdjustmentResultDto[] = [];
+    for (const request of requests) results.push(await api.post<AdjustmentResultDto>(`/schedules/${day}/adjustments`, request));
+    return results;
+  });
+
 /** DELETE /adjustments/:id — undo, until the revision is submitted. */
 export const useUndoAdjustment = () =>
   useScheduleMutation((id: number) => api.delete<ScheduleRevisionDto>(`/schedules/adjustments/${id}`));

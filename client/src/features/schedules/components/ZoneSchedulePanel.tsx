@@ -13,6 +13,7 @@ import { RevisionHistory } from './RevisionHistory';
 import { ScheduleChart } from './ScheduleChart';
 import { ScheduleTable } from './ScheduleTable';
 import { useScheduleTemperatures } from '../api/use-schedule-temperatures';
+import { WeatherWhatIfPanel } from './WeatherWhatIfPanel';
 import { WorkflowPanel } from './WorkflowPanel';
 
 interface ZoneSchedulePanelProps {
@@ -55,6 +56,7 @@ export function ZoneSchedulePanel({ day, zone, user, caution, clockOffsetMs }: Z
       <WorkflowPanel day={day} zone={zone} user={user} caution={caution} />
       <ForecastVintage zone={zone} user={user} />
       <ScheduleChart rows={rows} title={zone.zoneName} />
+      {isForecaster(user) && zone.forecast && <WeatherWhatIfPanel day={day} zone={zone} user={user} />}
       <Accordion multiple defaultValue={['hours', 'adjustments']} variant="separated">
         <Accordion.Item value="hours">
           <Accordion.Control>Hours ({rows.length})</Accordion.Control>

@@ -1,0 +1,16 @@
+import type { WeatherWhatIfDto } from '@morrowline/shared';
+import { useQuery } from '@tanstack/react-query';
+import { api } from '../../../lib/api-client';
+import { schedulesKey } from './schedule-keys';
+
+export type WhatIfAsk = { shift: string } | { vintage: string };
+
+/** GET /api/schedules/:day/:zone/weather-what-if?shift=|vintage= — computed on the server, nothing stored. */
+export function useWeatherWhatIf(day: string, zone: string, ask: WhatIfAsk | null) {
+  return useQuery({
+    queryKey: [...schedulesKey, 'weather-what-if', day, zone, ask],
+    queryFn: ({ signal }) => api.get<WeatherWhatIfDto>(`/schedules/${day}/${zone}/weather-what-if`, { signal, query: ask as Record<string, string> }),
+    enabled: ask !== null,
+    retry: false,
+  });
+}

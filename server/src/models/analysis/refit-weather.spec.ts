@@ -1,0 +1,62 @@
+import { plainCalendar } from '@morrowline/engine';
+import { scoreAtIssueTimes } from './issue-time-score';
+import { forecastStored, refitZone, type RefitWeather } from './refit';
+
+/** Six weeks of a zone whose load answers the temperature (12 MW per °C below 14 °C), and daily vintages for 48 hours. */
+function zone(): { values: Float64Array; weather: RefitWeather } {
+  const n = 6 * 168;
+  const h = 48;
+  let s = 5;
+  const rnd = () => ((s = (s * 1103515245 + 12345) % 2 ** 31) / 2 ** 31 - 0.5) * 2;
+  // a daily swing and a wandering weather (AR(1) per hour), so the load's own past cannot foresee it
+  const path = new Float64Array(n + 96);
+  let drift = 0;
+  for (let t = 0; t < path.length; t++) {
+    drift = 0.99 * drift + 0.6 * rnd();
+    path[t] = 5 + 6 * Math.sin((2 * Math.PI * ((t % 24) - 15)) / 24) + 3 * drift;
+  }
+  const temp = (t: number) => path[t];
+  const temperature = path.slice(0, n);
+  const values = Float64Array.from({ length: n }, (_, t) => 400 + 60 * Math.sin((2 * Math.PI * ((t % 24) - 9)) / 24) + (Math.floor(t / 24) % 7 >= 5 ? -40 : 0) + 12 * Math.max(0, 14 - temp(t)) + 4 * rnd());
+  const vintages = [];
+  for (let issued = 5; issued < n; issued += 24) vintages.push({ issued, first: issued + 1, members: [Float64Array.from({ length: 72 }, (_, k) => temp(issued + 1 + k) + 0.05 * k * rnd())] });
+  return { values, weather: { firstHourMs: 0, temperature, vintages, calendar: plainCalendar(n + h), issuedAt: n - 0.5 } };
+}
+
+describe('a stored version with weather terms forecasts as the refit that made it did', () => {
+  it('gives the refit\'s own forecast again from the stored terms, response and error model (coefficients held)', () => {
+    const { values, weather } = zone();
+    const fitted = refitZone({ values, excluded: [], horizon: 48, backtestDays: 3, weather });
+    expect(fitted.weather?.used).toBe(true);
+    expect(fitted.weather?.sigma2).toBeGreaterThan(0);
+    const again = forecastStored({ values, excluded: [], horizon: 48, model: fitted.stored!, weather: { stored: fitted.weather!, inputs: weather } }).forecast;
+    for (let j = 0; j < 48; j++) {
+      expect(again.mean[j]).toBeCloseTo(fitted.forecast.mean[j], 6);
+      expect(again.upper95[j]).toBeCloseTo(fitted.forecast.upper95[j], 6);
+    }
+    // and without the weather it is the plain model's, not the same forecast
+    const plain = forecastStored({ values, excluded: [], horizon: 48, model: fitted.stored! }).forecast;
+    expect(plain.mean.some((m, j) => Math.abs(m - fitted.forecast.mean[j]) > 1)).toBe(true);
+  });
+
+  it('is scored on past days on the temperature forecast known at each day\'s issue time, never a later vintage', () => {
+    const { values, weather } = zone();
+    const n = values.length;
+    const fitted = refitZone({ values: values.subarray(0, n - 72), excluded: [], horizon: 48, backtestDays: 3, weather: { ...weather, temperature: weather.temperature.subarray(0, n - 72), issuedAt: n - 72 } });
+    expect(fitted.weather?.used).toBe(true);
+    // the last three days, each issued 14 hours before it starts
+    const days = [3, 2, 1].map((k) => ({ dayStart: n - 24 * k, hours: 24, cut: n - 24 * k - 14, issuedAt: n - 24 * k - 14 }));
+    const score = (w: typeof weather, withTerms: boolean) =>
+      scoreAtIssueTimes({ values, excluded: [], days, weather: w, versions: [{ model: fitted.stored!, issued: [null, null, null], weather: withTerms ? fitted.weather : null }] }).versions[0];
+    const withWeather = score(weather, true);
+    const without = score(weather, false);
+    expect(withWeather.perDay.every((d) => d.source === 're-forecast')).toBe(true);
+    expect(withWeather.mape!).toBeLessThan(without.mape!);
+    // every vintage issued after the first day's issue time set to 40 °C: that day's score does not move, a later one's does
+    const corrupted = { ...weather, vintages: weather.vintages.map((v) => (v.issued > days[0].issuedAt ? { ...v, members: v.members.map((m) => m.map(() => 40)) } : v)) };
+    const after = score(corrupted, true);
+    expect(after.perDay[0].mape).toBe(withWeather.perDay[0].mape);
+    expect(after.perDay[2].mape).not.toBe(withWeather.perDay[2].mape);
+  });
+});
+

@@ -1,0 +1,33 @@
+/**
+ * The load a different temperature forecast would mean, from a stored model with weather terms.
+ * A forecast of regression with ARIMA errors is the error model's forecast plus the response
+ * x'β on the forecast temperature (engine/src/weather/weather-pipeline.ts); only the second
+ * part reads the temperature, so the load on another temperature path is the model forecast
+ * plus g(T_what-if) − g(T_forecast), with β and the thresholds held as fitted (the calendar
+ * dummies cancel: the calendar is the same). Exact for the engine's model, no refit.
+ */
+import { responseValues, termNames, type CalendarHours, type LoadResponse } from '@morrowline/engine';
+import type { StoredWeather } from '../stored-model';
+
+/** The engine's LoadResponse from what a version stores (coefficients not stored count as 0). */
+export function storedResponse(w: Pick<StoredWeather, 'terms' | 'response'>): LoadResponse {
+  const names = termNames(w.terms);
+  const byName = new Map(w.response.map((c) => [c.name, c]));
+  return {
+    terms: w.terms,
+    names,
+    beta: Float64Array.from(names, (n) => byName.get(n)?.value ?? 0),
+    se: Float64Array.from(names, (n) => byName.get(n)?.se ?? NaN),
+    estimated: names.map((n) => byName.has(n)),
+    rss: NaN,
+    n: 0,
+  };
+}
+
+/** g(what-if) − g(base) for hours [from, to) of two temperature paths on one timeline, MW. */
+export function responseChange(w: Pick<StoredWeather, 'terms' | 'response'>, base: Float64Array, whatIf: Float64Array, calendar: CalendarHours, from: number, to: number): Float64Array {
+  const r = storedResponse(w);
+  const a = responseValues(r, base, calendar, from, to);
+  const b = responseValues(r, whatIf, calendar, from, to);
+  return b.map((v, i) => v - a[i]);
+}

@@ -1,0 +1,47 @@
+import { calendarEffects, temperatureResponseCurve, type ModelWeatherDto } from './model-weather';
+
+const terms = { temperature: true, recency: false, calendar: true, heatBelow: 14, coolAbove: 20 };
+
+describe('the temperature response drawn from a stored model', () => {
+  it('is the mean over the parts of the day of the degree terms, zero between the thresholds', () => {
+    // hand-computed: heating 20/24/28/32 MW per °C by part (mean 26), cooling 10 MW per °C in every part
+    const response: ModelWeatherDto['response'] = [
+      { name: 'hdd_night', value: 20, se: 2 },
+      { name: 'hdd_morning', value: 24, se: 2 },
+      { name: 'hdd_afternoon', value: 28, se: 2 },
+      { name: 'hdd_evening', value: 32, se: 2 },
+      ...['night', 'morning', 'afternoon', 'evening'].map((p) => ({ name: `cdd_${p}`, value: 10, se: null })),
+    ];
+    const [cold, mild, hot] = temperatureResponseCurve({ terms, response }, 4, 24, 10);
+    expect(cold.temperatureC).toBe(4);
+    expect(cold.mw).toBeCloseTo(26 * 10, 10);
+    // 1.96 · √(4 · (10/4 · 2)²) = 1.96 · 10 = 19.6
+    expect(cold.upper95 - cold.mw).toBeCloseTo(19.6, 10);
+    expect(mild).toEqual({ temperatureC: 14, mw: 0, lower95: 0, upper95: 0 });
+    expect(hot.mw).toBeCloseTo(4 * 10, 10);
+  });
+
+  it('adds the recency terms at a steady temperature, where the 24-hour mean and the 3-hour lag equal it', () => {
+    const curve = temperatureResponseCurve({ terms: { ...terms, recency: true }, response: [{ name: 'hdd_mean24', value: 5, se: 1 }, { name: 'hdd_lag3', value: 3, se: 0 }] }, 10, 10, 1);
+    expect(curve).toHaveLength(1);
+    expect(curve[0].mw).toBeCloseTo(8 * 4, 10);
+  });
+
+  it('lists the calendar effects in MW, a holiday as the mean of its parts of the day', () => {
+    const effects = calendarEffects({
+      terms,
+      response: [
+        { name: 'holiday_night', value: -40, se: 4 },
+        { name: 'holiday_morning', value: -120, se: 4 },
+        { name: 'holiday_afternoon', value: -100, se: 4 },
+        { name: 'holiday_evening', value: -60, se: 4 },
+        { name: 'day_after', value: -15, se: 5 },
+      ],
+    });
+    expect(effects).toEqual([
+      { label: 'Public holiday', mw: -80, halfWidth95: 1.96 * 2 },
+      { label: 'Day after a holiday', mw: -15, halfWidth95: 1.96 * 5 },
+    ]);
+    expect(calendarEffects({ terms: { ...terms, calendar: false }, response: [] })).toEqual([]);
+  });
+});
