@@ -1,4 +1,4 @@
-import { ConflictException, Injectable, Logger, NotFoundException } from '@nestjs/common';
+import { ConflictException, Injectable, Logger, NotFoundException, type BeforeApplicationShutdown } from '@nestjs/common';
 import { OnEvent } from '@nestjs/event-emitter';
 import { HOUR_MS, type AlertDto, type AlertState, type CommittedBasis, type DeskScheduleEvent } from '@morrowline/shared';
 import { AuditService } from '../audit/audit.service';
@@ -54,10 +54,12 @@ interface PeakHour {
  * at a time, off the ingest path.
  */
 @Injectable()
-export class AlertsService {
+export class AlertsService implements BeforeApplicationShutdown {
   private readonly logger = new Logger(AlertsService.name);
   private readonly pending = new Map<number, Set<number>>();
   private running: Promise<void> | null = null;
+  /** Looks again at recent hours started by events, until they have queued their evaluation. */
+  private readonly reviews = new Set<Promise<void>>();
 
   constructor(
     private readonly alerts: AlertsRepository,
@@ -106,12 +108,27 @@ export class AlertsService {
   /** A schedule published (or corrected) for a day whose hours have been read already. */
   @OnEvent(DOMAIN_EVENTS.scheduleChanged)
   onScheduleChanged(event: DeskScheduleEvent): void {
-    if (event.action === 'publish' || event.action === 'correction') void this.reviewRecent([event.zone]);
+    if (event.action !== 'publish' && event.action !== 'correction') return;
+    // Not awaited by the publisher, so its failure (the database gone a moment, the server
+    // closing) is logged here rather than left as an unhandled rejection, and shutdown waits for it.
+    const review = this.reviewRecent([event.zone]).catch((error: unknown) =>
+      this.logger.error(`looking again at ${event.zone}'s recent hours failed: ${(error as Error).message}`),
+    );
+    this.reviews.add(review);
+    void review.finally(() => this.reviews.delete(review));
   }
 
   /** Resolves when every evaluation asked for so far has finished (tests, shutdown). */
   async settled(): Promise<void> {
-    while (this.running) await this.running;
+    while (this.reviews.size > 0 || this.running) {
+      await Promise.all(this.reviews);
+      if (this.running) await this.running;
+    }
+  }
+
+  /** The database pool closes after this: evaluations in hand finish first. */
+  async beforeApplicationShutdown(): Promise<void> {
+    await this.settled();
   }
 
   private async drain(): Promise<void> {
