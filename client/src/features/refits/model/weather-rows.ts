@@ -2,7 +2,9 @@ import type { ModelVersionDto, ModelWeatherDto } from '@morrowline/shared';
 
 /** What a version did with the weather, in one line for the desk. */
 export function weatherVerdict(w: ModelWeatherDto | null): string {
-  if (!w) return 'Fitted without weather: the zone had no observed temperature for its history.';
+  // null also for versions made before the weather terms came in and for hourly updates of them,
+  // so the words do not claim the zone lacks temperature.
+  if (!w) return 'Fitted without weather terms: the refit that made it did not try them (a version from before they came in, an hourly update of one, or too little observed temperature). A refit of the zone tries them.';
   if (w.used) return `Forecasts with the weather: ${w.description}.`;
   return 'Weather and calendar terms were tried and did not beat the model without them on the backtest; this version forecasts without them.';
 }
