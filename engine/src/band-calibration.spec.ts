@@ -12,6 +12,7 @@ import {
   bandScaleFromErrors,
   calibratedLevels,
   FIRST_CHECKED_DAY,
+  FLOOR_MAX_COVERAGE,
   HALF_LIFE_DAYS,
   LEVEL_STEP,
   MIN_CALIBRATION_HOURS,
@@ -223,7 +224,7 @@ describe('bandScaleFromErrors with the errors’ days', () => {
     expect(s.k95).toBe(s.k80);
   });
 
-  it('holds no floor at the model’s band: errors steadily half the model’s give half-width bands', () => {
+  it('holds no floor at the model’s band where the replay shows it too wide: errors steadily half the model’s give half-width bands', () => {
     const { z, day } = steadyDays(28, () => 0.5);
     const s = bandScaleFromErrors(z, day);
     expect(s.k80).toBeCloseTo((0.5 * 1.318011) / Z80, 5); // 0.514225
@@ -231,6 +232,23 @@ describe('bandScaleFromErrors with the errors’ days', () => {
     expect(s.k95).toBeLessThan(0.52);
     // without the days nothing can be replayed and the floor stays
     expect(bandScaleFromErrors(z).k95).toBe(1);
+  });
+
+  it('keeps the model’s 95 % band as the floor unless the replay shows it covering more than 97 %', () => {
+    // the largest of the 24 errors is 2.310991 = Φ⁻¹((1 + 23.5/24)/2), the next 1.862732; Z95 = 1.959964.
+    // At scale 0.9 the model’s band misses the largest (2.080) on every checked day: 23/24 = 0.958 ≤ 0.97,
+    // the floor holds. At scale 0.8 it covers all 24 (1.849): the floor goes, k95 = k80.
+    expect(FLOOR_MAX_COVERAGE).toBe(0.97);
+    const a = steadyDays(28, () => 0.9);
+    const b = steadyDays(28, () => 0.8);
+    expect(calibratedLevels(a.z, a.day)!.modelCovered95).toBeCloseTo(23 / 24, 12);
+    expect(calibratedLevels(b.z, b.day)!.modelCovered95).toBe(1);
+    const sa = bandScaleFromErrors(a.z, a.day);
+    const sb = bandScaleFromErrors(b.z, b.day);
+    expect(sa.k80).toBeCloseTo((0.9 * 1.318011) / Z80, 5); // 0.925604
+    expect(sa.k95).toBe(1);
+    expect(sb.k80).toBeCloseTo((0.8 * 1.318011) / Z80, 5); // 0.822759
+    expect(sb.k95).toBeCloseTo(sb.k80, 12);
   });
 
   it('keeps the nominal levels and the floor when the evidence is too short to replay', () => {

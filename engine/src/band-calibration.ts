@@ -32,12 +32,16 @@
  * them. With a steady error scale c' is c (to the grid's step); where the replay shows
  * the rule falling short after calm spells, c' rises, and where it shows it too wide, c' falls.
  *
- * This calibrated level replaces the earlier floor at the model's own 95 % band (k95 ≥ 1),
- * which held the band of a zone whose errors are steadily smaller than its model says far wider
- * than its evidence (a 95 % band covering 99–100 %). The floor remains only where the evidence
- * is too short to replay (fewer than MIN_CHECKED_DAYS days after the first week, or errors
- * without their days). Always k95 ≥ k80: the errors' tails are taken to be at least as heavy as
- * the normal's (common practice for load). Symmetric about the mean.
+ * The 95 % band keeps the model's own as its floor (k95 ≥ 1: its quantile rests on a few days
+ * and comes out low after a calm spell), but only where the evidence does not contradict it: the
+ * replay also counts the checked hours inside the model's own 95 % band, and when it covered more
+ * than FLOOR_MAX_COVERAGE of them (above the 93–97 % a 95 % band is held to) the floor is dropped.
+ * Held unconditionally, it kept the band of a zone whose errors are steadily smaller than its
+ * model says far wider than its evidence (a 95 % band covering 99–100 %). Where the evidence is
+ * too short to replay (fewer than MIN_CHECKED_DAYS days after the first week, or errors without
+ * their days) the levels are the nominal ones and the floor holds. Always k95 ≥ k80: the errors'
+ * tails are taken to be at least as heavy as the normal's (common practice for load).
+ * Symmetric about the mean.
  * Measured on the open demand series and the simulator's zones (README, "Bands").
  */
 import { IntervalForecast, Z80, Z95 } from './forecast';
@@ -68,6 +72,10 @@ export const MIN_CHECKED_DAYS = 7;
 export const LEVEL_STEP = 0.005;
 const C_MAX = 0.995;
 const C_MIN_BELOW_NOMINAL = 0.1;
+
+/** Share of the replay's hours inside the model's own 95 % band above which that band is not
+ *  kept as a floor: the top of the 93–97 % range a 95 % band is held to. */
+export const FLOOR_MAX_COVERAGE = 0.97;
 
 /** Days over which an error's weight halves. Chosen among 2, 3, 4, 5, 7 and 14 days and equal
  *  weights on the rolling backtests of the open demand series and the five simulated zones
@@ -122,7 +130,8 @@ export function bandScaleFromErrors(z: ArrayLike<number>, day?: ArrayLike<number
   const { abs, days } = finiteErrors(z, day);
   if (abs.length < MIN_CALIBRATION_HOURS) return UNSCALED;
   const levels = day ? calibratedLevels(abs, days) : null;
-  return levels ? bandScaleAtLevels(abs, days, levels.p80, levels.p95, false) : bandScaleAtLevels(abs, days, 0.8, 0.95, true);
+  if (!levels) return bandScaleAtLevels(abs, days, 0.8, 0.95, true);
+  return bandScaleAtLevels(abs, days, levels.p80, levels.p95, levels.modelCovered95 <= FLOOR_MAX_COVERAGE);
 }
 
 /**
@@ -151,6 +160,8 @@ export interface CalibratedLevels {
   /** share of the checked hours the replay covered at p80 and at p95 */
   covered80: number;
   covered95: number;
+  /** share of the checked hours inside the model's own 95 % band (|z| ≤ Z95) */
+  modelCovered95: number;
 }
 
 /**
@@ -174,6 +185,7 @@ export function calibratedLevels(abs: ArrayLike<number>, days: ArrayLike<number>
   const hits = new Float64Array(grid.length);
   let hours = 0;
   let checked = 0;
+  let insideModel95 = 0;
   const first = days[0];
   // index of the first error of each day (days ascending)
   let start = 0;
@@ -187,6 +199,7 @@ export function calibratedLevels(abs: ArrayLike<number>, days: ArrayLike<number>
         // q is non-decreasing in the level: the hour is covered from the first level whose quantile reaches it
         const g = lowerBound(q, abs[i]);
         for (let k = g; k < grid.length; k++) hits[k]++;
+        if (abs[i] <= Z95) insideModel95++;
       }
       hours += end - start;
       checked++;
@@ -203,7 +216,7 @@ export function calibratedLevels(abs: ArrayLike<number>, days: ArrayLike<number>
   };
   const a = pick(0.8);
   const b = pick(0.95);
-  return { p80: a.p, p95: b.p, checkedDays: checked, covered80: a.covered, covered95: b.covered };
+  return { p80: a.p, p95: b.p, checkedDays: checked, covered80: a.covered, covered95: b.covered, modelCovered95: insideModel95 / hours };
 }
 
 /** Weighted quantiles at the levels `ps` (ascending) of abs[0..count), weights by age from day `ref`. */
