@@ -184,6 +184,8 @@ export function calibratedLevels(abs: ArrayLike<number>, days: ArrayLike<number>
     grid.push(p);
   }
   const hits = new Float64Array(grid.length);
+  // one sort for all checked days: each takes the errors of the days before it from this order
+  const order = Array.from({ length: n }, (_, i) => i).sort((x, y) => abs[x] - abs[y]);
   let hours = 0;
   let checked = 0;
   let insideModel95 = 0;
@@ -195,7 +197,7 @@ export function calibratedLevels(abs: ArrayLike<number>, days: ArrayLike<number>
     while (end < n && days[end] === days[start]) end++;
     const t = days[start];
     if (t >= first + FIRST_CHECKED_DAY && start > 0) {
-      const q = weightedQuantilesAt(abs, days, start, t - 1, grid);
+      const q = weightedQuantilesBefore(abs, days, order, t, grid);
       for (let i = start; i < end; i++) {
         // q is non-decreasing in the level: the hour is covered from the first level whose quantile reaches it
         const g = lowerBound(q, abs[i]);
@@ -220,22 +222,27 @@ export function calibratedLevels(abs: ArrayLike<number>, days: ArrayLike<number>
   return { p80: a.p, p95: b.p, checkedDays: checked, covered80: a.covered, covered95: b.covered, modelCovered95: insideModel95 / hours };
 }
 
-/** Weighted quantiles at the levels `ps` (ascending) of abs[0..count), weights by age from day `ref`. */
-function weightedQuantilesAt(abs: ArrayLike<number>, days: ArrayLike<number>, count: number, ref: number, ps: number[]): number[] {
-  const order = Array.from({ length: count }, (_, i) => i).sort((a, b) => abs[a] - abs[b]);
-  const cum = new Float64Array(count);
+/**
+ * Weighted quantiles at the levels `ps` (ascending) of the errors of the days before day `t`,
+ * weights by age from day t − 1; `order` sorts all of `abs` ascending.
+ */
+function weightedQuantilesBefore(abs: ArrayLike<number>, days: ArrayLike<number>, order: number[], t: number, ps: number[]): number[] {
+  const values: number[] = [];
+  const cum: number[] = [];
   let total = 0;
-  for (let j = 0; j < count; j++) {
-    total += ageWeight(ref - days[order[j]]);
-    cum[j] = total;
+  for (const i of order) {
+    if (days[i] >= t) continue;
+    total += ageWeight(t - 1 - days[i]);
+    values.push(abs[i]);
+    cum.push(total);
   }
   const out: number[] = [];
   let j = 0;
   for (const p of ps) {
     // the same rule as weightedQuantile: the smallest value whose cumulative weight reaches p of the total
     const target = p * total * (1 - 1e-12);
-    while (j < count - 1 && cum[j] < target) j++;
-    out.push(abs[order[j]]);
+    while (j < values.length - 1 && cum[j] < target) j++;
+    out.push(values[j]);
   }
   return out;
 }
