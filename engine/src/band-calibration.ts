@@ -24,11 +24,11 @@
  * JASA 85, 715–723: choose the level the rule is run at so that the coverage it achieves is the
  * nominal one). A quantile from a few weeks of hourly errors rests on a handful of independent
  * days (day-ahead errors move in whole-day shifts) and the error scale drifts from week to week,
- * so the plain c-quantile of the recent past covers less than c of the next day on average. The
+ * so the plain c-quantile of the recent past need not cover c of the next day on average. The
  * same rule is therefore replayed over the evidence itself: each day from the eighth on is
  * covered by the weighted quantiles of the days before it only (rolling origin, Tashman 2000),
  * at every level on a grid, and c' is the lowest level whose replay covered at least c of those
- * days' hours (between C_MIN and C_MAX). The hours a band is then scored on are never among
+ * days' hours (no lower than c − 0.1, no higher than C_MAX). The hours a band is then scored on are never among
  * them. With a steady error scale c' is c (to the grid's step); where the replay shows
  * the rule falling short after calm spells, c' rises, and where it shows it too wide, c' falls.
  *
