@@ -9,8 +9,7 @@ set -euo pipefail
 source "$(dirname "$0")/lib.sh"
 cd "$ROOT"
 npm_deps
-npm run -s build -w shared >/dev/null || die "shared build failed"
-npm run -s build -w engine >/dev/null || die "engine build failed"
+build_engine quiet
 port="${BENCH_REDIS_PORT:-6392}"
 trap 'bash "$ROOT/scripts/redis.sh" stop bench >/dev/null 2>&1 || true' EXIT
 trap 'exit 130' INT TERM

@@ -38,8 +38,7 @@ apt_install mariadb-server mariadb-client
 bash "$ROOT/scripts/db.sh" start bench "$db_port" >/dev/null || die "bench MariaDB did not start"
 bash "$ROOT/scripts/db.sh" reset bench "$db_port" >/dev/null || die "could not reset the bench database"
 log "building shared, engine and server"
-npm run -s build -w shared || die "shared build failed"
-npm run -s build -w engine || die "engine build failed"
+build_engine
 npm run -s build -w server || die "server build failed"
 (cd server && node dist/database/manage.js migrate >/dev/null && node dist/database/manage.js seed >/dev/null) || die "could not set up the bench database"
 key="$(cd server && node dist/database/manage.js feed-key bench-feed)"

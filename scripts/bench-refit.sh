@@ -7,7 +7,6 @@ set -euo pipefail
 source "$(dirname "$0")/lib.sh"
 cd "$ROOT"
 npm_deps
-npm run -s build -w shared >/dev/null || die "shared build failed"
-npm run -s build -w engine >/dev/null || die "engine build failed"
+build_engine quiet
 cd server
 exec npx tsx src/cli/bench-refit.ts

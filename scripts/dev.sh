@@ -19,8 +19,7 @@ trap stop_all INT TERM EXIT
 npm_deps
 bash "$ROOT/scripts/db.sh" start dev "$DB_PORT" || die "MariaDB did not start"
 # shared, the engine and the server once before the watchers start (the client is served from source by Vite)
-npm run -s build -w shared || die "shared build failed"
-npm run -s build -w engine || die "engine build failed"
+build_engine
 npm run -s build -w server >/dev/null || log "the server build has errors; tsc --watch below shows them"
 (cd server && node dist/database/manage.js migrate && node dist/database/manage.js seed) || die "database set-up failed"
 (cd shared && npx tsc -p tsconfig.build.json --watch --preserveWatchOutput >/dev/null) & pids+=($!)

@@ -34,6 +34,19 @@ npm_deps() {
   fi
 }
 
+# build_engine [quiet] — compiles shared/ and the engine (engine/dist), which the server, its
+# worker threads and the benches load as in production; "quiet" keeps tsc's output off the log.
+build_engine() {
+  cd "$ROOT" || exit 1
+  if [ "${1:-}" = quiet ]; then
+    npm run -s build -w shared >/dev/null || die "shared build failed"
+    npm run -s build -w engine >/dev/null || die "engine build failed"
+  else
+    npm run -s build -w shared || die "shared build failed"
+    npm run -s build -w engine || die "engine build failed"
+  fi
+}
+
 # Seconds since this script began, for progress lines ("[ 42 s] ...").
 SCRIPT_T0=$(date +%s)
 step() { log "[$(printf '%3d' $(( $(date +%s) - SCRIPT_T0 ))) s] $*"; }

@@ -11,8 +11,7 @@ import { ArmaStateSpace } from '../arma/state-space';
 import { differenceOrder } from '../series/differencing';
 import type { Design } from './design';
 import { diffuseFilter, diffuseModel, DiffuseModel } from './diffuse-filter';
-import { crossProducts, solveNormal } from './least-squares';
-import type { Profile } from './profile';
+import { glsStep, type Profile } from './profile';
 
 export interface DiffuseProfile extends Profile {
   /** R's n.used */
@@ -32,22 +31,7 @@ export function diffuseProfile(d: Design, diff: readonly number[], ss: ArmaState
   const pass = diffuseFilter(md, [d.y, ...d.columns], observed);
   const wt = pass.std[0];
   const ct = pass.std.slice(1);
-  const k = ct.length;
-  let beta: Float64Array = new Float64Array(0);
-  let inverse: Float64Array = new Float64Array(0);
-  if (k > 0) {
-    const cp = crossProducts(ct, wt);
-    const ls = solveNormal(cp.XtX, cp.Xty, d.names);
-    beta = ls.beta;
-    inverse = ls.inverse;
-  }
-  let ssq = 0;
-  for (let t = 0; t < wt.length; t++) {
-    let e = wt[t];
-    if (e !== e) continue;
-    for (let j = 0; j < k; j++) e -= ct[j][t] * beta[j];
-    ssq += e * e;
-  }
+  const { beta, inverse, ssq } = glsStep(ct, wt, d.names);
   let count = 0;
   for (let t = 0; t < observed.length; t++) count += observed[t];
   return { beta, ssq, sumLogF: pass.sumLogF, nUsed: pass.nu, nu: pass.nu, nObserved: count - differenceOrder(diff), inverse };

@@ -46,17 +46,26 @@ export function profileLikelihood(d: Design, ss: ArmaStateSpace, work: ProfileWo
   const { wt, ct, complete, tol } = work;
   const f = kalmanFilter(d.w, ss, { mean: 0, tol, complete, residuals: wt });
   for (let j = 0; j < ct.length; j++) kalmanFilter(d.wColumns[j], ss, { mean: 0, tol, complete, residuals: ct[j] });
+  const { beta, inverse, ssq } = glsStep(ct, wt, d.names);
+  return { beta, ssq, sumLogF: f.sumLogF, nUsed: f.nUsed, inverse };
+}
+
+/**
+ * The GLS step shared by both likelihood forms: β̂ the least-squares fit of the standardized
+ * innovations ỹ (wt) on the standardized regressors X̃ (ct), and ‖ỹ − X̃β̂‖² over the hours that
+ * have an innovation, summed row by row (not ỹ'ỹ − β̂'X̃'ỹ, which cancels digits when the
+ * regressors explain most of the load).
+ */
+export function glsStep(ct: readonly Float64Array[], wt: Float64Array, names: readonly string[]): { beta: Float64Array; inverse: Float64Array; ssq: number } {
   const k = ct.length;
   let beta: Float64Array = new Float64Array(0);
   let inverse: Float64Array = new Float64Array(0);
   if (k > 0) {
     const cp = crossProducts(ct, wt);
-    const ls = solveNormal(cp.XtX, cp.Xty, d.names);
+    const ls = solveNormal(cp.XtX, cp.Xty, names);
     beta = ls.beta;
     inverse = ls.inverse;
   }
-  // the residual sum of squares row by row (not ỹ'ỹ − β̂'X̃'ỹ, which cancels digits when the
-  // regressors explain most of the load)
   let ssq = 0;
   for (let t = 0; t < wt.length; t++) {
     let e = wt[t];
@@ -64,7 +73,7 @@ export function profileLikelihood(d: Design, ss: ArmaStateSpace, work: ProfileWo
     for (let j = 0; j < k; j++) e -= ct[j][t] * beta[j];
     ssq += e * e;
   }
-  return { beta, ssq, sumLogF: f.sumLogF, nUsed: f.nUsed, inverse };
+  return { beta, inverse, ssq };
 }
 
 /** The errors of the differenced regression, w − X_w β (NaN where w is missing). */
