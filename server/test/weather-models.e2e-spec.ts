@@ -2,7 +2,10 @@ import { EntityManager } from '@mikro-orm/mariadb';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import request from 'supertest';
 import { operatingDayOf, temperatureResponseCurve, type ModelVersionDto, type RefitJobDto, type WeatherWhatIfDto } from '@morrowline/shared';
-import { refitZone, REFIT_BACKTEST_DAYS } from '../src/models/analysis/refit';
+import { refitZone, scoreChoice, REFIT_BACKTEST_DAYS } from '../src/models/analysis/refit';
+import { scoreWeatherChoice } from '../src/models/analysis/weather-score';
+import { AuditEntry } from '../src/audit/entities/audit-entry.entity';
+import { ModelVersion } from '../src/models/entities/model-version.entity';
 import { forecastHorizon } from '../src/forecasts/forecast-horizon';
 import { ZoneHistoryLoader } from '../src/history/zone-history.loader';
 import { RefitsService } from '../src/models/refits.service';
@@ -114,6 +117,35 @@ describe('refits with weather: temperature response and forecasts on the vintage
     // its first forecast used the newest vintage issued by the refit's time (05:00 UTC today or yesterday)
     const newest = Math.floor((Date.now() - 10 * 60_000 - 5 * H) / (24 * H)) * 24 * H + 5 * H;
     expect(version.weather!.vintageIssuedAt).toBe(new Date(newest).toISOString());
+  });
+
+  it('scores a version with weather on its weather backtest, and the nightly refit weighs both versions so', async () => {
+    const em = app.get(EntityManager).fork();
+    const z = await em.findOneOrFail(Zone, { code: zone });
+    const inService = await em.findOneOrFail(ModelVersion, { zone: z.id, status: 'in-service' });
+    const dto = (await api().get(`/api/models/${inService.id}`).set(as(operator)).expect(200)).body as ModelVersionDto;
+    expect(dto.weather!.used).toBe(true);
+    expect(dto.backtestOnForecastWeather).toBe(true);
+    // the stored score is the version's terms on forecast weather over the same days as the model
+    // without weather; on this zone (25 MW/°C, weather swinging over days) the terms win clearly
+    const history = (await app.get(ZoneHistoryLoader).load(z))!;
+    const weather = (await app.get(ZoneWeatherLoader).forRefit(z, history, forecastHorizon(history.lastHourMs, z.timeZone), Date.now()))!;
+    const plain = scoreChoice(history.values, history.excluded, { diff: dto.differencing, p: dto.p, q: dto.q }, REFIT_BACKTEST_DAYS);
+    const again = scoreWeatherChoice(history.values, history.excluded, weather, inService.weather!.choice!, REFIT_BACKTEST_DAYS);
+    expect(dto.backtestDays).toBe(plain.days);
+    expect(dto.backtestMape!).toBeCloseTo(again.mape!, 1);
+    expect(dto.baselineMape!).toBeCloseTo(plain.baselineMape!, 6);
+    expect(dto.backtestMape!).toBeLessThan(0.8 * plain.mape!);
+
+    // the nightly refit: candidate and version in service both scored on forecast weather
+    const jobs = await app.get(RefitsService).request(null, zone, 'nightly refit', 'schedule', 'full');
+    await app.get(RefitsService).settled();
+    const done = (await api().get(`/api/models/refits?zone=${zone}`).set(as(operator)).expect(200)).body as RefitJobDto[];
+    const job = done.find((j) => j.id === jobs[0].id)!;
+    expect(job.state).toBe('done');
+    expect(job.message).toMatch(/MAPE [\d.]+ % on forecast weather\)? (beat|did not beat it \()[\d.]+ % on forecast weather/);
+    const audit = await em.fork().findOneOrFail(AuditEntry, { action: 'refit.finish', subjectId: String(job.id) } as never);
+    expect(audit.reason).toBe(job.message);
   });
 
   it('forecasts at an issue time T from the vintages issued by T only: a later vintage with absurd values changes nothing', async () => {

@@ -82,8 +82,14 @@ export interface ModelVersionDto {
   trainingTo: string;
   trainingHours: number;
   excludedHours: number;
-  /** Day-ahead backtest over the last `backtestDays` days (orders fixed, refitted each day). */
+  /**
+   * Day-ahead backtest over the last `backtestDays` days (orders fixed, refitted each day). A
+   * version with weather terms is scored with them, each day on the temperature forecast known at
+   * its origin (`backtestOnForecastWeather`); versions from before that, and versions without
+   * weather, on the model without weather.
+   */
   backtestDays: number;
+  backtestOnForecastWeather: boolean;
   backtestMape: number | null;
   baselineMape: number | null;
   /** Shares (%) of the backtest's hours inside the 80 % and 95 % bands; null before calibration was stored. */

@@ -27,6 +27,7 @@ export function toModelVersionDto(v: ModelVersion): ModelVersionDto {
     trainingHours: v.trainingHours,
     excludedHours: v.excludedHours,
     backtestDays: v.backtestDays,
+    backtestOnForecastWeather: v.weather?.scoredOnForecastWeather === true,
     backtestMape: v.backtestMape,
     baselineMape: v.baselineMape,
     backtestCoverage80: v.backtestCoverage80 === null ? null : 100 * v.backtestCoverage80,

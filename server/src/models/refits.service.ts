@@ -247,6 +247,8 @@ export class RefitsService implements OnApplicationShutdown {
         horizon,
         fixed: job.mode === 'update' && inService ? choiceOf(inService) : undefined,
         inService: job.mode === 'full' && inService ? choiceOf(inService) : null,
+        // scored as it forecasts: with its weather terms when it has them
+        inServiceWeather: job.mode === 'full' && inService?.weather?.used ? (inService.weather.choice ?? null) : null,
         backtestDays: REFIT_BACKTEST_DAYS,
         ...(weather ? { weather } : {}),
       };
@@ -280,6 +282,8 @@ export class RefitsService implements OnApplicationShutdown {
           trigger: job.trigger,
           candidateMape: result.score?.mape ?? null,
           inServiceMape: current && current.id === scoredInServiceId ? (result.inServiceScore?.mape ?? null) : null,
+          candidateOnWeather: result.score?.onForecastWeather ?? false,
+          inServiceOnWeather: result.inServiceScore?.onForecastWeather ?? false,
         }));
         version = this.versions.add(tx, {
           zone: tx.getReference(Zone, zone.id),
