@@ -1,7 +1,7 @@
 import { EntityManager } from '@mikro-orm/mariadb';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import request from 'supertest';
-import { operatingDayOf, temperatureResponseCurve, type ModelVersionDto, type RefitJobDto, type WeatherWhatIfDto } from '@morrowline/shared';
+import { operatingDayOf, temperatureResponseCurve, type ModelVersionDto, type RefitJobDto, type WeatherVintagesDto, type WeatherWhatIfDto } from '@morrowline/shared';
 import { refitZone, scoreChoice, REFIT_BACKTEST_DAYS } from '../src/models/analysis/refit';
 import { scoreWeatherChoice } from '../src/models/analysis/weather-score';
 import { AuditEntry } from '../src/audit/entities/audit-entry.entity';
@@ -197,8 +197,24 @@ describe('refits with weather: temperature response and forecasts on the vintage
     // the what-if changes nothing stored
     expect((await api().get(`/api/forecasts/latest?zone=${zone}`).set(as(operator)).expect(200)).body).toEqual(before);
 
+    // the vintages known for the day, newest first, the forecast's own marked: each day's 05:00 UTC
+    // issue that covers some hour of the day (96 hours ahead), as built above
+    const list = (await api().get(`/api/schedules/${day}/${zone}/weather-vintages`).set(as(operator)).expect(200)).body as WeatherVintagesDto;
+    const issues = list.vintages.map((x) => Date.parse(x.issuedAt));
+    expect(issues).toEqual([...issues].sort((a, b) => b - a));
+    expect(issues.length).toBeGreaterThanOrEqual(3);
+    for (const t of issues) expect(new Date(t).getUTCHours()).toBe(5);
+    expect(list.vintages.filter((x) => x.usedByForecast).map((x) => x.issuedAt)).toEqual([w.baseVintageIssuedAt]);
+    expect(list.forecastVintageIssuedAt).toBe(w.baseVintageIssuedAt);
+    await api().get(`/api/schedules/${day}/${zone}/weather-vintages`).set(as(await tokenFor(app, 'viewer'))).expect(403);
+    await api().get(`/api/schedules/${day}/NOSUCHZONE/weather-vintages`).set(as(operator)).expect(404);
+
     // another vintage: the one issued a day before the newest, as known then
     const older = new Date(Date.parse(w.baseVintageIssuedAt!) - 24 * H).toISOString();
+    expect(list.vintages.map((x) => x.issuedAt)).toContain(older);
+    // an instant that is no vintage's issue time: 404 naming where the known ones are
+    const notIssued = await api().get(`/api/schedules/${day}/${zone}/weather-what-if`).query({ vintage: new Date(Date.parse(older) + 60_000).toISOString() }).set(as(operator)).expect(404);
+    expect(notIssued.body.message).toMatch(/No temperature forecast for .* was issued at .*weather-vintages/);
     const v = (await api().get(`/api/schedules/${day}/${zone}/weather-what-if`).query({ vintage: older }).set(as(operator)).expect(200)).body as WeatherWhatIfDto;
     expect(v.shiftC).toBeNull();
     expect(v.whatIfVintageIssuedAt).toBe(older);

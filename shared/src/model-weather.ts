@@ -106,6 +106,20 @@ export const WHAT_IF_MAX_SHIFT_C = 10;
  * made the day's latest forecast would mean if the temperature forecast were N °C warmer (or
  * colder), or were another vintage; beside the model forecast, never changing it.
  */
+/** The temperature forecast vintages known for an operating day, newest first: the what-if's "another vintage" choices. */
+export interface WeatherVintagesDto {
+  zone: string;
+  operatingDay: string;
+  /** issue time of the vintage the day's latest forecast was made on (null: no forecast, or none was known then) */
+  forecastVintageIssuedAt: string | null;
+  vintages: Array<{
+    issuedAt: string;
+    /** hours of the day this vintage gives a temperature for */
+    hours: number;
+    usedByForecast: boolean;
+  }>;
+}
+
 export interface WeatherWhatIfDto {
   zone: string;
   operatingDay: string;

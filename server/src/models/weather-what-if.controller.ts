@@ -1,6 +1,6 @@
 import { BadRequestException, Controller, Get, Param, Query } from '@nestjs/common';
 import { ApiBearerAuth, ApiQuery, ApiTags } from '@nestjs/swagger';
-import { parseDecimal, parseInstant, PERMISSIONS, WHAT_IF_MAX_SHIFT_C, type WeatherWhatIfDto } from '@morrowline/shared';
+import { parseDecimal, parseInstant, PERMISSIONS, WHAT_IF_MAX_SHIFT_C, type WeatherVintagesDto, type WeatherWhatIfDto } from '@morrowline/shared';
 import { Roles } from '../common/decorators/roles.decorator';
 import { ParseDayPipe } from '../common/pipes/parse-day.pipe';
 import { WeatherWhatIfService, type WhatIfChange } from './weather-what-if.service';
@@ -28,6 +28,14 @@ export function parseWhatIfQuery(query: Record<string, unknown>): WhatIfChange {
 @Controller('schedules')
 export class WeatherWhatIfController {
   constructor(private readonly whatIfs: WeatherWhatIfService) {}
+
+  @Get(':day/:zone/weather-vintages')
+  @Roles(...PERMISSIONS.forecast)
+  vintages(@Param('day', ParseDayPipe) day: string, @Param('zone') zone: string, @Query() query: Record<string, unknown>): Promise<WeatherVintagesDto> {
+    const unknown = Object.keys(query);
+    if (unknown.length) throw new BadRequestException(`Unknown query parameter ${unknown.join(', ')}; this route takes none`);
+    return this.whatIfs.vintages(day, zone);
+  }
 
   @Get(':day/:zone/weather-what-if')
   @Roles(...PERMISSIONS.forecast)

@@ -1,4 +1,5 @@
-import { parseDecimal, WHAT_IF_MAX_SHIFT_C, type CreateScheduleAdjustmentRequest, type ScheduleHourSlot, type WeatherWhatIfDto } from '@morrowline/shared';
+import { parseDecimal, WHAT_IF_MAX_SHIFT_C, type CreateScheduleAdjustmentRequest, type ScheduleHourSlot, type WeatherVintagesDto, type WeatherWhatIfDto } from '@morrowline/shared';
+import { formatDateTime } from '../../../lib/format';
 
 /** The shift as typed, read by the shared number parser; a message when it is not a shift the server takes. */
 export function checkShift(text: string): string | null {
@@ -24,4 +25,15 @@ export function whatIfAdjustments(w: WeatherWhatIfDto, slots: readonly ScheduleH
     out.push({ zones: [zone], kind: 'add', fromHour: slot.index, toHour: slot.index, value, reason: `${reason} (weather what-if: ${label})` });
   }
   return out;
+}
+
+/**
+ * The vintages known for the day as select options, newest first as the server lists them: the
+ * issue time in the zone's time, how much of the day it covers, and which one the forecast used.
+ */
+export function vintageOptions(v: WeatherVintagesDto, timeZone: string): Array<{ value: string; label: string }> {
+  return v.vintages.map((x) => ({
+    value: x.issuedAt,
+    label: `${formatDateTime(x.issuedAt, timeZone)}${x.hours < 23 ? ` (${x.hours} h of the day)` : ''}${x.usedByForecast ? ' — the forecast’s' : ''}`,
+  }));
 }
