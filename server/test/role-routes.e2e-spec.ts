@@ -51,6 +51,8 @@ const EXPECTED: Record<string, 'public' | string> = {
   'POST /api/schedules/:day/:zone/corrections': 'os',
   'GET /api/schedules/:day/:zone/weather-what-if': 'os',
   'GET /api/schedules/:day/:zone/weather-vintages': 'os',
+  'POST /api/schedules/:day/:zone/weather-what-if/adjustments': 'os',
+  'DELETE /api/schedules/adjustment-batches/:id': 'os',
   'POST /api/schedules/revisions/:id/submit': 'os',
   'POST /api/schedules/revisions/:id/restart': 'os',
   'POST /api/schedules/revisions/:id/back-to-model': 'os',

@@ -1,12 +1,14 @@
 import { BadRequestException, ConflictException, Injectable, NotFoundException } from '@nestjs/common';
-import { HOUR_MS, isOperatingDay, operatingDayBounds, weightedTemperature, type WeatherVintagesDto, type WeatherWhatIfDto } from '@morrowline/shared';
+import { HOUR_MS, isOperatingDay, operatingDayBounds, weightedTemperature, type AdjustmentResultDto, type WeatherVintagesDto, type WeatherWhatIfDto } from '@morrowline/shared';
 import { CalendarService } from '../calendar/calendar.service';
+import type { AuthUser } from '../common/auth-user';
+import { SchedulesService } from '../schedules/schedules.service';
 import { ForecastsService } from '../forecasts/forecasts.service';
 import { knownAt, vintageKey, type VintageValue } from '../weather/vintages';
 import { WeatherRepository } from '../weather/weather.repository';
 import { ZonesRepository } from '../zones/zones.repository';
 import { dayVintages } from './analysis/day-vintages';
-import { responseChange } from './analysis/weather-what-if';
+import { responseChange, whatIfHours } from './analysis/weather-what-if';
 import { zoneWeatherInputs } from './analysis/zone-weather-inputs';
 import { ModelVersionsRepository } from './model-versions.repository';
 
@@ -31,7 +33,26 @@ export class WeatherWhatIfService {
     private readonly forecasts: ForecastsService,
     private readonly weather: WeatherRepository,
     private readonly calendar: CalendarService,
+    private readonly schedules: SchedulesService,
   ) {}
+
+  /**
+   * The what-if, worked out again here from the stored forecast, response and vintages (never from
+   * numbers the desk sends), as one "add" per hour on the zone's draft: added together or not at
+   * all, one audit entry, undone together (SchedulesService.addBatch).
+   */
+  async adjust(user: AuthUser, day: string, code: string, change: WhatIfChange, reason: string): Promise<AdjustmentResultDto> {
+    const w = await this.whatIf(day, code, change);
+    const label = 'shiftC' in change ? `${change.shiftC > 0 ? '+' : change.shiftC < 0 ? '−' : ''}${Math.abs(change.shiftC)} °C` : `vintage issued ${w.whatIfVintageIssuedAt}`;
+    const { from } = operatingDayBounds(day, (await this.zones.byCode(code))!.timeZone);
+    return this.schedules.addBatch(user, day, w.zone, whatIfHours(w, from), `${reason} (weather what-if: ${label})`, {
+      source: 'weather-what-if',
+      shiftC: w.shiftC,
+      whatIfVintageIssuedAt: w.whatIfVintageIssuedAt,
+      forecastRunId: w.forecastRunId,
+      modelVersionId: w.modelVersionId,
+    });
+  }
 
   /** The vintages known now for the day (issue times newest first), the one its latest forecast used marked. */
   async vintages(day: string, code: string, now = Date.now()): Promise<WeatherVintagesDto> {

@@ -6,10 +6,10 @@ import { ErrorNotice } from '../../../components/ErrorNotice';
 import { axis, CHART_COLORS, UplotChart } from '../../../components/UplotChart';
 import { formatDateTime } from '../../../lib/format';
 import { notifySuccess } from '../../../lib/notify';
-import { useAddAdjustments } from '../api/use-schedule-actions';
+import { useUndoAdjustmentBatch, useWhatIfAdjustments } from '../api/use-schedule-actions';
 import { useWeatherVintages, useWeatherWhatIf, type WhatIfAsk } from '../api/use-weather-what-if';
 import { isEditable, isForecaster } from '../model/permissions';
-import { checkShift, vintageOptions, whatIfAdjustments } from '../model/what-if';
+import { checkShift, vintageOptions } from '../model/what-if';
 
 /**
  * The day's weather what-if: the load a temperature forecast N °C warmer or colder (or another
@@ -26,7 +26,11 @@ export function WeatherWhatIfPanel({ day, zone, user }: { day: string; zone: Zon
   const whatIf = useWeatherWhatIf(day, zone.zone, ask);
   const vintages = useWeatherVintages(day, zone.zone, mode === 'vintage');
   const options = useMemo(() => (vintages.data ? vintageOptions(vintages.data, zone.timeZone) : []), [vintages.data, zone.timeZone]);
-  const add = useAddAdjustments(day);
+  const add = useWhatIfAdjustments(day);
+  const undoBatch = useUndoAdjustmentBatch();
+  // the batch this desk added last, while any of it is still in force on the working revision
+  const [batch, setBatch] = useState<{ id: number; label: string } | null>(null);
+  const batchInForce = batch !== null && (zone.working?.adjustments ?? []).some((a) => a.batchId === batch.id && a.undoneAt === null);
   const canApply = isForecaster(user) && isEditable(zone.working);
 
   const label = ask && 'shift' in ask ? `${Number(ask.shift) > 0 ? '+' : ''}${ask.shift} °C` : ask ? `vintage issued ${formatDateTime(ask.vintage, zone.timeZone)}` : '';
@@ -45,14 +49,26 @@ export function WeatherWhatIfPanel({ day, zone, user }: { day: string; zone: Zon
   };
 
   const apply = () => {
-    if (!whatIf.data) return;
+    if (!whatIf.data || !ask) return;
     if (!reason.trim()) return setReasonError('Say why the schedule should follow this what-if');
     setReasonError(null);
-    const requests = whatIfAdjustments(whatIf.data, zone.slots, zone.zone, reason.trim(), label);
-    add.mutate(requests, {
-      onSuccess: () => {
-        notifySuccess(`${requests.length} hourly adjustment${requests.length === 1 ? '' : 's'} added from the what-if (${label})`);
+    const request = 'shift' in ask ? { shift: Number(ask.shift), reason: reason.trim() } : { vintage: ask.vintage, reason: reason.trim() };
+    add.mutate({ zone: zone.zone, request }, {
+      onSuccess: (result) => {
+        const n = result.adjustments.length;
+        notifySuccess(`${n} hourly adjustment${n === 1 ? '' : 's'} added from the what-if (${label}), together`);
+        setBatch(result.adjustments[0]?.batchId ? { id: result.adjustments[0].batchId, label } : null);
         setReason('');
+      },
+    });
+  };
+
+  const undo = () => {
+    if (!batch) return;
+    undoBatch.mutate(batch.id, {
+      onSuccess: () => {
+        notifySuccess(`The what-if adjustments (${batch.label}) were undone`);
+        setBatch(null);
       },
     });
   };
@@ -114,6 +130,13 @@ export function WeatherWhatIfPanel({ day, zone, user }: { day: string; zone: Zon
             <Button type="submit" variant="light" loading={whatIf.isFetching}>Show the what-if</Button>
           </Group>
         </form>
+        {batchInForce && canApply && (
+          <Group gap="sm" data-testid="what-if-batch">
+            <Text size="sm">The what-if ({batch.label}) is in the draft as hourly adjustments.</Text>
+            <Button size="compact-sm" variant="light" color="ember" onClick={undo} loading={undoBatch.isPending}>Undo the what-if adjustments</Button>
+          </Group>
+        )}
+        {undoBatch.isError && <ErrorNotice title="The what-if adjustments were not undone" error={undoBatch.error} />}
         {whatIf.isError && <ErrorNotice title="The what-if could not be made" error={whatIf.error} />}
         {whatIf.data && data && (
           <Stack gap="xs" data-testid="what-if-result">
@@ -146,8 +169,8 @@ export function WeatherWhatIfPanel({ day, zone, user }: { day: string; zone: Zon
                   <TextInput label="Reason for following the what-if" withAsterisk value={reason} onChange={(e) => setReason(e.currentTarget.value)} error={reasonError} w={420} data-testid="what-if-reason" />
                   <Button onClick={apply} loading={add.isPending}>Turn into adjustments</Button>
                 </Group>
-                {add.isError && <ErrorNotice title="Not every adjustment was added" error={add.error} />}
-                <Text size="xs" c="dimmed">One added adjustment per hour, each undoable. {SCHEDULE_CAUTION}</Text>
+                {add.isError && <ErrorNotice title="The what-if was not added (no hour of it was)" error={add.error} />}
+                <Text size="xs" c="dimmed">One added adjustment per hour, worked out again on the server and added together or not at all; undone together. {SCHEDULE_CAUTION}</Text>
               </Stack>
             ) : (
               <Text size="xs" c="dimmed">{isForecaster(user) ? 'Start the draft to turn the what-if into adjustments.' : ''}</Text>

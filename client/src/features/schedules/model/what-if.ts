@@ -1,4 +1,4 @@
-import { parseDecimal, WHAT_IF_MAX_SHIFT_C, type CreateScheduleAdjustmentRequest, type ScheduleHourSlot, type WeatherVintagesDto, type WeatherWhatIfDto } from '@morrowline/shared';
+import { parseDecimal, WHAT_IF_MAX_SHIFT_C, type WeatherVintagesDto } from '@morrowline/shared';
 import { formatDateTime } from '../../../lib/format';
 
 /** The shift as typed, read by the shared number parser; a message when it is not a shift the server takes. */
@@ -7,24 +7,6 @@ export function checkShift(text: string): string | null {
   if (!parsed.ok) return parsed.message;
   if (Math.abs(parsed.value) > WHAT_IF_MAX_SHIFT_C) return `The shift must be between −${WHAT_IF_MAX_SHIFT_C} and ${WHAT_IF_MAX_SHIFT_C} °C`;
   return null;
-}
-
-/**
- * The what-if as schedule adjustments: one "add" per hour of its change, rounded to 0.1 MW, on
- * the hours the schedule has (hours whose change rounds to 0 are left alone), each with the
- * operator's reason and what it came from.
- */
-export function whatIfAdjustments(w: WeatherWhatIfDto, slots: readonly ScheduleHourSlot[], zone: string, reason: string, label: string): CreateScheduleAdjustmentRequest[] {
-  const byStart = new Map(w.hours.map((h) => [Date.parse(h.hourStart), h]));
-  const out: CreateScheduleAdjustmentRequest[] = [];
-  for (const slot of slots) {
-    const h = byStart.get(Date.parse(slot.intervalStartUtc));
-    if (!h || h.changeMw === null) continue;
-    const value = Math.round(h.changeMw * 10) / 10;
-    if (value === 0) continue;
-    out.push({ zones: [zone], kind: 'add', fromHour: slot.index, toHour: slot.index, value, reason: `${reason} (weather what-if: ${label})` });
-  }
-  return out;
 }
 
 /**
