@@ -39,7 +39,7 @@ export function toModelVersionDto(v: ModelVersion): ModelVersionDto {
     jobId: v.jobId,
     promotedAt: v.promotedAt ? v.promotedAt.toISOString() : null,
     retiredAt: v.retiredAt ? v.retiredAt.toISOString() : null,
-    weather: v.weather ? { used: v.weather.used, description: v.weather.description, terms: v.weather.terms, response: v.weather.response, candidates: v.weather.candidates, baselineMape: v.weather.baselineMape, selectionDays: v.weather.selectionDays, vintageIssuedAt: v.weather.vintageIssuedAt } : null,
+    weather: v.weather ? { used: v.weather.used, description: v.weather.description, terms: v.weather.terms, response: v.weather.response, candidates: v.weather.candidates, baselineMape: v.weather.baselineMape, selectionDays: v.weather.selectionDays, vintageIssuedAt: v.weather.vintageIssuedAt, responseCovariance: v.weather.responseCovariance ?? null } : null,
   };
 }
 
