@@ -174,7 +174,7 @@ export class RefitsService implements OnApplicationShutdown {
       for (const zone of await this.zones.active()) {
         if (served.has(zone.id)) continue;
         if ((await this.readings.countOf(zone.id)) < FIRST_MODEL_MIN_HOURS) continue;
-        await this.enqueue(zone, null, 'first model of the zone', 'schedule', 'full');
+        await this.enqueue(zone, null, 'first model of the zone', 'first-model', 'full');
       }
     } catch (error) {
       this.logger.error(`scheduled ${mode} refit could not start: ${(error as Error).message}`);
@@ -253,7 +253,7 @@ export class RefitsService implements OnApplicationShutdown {
         ...(weather ? { weather } : {}),
       };
       // the nightly batch may use every core (the batch pool); a refit someone waits for runs in the ordinary pool
-      const nightly = job.trigger === 'schedule' && job.mode === 'full';
+      const nightly = (job.trigger === 'schedule' || job.trigger === 'first-model') && job.mode === 'full';
       const result = nightly ? await this.compute.runBatch('models.refit', payload) : await this.compute.run('models.refit', payload);
       await this.step(job, 85, 'storing the model version and forecast');
       await this.finish(job, history, result, inService?.id ?? null, Date.now() - started);

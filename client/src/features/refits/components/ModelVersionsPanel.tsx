@@ -10,7 +10,7 @@ import { CompareView } from './CompareView';
 
 const STATUS_LABELS: Record<ModelStatus, string> = { 'in-service': 'in service', candidate: 'candidate', retired: 'retired' };
 const STATUS_COLORS: Record<ModelStatus, string> = { 'in-service': 'tide', candidate: 'dusk', retired: 'slate' };
-const TRIGGER_LABELS = { schedule: 'nightly refit', operator: 'refit by hand', update: 'hourly update' } as const;
+const TRIGGER_LABELS = { schedule: 'nightly refit', operator: 'refit by hand', update: 'hourly update', 'first-model': 'first model (start-up)' } as const;
 
 interface ModelVersionsPanelProps {
   zone: string;
