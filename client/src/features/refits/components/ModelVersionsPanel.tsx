@@ -66,7 +66,7 @@ export function ModelVersionsPanel({ zone, zoneName, timeZone, canPromote }: Mod
                   </Table.Td>
                   <Table.Td ff="monospace" ta="right">
                     {formatPercent(v.backtestMape, 2)}
-                    {v.backtestOnForecastWeather && <Text size="xs" c="dimmed" ff="body" data-testid="scored-on-weather">on forecast weather</Text>}
+                    {v.backtestOnForecastWeather && <Text size="xs" c="dimmed" ff="body" style={{ whiteSpace: 'nowrap' }} data-testid="scored-on-weather">on forecast weather</Text>}
                   </Table.Td>
                   <Table.Td ff="monospace" ta="right">{formatPercent(v.baselineMape, 2)}</Table.Td>
                   <Table.Td ff="monospace" ta="right">{formatPercent(v.backtestCoverage80, 0)} / {formatPercent(v.backtestCoverage95, 0)}</Table.Td>
