@@ -180,6 +180,9 @@ describe('malformed requests on every route (real MariaDB)', () => {
       expect(isErrorShape(res.body, 400)).toBe(true);
       expect(String(res.body.message)).toMatch(message);
     }
+    const vintages = await request(app.getHttpServer()).get(`/api/schedules/${GOOD_PARAM.day}/${GOOD_PARAM.zone}/weather-vintages`).query({ issued: 'x' }).set('Authorization', `Bearer ${operator}`);
+    expect(vintages.status).toBe(400);
+    expect(String(vintages.body.message)).toMatch(/Unknown query parameter issued/);
   });
 });
 

@@ -292,9 +292,10 @@ describe('outages, refits, model versions and forecasts (real MariaDB)', () => {
 
     const readyJobs = (await api().get(`/api/models/refits?zone=${ready}`).set(as(operator)).expect(200)).body as RefitJobDto[];
     expect(readyJobs).toHaveLength(1);
-    expect(readyJobs[0]).toMatchObject({ trigger: 'schedule', state: 'done' });
+    expect(readyJobs[0]).toMatchObject({ trigger: 'first-model', state: 'done' });
     const versions = (await api().get(`/api/models?zone=${ready}`).set(as(operator)).expect(200)).body as ModelVersionDto[];
     expect(versions.filter((v) => v.status === 'in-service')).toHaveLength(1);
+    expect(versions[0].trigger).toBe('first-model');
     expect((await api().get(`/api/models/refits?zone=${young}`).set(as(operator)).expect(200)).body).toEqual([]);
 
     // Two hourly updates with no reading in between: the second re-estimates the same data to the

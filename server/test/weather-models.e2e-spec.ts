@@ -1,8 +1,11 @@
 import { EntityManager } from '@mikro-orm/mariadb';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import request from 'supertest';
-import { operatingDayOf, temperatureResponseCurve, type ModelVersionDto, type RefitJobDto, type WeatherWhatIfDto } from '@morrowline/shared';
-import { refitZone, REFIT_BACKTEST_DAYS } from '../src/models/analysis/refit';
+import { operatingDayOf, temperatureResponseCurve, type ModelVersionDto, type RefitJobDto, type AdjustmentResultDto, type ScheduleRevisionDto, type WeatherVintagesDto, type WeatherWhatIfDto } from '@morrowline/shared';
+import { refitZone, scoreChoice, REFIT_BACKTEST_DAYS } from '../src/models/analysis/refit';
+import { scoreWeatherChoice } from '../src/models/analysis/weather-score';
+import { AuditEntry } from '../src/audit/entities/audit-entry.entity';
+import { ModelVersion } from '../src/models/entities/model-version.entity';
 import { forecastHorizon } from '../src/forecasts/forecast-horizon';
 import { ZoneHistoryLoader } from '../src/history/zone-history.loader';
 import { RefitsService } from '../src/models/refits.service';
@@ -116,6 +119,35 @@ describe('refits with weather: temperature response and forecasts on the vintage
     expect(version.weather!.vintageIssuedAt).toBe(new Date(newest).toISOString());
   });
 
+  it('scores a version with weather on its weather backtest, and the nightly refit weighs both versions so', async () => {
+    const em = app.get(EntityManager).fork();
+    const z = await em.findOneOrFail(Zone, { code: zone });
+    const inService = await em.findOneOrFail(ModelVersion, { zone: z.id, status: 'in-service' });
+    const dto = (await api().get(`/api/models/${inService.id}`).set(as(operator)).expect(200)).body as ModelVersionDto;
+    expect(dto.weather!.used).toBe(true);
+    expect(dto.backtestOnForecastWeather).toBe(true);
+    // the stored score is the version's terms on forecast weather over the same days as the model
+    // without weather; on this zone (25 MW/°C, weather swinging over days) the terms win clearly
+    const history = (await app.get(ZoneHistoryLoader).load(z))!;
+    const weather = (await app.get(ZoneWeatherLoader).forRefit(z, history, forecastHorizon(history.lastHourMs, z.timeZone), Date.now()))!;
+    const plain = scoreChoice(history.values, history.excluded, { diff: dto.differencing, p: dto.p, q: dto.q }, REFIT_BACKTEST_DAYS);
+    const again = scoreWeatherChoice(history.values, history.excluded, weather, inService.weather!.choice!, REFIT_BACKTEST_DAYS);
+    expect(dto.backtestDays).toBe(plain.days);
+    expect(dto.backtestMape!).toBeCloseTo(again.mape!, 1);
+    expect(dto.baselineMape!).toBeCloseTo(plain.baselineMape!, 6);
+    expect(dto.backtestMape!).toBeLessThan(0.8 * plain.mape!);
+
+    // the nightly refit: candidate and version in service both scored on forecast weather
+    const jobs = await app.get(RefitsService).request(null, zone, 'nightly refit', 'schedule', 'full');
+    await app.get(RefitsService).settled();
+    const done = (await api().get(`/api/models/refits?zone=${zone}`).set(as(operator)).expect(200)).body as RefitJobDto[];
+    const job = done.find((j) => j.id === jobs[0].id)!;
+    expect(job.state).toBe('done');
+    expect(job.message).toMatch(/MAPE [\d.]+ % on forecast weather\)? (beat|did not beat it \()[\d.]+ % on forecast weather/);
+    const audit = await em.fork().findOneOrFail(AuditEntry, { action: 'refit.finish', subjectId: String(job.id) } as never);
+    expect(audit.reason).toBe(job.message);
+  });
+
   it('forecasts at an issue time T from the vintages issued by T only: a later vintage with absurd values changes nothing', async () => {
     const z = await app.get(EntityManager).fork().findOneOrFail(Zone, { code: zone });
     const history = (await app.get(ZoneHistoryLoader).load(z))!;
@@ -165,8 +197,24 @@ describe('refits with weather: temperature response and forecasts on the vintage
     // the what-if changes nothing stored
     expect((await api().get(`/api/forecasts/latest?zone=${zone}`).set(as(operator)).expect(200)).body).toEqual(before);
 
+    // the vintages known for the day, newest first, the forecast's own marked: each day's 05:00 UTC
+    // issue that covers some hour of the day (96 hours ahead), as built above
+    const list = (await api().get(`/api/schedules/${day}/${zone}/weather-vintages`).set(as(operator)).expect(200)).body as WeatherVintagesDto;
+    const issues = list.vintages.map((x) => Date.parse(x.issuedAt));
+    expect(issues).toEqual([...issues].sort((a, b) => b - a));
+    expect(issues.length).toBeGreaterThanOrEqual(3);
+    for (const t of issues) expect(new Date(t).getUTCHours()).toBe(5);
+    expect(list.vintages.filter((x) => x.usedByForecast).map((x) => x.issuedAt)).toEqual([w.baseVintageIssuedAt]);
+    expect(list.forecastVintageIssuedAt).toBe(w.baseVintageIssuedAt);
+    await api().get(`/api/schedules/${day}/${zone}/weather-vintages`).set(as(await tokenFor(app, 'viewer'))).expect(403);
+    await api().get(`/api/schedules/${day}/NOSUCHZONE/weather-vintages`).set(as(operator)).expect(404);
+
     // another vintage: the one issued a day before the newest, as known then
     const older = new Date(Date.parse(w.baseVintageIssuedAt!) - 24 * H).toISOString();
+    expect(list.vintages.map((x) => x.issuedAt)).toContain(older);
+    // an instant that is no vintage's issue time: 404 naming where the known ones are
+    const notIssued = await api().get(`/api/schedules/${day}/${zone}/weather-what-if`).query({ vintage: new Date(Date.parse(older) + 60_000).toISOString() }).set(as(operator)).expect(404);
+    expect(notIssued.body.message).toMatch(/No temperature forecast for .* was issued at .*weather-vintages/);
     const v = (await api().get(`/api/schedules/${day}/${zone}/weather-what-if`).query({ vintage: older }).set(as(operator)).expect(200)).body as WeatherWhatIfDto;
     expect(v.shiftC).toBeNull();
     expect(v.whatIfVintageIssuedAt).toBe(older);
@@ -174,5 +222,60 @@ describe('refits with weather: temperature response and forecasts on the vintage
     const future = new Date(Date.now() + 3600_000).toISOString();
     await api().get(`/api/schedules/${day}/${zone}/weather-what-if`).query({ vintage: future }).set(as(operator)).expect(400);
   });
-});
 
+  it('turns a what-if into one add per hour on the draft in one transaction, audited once, undone together; refused without a draft or once submitted', async () => {
+    const day = operatingDayOf(last + 24 * H, 'America/Denver');
+    const em = () => app.get(EntityManager).fork();
+    const path = `/api/schedules/${day}/${zone}/weather-what-if/adjustments`;
+    const body = { shift: -2, reason: 'colder than the forecast says' };
+    // no draft yet
+    const none = await api().post(path).set(as(operator)).send(body).expect(409);
+    expect(none.body.message).toMatch(/no .* draft .* start one first/i);
+    const draft = (await api().post(`/api/schedules/${day}/${zone}/draft`).set(as(operator)).expect(201)).body as ScheduleRevisionDto;
+    // exactly one of shift and vintage; a reason
+    await api().post(path).set(as(operator)).send({ reason: 'no what-if named' }).expect(400);
+    await api().post(path).set(as(operator)).send({ shift: 1, vintage: '2026-11-01T05:00:00Z', reason: 'both' }).expect(400);
+    await api().post(path).set(as(operator)).send({ shift: 10.5, reason: 'too far' }).expect(400);
+    await api().post(path).set(as(await tokenFor(app, 'viewer'))).send(body).expect(403);
+
+    // all or none: a 1 MW hour set by hand cannot take a 2 °C warmer what-if's drop in heating
+    const what = (await api().get(`/api/schedules/${day}/${zone}/weather-what-if`).query({ shift: '2' }).set(as(operator)).expect(200)).body as WeatherWhatIfDto;
+    const dropAt = what.hours.findIndex((h) => h.changeMw !== null && h.changeMw < -5);
+    expect(dropAt).toBeGreaterThanOrEqual(0);
+    const set = (await api().post(`/api/schedules/${day}/adjustments`).set(as(operator)).send({ zones: [zone], kind: 'set', fromHour: dropAt, toHour: dropAt, value: 1, reason: 'hour held low' }).expect(201)).body as AdjustmentResultDto;
+    const refused = await api().post(path).set(as(operator)).send({ shift: 2, reason: 'warmer' }).expect(400);
+    expect(refused.body.message).toMatch(/never below 0 MW/);
+    const afterRefusal = (await api().get(`/api/schedules/${day}?zone=${zone}`).set(as(operator)).expect(200)).body;
+    expect(afterRefusal.zones[0].working.adjustments.filter((a: { undoneAt: string | null }) => a.undoneAt === null)).toHaveLength(1);
+    await api().delete(`/api/schedules/adjustments/${set.adjustments[0].id}`).set(as(operator)).expect(200);
+
+    // the 2 °C colder what-if: one add per hour whose change is 0.1 MW or more, the GET's values rounded to 0.1 MW
+    const colder = (await api().get(`/api/schedules/${day}/${zone}/weather-what-if`).query({ shift: '-2' }).set(as(operator)).expect(200)).body as WeatherWhatIfDto;
+    const expected = colder.hours.map((h, i) => ({ hour: i, value: h.changeMw === null ? 0 : Math.round(h.changeMw * 10) / 10 })).filter((x) => x.value !== 0);
+    expect(expected.length).toBeGreaterThan(3);
+    const added = (await api().post(path).set(as(operator)).send(body).expect(201)).body as AdjustmentResultDto;
+    expect(added.adjustments.map((a) => [a.fromHour, a.toHour, a.kind, a.value])).toEqual(expected.map((x) => [x.hour, x.hour, 'add', x.value]));
+    const batchId = added.adjustments[0].id;
+    expect(added.adjustments.every((a) => a.batchId === batchId)).toBe(true);
+    expect(added.adjustments[0].reason).toBe('colder than the forecast says (weather what-if: −2 °C)');
+    const working = added.revisions[0];
+    for (const x of expected) expect(working.hours[x.hour].adjustedMw).toBeCloseTo(working.hours[x.hour].startMw! + x.value, 6);
+    const audits = await em().find(AuditEntry, { subjectType: 'schedule', subjectId: String(draft.id), action: { $in: ['schedule.adjust', 'schedule.adjust-batch'] } } as never);
+    expect(audits.map((a) => a.action)).toEqual(['schedule.adjust', 'schedule.adjust-batch']); // the hand-set hour, then the batch once
+    expect(audits[1].after).toMatchObject({ batchId, adjustments: expected.length, shiftC: -2, source: 'weather-what-if' });
+
+    // undone together, audited once; a second undo and an unknown batch are refused
+    const undone = (await api().delete(`/api/schedules/adjustment-batches/${batchId}`).set(as(operator)).expect(200)).body as ScheduleRevisionDto;
+    expect(undone.adjustments.filter((a) => a.batchId === batchId).every((a) => a.undoneAt !== null)).toBe(true);
+    for (const x of expected) expect(undone.hours[x.hour].adjustedMw).toBeCloseTo(undone.hours[x.hour].startMw!, 6);
+    expect(await em().count(AuditEntry, { action: 'schedule.adjust-batch-undo', subjectId: String(draft.id) } as never)).toBe(1);
+    await api().delete(`/api/schedules/adjustment-batches/${batchId}`).set(as(operator)).expect(409);
+    await api().delete(`/api/schedules/adjustment-batches/${set.adjustments[0].id}`).set(as(operator)).expect(404);
+
+    // submitted: refused
+    const supervisor = await tokenFor(app, 'supervisor');
+    await api().post(`/api/schedules/revisions/${draft.id}/submit`).set(as(supervisor)).send({}).expect(201);
+    const late = await api().post(path).set(as(operator)).send(body).expect(409);
+    expect(late.body.message).toMatch(/submitted/i);
+  });
+});

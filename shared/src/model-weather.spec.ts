@@ -1,4 +1,4 @@
-import { calendarEffects, temperatureResponseCurve, type ModelWeatherDto } from './model-weather';
+import { calendarEffects, responseBandBasis, temperatureResponseCurve, type ModelWeatherDto } from './model-weather';
 
 const terms = { temperature: true, recency: false, calendar: true, heatBelow: 14, coolAbove: 20 };
 
@@ -19,6 +19,24 @@ describe('the temperature response drawn from a stored model', () => {
     expect(cold.upper95 - cold.mw).toBeCloseTo(19.6, 10);
     expect(mild).toEqual({ temperatureC: 14, mw: 0, lower95: 0, upper95: 0 });
     expect(hot.mw).toBeCloseTo(4 * 10, 10);
+  });
+
+  it('uses the coefficients\' covariance for the band when it is stored, and says when it is not', () => {
+    // two heating terms at 4 °C (10 degrees below 14): x = (10, 10) for hdd_mean24 and hdd_lag3;
+    // se 2 and 3, correlation −0.5: Var = 100·4 + 100·9 + 2·100·(−0.5·2·3) = 700 (hand-computed)
+    const t = { ...terms, recency: true };
+    const response = [{ name: 'hdd_mean24', value: 5, se: 2 }, { name: 'hdd_lag3', value: 3, se: 3 }];
+    const independent = temperatureResponseCurve({ terms: t, response }, 4, 4, 1)[0];
+    expect(responseBandBasis({ response })).toBe('independent');
+    expect(independent.upper95 - independent.mw).toBeCloseTo(1.96 * Math.sqrt(1300), 9);
+    const responseCovariance = { names: ['hdd_mean24', 'hdd_lag3'], values: [4, -3, -3, 9] };
+    expect(responseBandBasis({ response, responseCovariance })).toBe('covariance');
+    const joint = temperatureResponseCurve({ terms: t, response, responseCovariance }, 4, 4, 1)[0];
+    expect(joint.mw).toBeCloseTo(80, 9);
+    expect(joint.upper95 - joint.mw).toBeCloseTo(1.96 * Math.sqrt(700), 9);
+    // a covariance that does not name every coefficient, or is not square, is not used
+    expect(responseBandBasis({ response, responseCovariance: { names: ['hdd_mean24'], values: [4] } })).toBe('independent');
+    expect(responseBandBasis({ response, responseCovariance: { names: ['hdd_mean24', 'hdd_lag3'], values: [4, -3, 9] } })).toBe('independent');
   });
 
   it('adds the recency terms at a steady temperature, where the 24-hour mean and the 3-hour lag equal it', () => {

@@ -33,6 +33,19 @@ export interface ModelWeatherDto {
   selectionDays: number;
   /** issue time of the temperature forecast the version's first forecast used (null: none, persistence) */
   vintageIssuedAt: string | null;
+  /**
+   * The joint covariance of the response's coefficients (MW², row-major, in the order of `names`)
+   * when the fit gave one; absent or null: only the standard errors are known, and the curve's
+   * band takes the coefficients as independent.
+   */
+  responseCovariance?: { names: string[]; values: number[] } | null;
+}
+
+/** Whether the response's band can use the coefficients' covariance (a square, finite matrix naming every coefficient), or takes them as independent. */
+export function responseBandBasis(w: Pick<ModelWeatherDto, 'response' | 'responseCovariance'>): 'covariance' | 'independent' {
+  const c = w.responseCovariance;
+  if (!c || c.values.length !== c.names.length * c.names.length || !c.values.every(Number.isFinite)) return 'independent';
+  return w.response.every((r) => c.names.includes(r.name)) ? 'covariance' : 'independent';
 }
 
 export interface ResponsePoint {
@@ -45,8 +58,12 @@ export interface ResponsePoint {
 const PARTS = ['night', 'morning', 'afternoon', 'evening'];
 
 /** The steady-temperature response g(T) with its 95 % band, T from `fromC` to `toC` by `stepC`. */
-export function temperatureResponseCurve(w: Pick<ModelWeatherDto, 'terms' | 'response'>, fromC = -15, toC = 35, stepC = 0.5): ResponsePoint[] {
+export function temperatureResponseCurve(w: Pick<ModelWeatherDto, 'terms' | 'response' | 'responseCovariance'>, fromC = -15, toC = 35, stepC = 0.5): ResponsePoint[] {
   const coef = new Map(w.response.map((r) => [r.name, r]));
+  // Var(x'β̂) = x'Σx with the coefficients' joint covariance when it is stored (the delta method is
+  // exact for a linear combination); otherwise Σ is taken as diagonal from the standard errors
+  const cov = responseBandBasis(w) === 'covariance' ? w.responseCovariance! : null;
+  const at = cov ? new Map(cov.names.map((n, i) => [n, i])) : null;
   const out: ResponsePoint[] = [];
   for (let k = 0; fromC + k * stepC <= toC + 1e-9; k++) {
     const t = fromC + k * stepC;
@@ -57,12 +74,15 @@ export function temperatureResponseCurve(w: Pick<ModelWeatherDto, 'terms' | 'res
     xs.push(['hdd_mean24', hdd], ['cdd_mean24', cdd], ['hdd_lag3', hdd], ['cdd_lag3', cdd]);
     let mw = 0;
     let variance = 0;
-    for (const [name, x] of xs) {
-      const c = coef.get(name);
-      if (!c || x === 0) continue;
-      mw += c.value * x;
-      variance += (x * (c.se ?? 0)) ** 2;
+    const used = xs.filter(([name, x]) => coef.has(name) && x !== 0);
+    for (const [name, x] of used) mw += coef.get(name)!.value * x;
+    if (cov && at) {
+      const k = cov.names.length;
+      for (const [a, xa] of used) for (const [b, xb] of used) variance += xa * xb * cov.values[at.get(a)! * k + at.get(b)!];
+    } else {
+      for (const [name, x] of used) variance += (x * (coef.get(name)!.se ?? 0)) ** 2;
     }
+    variance = Math.max(0, variance);
     const half = 1.96 * Math.sqrt(variance);
     out.push({ temperatureC: t, mw, lower95: mw - half, upper95: mw + half });
   }
@@ -106,6 +126,20 @@ export const WHAT_IF_MAX_SHIFT_C = 10;
  * made the day's latest forecast would mean if the temperature forecast were N °C warmer (or
  * colder), or were another vintage; beside the model forecast, never changing it.
  */
+/** The temperature forecast vintages known for an operating day, newest first: the what-if's "another vintage" choices. */
+export interface WeatherVintagesDto {
+  zone: string;
+  operatingDay: string;
+  /** issue time of the vintage the day's latest forecast was made on (null: no forecast, or none was known then) */
+  forecastVintageIssuedAt: string | null;
+  vintages: Array<{
+    issuedAt: string;
+    /** hours of the day this vintage gives a temperature for */
+    hours: number;
+    usedByForecast: boolean;
+  }>;
+}
+
 export interface WeatherWhatIfDto {
   zone: string;
   operatingDay: string;

@@ -6,8 +6,11 @@ import type { ModelWeatherDto } from './model-weather';
 export const REFIT_JOB_STATES = ['queued', 'running', 'done', 'failed'] as const;
 export type RefitJobState = (typeof REFIT_JOB_STATES)[number];
 
-/** schedule: the nightly full refit; update: the hourly forecast update with orders kept. */
-export const REFIT_TRIGGERS = ['schedule', 'operator', 'update'] as const;
+/**
+ * schedule: the nightly full refit; update: the hourly forecast update with orders kept;
+ * first-model: a zone's first model, fitted a little after start-up or once it has the history.
+ */
+export const REFIT_TRIGGERS = ['schedule', 'operator', 'update', 'first-model'] as const;
 export type RefitTrigger = (typeof REFIT_TRIGGERS)[number];
 
 export const MODEL_STATUSES = ['candidate', 'in-service', 'retired'] as const;
@@ -82,8 +85,14 @@ export interface ModelVersionDto {
   trainingTo: string;
   trainingHours: number;
   excludedHours: number;
-  /** Day-ahead backtest over the last `backtestDays` days (orders fixed, refitted each day). */
+  /**
+   * Day-ahead backtest over the last `backtestDays` days (orders fixed, refitted each day). A
+   * version with weather terms is scored with them, each day on the temperature forecast known at
+   * its origin (`backtestOnForecastWeather`); versions from before that, and versions without
+   * weather, on the model without weather.
+   */
   backtestDays: number;
+  backtestOnForecastWeather: boolean;
   backtestMape: number | null;
   baselineMape: number | null;
   /** Shares (%) of the backtest's hours inside the 80 % and 95 % bands; null before calibration was stored. */

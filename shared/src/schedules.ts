@@ -130,6 +130,15 @@ export interface ScheduleAdjustmentDto {
   undoneBy: ScheduleUserRef | null;
   /** Carried forward by a correction from this earlier revision (reason, author and time as first made); null when made on this one. */
   carriedFromRevision: number | null;
+  /** Added together with others from one weather what-if: the batch's id (its first adjustment's); undone together. Null otherwise. */
+  batchId: number | null;
+}
+
+/** Turn the day's weather what-if into adjustments: exactly one of `shift` (°C) and `vintage` (issue time), and a reason. */
+export interface WeatherWhatIfAdjustRequest {
+  shift?: number;
+  vintage?: string;
+  reason: string;
 }
 
 export interface ScheduleMailOutcome {

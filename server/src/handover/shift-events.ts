@@ -27,6 +27,8 @@ const PHRASES: Record<string, string> = {
   'schedule.draft': 'Schedule draft started',
   'schedule.adjust': 'Schedule adjusted',
   'schedule.adjust-undo': 'Schedule adjustment undone',
+  'schedule.adjust-batch': 'Schedule adjusted hour by hour from a weather what-if',
+  'schedule.adjust-batch-undo': 'Weather what-if adjustments undone',
   'schedule.correction': 'Schedule correction started',
   'schedule.mail-failed': 'Publication e-mail failed',
   'readings.upload': 'History uploaded',

@@ -27,6 +27,7 @@ export function toModelVersionDto(v: ModelVersion): ModelVersionDto {
     trainingHours: v.trainingHours,
     excludedHours: v.excludedHours,
     backtestDays: v.backtestDays,
+    backtestOnForecastWeather: v.weather?.scoredOnForecastWeather === true,
     backtestMape: v.backtestMape,
     baselineMape: v.baselineMape,
     backtestCoverage80: v.backtestCoverage80 === null ? null : 100 * v.backtestCoverage80,
@@ -38,7 +39,7 @@ export function toModelVersionDto(v: ModelVersion): ModelVersionDto {
     jobId: v.jobId,
     promotedAt: v.promotedAt ? v.promotedAt.toISOString() : null,
     retiredAt: v.retiredAt ? v.retiredAt.toISOString() : null,
-    weather: v.weather ? { used: v.weather.used, description: v.weather.description, terms: v.weather.terms, response: v.weather.response, candidates: v.weather.candidates, baselineMape: v.weather.baselineMape, selectionDays: v.weather.selectionDays, vintageIssuedAt: v.weather.vintageIssuedAt } : null,
+    weather: v.weather ? { used: v.weather.used, description: v.weather.description, terms: v.weather.terms, response: v.weather.response, candidates: v.weather.candidates, baselineMape: v.weather.baselineMape, selectionDays: v.weather.selectionDays, vintageIssuedAt: v.weather.vintageIssuedAt, responseCovariance: v.weather.responseCovariance ?? null } : null,
   };
 }
 

@@ -6,6 +6,7 @@ import { ZonesModule } from '../zones/zones.module';
 import { ReadingsModule } from '../readings/readings.module';
 import { CalendarModule } from '../calendar/calendar.module';
 import { WeatherModule } from '../weather/weather.module';
+import { SchedulesModule } from '../schedules/schedules.module';
 import { ModelsController } from './models.controller';
 import { ModelVersionsRepository } from './model-versions.repository';
 import { ModelsService } from './models.service';
@@ -18,7 +19,7 @@ import { ZoneWeatherLoader } from './zone-weather.loader';
 
 /** Refit jobs (scheduled and on demand, in the compute pool) and model versions. */
 @Module({
-  imports: [ComputeModule, ReadingsModule, ZoneHistoryModule, ZonesModule, ForecastsModule, WeatherModule, CalendarModule],
+  imports: [ComputeModule, ReadingsModule, ZoneHistoryModule, ZonesModule, ForecastsModule, WeatherModule, CalendarModule, SchedulesModule],
   controllers: [ModelsController, WeatherWhatIfController],
   providers: [ModelsService, RefitsService, RefitScheduler, ModelVersionsRepository, RefitJobsRepository, ZoneWeatherLoader, WeatherWhatIfService],
   exports: [RefitsService, ModelsService, ModelVersionsRepository, ZoneWeatherLoader],

@@ -18,6 +18,13 @@ describe('decidePromotion', () => {
     expect(decidePromotion({ ...nightly, candidateMape: 3.5 }).promoted).toBe(false);
   });
 
+  it('says which side was scored with its weather terms on forecast weather', () => {
+    expect(decidePromotion({ ...nightly, candidateOnWeather: true, inServiceOnWeather: false }).why).toBe('scheduled refit: backtest MAPE 3.10 % on forecast weather beat 3.40 % of version 4');
+    expect(decidePromotion({ ...nightly, candidateMape: 3.6, candidateOnWeather: true, inServiceOnWeather: true }).why).toBe(
+      'kept version 4 in service: the candidate (MAPE 3.60 % on forecast weather) did not beat it (3.40 % on forecast weather)',
+    );
+  });
+
   it('keeps the model in service when either side could not be scored', () => {
     expect(decidePromotion({ ...nightly, inServiceMape: null })).toEqual({ promoted: false, why: 'kept version 4 in service: the candidate (MAPE 3.10 %) did not beat it (– %)' });
     expect(decidePromotion({ ...nightly, candidateMape: null }).why).toBe('kept version 4 in service: the candidate (MAPE – %) did not beat it (3.40 %)');

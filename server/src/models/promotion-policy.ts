@@ -9,6 +9,9 @@ export interface PromotionCase {
   candidateMape: number | null;
   /** The model in service's MAPE on the same days; null when not scored (or it changed meanwhile). */
   inServiceMape: number | null;
+  /** whether each MAPE is a weather backtest on forecast weather (a version is scored as it forecasts) */
+  candidateOnWeather?: boolean;
+  inServiceOnWeather?: boolean;
 }
 
 export interface PromotionDecision {
@@ -25,13 +28,14 @@ export interface PromotionDecision {
  */
 export function decidePromotion(c: PromotionCase): PromotionDecision {
   const { candidateMape: cand, inServiceMape: served } = c;
+  const on = (w: boolean | undefined) => (w ? ' on forecast weather' : '');
   if (c.inServiceId === null) return { promoted: true, why: 'the first model of the zone goes into service' };
   if (c.mode === 'update') return { promoted: true, why: 'hourly update: same orders, coefficients re-estimated' };
   if (c.trigger === 'schedule' && cand !== null && served !== null && cand < served) {
-    return { promoted: true, why: `scheduled refit: backtest MAPE ${cand.toFixed(2)} % beat ${served.toFixed(2)} % of version ${c.inServiceId}` };
+    return { promoted: true, why: `scheduled refit: backtest MAPE ${cand.toFixed(2)} %${on(c.candidateOnWeather)} beat ${served.toFixed(2)} %${on(c.inServiceOnWeather)} of version ${c.inServiceId}` };
   }
   if (c.trigger === 'schedule') {
-    return { promoted: false, why: `kept version ${c.inServiceId} in service: the candidate (MAPE ${cand?.toFixed(2) ?? '–'} %) did not beat it (${served?.toFixed(2) ?? '–'} %)` };
+    return { promoted: false, why: `kept version ${c.inServiceId} in service: the candidate (MAPE ${cand?.toFixed(2) ?? '–'} %${on(c.candidateOnWeather)}) did not beat it (${served?.toFixed(2) ?? '–'} %${on(c.inServiceOnWeather)})` };
   }
   return { promoted: false, why: 'candidate stored; compare it with the model in service and promote it if it serves better' };
 }

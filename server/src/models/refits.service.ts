@@ -174,7 +174,7 @@ export class RefitsService implements OnApplicationShutdown {
       for (const zone of await this.zones.active()) {
         if (served.has(zone.id)) continue;
         if ((await this.readings.countOf(zone.id)) < FIRST_MODEL_MIN_HOURS) continue;
-        await this.enqueue(zone, null, 'first model of the zone', 'schedule', 'full');
+        await this.enqueue(zone, null, 'first model of the zone', 'first-model', 'full');
       }
     } catch (error) {
       this.logger.error(`scheduled ${mode} refit could not start: ${(error as Error).message}`);
@@ -247,11 +247,13 @@ export class RefitsService implements OnApplicationShutdown {
         horizon,
         fixed: job.mode === 'update' && inService ? choiceOf(inService) : undefined,
         inService: job.mode === 'full' && inService ? choiceOf(inService) : null,
+        // scored as it forecasts: with its weather terms when it has them
+        inServiceWeather: job.mode === 'full' && inService?.weather?.used ? (inService.weather.choice ?? null) : null,
         backtestDays: REFIT_BACKTEST_DAYS,
         ...(weather ? { weather } : {}),
       };
       // the nightly batch may use every core (the batch pool); a refit someone waits for runs in the ordinary pool
-      const nightly = job.trigger === 'schedule' && job.mode === 'full';
+      const nightly = (job.trigger === 'schedule' || job.trigger === 'first-model') && job.mode === 'full';
       const result = nightly ? await this.compute.runBatch('models.refit', payload) : await this.compute.run('models.refit', payload);
       await this.step(job, 85, 'storing the model version and forecast');
       await this.finish(job, history, result, inService?.id ?? null, Date.now() - started);
@@ -280,6 +282,8 @@ export class RefitsService implements OnApplicationShutdown {
           trigger: job.trigger,
           candidateMape: result.score?.mape ?? null,
           inServiceMape: current && current.id === scoredInServiceId ? (result.inServiceScore?.mape ?? null) : null,
+          candidateOnWeather: result.score?.onForecastWeather ?? false,
+          inServiceOnWeather: result.inServiceScore?.onForecastWeather ?? false,
         }));
         version = this.versions.add(tx, {
           zone: tx.getReference(Zone, zone.id),

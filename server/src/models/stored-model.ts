@@ -36,4 +36,6 @@ export type StoredWeather = ModelWeatherDto & {
   /** the error model's innovation variance and the bands' calibration, to forecast with the coefficients held (absent on the first versions with weather) */
   sigma2?: number;
   bandScale?: { k80: number; k95: number };
+  /** true: the version's backtest MAPE is its weather backtest on forecast weather (absent on versions scored without weather) */
+  scoredOnForecastWeather?: boolean;
 };

@@ -1,7 +1,10 @@
-import { BadRequestException, Controller, Get, Param, Query } from '@nestjs/common';
+import { BadRequestException, Body, Controller, Get, Param, Post, Query } from '@nestjs/common';
 import { ApiBearerAuth, ApiQuery, ApiTags } from '@nestjs/swagger';
-import { parseDecimal, parseInstant, PERMISSIONS, WHAT_IF_MAX_SHIFT_C, type WeatherWhatIfDto } from '@morrowline/shared';
+import { parseDecimal, parseInstant, PERMISSIONS, WHAT_IF_MAX_SHIFT_C, type AdjustmentResultDto, type WeatherVintagesDto, type WeatherWhatIfDto } from '@morrowline/shared';
+import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { Roles } from '../common/decorators/roles.decorator';
+import type { AuthUser } from '../common/auth-user';
+import { WeatherWhatIfAdjustDto } from './dto/weather-what-if.dto';
 import { ParseDayPipe } from '../common/pipes/parse-day.pipe';
 import { WeatherWhatIfService, type WhatIfChange } from './weather-what-if.service';
 
@@ -23,11 +26,30 @@ export function parseWhatIfQuery(query: Record<string, unknown>): WhatIfChange {
   return { vintageMs: vintage.value };
 }
 
+/** The body's what-if: exactly one of shift (a JSON number, range checked by the DTO) and vintage (an instant). */
+export function whatIfOfBody(body: WeatherWhatIfAdjustDto): WhatIfChange {
+  const hasShift = body.shift !== undefined;
+  const hasVintage = body.vintage !== undefined;
+  if (hasShift === hasVintage) throw new BadRequestException('Give exactly one of shift (°C) and vintage (the issue time of a temperature forecast)');
+  if (hasShift) return { shiftC: body.shift! };
+  const vintage = parseInstant(body.vintage, 'vintage');
+  if (!vintage.ok) throw new BadRequestException(vintage.message);
+  return { vintageMs: vintage.value };
+}
+
 @ApiTags('schedules')
 @ApiBearerAuth()
 @Controller('schedules')
 export class WeatherWhatIfController {
   constructor(private readonly whatIfs: WeatherWhatIfService) {}
+
+  @Get(':day/:zone/weather-vintages')
+  @Roles(...PERMISSIONS.forecast)
+  vintages(@Param('day', ParseDayPipe) day: string, @Param('zone') zone: string, @Query() query: Record<string, unknown>): Promise<WeatherVintagesDto> {
+    const unknown = Object.keys(query);
+    if (unknown.length) throw new BadRequestException(`Unknown query parameter ${unknown.join(', ')}; this route takes none`);
+    return this.whatIfs.vintages(day, zone);
+  }
 
   @Get(':day/:zone/weather-what-if')
   @Roles(...PERMISSIONS.forecast)
@@ -35,5 +57,12 @@ export class WeatherWhatIfController {
   @ApiQuery({ name: 'vintage', required: false, description: 'issue time of another temperature forecast vintage (ISO 8601 with offset)' })
   whatIf(@Param('day', ParseDayPipe) day: string, @Param('zone') zone: string, @Query() query: Record<string, unknown>): Promise<WeatherWhatIfDto> {
     return this.whatIfs.whatIf(day, zone, parseWhatIfQuery(query));
+  }
+
+  /** The what-if as one "add" per hour on the zone's draft, all in one transaction, audited once, undone together. */
+  @Post(':day/:zone/weather-what-if/adjustments')
+  @Roles(...PERMISSIONS.forecast)
+  adjust(@CurrentUser() user: AuthUser, @Param('day', ParseDayPipe) day: string, @Param('zone') zone: string, @Body() body: WeatherWhatIfAdjustDto): Promise<AdjustmentResultDto> {
+    return this.whatIfs.adjust(user, day, zone, whatIfOfBody(body), body.reason);
   }
 }

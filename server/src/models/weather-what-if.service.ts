@@ -1,11 +1,14 @@
 import { BadRequestException, ConflictException, Injectable, NotFoundException } from '@nestjs/common';
-import { HOUR_MS, isOperatingDay, operatingDayBounds, weightedTemperature, type WeatherWhatIfDto } from '@morrowline/shared';
+import { HOUR_MS, isOperatingDay, operatingDayBounds, weightedTemperature, type AdjustmentResultDto, type WeatherVintagesDto, type WeatherWhatIfDto } from '@morrowline/shared';
 import { CalendarService } from '../calendar/calendar.service';
+import type { AuthUser } from '../common/auth-user';
+import { SchedulesService } from '../schedules/schedules.service';
 import { ForecastsService } from '../forecasts/forecasts.service';
 import { knownAt, vintageKey, type VintageValue } from '../weather/vintages';
 import { WeatherRepository } from '../weather/weather.repository';
 import { ZonesRepository } from '../zones/zones.repository';
-import { responseChange } from './analysis/weather-what-if';
+import { dayVintages } from './analysis/day-vintages';
+import { responseChange, whatIfHours } from './analysis/weather-what-if';
 import { zoneWeatherInputs } from './analysis/zone-weather-inputs';
 import { ModelVersionsRepository } from './model-versions.repository';
 
@@ -30,7 +33,44 @@ export class WeatherWhatIfService {
     private readonly forecasts: ForecastsService,
     private readonly weather: WeatherRepository,
     private readonly calendar: CalendarService,
+    private readonly schedules: SchedulesService,
   ) {}
+
+  /**
+   * The what-if, worked out again here from the stored forecast, response and vintages (never from
+   * numbers the desk sends), as one "add" per hour on the zone's draft: added together or not at
+   * all, one audit entry, undone together (SchedulesService.addBatch).
+   */
+  async adjust(user: AuthUser, day: string, code: string, change: WhatIfChange, reason: string): Promise<AdjustmentResultDto> {
+    const w = await this.whatIf(day, code, change);
+    const label = 'shiftC' in change ? `${change.shiftC > 0 ? '+' : change.shiftC < 0 ? '−' : ''}${Math.abs(change.shiftC)} °C` : `vintage issued ${w.whatIfVintageIssuedAt}`;
+    const { from } = operatingDayBounds(day, (await this.zones.byCode(code))!.timeZone);
+    return this.schedules.addBatch(user, day, w.zone, whatIfHours(w, from), `${reason} (weather what-if: ${label})`, {
+      source: 'weather-what-if',
+      shiftC: w.shiftC,
+      whatIfVintageIssuedAt: w.whatIfVintageIssuedAt,
+      forecastRunId: w.forecastRunId,
+      modelVersionId: w.modelVersionId,
+    });
+  }
+
+  /** The vintages known now for the day (issue times newest first), the one its latest forecast used marked. */
+  async vintages(day: string, code: string, now = Date.now()): Promise<WeatherVintagesDto> {
+    if (!isOperatingDay(day)) throw new BadRequestException(`"${day}" is not an operating day (yyyy-MM-dd)`);
+    const zone = await this.zones.byCode(code);
+    if (!zone || !zone.active) throw new NotFoundException(`No active zone with code ${code}`);
+    const { from, to } = operatingDayBounds(day, zone.timeZone);
+    const stationIds = (await this.weather.weights()).filter((x) => x.zone.id === zone.id).map((x) => x.station.id);
+    const [run, values] = await Promise.all([this.forecasts.latest([zone.code], new Date(from), new Date(to)).then((r) => r.zones[0]), this.weather.forecastsIssuedBy(stationIds, from, to, now)]);
+    const list = dayVintages(values, from, to, run?.hours.length ? Date.parse(run.issuedAt) : null);
+    const used = list.find((v) => v.usedByForecast);
+    return {
+      zone: zone.code,
+      operatingDay: day,
+      forecastVintageIssuedAt: used ? new Date(used.issuedAt).toISOString() : null,
+      vintages: list.map((v) => ({ issuedAt: new Date(v.issuedAt).toISOString(), hours: v.hours, usedByForecast: v.usedByForecast })),
+    };
+  }
 
   async whatIf(day: string, code: string, change: WhatIfChange, now = Date.now()): Promise<WeatherWhatIfDto> {
     if (!isOperatingDay(day)) throw new BadRequestException(`"${day}" is not an operating day (yyyy-MM-dd)`);
@@ -78,7 +118,14 @@ export class WeatherWhatIfService {
     if ('shiftC' in change) {
       alt = { path: base.path.map((t, i) => (first + i * HOUR_MS >= knownUntil ? t + change.shiftC : t)), issued: base.issued };
     } else {
-      alt = path(forecasts, change.vintageMs);
+      // only a vintage that was issued, and covers the day, may be asked for: the list the desk offers
+      const vintageMs = change.vintageMs;
+      if (!forecasts.some((v) => v.issuedAt === vintageMs && v.hourStart >= from && v.hourStart < to)) {
+        throw new NotFoundException(
+          `No temperature forecast for ${zone.code} covering ${day} was issued at ${new Date(vintageMs).toISOString()}; choose one of the vintages known for the day (GET /api/schedules/${day}/${zone.code}/weather-vintages)`,
+        );
+      }
+      alt = path(forecasts, vintageMs);
       if (alt.issued === null) throw new ConflictException(`No temperature forecast for ${zone.code} on ${day} had been issued by ${new Date(change.vintageMs).toISOString()}`);
     }
     const start = (from - first) / HOUR_MS;

@@ -96,7 +96,7 @@ describe('the replayed routine of a zone', () => {
       if (r.fail) return { method: 'seasonal-naive', fallbackReason: 'the fit failed', model: null, stored: null, forecast, candidates: [], warnings: [], score: null, inServiceScore: null, fitMs: 0, totalMs: 0 };
       const stored = { diff: [168], p: r.p, q: 1, ar: Array(r.p).fill(0.1), ma: [0.2], sigma2: 1, mean: 0 };
       const model = { diff: [168], p: r.p, q: 1 } as unknown as RefitResult['model'];
-      const score = (mape: number | undefined) => (mape === undefined ? null : { mape, baselineMape: 9, coverage80: null, coverage95: null, days: 7, from: 0, to: 0 });
+      const score = (mape: number | undefined) => (mape === undefined ? null : { mape, baselineMape: 9, coverage80: null, coverage95: null, days: 7, from: 0, to: 0, onForecastWeather: false });
       return { method: 'arima', fallbackReason: null, model, stored, forecast, candidates: [], warnings: [], score: score(r.mape), inServiceScore: score(r.served), fitMs: 0, totalMs: 0 };
     };
     return { payloads, run };

@@ -24,6 +24,7 @@ export function toAdjustmentDto(a: ScheduleAdjustment): ScheduleAdjustmentDto {
     undoneAt: iso(a.undoneAt),
     undoneBy: ref(a.undoneBy),
     carriedFromRevision: a.carriedFromRevision,
+    batchId: a.batchId,
   };
 }
 

@@ -51,6 +51,12 @@ export class SchedulesController {
     return this.schedules.undo(user, id);
   }
 
+  @Delete('adjustment-batches/:id')
+  @Roles(...PERMISSIONS.forecast)
+  undoBatch(@CurrentUser() user: AuthUser, @Param('id', ParseIdPipe) id: number): Promise<ScheduleRevisionDto> {
+    return this.schedules.undoBatch(user, id);
+  }
+
   @Get('revisions/:id')
   @Roles(...PERMISSIONS.readForecasts)
   async revision(@CurrentUser() user: AuthUser, @Param('id', ParseIdPipe) id: number): Promise<ScheduleRevisionDto> {

@@ -268,6 +268,93 @@ export class SchedulesService {
     return result;
   }
 
+  /**
+   * One "add" per hour on a zone's draft, added together (a weather what-if turned into
+   * adjustments): one transaction, so all are added or none; one audit entry naming them; one
+   * batch (the first adjustment's id), undone together by `undoBatch`. Refused like a single
+   * adjustment when there is no draft, or the schedule is submitted or published.
+   */
+  async addBatch(user: AuthUser, day: string, zoneCode: string, hours: ReadonlyArray<{ hour: number; value: number }>, reason: string, source: Record<string, string | number | null>): Promise<AdjustmentResultDto> {
+    this.checkDay(day);
+    if (!hours.length) throw new BadRequestException('No hour of the what-if changes the load by 0.1 MW or more: there is nothing to add');
+    const result = await this.revisionsRepo.fork().transactional(async (tx) => {
+      const [zone] = await this.zones(tx, [zoneCode]);
+      const revision = await this.revisionsRepo.lockWorking(tx, zone.id, day);
+      if (!revision) {
+        const published = await this.revisionsRepo.isPublished(tx, zone.id, day);
+        throw published
+          ? new ConflictException(`The ${zone.code} schedule for ${day} is published and cannot be changed; start a correction`)
+          : new ConflictException(`There is no ${zone.code} draft for ${day}; start one first`);
+      }
+      await tx.populate(revision, ['zone']);
+      this.allowed(revision, 'adjust');
+      const items = hours.map((h) => ({ kind: 'add' as const, fromHour: h.hour, toHour: h.hour, value: h.value }));
+      for (const it of items) {
+        if (!Number.isInteger(it.fromHour) || it.fromHour < 0 || it.fromHour >= revision.hours.length) throw new BadRequestException(`${zone.code} ${day} has ${revision.hours.length} hours; hour ${it.fromHour} is outside it`);
+      }
+      const active = (await this.revisionsRepo.activeAdjustments(tx, revision.id)).map((a) => ({ ...a }));
+      this.replay(revision, [...active, ...items], (m) => new BadRequestException(m));
+      const at = new Date();
+      const made = items.map((it) => this.revisionsRepo.addAdjustment(tx, { revision, zoneCode: zone.code, ...it, reason, by: tx.getReference(User, user.id), at }));
+      await tx.flush();
+      const batchId = made[0].id;
+      for (const a of made) a.batchId = batchId;
+      this.audit.stage(tx, user, {
+        action: 'schedule.adjust-batch',
+        subjectType: 'schedule',
+        subjectId: revision.id,
+        after: {
+          zone: zone.code,
+          operatingDay: day,
+          revision: revision.revision,
+          batchId,
+          adjustments: made.length,
+          hours: made.map((a) => revision.hours[a.fromHour].hourEnding).join(','),
+          totalMwh: Math.round(items.reduce((s, it) => s + it.value, 0) * 10) / 10,
+          ...source,
+        },
+        reason,
+      });
+      await tx.flush();
+      await tx.populate(made, ['by']);
+      return { adjustments: made.map(toAdjustmentDto), revisions: [await this.dto(tx, revision)] };
+    });
+    for (const r of result.revisions) this.announce('adjust', r);
+    return result;
+  }
+
+  /** Undoes every adjustment of a batch still in force, together, audited once. */
+  async undoBatch(user: AuthUser, batchId: number): Promise<ScheduleRevisionDto> {
+    const dto = await this.revisionsRepo.fork().transactional(async (tx) => {
+      const first = await this.revisionsRepo.adjustment(tx, batchId);
+      if (!first || first.batchId !== batchId) throw new NotFoundException(`No batch of schedule adjustments ${batchId}`);
+      const revision = await this.revisionsRepo.lockOf(tx, first);
+      await tx.populate(revision, ['zone']);
+      this.allowed(revision, 'undo');
+      const all = await this.revisionsRepo.activeAdjustments(tx, revision.id);
+      const batch = all.filter((a) => a.batchId === batchId);
+      if (!batch.length) throw new ConflictException(`The adjustments of batch ${batchId} are already undone`);
+      const rest = all.filter((a) => a.batchId !== batchId).map((a) => ({ ...a }));
+      this.replay(revision, rest, (m) => new ConflictException(`Undoing batch ${batchId} would leave ${m}; undo the later adjustment first`));
+      const now = new Date();
+      for (const a of batch) {
+        a.undoneAt = now;
+        a.undoneBy = tx.getReference(User, user.id);
+      }
+      this.audit.stage(tx, user, {
+        action: 'schedule.adjust-batch-undo',
+        subjectType: 'schedule',
+        subjectId: revision.id,
+        after: { zone: revision.zone.code, operatingDay: revision.operatingDay, revision: revision.revision, batchId, adjustments: batch.length },
+        reason: first.reason,
+      });
+      await tx.flush();
+      return this.dto(tx, revision);
+    });
+    this.announce('adjust-undo', dto);
+    return dto;
+  }
+
   async undo(user: AuthUser, id: number): Promise<ScheduleRevisionDto> {
     const dto = await this.revisionsRepo.fork().transactional(async (tx) => {
       const adjustment = await this.revisionsRepo.adjustment(tx, id);

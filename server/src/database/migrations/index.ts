@@ -12,6 +12,8 @@ import { Migration20261202230100 } from './Migration20261202230100';
 import { Migration20261203050000 } from './Migration20261203050000';
 import { Migration20261203050500 } from './Migration20261203050500';
 import { Migration20261203120000 } from './Migration20261203120000';
+import { Migration20261204100001 } from './Migration20261204100001';
+import { Migration20261204100002 } from './Migration20261204100002';
 
 export const MIGRATIONS = [
   { name: 'Migration20261201192005', class: Migration20261201192005 },
@@ -27,4 +29,6 @@ export const MIGRATIONS = [
   { name: 'Migration20261203050000', class: Migration20261203050000 },
   { name: 'Migration20261203050500', class: Migration20261203050500 },
   { name: 'Migration20261203120000', class: Migration20261203120000 },
+  { name: 'Migration20261204100001', class: Migration20261204100001 },
+  { name: 'Migration20261204100002', class: Migration20261204100002 },
 ];

@@ -37,6 +37,7 @@ import {
 } from '@morrowline/engine';
 import type { StoredModel, StoredWeather } from '../stored-model';
 import { storedResponse } from './weather-what-if';
+import { hasWeatherTerms, scoreWeatherChoice } from './weather-score';
 
 
 /**
@@ -76,6 +77,8 @@ export interface RefitPayload {
   fixed?: ModelChoice;
   /** the model in service, scored on the same days for the promotion rule */
   inService?: ModelChoice | null;
+  /** the weather terms of the model in service (it is then scored on forecast weather, as it forecasts) */
+  inServiceWeather?: WeatherChoice | null;
   backtestDays?: number;
   /** exact-ML fits per differencing after the screening (default REFIT_SCREEN) */
   screen?: number;
@@ -106,6 +109,8 @@ export interface ScoreResult {
   days: number;
   from: number | null;
   to: number | null;
+  /** true: scored with the version's weather terms on the temperature forecast known at each origin */
+  onForecastWeather: boolean;
 }
 
 export interface RefitResult {
@@ -140,6 +145,7 @@ export function scoreChoice(values: Float64Array, excluded: number[], choice: Mo
     days: r.days.length,
     from: r.days.length ? r.days[0].dayStart : null,
     to: r.days.length ? r.days[r.days.length - 1].dayStart + r.days[r.days.length - 1].hours : null,
+    onForecastWeather: false,
   };
 }
 
@@ -155,14 +161,22 @@ export function refitZone(payload: RefitPayload): RefitResult {
     options: { ...DESK_PIPELINE_OPTIONS, fixed: payload.fixed, requireBeatBaseline: false, screen: payload.screen ?? REFIT_SCREEN },
   });
   const model = r.method === 'arima' ? (r.model ?? null) : null;
+  const w = model && payload.weather ? withWeather(payload, choiceOf(model)) : null;
   let score: ScoreResult | null = null;
   let inServiceScore: ScoreResult | null = null;
   if (model) {
-    const choice = choiceOf(model);
-    score = scoreChoice(payload.values, payload.excluded, choice, days);
-    if (payload.inService) inServiceScore = scoreChoice(payload.values, payload.excluded, payload.inService, days);
+    // a version is scored as it forecasts: with its weather terms on the temperature forecast
+    // known at each day's origin when it keeps them, otherwise the model without weather
+    const kept = w?.stored.used ? w.stored.choice : null;
+    score = hasWeatherTerms(kept) ? scoreWeatherChoice(payload.values, payload.excluded, payload.weather!, kept, days, { pipeline: DESK_PIPELINE_OPTIONS }) : scoreChoice(payload.values, payload.excluded, choiceOf(model), days);
+    if (payload.inService) {
+      const theirs = payload.inServiceWeather;
+      inServiceScore =
+        hasWeatherTerms(theirs) && payload.weather
+          ? scoreWeatherChoice(payload.values, payload.excluded, payload.weather, theirs, days, { pipeline: DESK_PIPELINE_OPTIONS })
+          : scoreChoice(payload.values, payload.excluded, payload.inService, days);
+    }
   }
-  const w = model && payload.weather ? withWeather(payload, choiceOf(model)) : null;
   return {
     method: model ? 'arima' : 'seasonal-naive',
     fallbackReason: r.fallbackReason ?? null,
@@ -171,7 +185,7 @@ export function refitZone(payload: RefitPayload): RefitResult {
     // a model with weather terms forecasts on the temperature forecast known at the issue time,
     // its bands widened by that forecast's uncertainty (the engine's weather pipeline)
     forecast: w && w.stored.used ? w.result.forecast : r.forecast,
-    weather: w ? w.stored : null,
+    weather: w ? { ...w.stored, ...(score?.onForecastWeather ? { scoredOnForecastWeather: true } : {}) } : null,
     candidates: r.candidates,
     warnings: r.warnings,
     score,

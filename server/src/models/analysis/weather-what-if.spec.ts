@@ -1,5 +1,5 @@
 import { plainCalendar } from '@morrowline/engine';
-import { responseChange, storedResponse } from './weather-what-if';
+import { responseChange, storedResponse, whatIfHours } from './weather-what-if';
 
 const terms = { temperature: true, recency: false, calendar: true, heatBelow: 14, coolAbove: 20 };
 // heating 30 MW/°C at night (local 0–5), 20 in the other parts; cooling 12 everywhere; a holiday dummy
@@ -31,5 +31,19 @@ describe('the load another temperature path would mean, from a stored response',
     // between the thresholds nothing moves
     const mild = Float64Array.from({ length: 24 }, () => 17);
     expect(Array.from(responseChange({ terms, response }, mild, mild.map((t) => t + 2), cal, 0, 24)).every((v) => v === 0)).toBe(true);
+  });
+});
+
+describe('whatIfHours', () => {
+  it('gives one add per hour of the operating day with a change of 0.1 MW or more, rounded to 0.1 MW, at its position from the day\'s start', () => {
+    const dayStart = Date.UTC(2026, 10, 2, 7);
+    const at = (k: number) => new Date(dayStart + k * 3_600_000).toISOString();
+    const hour = (k: number, changeMw: number | null) => ({ hourStart: at(k), modelMw: 500, temperatureC: 3, whatIfTemperatureC: 1, whatIfMw: changeMw === null ? null : 500 + changeMw, changeMw });
+    expect(whatIfHours({ hours: [hour(0, 50.04), hour(1, 0.04), hour(2, null), hour(3, -12.36), hour(24, 3)] }, dayStart)).toEqual([
+      { hour: 0, value: 50 },
+      { hour: 3, value: -12.4 },
+      // a 25-hour day's last hour
+      { hour: 24, value: 3 },
+    ]);
   });
 });

@@ -7,6 +7,7 @@
  * dummies cancel: the calendar is the same). Exact for the engine's model, no refit.
  */
 import { responseValues, termNames, type CalendarHours, type LoadResponse } from '@morrowline/engine';
+import type { WeatherWhatIfDto } from '@morrowline/shared';
 import type { StoredWeather } from '../stored-model';
 
 /** The engine's LoadResponse from what a version stores (coefficients not stored count as 0). */
@@ -30,4 +31,20 @@ export function responseChange(w: Pick<StoredWeather, 'terms' | 'response'>, bas
   const a = responseValues(r, base, calendar, from, to);
   const b = responseValues(r, whatIf, calendar, from, to);
   return b.map((v, i) => v - a[i]);
+}
+
+/**
+ * The what-if's hours as schedule "add" adjustments: the hour's position in the operating day
+ * (from the day's first hour, so 23- and 25-hour days line up with the schedule's hours) and its
+ * change rounded to 0.1 MW; hours without a change, or whose change rounds to 0, are left alone.
+ */
+export function whatIfHours(w: Pick<WeatherWhatIfDto, 'hours'>, dayStartMs: number): Array<{ hour: number; value: number }> {
+  const out: Array<{ hour: number; value: number }> = [];
+  for (const h of w.hours) {
+    if (h.changeMw === null) continue;
+    const value = Math.round(h.changeMw * 10) / 10;
+    if (value === 0) continue;
+    out.push({ hour: Math.round((Date.parse(h.hourStart) - dayStartMs) / 3_600_000), value });
+  }
+  return out;
 }

@@ -1,4 +1,4 @@
-import { Entity, Enum, ManyToOne, PrimaryKey, Property } from '@mikro-orm/core';
+import { Entity, Enum, Index, ManyToOne, PrimaryKey, Property } from '@mikro-orm/core';
 import { SCHEDULE_ADJUSTMENT_KINDS, type ScheduleAdjustmentKind } from '@morrowline/shared';
 import { User } from '../../users/entities/user.entity';
 import { ScheduleRevision } from './schedule-revision.entity';
@@ -47,4 +47,9 @@ export class ScheduleAdjustment {
   /** Set when a correction carried it forward: the revision it was first made on (its reason, author and time kept). */
   @Property({ type: 'integer', nullable: true })
   carriedFromRevision: number | null = null;
+
+  /** Added together with others in one request (a weather what-if): the id of the batch's first adjustment; undone together. */
+  @Index({ name: 'schedule_adjustments_batch_id_index' })
+  @Property({ type: 'integer', unsigned: true, nullable: true })
+  batchId: number | null = null;
 }

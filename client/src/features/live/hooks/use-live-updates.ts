@@ -1,12 +1,12 @@
-import { committedBasisLabel, DESK_EVENTS, HOUR_MS, type AlertDto, type FeedStatusDto, type LatestForecastsDto, type ReadingSeriesDto } from '@morrowline/shared';
+import { DESK_EVENTS, type AlertDto, type FeedStatusDto, type LatestForecastsDto, type ReadingSeriesDto } from '@morrowline/shared';
 import { notifications, notificationsStore } from '@mantine/notifications';
 import { useQueryClient } from '@tanstack/react-query';
 import { useEffect, useRef } from 'react';
 import { deskSocket, useDeskConnectionState, useDeskEvent, type DeskSocket } from '../../../lib/desk-socket';
-import { formatPercent } from '../../../lib/format';
 import { useZones } from '../../zones';
 import { alertHistoryKey, committedLoadPrefix, feedStatusKey, latestForecastsPrefix, openAlertsKey, readingsSeriesPrefix } from '../api/live-keys';
 import { withAlert, withoutAlert } from '../model/alert-list';
+import { ALERT_NOTICE_ID, alertNotice, type NoticeAlert } from '../model/alert-notice';
 import { applyDeskReadings, applyDeskReadingsToStatus } from '../model/apply-desk-readings';
 
 /** The zones a cached latest-forecasts query asked for (its key's last element). */
@@ -33,6 +33,9 @@ export function useLiveUpdates(socket: DeskSocket = deskSocket): void {
   const zoneName = (code: string) => zones.data?.find((z) => z.code === code)?.name ?? code;
   const connection = useDeskConnectionState(socket);
   const wasConnected = useRef(false);
+  // the alerts the one deviation notice carries while it is up (oldest first)
+  const inNotice = useRef(new Map<number, NoticeAlert>());
+  const noticeUp = () => notificationsStore.getState().notifications.some((n) => n.id === ALERT_NOTICE_ID);
 
   useEffect(() => {
     if (connection !== 'connected') return;
@@ -50,25 +53,32 @@ export function useLiveUpdates(socket: DeskSocket = deskSocket): void {
   useDeskEvent(DESK_EVENTS.alertRaised, (alert: AlertDto) => {
     const known = queryClient.getQueryData<AlertDto[]>(openAlertsKey)?.some((a) => a.id === alert.id) ?? false;
     queryClient.setQueryData<AlertDto[]>(openAlertsKey, (list) => withAlert(list ?? [], alert));
+    // one notice for every alert raised while it is up (a fresh demo raises several at once);
+    // closed by the operator, the next alert starts a new one
+    const up = noticeUp();
+    if (!up) inNotice.current.clear();
+    inNotice.current.delete(alert.id);
+    inNotice.current.set(alert.id, { alert, widened: known });
     const notice = {
-      id: `alert-${alert.id}`,
+      id: ALERT_NOTICE_ID,
       color: 'ember',
-      title: known ? `Deviation alert widened: ${zoneName(alert.zone)}` : `Deviation alert: ${zoneName(alert.zone)}`,
-      message: `Load ${alert.peakDeviationPct >= 0 ? 'above' : 'below'} the ${committedBasisLabel(alert.comparedWith)} by up to ${formatPercent(Math.abs(alert.peakDeviationPct))} for ${Math.round((Date.parse(alert.end) - Date.parse(alert.start)) / HOUR_MS)} h (threshold ${formatPercent(alert.thresholdPct, 0)}).`,
+      ...alertNotice([...inNotice.current.values()], zoneName),
       autoClose: false,
       // Top centre: clear of the user's name and sign-out (top right) and of the alert list's
       // Acknowledge form (lower down), which a notification in a corner would cover.
       position: 'top-center' as const,
     };
-    // A widened alert updates its notice while that is still up; otherwise it shows a new one.
-    if (known && notificationsStore.getState().notifications.some((n) => n.id === notice.id)) notifications.update(notice);
+    if (up) notifications.update(notice);
     else notifications.show(notice);
   }, socket);
 
   useDeskEvent(DESK_EVENTS.alertAcknowledged, (alert: AlertDto) => {
     queryClient.setQueryData<AlertDto[]>(openAlertsKey, (list) => (list ? withoutAlert(list, alert.id) : list));
     void queryClient.invalidateQueries({ queryKey: alertHistoryKey });
-    notifications.hide(`alert-${alert.id}`);
+    if (inNotice.current.delete(alert.id) && noticeUp()) {
+      if (inNotice.current.size === 0) notifications.hide(ALERT_NOTICE_ID);
+      else notifications.update({ id: ALERT_NOTICE_ID, color: 'ember', ...alertNotice([...inNotice.current.values()], zoneName), autoClose: false, position: 'top-center' });
+    }
   }, socket);
 
   useDeskEvent(DESK_EVENTS.schedule, (event) => {

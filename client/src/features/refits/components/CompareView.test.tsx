@@ -9,7 +9,7 @@ function version(id: number, changes: Partial<ModelVersionDto> = {}): ModelVersi
     id, zone: 'QUARRY', status: 'candidate', trigger: 'operator', differencing: [168], differencingLabel: '(1−B^168)', p: 2, q: 1, seasonal: null,
     coefficients: [{ name: 'ar1', value: 0.8123, se: 0.0211 }, { name: 'ma1', value: -0.3, se: null }], sigma2: 14.2, loglik: -3000, aic: 6008, aicc: 6008.1, bic: 6030,
     ljungBox: [{ lag: 24, statistic: 20, df: 21, pValue: 0.41 }, { lag: 48, statistic: 50, df: 45, pValue: 0.2 }], residualAcf: { lags: [], band: 0.05, outside: 1, maxAbs: 0.06 },
-    trainingFrom: '', trainingTo: '', trainingHours: 1344, excludedHours: 6, backtestDays: 7, backtestMape: 3.1, baselineMape: 6.2, backtestCoverage80: 79.5, backtestCoverage95: 95.1, warnings: [],
+    trainingFrom: '', trainingTo: '', trainingHours: 1344, excludedHours: 6, backtestDays: 7, backtestOnForecastWeather: false, backtestMape: 3.1, baselineMape: 6.2, backtestCoverage80: 79.5, backtestCoverage95: 95.1, warnings: [],
     createdBy: 'ines.marlow@tallowmere.example', createdAt: '2026-07-14T15:00:00Z', durationMs: 900, jobId: 4, promotedAt: null, retiredAt: null, weather: null,
     ...changes,
   };

@@ -10,7 +10,7 @@ import { CompareView } from './CompareView';
 
 const STATUS_LABELS: Record<ModelStatus, string> = { 'in-service': 'in service', candidate: 'candidate', retired: 'retired' };
 const STATUS_COLORS: Record<ModelStatus, string> = { 'in-service': 'tide', candidate: 'dusk', retired: 'slate' };
-const TRIGGER_LABELS = { schedule: 'nightly refit', operator: 'refit by hand', update: 'hourly update' } as const;
+const TRIGGER_LABELS = { schedule: 'nightly refit', operator: 'refit by hand', update: 'hourly update', 'first-model': 'first model (start-up)' } as const;
 
 interface ModelVersionsPanelProps {
   zone: string;
@@ -30,7 +30,8 @@ export function ModelVersionsPanel({ zone, zoneName, timeZone, canPromote }: Mod
     <Card withBorder padding="md" data-testid="model-versions">
       <Title order={4} mb="xs">Model versions of {zoneName}</Title>
       <Text size="sm" c="dimmed" mb="sm">
-        Backtest: day-ahead forecasts over the last days with the orders fixed, against the same hour one week earlier.
+        Backtest: day-ahead forecasts over the last days with the orders fixed, against the same hour one week earlier. A version
+        with weather terms is scored with them, each day on the temperature forecast known when that day was forecast.
       </Text>
       {versions.isPending && <Loader size="sm" />}
       {versions.isError && <ErrorNotice title="The versions could not be loaded" error={versions.error} onRetry={() => void versions.refetch()} />}
@@ -63,7 +64,10 @@ export function ModelVersionsPanel({ zone, zoneName, timeZone, canPromote }: Mod
                     <Text size="sm" ff="monospace">{ordersOf(v)}</Text>
                     <Text size="xs" c="dimmed">{v.trainingHours} h trained, {v.excludedHours} h left out</Text>
                   </Table.Td>
-                  <Table.Td ff="monospace" ta="right">{formatPercent(v.backtestMape, 2)}</Table.Td>
+                  <Table.Td ff="monospace" ta="right">
+                    {formatPercent(v.backtestMape, 2)}
+                    {v.backtestOnForecastWeather && <Text size="xs" c="dimmed" ff="body" style={{ whiteSpace: 'nowrap' }} data-testid="scored-on-weather">on forecast weather</Text>}
+                  </Table.Td>
                   <Table.Td ff="monospace" ta="right">{formatPercent(v.baselineMape, 2)}</Table.Td>
                   <Table.Td ff="monospace" ta="right">{formatPercent(v.backtestCoverage80, 0)} / {formatPercent(v.backtestCoverage95, 0)}</Table.Td>
                   <Table.Td>

@@ -8,7 +8,7 @@ import { notifySuccess } from '../../../lib/notify';
 import { useRefitJobs, useStartRefit } from '../api/use-refits';
 
 const STATE_COLORS: Record<RefitJobState, string> = { queued: 'slate', running: 'tide', done: 'tide', failed: 'ember' };
-const TRIGGER_LABELS = { schedule: 'nightly', operator: 'by hand', update: 'hourly update' } as const;
+const TRIGGER_LABELS = { schedule: 'nightly', operator: 'by hand', update: 'hourly update', 'first-model': 'first model' } as const;
 
 interface RefitPanelProps {
   zone: string;

@@ -1,5 +1,5 @@
 import { Badge, Card, Group, Loader, SimpleGrid, Stack, Table, Text, Title } from '@mantine/core';
-import { calendarEffects, temperatureResponseCurve, type ModelVersionDto } from '@morrowline/shared';
+import { calendarEffects, responseBandBasis, temperatureResponseCurve, type ModelVersionDto } from '@morrowline/shared';
 import { useMemo } from 'react';
 import type uPlot from 'uplot';
 import { axis, CHART_COLORS, UplotChart } from '../../../components/UplotChart';
@@ -38,9 +38,16 @@ function ResponseChart({ version }: { version: ModelVersionDto }) {
       height={200}
       testId="temperature-response-chart"
       seriesKey
-      caption={`Load added at a steady temperature, mean over the day; heating below ${w.terms.heatBelow} °C, cooling above ${w.terms.coolAbove} °C. Band: ±1.96 standard errors, the coefficients taken as independent.`}
+      caption={`Load added at a steady temperature, mean over the day; heating below ${w.terms.heatBelow} °C, cooling above ${w.terms.coolAbove} °C. ${bandWords(responseBandBasis(w))}`}
     />
   );
+}
+
+/** How far the band can be trusted, said plainly. */
+export function bandWords(basis: 'covariance' | 'independent'): string {
+  return basis === 'covariance'
+    ? 'Band: ±1.96 standard errors of the curve, from the joint covariance of the coefficients.'
+    : 'Band: ±1.96 standard errors with the coefficients taken as independent, because this version does not store their covariance. The terms of neighbouring parts of the day and the lagged temperature move together, so the true band may be narrower or wider than drawn; read it as a rough guide.';
 }
 
 /** The zone's model in service: how its load answers the temperature and the calendar. */

@@ -2,6 +2,7 @@ import type {
   AdjustmentResultDto,
   CreateScheduleAdjustmentRequest,
   ScheduleRevisionDto,
+  WeatherWhatIfAdjustRequest,
 } from '@morrowline/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '../../../lib/api-client';
@@ -34,6 +35,16 @@ export const useAddAdjustments = (day: string) =>
     for (const request of requests) results.push(await api.post<AdjustmentResultDto>(`/schedules/${day}/adjustments`, request));
     return results;
   });
+
+/** POST /:day/:zone/weather-what-if/adjustments — the what-if as one add per hour, all or none, worked out on the server. */
+export const useWhatIfAdjustments = (day: string) =>
+  useScheduleMutation(({ zone, request }: { zone: string; request: WeatherWhatIfAdjustRequest }) =>
+    api.post<AdjustmentResultDto>(`/schedules/${day}/${zone}/weather-what-if/adjustments`, request),
+  );
+
+/** DELETE /adjustment-batches/:id — the adjustments added together from a what-if, undone together. */
+export const useUndoAdjustmentBatch = () =>
+  useScheduleMutation((batchId: number) => api.delete<ScheduleRevisionDto>(`/schedules/adjustment-batches/${batchId}`));
 
 /** DELETE /adjustments/:id — undo, until the revision is submitted. */
 export const useUndoAdjustment = () =>

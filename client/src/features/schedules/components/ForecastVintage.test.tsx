@@ -53,7 +53,7 @@ describe('forecast vintages on the day-ahead screen', () => {
   });
 
   it('offers back to the model when adjustments are in force, and shows carried ones with their first revision', async () => {
-    const adjustment = { id: 31, revisionId: 7, zone: 'MILLRACE', kind: 'add' as const, fromHour: 17, toHour: 19, value: 22.2, reason: 'Stadium concert', by: { id: 2, name: 'Ines Marlow' }, at: '2026-05-11T15:00:00.000Z', undoneAt: null, undoneBy: null, carriedFromRevision: 1 };
+    const adjustment = { id: 31, revisionId: 7, zone: 'MILLRACE', kind: 'add' as const, fromHour: 17, toHour: 19, value: 22.2, reason: 'Stadium concert', by: { id: 2, name: 'Ines Marlow' }, at: '2026-05-11T15:00:00.000Z', undoneAt: null, undoneBy: null, carriedFromRevision: 1, batchId: null };
     const working = revisionFixture('MILLRACE', DAY, 'draft', { revision: 2, adjustments: [adjustment], correctionReason: 'Concert moved' });
     const { calls } = mockApi({
       'GET /api/auth/me': () => ({ body: userFixture('operator', { id: 2, name: 'Ines Marlow' }) }),

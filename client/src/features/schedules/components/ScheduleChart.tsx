@@ -28,7 +28,7 @@ function Swatch({ color, dashed, block }: { color: string; dashed?: boolean; blo
  * position in the operating day, labelled with the server's hour-ending labels, so a 23- or
  * 25-hour day draws its own number of points with no gap or overlap.
  */
-export function ScheduleChart({ rows, title }: { rows: readonly ScheduleRow[]; title: string }) {
+export function ScheduleChart({ rows, title, lineLabel }: { rows: readonly ScheduleRow[]; title: string; /** what the solid line is (model/legend.ts) */ lineLabel: string }) {
   const { ref, width } = useElementSize();
   const labels = useMemo(() => rows.map((row) => row.hourEnding), [rows]);
   const hasBands = rows.some((row) => row.upper80 !== null);
@@ -58,7 +58,7 @@ export function ScheduleChart({ rows, title }: { rows: readonly ScheduleRow[]; t
         {},
         ...forecastBandSeries(),
         { label: 'Model forecast', stroke: SCHEDULE_COLORS.model, width: 1.5, dash: [6, 4], points: { show: false } },
-        { label: 'Adjusted', stroke: SCHEDULE_COLORS.adjusted, width: 2.5, points: { show: true, size: 4 } },
+        { label: lineLabel, stroke: SCHEDULE_COLORS.adjusted, width: 2.5, points: { show: true, size: 4 } },
       ],
       bands: forecastBands(),
       axes: [
@@ -72,12 +72,12 @@ export function ScheduleChart({ rows, title }: { rows: readonly ScheduleRow[]; t
         { stroke: SCHEDULE_COLORS.axis, grid: { stroke: SCHEDULE_COLORS.grid }, ticks: { stroke: SCHEDULE_COLORS.grid }, label: 'MW', size: 60 },
       ],
     };
-  }, [width, labels]);
+  }, [width, labels, lineLabel]);
 
   return (
     <Box>
       <Group gap="md" mb={4} data-testid="schedule-chart-legend">
-        <Group gap={6}><Swatch color={SCHEDULE_COLORS.adjusted} /><Text size="xs">Adjusted (what is published)</Text></Group>
+        <Group gap={6}><Swatch color={SCHEDULE_COLORS.adjusted} /><Text size="xs">{lineLabel}</Text></Group>
         <Group gap={6}><Swatch color={SCHEDULE_COLORS.model} dashed /><Text size="xs">Model forecast</Text></Group>
         {hasBands && <Group gap={6}><Swatch color={FORECAST_BAND_COLORS.band80} block /><Text size="xs">80 % band</Text></Group>}
         {hasBands && <Group gap={6}><Swatch color={FORECAST_BAND_COLORS.band95} block /><Text size="xs">95 % band</Text></Group>}
@@ -87,7 +87,7 @@ export function ScheduleChart({ rows, title }: { rows: readonly ScheduleRow[]; t
       </Box>
       <ChartNumbers
         title={`Schedule of ${title}`}
-        columns={['Hour ending', 'Adjusted (published), MW', 'Model forecast, MW', '80 % band, MW', '95 % band, MW']}
+        columns={['Hour ending', `${lineLabel}, MW`, 'Model forecast, MW', '80 % band, MW', '95 % band, MW']}
         rows={() => rows.map((r) => [r.hourEnding, mw(r.adjustedMw), mw(r.modelMw), band(r.lower80, r.upper80), band(r.lower95, r.upper95)])}
         testId="schedule-chart-numbers"
       />

@@ -1,4 +1,4 @@
-import { Button, Group, Paper, SegmentedControl, Stack, Table, Text, TextInput, Title } from '@mantine/core';
+import { Button, Group, Paper, SegmentedControl, Select, Stack, Table, Text, TextInput, Title } from '@mantine/core';
 import { SCHEDULE_CAUTION, WHAT_IF_MAX_SHIFT_C, type UserDto, type ZoneScheduleDto } from '@morrowline/shared';
 import { useMemo, useState } from 'react';
 import type uPlot from 'uplot';
@@ -6,10 +6,10 @@ import { ErrorNotice } from '../../../components/ErrorNotice';
 import { axis, CHART_COLORS, UplotChart } from '../../../components/UplotChart';
 import { formatDateTime } from '../../../lib/format';
 import { notifySuccess } from '../../../lib/notify';
-import { useAddAdjustments } from '../api/use-schedule-actions';
-import { useWeatherWhatIf, type WhatIfAsk } from '../api/use-weather-what-if';
+import { useUndoAdjustmentBatch, useWhatIfAdjustments } from '../api/use-schedule-actions';
+import { useWeatherVintages, useWeatherWhatIf, type WhatIfAsk } from '../api/use-weather-what-if';
 import { isEditable, isForecaster } from '../model/permissions';
-import { checkShift, whatIfAdjustments } from '../model/what-if';
+import { checkShift, vintageOptions } from '../model/what-if';
 
 /**
  * The day's weather what-if: the load a temperature forecast N °C warmer or colder (or another
@@ -24,10 +24,16 @@ export function WeatherWhatIfPanel({ day, zone, user }: { day: string; zone: Zon
   const [reason, setReason] = useState('');
   const [reasonError, setReasonError] = useState<string | null>(null);
   const whatIf = useWeatherWhatIf(day, zone.zone, ask);
-  const add = useAddAdjustments(day);
+  const vintages = useWeatherVintages(day, zone.zone, mode === 'vintage');
+  const options = useMemo(() => (vintages.data ? vintageOptions(vintages.data, zone.timeZone) : []), [vintages.data, zone.timeZone]);
+  const add = useWhatIfAdjustments(day);
+  const undoBatch = useUndoAdjustmentBatch();
+  // the batch this desk added last, while any of it is still in force on the working revision
+  const [batch, setBatch] = useState<{ id: number; label: string } | null>(null);
+  const batchInForce = batch !== null && (zone.working?.adjustments ?? []).some((a) => a.batchId === batch.id && a.undoneAt === null);
   const canApply = isForecaster(user) && isEditable(zone.working);
 
-  const label = ask && 'shift' in ask ? `${Number(ask.shift) > 0 ? '+' : ''}${ask.shift} °C` : ask ? `vintage issued ${ask.vintage}` : '';
+  const label = ask && 'shift' in ask ? `${Number(ask.shift) > 0 ? '+' : ''}${ask.shift} °C` : ask ? `vintage issued ${formatDateTime(ask.vintage, zone.timeZone)}` : '';
   const show = (event: React.FormEvent) => {
     event.preventDefault();
     const value = text.trim();
@@ -36,21 +42,33 @@ export function WeatherWhatIfPanel({ day, zone, user }: { day: string; zone: Zon
       setError(message);
       if (!message) setAsk({ shift: value });
     } else {
-      if (!value) return setError('Give the issue time of a temperature forecast, e.g. 2026-11-02T05:00:00Z');
+      if (!value) return setError('Choose a temperature forecast vintage');
       setError(null);
       setAsk({ vintage: value });
     }
   };
 
   const apply = () => {
-    if (!whatIf.data) return;
+    if (!whatIf.data || !ask) return;
     if (!reason.trim()) return setReasonError('Say why the schedule should follow this what-if');
     setReasonError(null);
-    const requests = whatIfAdjustments(whatIf.data, zone.slots, zone.zone, reason.trim(), label);
-    add.mutate(requests, {
-      onSuccess: () => {
-        notifySuccess(`${requests.length} hourly adjustment${requests.length === 1 ? '' : 's'} added from the what-if (${label})`);
+    const request = 'shift' in ask ? { shift: Number(ask.shift), reason: reason.trim() } : { vintage: ask.vintage, reason: reason.trim() };
+    add.mutate({ zone: zone.zone, request }, {
+      onSuccess: (result) => {
+        const n = result.adjustments.length;
+        notifySuccess(`${n} hourly adjustment${n === 1 ? '' : 's'} added from the what-if (${label}), together`);
+        setBatch(result.adjustments[0]?.batchId ? { id: result.adjustments[0].batchId, label } : null);
         setReason('');
+      },
+    });
+  };
+
+  const undo = () => {
+    if (!batch) return;
+    undoBatch.mutate(batch.id, {
+      onSuccess: () => {
+        notifySuccess(`The what-if adjustments (${batch.label}) were undone`);
+        setBatch(null);
       },
     });
   };
@@ -60,7 +78,7 @@ export function WeatherWhatIfPanel({ day, zone, user }: { day: string; zone: Zon
     if (!w) return null;
     return [w.hours.map((h) => Date.parse(h.hourStart) / 1000 + 3600), w.hours.map((h) => h.modelMw), w.hours.map((h) => h.whatIfMw)];
   }, [whatIf.data]);
-  const options = useMemo<Omit<uPlot.Options, 'width' | 'height'>>(
+  const chartOptions = useMemo<Omit<uPlot.Options, 'width' | 'height'>>(
     () => ({
       scales: { x: { time: true } },
       cursor: { drag: { x: false, y: false } },
@@ -84,18 +102,41 @@ export function WeatherWhatIfPanel({ day, zone, user }: { day: string; zone: Zon
         <form onSubmit={show} noValidate>
           <Group align="flex-end" gap="sm">
             <SegmentedControl value={mode} onChange={(v) => { setMode(v as 'shift' | 'vintage'); setText(''); setError(null); }} data={[{ value: 'shift', label: 'Shift the temperature' }, { value: 'vintage', label: 'Another vintage' }]} />
-            <TextInput
-              label={mode === 'shift' ? `Shift, °C (−${WHAT_IF_MAX_SHIFT_C} to ${WHAT_IF_MAX_SHIFT_C})` : 'Issue time of the temperature forecast'}
-              placeholder={mode === 'shift' ? '-2.5' : '2026-11-02T05:00:00Z'}
-              value={text}
-              onChange={(e) => setText(e.currentTarget.value)}
-              error={error}
-              w={mode === 'shift' ? 200 : 280}
-              data-testid="what-if-input"
-            />
+            {mode === 'shift' ? (
+              <TextInput
+                label={`Shift, °C (−${WHAT_IF_MAX_SHIFT_C} to ${WHAT_IF_MAX_SHIFT_C})`}
+                placeholder="-2.5"
+                value={text}
+                onChange={(e) => setText(e.currentTarget.value)}
+                error={error}
+                w={200}
+                data-testid="what-if-input"
+              />
+            ) : (
+              <Select
+                label="Temperature forecast vintage (newest first)"
+                placeholder={vintages.isPending ? 'Loading the vintages…' : options.length ? 'Choose a vintage' : 'No vintage known for the day'}
+                data={options}
+                value={text || null}
+                onChange={(v) => setText(v ?? '')}
+                error={error ?? (vintages.isError ? (vintages.error as Error).message : null)}
+                disabled={!options.length}
+                allowDeselect={false}
+                w={420}
+                comboboxProps={{ withinPortal: true }}
+                data-testid="what-if-vintage"
+              />
+            )}
             <Button type="submit" variant="light" loading={whatIf.isFetching}>Show the what-if</Button>
           </Group>
         </form>
+        {batchInForce && canApply && (
+          <Group gap="sm" data-testid="what-if-batch">
+            <Text size="sm">The what-if ({batch.label}) is in the draft as hourly adjustments.</Text>
+            <Button size="compact-sm" variant="light" color="ember" onClick={undo} loading={undoBatch.isPending}>Undo the what-if adjustments</Button>
+          </Group>
+        )}
+        {undoBatch.isError && <ErrorNotice title="The what-if adjustments were not undone" error={undoBatch.error} />}
         {whatIf.isError && <ErrorNotice title="The what-if could not be made" error={whatIf.error} />}
         {whatIf.data && data && (
           <Stack gap="xs" data-testid="what-if-result">
@@ -104,7 +145,7 @@ export function WeatherWhatIfPanel({ day, zone, user }: { day: string; zone: Zon
               {whatIf.data.baseVintageIssuedAt && `Model forecast on the temperature forecast issued ${formatDateTime(whatIf.data.baseVintageIssuedAt, zone.timeZone)}`}
               {whatIf.data.whatIfVintageIssuedAt && whatIf.data.shiftC === null && `; what-if on the one issued ${formatDateTime(whatIf.data.whatIfVintageIssuedAt, zone.timeZone)}`}.
             </Text>
-            <UplotChart title="Model forecast and the what-if" options={options} data={data} height={200} testId="what-if-chart" seriesKey caption={whatIf.data.method} />
+            <UplotChart title="Model forecast and the what-if" options={chartOptions} data={data} height={200} testId="what-if-chart" seriesKey caption={whatIf.data.method} />
             <Table aria-label="What-if by hour" withTableBorder verticalSpacing={2} data-testid="what-if-table">
               <Table.Thead>
                 <Table.Tr><Table.Th>Hour starting</Table.Th><Table.Th ta="right">°C</Table.Th><Table.Th ta="right">What-if °C</Table.Th><Table.Th ta="right">Model MW</Table.Th><Table.Th ta="right">What-if MW</Table.Th><Table.Th ta="right">Change MW</Table.Th></Table.Tr>
@@ -128,8 +169,8 @@ export function WeatherWhatIfPanel({ day, zone, user }: { day: string; zone: Zon
                   <TextInput label="Reason for following the what-if" withAsterisk value={reason} onChange={(e) => setReason(e.currentTarget.value)} error={reasonError} w={420} data-testid="what-if-reason" />
                   <Button onClick={apply} loading={add.isPending}>Turn into adjustments</Button>
                 </Group>
-                {add.isError && <ErrorNotice title="Not every adjustment was added" error={add.error} />}
-                <Text size="xs" c="dimmed">One added adjustment per hour, each undoable. {SCHEDULE_CAUTION}</Text>
+                {add.isError && <ErrorNotice title="The what-if was not added (no hour of it was)" error={add.error} />}
+                <Text size="xs" c="dimmed">One added adjustment per hour, worked out again on the server and added together or not at all; undone together. {SCHEDULE_CAUTION}</Text>
               </Stack>
             ) : (
               <Text size="xs" c="dimmed">{isForecaster(user) ? 'Start the draft to turn the what-if into adjustments.' : ''}</Text>

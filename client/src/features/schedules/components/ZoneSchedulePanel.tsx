@@ -11,6 +11,7 @@ import { ForecastVintage } from './ForecastVintage';
 import { GateCountdownBadge } from './GateCountdownBadge';
 import { RevisionHistory } from './RevisionHistory';
 import { ScheduleChart } from './ScheduleChart';
+import { adjustedLegend } from '../model/legend';
 import { ScheduleTable } from './ScheduleTable';
 import { useScheduleTemperatures } from '../api/use-schedule-temperatures';
 import { WeatherWhatIfPanel } from './WeatherWhatIfPanel';
@@ -55,7 +56,7 @@ export function ZoneSchedulePanel({ day, zone, user, caution, clockOffsetMs }: Z
       </Group>
       <WorkflowPanel day={day} zone={zone} user={user} caution={caution} />
       <ForecastVintage zone={zone} user={user} />
-      <ScheduleChart rows={rows} title={zone.zoneName} />
+      <ScheduleChart rows={rows} title={zone.zoneName} lineLabel={adjustedLegend([zone])} />
       {isForecaster(user) && zone.forecast && <WeatherWhatIfPanel day={day} zone={zone} user={user} />}
       <Accordion multiple defaultValue={['hours', 'adjustments']} variant="separated">
         <Accordion.Item value="hours">

@@ -12,6 +12,7 @@ import { useDaySchedule } from '../api/use-day-schedule';
 import { schedulesKey } from '../api/schedule-keys';
 import { AdjustmentForm } from '../components/AdjustmentForm';
 import { ScheduleChart } from '../components/ScheduleChart';
+import { adjustedLegend } from '../model/legend';
 import { ScheduleTable } from '../components/ScheduleTable';
 import { SubscribersDialog } from '../components/SubscribersDialog';
 import { ZoneSchedulePanel } from '../components/ZoneSchedulePanel';
@@ -139,7 +140,7 @@ export function SchedulesPage() {
                     <Text size="sm" c="dimmed">
                       Sum of {dayZones.map((z) => z.zoneName).join(', ')}. An hour with no value in any one zone is left blank rather than summed short; bands do not add up, so none are drawn.
                     </Text>
-                    <ScheduleChart rows={system} title="System total" />
+                    <ScheduleChart rows={system} title="System total" lineLabel={adjustedLegend(dayZones)} />
                     <ScheduleTable rows={system} label="Hours of the system total" showBand={false} />
                   </Stack>
                 </Card>
