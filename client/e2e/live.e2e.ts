@@ -171,6 +171,8 @@ describe('live load against what was committed', () => {
     await page.goto(`/live?zone=${ZONE}`);
     const legend = page.getByTestId('chart-legend');
     await legend.getByText('Published schedule', { exact: true }).waitFor();
+    // the latest run comes by a query of its own, which may answer after the schedule's
+    await legend.getByText('Latest run', { exact: true }).waitFor();
     expect(await legend.innerText()).not.toContain('none');
     await legend.getByText('Day-ahead forecast (issued by gate closure)').waitFor();
     expect(await page.getByTestId('committed-sources').innerText()).toContain(`${today.toFormat('ccc LL-dd')}: published schedule rev 1`);
