@@ -53,9 +53,11 @@ export function cssStart(w: Float64Array, o: CssOrders, maxHours = 4000): Float6
   const at = (u: Float64Array, from: number, len: number) => u.subarray(from, from + len);
   const terms = usableTerms(x, o.p + o.P * s);
   const lags = new SparseLags(o.p + o.P * s, o.q + o.Q * s);
+  const small = o.P + o.Q === 0 && o.p <= 3 && o.q <= 3 ? smallOrderSeries(x, terms, o.p) : null;
   const objective = (u: Float64Array): number => {
     const a = expandAr(toStationary(at(u, 0, o.p)), toStationary(at(u, o.p + o.q, o.P)), s);
     const b = expandMa(toInvertible(at(u, o.p, o.q)), toInvertible(at(u, o.p + o.q + o.P, o.Q)), s);
+    if (small) return Math.log(smallOrderSumOfSquares(small, a, b, o.p, terms.length));
     return Math.log(sparseSumOfSquares(x, lags.set(a, b), terms, e));
   };
   const r = minimizeBfgs(objective, new Float64Array(k), { maxIter: 100, gradTol: 1e-6, fTol: 1e-10, step: 1e-6 });
@@ -132,4 +134,63 @@ function sparseSumOfSquares(w: Float64Array, c: SparseLags, terms: Int32Array, e
     ssq += v * v;
   }
   return terms.length > 0 ? ssq / terms.length : Infinity;
+}
+
+/**
+ * For AR and MA orders up to three without a seasonal block: the series behind three zeros,
+ * missing values as zeros, and a mask of the usable terms. Every lag then reads a finite number,
+ * and a zero coefficient beyond the order adds nothing (v − 0·w = v).
+ */
+interface SmallOrderSeries {
+  xz: Float64Array;
+  used: Uint8Array;
+}
+
+function smallOrderSeries(w: Float64Array, terms: Int32Array, na: number): SmallOrderSeries {
+  const n = w.length;
+  const xz = new Float64Array(n + 3);
+  for (let t = 0; t < n; t++) xz[t + 3] = w[t] === w[t] ? w[t] : 0;
+  const used = new Uint8Array(n);
+  for (let i = 0; i < terms.length; i++) used[terms[i]] = 1;
+  void na;
+  return { xz, used };
+}
+
+/**
+ * The recursion of conditionalSumOfSquares with the three coefficients and the last three
+ * innovations in locals (no inner loops, no array of innovations): the same operations in the
+ * same order, so the same sum to the last digit, several times faster on a pass that a CSS
+ * search runs a few hundred times.
+ */
+function smallOrderSumOfSquares(c: SmallOrderSeries, a: Float64Array, b: Float64Array, na: number, nTerms: number): number {
+  const { xz, used } = c;
+  const n = used.length;
+  const a0 = a.length > 0 ? a[0] : 0;
+  const a1 = a.length > 1 ? a[1] : 0;
+  const a2 = a.length > 2 ? a[2] : 0;
+  const b0 = b.length > 0 ? b[0] : 0;
+  const b1 = b.length > 1 ? b[1] : 0;
+  const b2 = b.length > 2 ? b[2] : 0;
+  let e1 = 0;
+  let e2 = 0;
+  let e3 = 0;
+  let ssq = 0;
+  for (let t = na; t < n; t++) {
+    let v = 0;
+    if (used[t]) {
+      const i = t + 3;
+      v = xz[i];
+      v -= a0 * xz[i - 1];
+      v -= a1 * xz[i - 2];
+      v -= a2 * xz[i - 3];
+      v -= b0 * e1;
+      v -= b1 * e2;
+      v -= b2 * e3;
+      ssq += v * v;
+    }
+    e3 = e2;
+    e2 = e1;
+    e1 = v;
+  }
+  return nTerms > 0 ? ssq / nTerms : Infinity;
 }
