@@ -10,7 +10,7 @@
  */
 import { minimizeBfgs } from './bfgs';
 import { expandAr, expandMa } from './polynomials';
-import { toInvertible, toStationary } from './transform';
+import { toInvertible, toStationary, toStationaryInto } from './transform';
 
 export interface CssOrders {
   p: number;
@@ -54,10 +54,18 @@ export function cssStart(w: Float64Array, o: CssOrders, maxHours = 4000): Float6
   const terms = usableTerms(x, o.p + o.P * s);
   const lags = new SparseLags(o.p + o.P * s, o.q + o.Q * s);
   const small = o.P + o.Q === 0 && o.p <= 3 && o.q <= 3 ? smallOrderSeries(x, terms, o.p) : null;
+  // without a seasonal block the polynomials are the coefficients: mapped without allocating
+  const phi = new Float64Array(Math.max(o.p, 1));
+  const theta = new Float64Array(Math.max(o.q, 1));
+  const work = new Float64Array(Math.max(o.p, o.q, 1));
   const objective = (u: Float64Array): number => {
+    if (small) {
+      toStationaryInto(u, 0, o.p, phi, work, 1);
+      toStationaryInto(u, o.p, o.q, theta, work, -1);
+      return Math.log(smallOrderSumOfSquares(small, phi, theta, o.p, o.q, terms.length));
+    }
     const a = expandAr(toStationary(at(u, 0, o.p)), toStationary(at(u, o.p + o.q, o.P)), s);
     const b = expandMa(toInvertible(at(u, o.p, o.q)), toInvertible(at(u, o.p + o.q + o.P, o.Q)), s);
-    if (small) return Math.log(smallOrderSumOfSquares(small, a, b, o.p, terms.length));
     return Math.log(sparseSumOfSquares(x, lags.set(a, b), terms, e));
   };
   const r = minimizeBfgs(objective, new Float64Array(k), { maxIter: 100, gradTol: 1e-6, fTol: 1e-10, step: 1e-6 });
@@ -162,15 +170,15 @@ function smallOrderSeries(w: Float64Array, terms: Int32Array, na: number): Small
  * same order, so the same sum to the last digit, several times faster on a pass that a CSS
  * search runs a few hundred times.
  */
-function smallOrderSumOfSquares(c: SmallOrderSeries, a: Float64Array, b: Float64Array, na: number, nTerms: number): number {
+function smallOrderSumOfSquares(c: SmallOrderSeries, a: Float64Array, b: Float64Array, na: number, nb: number, nTerms: number): number {
   const { xz, used } = c;
   const n = used.length;
-  const a0 = a.length > 0 ? a[0] : 0;
-  const a1 = a.length > 1 ? a[1] : 0;
-  const a2 = a.length > 2 ? a[2] : 0;
-  const b0 = b.length > 0 ? b[0] : 0;
-  const b1 = b.length > 1 ? b[1] : 0;
-  const b2 = b.length > 2 ? b[2] : 0;
+  const a0 = na > 0 ? a[0] : 0;
+  const a1 = na > 1 ? a[1] : 0;
+  const a2 = na > 2 ? a[2] : 0;
+  const b0 = nb > 0 ? b[0] : 0;
+  const b1 = nb > 1 ? b[1] : 0;
+  const b2 = nb > 2 ? b[2] : 0;
   let e1 = 0;
   let e2 = 0;
   let e3 = 0;
