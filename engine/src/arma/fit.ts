@@ -21,6 +21,7 @@
  */
 import { Matrix, inverse } from 'ml-matrix';
 import { minimizeBfgs } from './bfgs';
+import { chandrasekharScore } from './chandrasekhar-score';
 import { cssStart } from './css';
 import { hannanRissanen } from './hannan-rissanen';
 import { armaInformation, inverseSpd } from './information';
@@ -116,6 +117,12 @@ export interface FitOptions {
    */
   boundaryRestarts?: boolean;
 }
+
+/**
+ * The backward Chandrasekhar score costs about three passes and the stationary covariance's
+ * tangents; forward differences cost k passes. From four coefficients on the score is cheaper.
+ */
+const CHANDRASEKHAR_SCORE_MIN_K = 4;
 
 /** Orders whose likelihood commonly has several maxima (near-cancelling AR and MA roots). */
 export function needsSecondStart(o: Required<ArmaSpec>): boolean {
@@ -247,8 +254,20 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
     lastPass = f.entry && trace ? { ssq: f.ssq, entry: f.entry, trace } : null;
     return 0.5 * Math.log(f.ssq / f.nUsed) + (0.5 * f.sumLogF) / f.nUsed;
   };
+  // Where the filter settles late or never (a seasonal MA part near the unit circle), the
+  // steady-state score has nothing to work on; the gradient then comes from the Chandrasekhar
+  // recursions run backwards (chandrasekhar-score.ts), about three passes' work instead of k + 1.
   const gradient = scoreInput
-    ? (u: Float64Array): Float64Array | null => (lastValid && lastPass && sameValues(lastU, u) ? steadyStateScore(scoreInput, u, lastPass) : null)
+    ? (u: Float64Array): Float64Array | null => {
+        if (!lastValid || !sameValues(lastU, u)) return null;
+        const steady = lastPass ? steadyStateScore(scoreInput, u, lastPass) : null;
+        if (steady || k < CHANDRASEKHAR_SCORE_MIN_K) return steady;
+        try {
+          return chandrasekharScore(x, scoreInput.model(u), k);
+        } catch {
+          return null;
+        }
+      }
     : undefined;
   const search = (from: Float64Array) =>
     minimizeBfgs(objective, from, {
