@@ -30,69 +30,63 @@ export function chandrasekharScore(x: Float64Array, model: StateSpaceTangents, k
   const { row, dRow } = (r > 12 ? firstRowTangents(r, phi, ss.R, dPhi, dR, k) : null) ?? stationaryCovarianceTangents(ss, dPhi, dR, k);
   if (!(row[0] > 0)) return null;
   const s = r + 1;
-  // stored per hour: a, w, p (stride s, element r the zero padding), m and 1/F
-  const A = scratch('chs.a', n * s);
-  const W = scratch('chs.w', n * s);
-  const Pr = scratch('chs.p', n * s);
+  // a, w, p before each hour t at offset t·s (element r the zero padding), then m and 1/F: the
+  // recursion writes each hour's state straight after the previous one, nothing is copied
+  const A = scratch('chs.a', (n + 1) * s);
+  const W = scratch('chs.w', (n + 1) * s);
+  const Pr = scratch('chs.p', (n + 1) * s);
   const M = scratch('chs.m', n);
   const G = scratch('chs.g', n);
-  let a = scratch('chs.a0', s);
-  let w = scratch('chs.w0', s);
-  let p = scratch('chs.p0', s);
-  let an = scratch('chs.an', s);
-  let wn = scratch('chs.wn', s);
-  let pn = scratch('chs.pn', s);
-  a.fill(0);
-  w.fill(0);
-  p.fill(0);
-  an.fill(0);
-  wn.fill(0);
-  pn.fill(0);
-  for (let i = 0; i < r; i++) p[i] = row[i];
-  for (let i = 0; i < r; i++) w[i] = phi[i] * p[0] + p[i + 1];
-  let m = -1 / p[0];
-  let ginv = 1 / p[0];
+  for (let i = 0; i < s; i++) {
+    A[i] = 0;
+    Pr[i] = i < r ? row[i] : 0;
+  }
+  for (let i = 0; i < r; i++) W[i] = phi[i] * Pr[0] + Pr[i + 1];
+  W[r] = 0;
+  let m = -1 / Pr[0];
+  let ginv = 1 / Pr[0];
   let ssq = 0;
   let sumLogF = 0;
   for (let t = 0; t < n; t++) {
     const o = t * s;
-    for (let i = 0; i < s; i++) {
-      A[o + i] = a[i];
-      W[o + i] = w[i];
-      Pr[o + i] = p[i];
-    }
+    const on = o + s;
     M[t] = m;
     G[t] = ginv;
     const y = x[t];
-    const v = y - a[0];
+    const v = y - A[o];
     const vf = v * ginv;
     ssq += v * vf;
-    sumLogF += Math.log(p[0]);
-    const zw = w[0];
+    sumLogF += Math.log(Pr[o]);
+    const zw = W[o];
     const coef = zw * ginv;
     const mz = m * zw;
     for (let i = 0; i < r; i++) {
-      an[i] = phi[i] * y + a[i + 1] + p[i + 1] * vf;
-      wn[i] = w[i + 1] - p[i + 1] * coef;
-      pn[i] = p[i] + mz * w[i];
+      const p1 = Pr[o + i + 1];
+      A[on + i] = phi[i] * y + A[o + i + 1] + p1 * vf;
+      W[on + i] = W[o + i + 1] - p1 * coef;
+      Pr[on + i] = Pr[o + i] + mz * W[o + i];
     }
-    ginv = 1 / pn[0];
+    A[on + r] = 0;
+    W[on + r] = 0;
+    Pr[on + r] = 0;
+    ginv = 1 / Pr[on];
     m -= mz * mz * ginv;
-    [a, an] = [an, a];
-    [w, wn] = [wn, w];
-    [p, pn] = [pn, p];
   }
   if (!(ssq > 0) || !Number.isFinite(ssq) || !Number.isFinite(sumLogF)) return null;
-  // adjoints of the state after hour t (entering hour t + 1): ā, w̄, p̄, m̄, ḡ (of 1/F)
-  const ab = scratch('chs.ab', s);
-  const wb = scratch('chs.wb', s);
-  const pb = scratch('chs.pb', s);
-  const abn = scratch('chs.abn', s);
-  const wbn = scratch('chs.wbn', s);
-  const pbn = scratch('chs.pbn', s);
+  // adjoints of the state after hour t (entering hour t + 1): ā, w̄, p̄, m̄, ḡ (of 1/F); each
+  // hour writes those of the state before it into the other buffers (element r stays zero)
+  let ab = scratch('chs.ab', s);
+  let wb = scratch('chs.wb', s);
+  let pb = scratch('chs.pb', s);
+  let abn = scratch('chs.abn', s);
+  let wbn = scratch('chs.wbn', s);
+  let pbn = scratch('chs.pbn', s);
   ab.fill(0);
   wb.fill(0);
   pb.fill(0);
+  abn.fill(0);
+  wbn.fill(0);
+  pbn.fill(0);
   let mb = 0;
   let gb = 0;
   const phib = new Float64Array(r);
@@ -101,65 +95,67 @@ export function chandrasekharScore(x: Float64Array, model: StateSpaceTangents, k
   for (let t = n - 1; t >= 0; t--) {
     const o = t * s;
     const y = x[t];
-    const a0 = A[o];
     const g0 = G[t];
     const m0 = M[t];
     const zw = W[o];
-    const v = y - a0;
+    const v = y - A[o];
     const vf = v * g0;
     const coef = zw * g0;
     const mz = m0 * zw;
-    // the new p_0 and 1/F of the next hour, as the forward step made them
-    const pn0 = Pr[o] + mz * zw;
-    const gn = 1 / pn0;
-    // m ← m − mz² gn
+    // 1/F of the next hour, as the forward step made it: m ← m − mz² gn, gn = 1/p'_0
+    const gn = 1 / Pr[o + s];
     let mzb = -2 * mz * gn * mb;
-    let gnb = gb - mz * mz * mb;
+    const gnb = gb - mz * mz * mb;
     let m0b = mb;
-    // gn = 1/pn_0
     const pn0b = -gn * gn * gnb;
-    abn.fill(0);
-    wbn.fill(0);
-    pbn.fill(0);
     let vfb = 0;
     let coefb = 0;
+    // p'_i = p_i + mz w_i; w'_i = w_{i+1} − p_{i+1} coef; a'_i = φ_i y + a_{i+1} + p_{i+1} vf
     for (let i = 0; i < r; i++) {
-      // pn_i = p_i + mz w_i
       const pbi = pb[i] + (i === 0 ? pn0b : 0);
-      pbn[i] += pbi;
       mzb += pbi * W[o + i];
-      wbn[i] += pbi * mz;
-      // wn_i = w_{i+1} − p_{i+1} coef
-      const wbi = wb[i];
-      wbn[i + 1] += wbi;
-      pbn[i + 1] -= wbi * coef;
-      coefb -= wbi * Pr[o + i + 1];
-      // an_i = φ_i y + a_{i+1} + p_{i+1} vf
+      const p1 = Pr[o + i + 1];
+      coefb -= wb[i] * p1;
       const abi = ab[i];
       phib[i] += abi * y;
-      abn[i + 1] += abi;
-      pbn[i + 1] += abi * vf;
-      vfb += abi * Pr[o + i + 1];
+      vfb += abi * p1;
     }
-    // mz = m zw, coef = zw g
+    // mz = m zw, coef = zw g; ssq += v vf, vf = v g
     m0b += mzb * zw;
-    let zwb = mzb * m0 + coefb * g0;
+    const zwb = mzb * m0 + coefb * g0;
     let g0b = coefb * zw;
-    wbn[0] += zwb;
-    zwb = 0;
-    // ssq += v vf, vf = v g
     let vb = ssqBar * vf;
     vfb += ssqBar * v;
     vb += vfb * g0;
     g0b += vfb * v;
-    abn[0] -= vb;
-    // sumLogF += log p_0
-    pbn[0] += logBar / Pr[o];
-    for (let i = 0; i < s; i++) {
-      ab[i] = abn[i];
-      wb[i] = wbn[i];
-      pb[i] = pbn[i];
+    // the state before the hour: each element's adjoint from the three updates above
+    for (let j = 0; j < r; j++) {
+      const pbj = pb[j] + (j === 0 ? pn0b : 0);
+      let pv = pbj;
+      let wv = pbj * mz;
+      let av = 0;
+      if (j > 0) {
+        pv += ab[j - 1] * vf - wb[j - 1] * coef;
+        wv += wb[j - 1];
+        av = ab[j - 1];
+      }
+      pbn[j] = pv;
+      wbn[j] = wv;
+      abn[j] = av;
     }
+    // a_0 in v, w_0 in zw, p_0 in log F
+    abn[0] -= vb;
+    wbn[0] += zwb;
+    pbn[0] += logBar / Pr[o];
+    let tmp = ab;
+    ab = abn;
+    abn = tmp;
+    tmp = wb;
+    wb = wbn;
+    wbn = tmp;
+    tmp = pb;
+    pb = pbn;
+    pbn = tmp;
     mb = m0b;
     gb = g0b;
   }

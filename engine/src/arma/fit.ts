@@ -7,10 +7,12 @@
  *  - objective the exact Gaussian likelihood from the Kalman filter with σ² concentrated out and
  *    the mean concentrated out by GLS, initial covariance by Gardner, Harvey & Phillips (1980),
  *  - BFGS on the unconstrained values, started from the information matrix (information.ts), with
- *    the exact gradient for a complete series without a mean (steady-score.ts) and forward
- *    differences otherwise; for AR and MA orders both ≥ 2 three more searches, from all-zero
- *    coefficients, from an AR part and an MA part leaning opposite ways, and from the
- *    conditional-sum-of-squares estimate (css.ts), the highest kept; a search that ends on the
+ *    the exact gradient for a complete series without a mean (steady-score.ts, or
+ *    chandrasekhar-score.ts where the filter settles late or never) and forward differences
+ *    otherwise; for AR and MA orders both ≥ 2 a second search from the conditional-sum-of-squares
+ *    estimate (css.ts) and, when the two end at different maxima, two more, from all-zero
+ *    coefficients and from an AR part and an MA part leaning opposite ways, the highest kept;
+ *    a search that ends on the
  *    boundary of the stationary / invertible region (onBoundary) is searched again from the
  *    CSS estimate and from zero, the highest kept,
  *  - standard errors from the inverse of a forward-difference Hessian of −log L in the natural
@@ -236,6 +238,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   const lastU = new Float64Array(k);
   let lastValid = false;
   let lastPass: SteadyPass | null = null;
+  let lastSteadyAt = -1;
   const trace = scoreInput ? new Float64Array(x.length) : undefined;
   const objective = (u: Float64Array): number => {
     const ss = model(u);
@@ -252,6 +255,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
     lastU.set(u);
     lastValid = true;
     lastPass = f.entry && trace ? { ssq: f.ssq, entry: f.entry, trace } : null;
+    lastSteadyAt = f.steadyAt;
     return 0.5 * Math.log(f.ssq / f.nUsed) + (0.5 * f.sumLogF) / f.nUsed;
   };
   // Where the filter settles late or never (a seasonal MA part near the unit circle), the
@@ -262,6 +266,9 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
         if (!lastValid || !sameValues(lastU, u)) return null;
         const steady = lastPass ? steadyStateScore(scoreInput, u, lastPass) : null;
         if (steady || k < CHANDRASEKHAR_SCORE_MIN_K) return steady;
+        // differences cost k passes that stop where the filter settles; the backward score
+        // about three passes over the whole series without that stop
+        if (lastSteadyAt >= 0 && k * (lastSteadyAt + 1) < 3 * x.length) return null;
         try {
           return chandrasekharScore(x, scoreInput.model(u), k);
         } catch {
