@@ -15,7 +15,7 @@
  * backwards (reverse-mode differentiation, Griewank & Walther 2008, ch. 3) for the derivatives
  * with respect to φ and to the starting row p; the row's derivatives along each coefficient
  * (first-row-tangents.ts for a large state, state-space.ts otherwise) and φ's (state-space-tangents.ts) join them by
- * the chain rule. About three passes' work whatever the number of coefficients.
+ * the chain rule. Three to four passes' work whatever the number of coefficients (measured).
  */
 import { firstRowTangents } from './first-row-tangents';
 import { stationaryCovarianceTangents } from './state-space';

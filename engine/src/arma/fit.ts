@@ -121,8 +121,10 @@ export interface FitOptions {
 }
 
 /**
- * The backward Chandrasekhar score costs about three passes and the stationary covariance's
- * tangents; forward differences cost k passes. From four coefficients on the score is cheaper.
+ * The backward Chandrasekhar score costs three to four passes and the stationary covariance's
+ * tangents; forward differences cost k passes. From four coefficients on it costs no more, and
+ * its exact values take the search to the maximum in fewer iterations (ARMA(0,2)(1,1)_24 on the
+ * daily-differenced demand series: 69 likelihood evaluations instead of 268).
  */
 const CHANDRASEKHAR_SCORE_MIN_K = 4;
 
@@ -260,14 +262,14 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   };
   // Where the filter settles late or never (a seasonal MA part near the unit circle), the
   // steady-state score has nothing to work on; the gradient then comes from the Chandrasekhar
-  // recursions run backwards (chandrasekhar-score.ts), about three passes' work instead of k + 1.
+  // recursions run backwards (chandrasekhar-score.ts), three to four passes' work instead of k.
   const gradient = scoreInput
     ? (u: Float64Array): Float64Array | null => {
         if (!lastValid || !sameValues(lastU, u)) return null;
         const steady = lastPass ? steadyStateScore(scoreInput, u, lastPass) : null;
         if (steady || k < CHANDRASEKHAR_SCORE_MIN_K) return steady;
         // differences cost k passes that stop where the filter settles; the backward score
-        // about three passes over the whole series without that stop
+        // three to four passes over the whole series without that stop
         if (lastSteadyAt >= 0 && k * (lastSteadyAt + 1) < 3 * x.length) return null;
         try {
           return chandrasekharScore(x, scoreInput.model(u), k);
