@@ -20,7 +20,12 @@
  */
 import { scratch } from './scratch';
 
-export function autocovarianceCovariance(r: number, phi: Float64Array, R: Float64Array, out?: Float64Array): Float64Array | null {
+/**
+ * With `rows` < r only the first `rows` rows (and, by symmetry, columns) are filled: the
+ * likelihood's Chandrasekhar start-up needs no more than the first row (kalman.ts), which costs
+ * O(r · s²) instead of O(r² · s²).
+ */
+export function autocovarianceCovariance(r: number, phi: Float64Array, R: Float64Array, out?: Float64Array, rows = r): Float64Array | null {
   let p = 0;
   for (let i = 0; i < r; i++) if (phi[i] !== 0) p = i + 1;
   let q = 0;
@@ -71,7 +76,7 @@ export function autocovarianceCovariance(r: number, phi: Float64Array, R: Float6
     if (R[i] !== 0) thIdx.push(i);
   }
   const P = out && out.length === r * r ? out : new Float64Array(r * r);
-  for (let i = 0; i < r; i++) {
+  for (let i = 0; i < rows; i++) {
     for (let j = i; j < r; j++) {
       let s = 0;
       // φ_{i+k+1} = phi[m] with m = i + k, k = m − i ≥ 0

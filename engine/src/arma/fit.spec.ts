@@ -165,7 +165,8 @@ describe('several likelihood maxima (overparameterised orders)', () => {
     expect(both.loglik).toBeGreaterThan(-2817.148 - 0.01);
     const one = fitArma(x, { p: 3, q: 3, includeMean: false }, { computeSe: false, secondStart: false });
     expect(both.loglik).toBeGreaterThan(one.loglik + 1);
-    expect(both.startedFrom).toBe('zero');
+    // reached from another start: the CSS estimate (searched second) or zero
+    expect(['css', 'zero']).toContain(both.startedFrom);
   });
 
   it('keeps the Hannan–Rissanen search when it is the higher one, and never starts twice from a given start', () => {

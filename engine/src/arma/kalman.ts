@@ -11,7 +11,7 @@
  * A constant mean can be concentrated out as a GLS regression coefficient by filtering a
  * column of ones alongside the data with the same gains (the augmented filter of de Jong 1991).
  */
-import { ArmaStateSpace, stationaryCovariance } from './state-space';
+import { ArmaStateSpace, stationaryCovariance, stationaryCovarianceFirstRow } from './state-space';
 
 export interface FilterOptions {
   /** Subtract this known mean before filtering. */
@@ -346,7 +346,13 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
   for (let i = 0; i < r; i++) phi[i] = phiIn[i];
   let P = ws.P;
   let Pn = ws.Pn;
-  {
+  const complete = opts.complete ?? !hasMissing(x);
+  // the likelihood-only pass over a complete series reads only the first row of P (below)
+  const firstRowOnly = complete && !opts.keepState && !profile && opts.residuals === undefined && opts.predictions === undefined && (opts.stopAt ?? -1) < 0;
+  if (firstRowOnly) {
+    const P0 = stationaryCovarianceFirstRow(ss, ws.P0);
+    for (let j = 0; j < r; j++) P[j] = P0[j];
+  } else {
     const P0 = stationaryCovariance(ss, ws.P0);
     for (let i = 0; i < r; i++) for (let j = i; j < r; j++) P[i * s + j] = P0[i * r + j];
   }
@@ -360,7 +366,6 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
   // over; the whole of P is then kept up to date as well (a rank-one update), as it is when the
   // final state is wanted. w_0 = T P_0 Z', m_0 = −1/F_0, so this needs an observed first hour.
   let chandra = n > 0 && x[0] - mu0 === x[0] - mu0;
-  const complete = opts.complete ?? !hasMissing(x);
   const trackP = chandra && (!!opts.keepState || !complete);
   let w = ws.w;
   let wn = ws.wn;

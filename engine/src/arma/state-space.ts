@@ -42,6 +42,16 @@ export function stationaryCovariance(ss: ArmaStateSpace, out?: Float64Array): Fl
   return autocovarianceCovariance(ss.r, ss.phi, ss.R, out) ?? doublingCovariance(ss.r, ss.phi, ss.R);
 }
 
+/**
+ * The first row of the stationary covariance (and its first column) in out[0..r), the rest of
+ * out unspecified: what the likelihood's Chandrasekhar start-up reads of P (kalman.ts). For a
+ * large state that is one row of the autocovariance sum instead of all of them.
+ */
+export function stationaryCovarianceFirstRow(ss: ArmaStateSpace, out: Float64Array): Float64Array {
+  if (ss.r <= GARDNER_MAX_R) return gardnerCovariance(ss, out);
+  return autocovarianceCovariance(ss.r, ss.phi, ss.R, out, 1) ?? doublingCovariance(ss.r, ss.phi, ss.R);
+}
+
 /** Position of (i, j), i ≤ j, in the row-wise upper triangle of an r×r matrix, for each r. */
 const triangleIndex = new Map<number, Int32Array>();
 function triangleOf(r: number): Int32Array {

@@ -25,7 +25,7 @@ import { cpus, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { accuracy, backtest, describeModel, fitArma, median, runPipeline, type BacktestResult } from '@morrowline/engine';
 import { simulateArma21 as simulate } from './bench-series';
-import { printRealTable, realCases, RFitTiming, timeEngine } from './bench-real';
+import { printRealTable, RealCase, realCases, RFitTiming, timeEngine, timeRealTable } from './bench-real';
 import { runWeatherBench } from './bench-weather';
 
 function valueOf(args: string[], name: string): string | undefined {
@@ -135,15 +135,11 @@ function main(): void {
     const cases = realCases();
     // warm the JIT on the first cases before any is timed (a long-running server is warm)
     timeEngine(taylorLoad, cases.filter((c) => c.P === 0).slice(0, 16));
-    const rows = timeEngine(taylorLoad, cases);
-    if (rVersion) {
-      const out = runR({ real: { load: taylorLoad, cases: cases.map((c) => ({ id: c.id, diff: [c.diff], p: c.p, q: c.q, P: c.P, Q: c.Q })) } });
-      const byId = new Map((out.real as Array<{ id: string; cssMl: RFitTiming; ml: RFitTiming }>).map((r) => [r.id, r]));
-      for (const row of rows) {
-        const r = byId.get(row.id);
-        if (r) row.r = { cssMl: r.cssMl, ml: r.ml };
-      }
-    }
+    const fitR = (group: RealCase[]) => {
+      const out = runR({ real: { load: taylorLoad, cases: group.map((c) => ({ id: c.id, diff: [c.diff], p: c.p, q: c.q, P: c.P, Q: c.Q })) } });
+      return new Map((out.real as Array<{ id: string; cssMl: RFitTiming; ml: RFitTiming }>).map((r) => [r.id, { cssMl: r.cssMl, ml: r.ml }]));
+    };
+    const rows = timeRealTable(taylorLoad, cases, rVersion ? fitR : null);
     printRealTable(rows);
     console.log('');
     if (args.includes('--real-only')) return;

@@ -1,0 +1,69 @@
+import { simulateArma21 } from '../cli/bench-series';
+import taylor from '../fixtures/taylor-hourly.json';
+import { difference } from '../series/differencing';
+import { chandrasekharScore } from './chandrasekhar-score';
+import { firstRowTangents } from './first-row-tangents';
+import { kalmanFilter } from './kalman';
+import { seriesCovarianceTangents } from './state-space';
+import { Orders, stateSpaceWithTangents } from './state-space-tangents';
+
+/**
+ * The backward Chandrasekhar score is a rewriting of the gradient, so it is checked against the
+ * plain definition: central differences of the fit's objective, ½ log(S/n) + ½ Σ log F_t / n,
+ * with the Kalman filter run in full at each probe.
+ */
+function objective(y: Float64Array, o: Orders, v: Float64Array): number {
+  const f = kalmanFilter(y, stateSpaceWithTangents(v, o).ss, { tol: 1e-10, complete: true });
+  return 0.5 * Math.log(f.ssq / f.nUsed) + (0.5 * f.sumLogF) / f.nUsed;
+}
+
+describe('chandrasekharScore: the gradient where the filter does not settle', () => {
+  const daily = Float64Array.from(difference(taylor.load as number[], [24]));
+  const simulated = Float64Array.from(simulateArma21(1500, 17));
+  const cases: Array<{ name: string; y: Float64Array; o: Orders; u: number[] }> = [
+    // a seasonal MA part near the unit circle: the filter's covariance still moves at the end
+    { name: 'daily-differenced demand, ARMA(0,2)(1,1)_24', y: daily, o: { p: 0, q: 2, P: 1, Q: 1, period: 24 }, u: [0.3, -0.8, 0.2, -1.6] },
+    { name: 'daily-differenced demand, ARMA(3,3)(1,1)_24', y: daily, o: { p: 3, q: 3, P: 1, Q: 1, period: 24 }, u: [0.5, -0.2, 0.1, -0.4, 0.3, -0.2, 0.2, -1.5] },
+    { name: 'simulated, ARMA(2,2) with a small state', y: simulated, o: { p: 2, q: 2, P: 0, Q: 0, period: 0 }, u: [0.3, 0.2, 1.6, 0.3] },
+  ];
+
+  it.each(cases)('$name: within 1e-6 of central differences', ({ y, o, u }) => {
+    const at = Float64Array.from(u);
+    const g = chandrasekharScore(y, stateSpaceWithTangents(at, o), at.length);
+    expect(g).not.toBeNull();
+    for (let j = 0; j < at.length; j++) {
+      const h = 1e-5;
+      const up = Float64Array.from(at);
+      const down = Float64Array.from(at);
+      up[j] += h;
+      down[j] -= h;
+      const central = (objective(y, o, up) - objective(y, o, down)) / (2 * h);
+      expect(Math.abs(g![j] - central)).toBeLessThan(1e-6);
+    }
+  });
+
+  it('the seasonal case is one where the filter never reaches its steady state', () => {
+    const { ss } = stateSpaceWithTangents(Float64Array.from(cases[0].u), cases[0].o);
+    expect(kalmanFilter(daily, ss, { tol: 1e-10, complete: true }).steadyAt).toBe(-1);
+  });
+});
+
+describe('firstRowTangents: the stationary covariance’s first row and its derivatives', () => {
+  // checked against the series form P = Σ_k (T^k R)(T^k R)' summed term by term with its
+  // tangents (state-space.ts), another route to the same quantities
+  const cases: Array<{ name: string; o: Orders; u: number[] }> = [
+    { name: 'ARMA(0,2)(1,1)_24', o: { p: 0, q: 2, P: 1, Q: 1, period: 24 }, u: [0.3, -0.8, 0.2, -1.6] },
+    { name: 'ARMA(3,3)(1,1)_24', o: { p: 3, q: 3, P: 1, Q: 1, period: 24 }, u: [0.5, -0.2, 0.1, -0.4, 0.3, -0.2, 0.2, -1.5] },
+    { name: 'ARMA(1,0)(1,0)_24, rows pivoted in the solve', o: { p: 1, q: 0, P: 1, Q: 0, period: 24 }, u: [0.9, 1.2] },
+    { name: 'ARMA(2,1)(1,1)_24 at zero, where every coefficient is zero but moves', o: { p: 2, q: 1, P: 1, Q: 1, period: 24 }, u: [0, 0, 0, 0, 0] },
+  ];
+  it.each(cases)('$name: within 1e-10 (relative) of the summed series', ({ o, u }) => {
+    const { ss, dPhi, dR } = stateSpaceWithTangents(Float64Array.from(u), o);
+    const ours = firstRowTangents(ss.r, ss.phi, ss.R, dPhi, dR, u.length);
+    expect(ours).not.toBeNull();
+    const sum = seriesCovarianceTangents(ss, dPhi, dR, u.length);
+    const scale = Math.abs(sum.row[0]);
+    for (let i = 0; i < ss.r; i++) expect(Math.abs(ours!.row[i] - sum.row[i]) / scale).toBeLessThan(1e-10);
+    for (let i = 0; i < sum.dRow.length; i++) expect(Math.abs(ours!.dRow[i] - sum.dRow[i]) / Math.max(1, scale)).toBeLessThan(1e-10);
+  });
+});
