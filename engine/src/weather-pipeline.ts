@@ -32,7 +32,7 @@ import { choiceOf, describeModel } from './backtest';
 import { seasonalNaive } from './seasonal-naive';
 import { countFinite, SeriesInput, toSeries, withExcluded } from './series/series';
 import { describeDifferencing } from './differencing';
-import { CalendarHours, plainCalendar, TermSet } from './weather/load-terms';
+import { CalendarHours, plainCalendar, TEMPERATURE_BLOCK_HOURS, TermSet } from './weather/load-terms';
 import { chooseThresholds, estimateResponse, hasTerms, LoadResponse, responseValues } from './weather/load-response';
 import { ForecastTemperature, forecastTemperature } from './weather/forecast-temperature';
 import { responseSd } from './weather/response-uncertainty';
@@ -47,8 +47,8 @@ export interface WeatherChoice {
 export interface WeatherPipelineOptions {
   /** options of the error model's selection (./pipeline); bands are calibrated here */
   pipeline?: PipelineOptions;
-  /** candidate term sets (thresholds are chosen per zone); default: none, calendar, temperature, temperature with recency (with the calendar when one is given) */
-  termSets?: Array<Pick<TermSet, 'temperature' | 'recency' | 'calendar'>>;
+  /** candidate term sets (thresholds are chosen per zone; blocks of TEMPERATURE_BLOCK_HOURS unless given); default: none, calendar, temperature, temperature with recency (with the calendar when one is given) */
+  termSets?: Array<Pick<TermSet, 'temperature' | 'recency' | 'calendar' | 'blockHours'>>;
   /** skip the choice: these terms, thresholds, differencing and orders (β and ARMA re-estimated) */
   fixed?: WeatherChoice;
   /** days of rolling origins for the choice and the band calibration (default 28) */
@@ -306,14 +306,15 @@ export function runWeatherPipeline(input: WeatherPipelineInput): WeatherPipeline
     } else {
       // calendar candidates only when the calendar has a special day in the history or the forecast
       const withCalendar = input.calendar !== undefined && hasSpecialDay(cal, n + h);
-      const sets = o.termSets ?? [
+      const sets: NonNullable<WeatherPipelineOptions['termSets']> = o.termSets ?? [
         NO_TERMS,
         ...(withCalendar ? [{ temperature: false, recency: false, calendar: true }] : []),
         { temperature: true, recency: false, calendar: withCalendar },
         { temperature: true, recency: true, calendar: withCalendar },
       ];
       const fullest = sets.reduce((a, b) => (+b.temperature + +b.recency + +b.calendar > +a.temperature + +a.recency + +a.calendar ? b : a));
-      const thresholds = chooseThresholds(y, obs, cal, { ...fullest, heatBelow: 14, coolAbove: 20 }).terms;
+      const blockHours = fullest.blockHours ?? TEMPERATURE_BLOCK_HOURS;
+      const thresholds = chooseThresholds(y, obs, cal, { ...fullest, heatBelow: 14, coolAbove: 20, blockHours }).terms;
       const plain = plainResult();
       if (!plain.model) return fromPlain(plain, { ...NO_TERMS, heatBelow: thresholds.heatBelow, coolAbove: thresholds.coolAbove }, performance.now() - ts);
       // the model without weather: today's pipeline, scored like the others
@@ -321,7 +322,7 @@ export function runWeatherPipeline(input: WeatherPipelineInput): WeatherPipeline
       // the weather candidates' differencing and orders: the pipeline's choice on u of the fullest set
       // (the load's own orders describe weather-driven swings the terms take out; measured on the
       // simulator's zones, they doubled the perfect-weather error)
-      const full = { ...fullest, heatBelow: thresholds.heatBelow, coolAbove: thresholds.coolAbove };
+      const full = { ...fullest, heatBelow: thresholds.heatBelow, coolAbove: thresholds.coolAbove, blockHours };
       const gFull = responseValues(estimateResponse(y, obs, cal, full), obs, cal, 0, n);
       const uFull = new Float64Array(n);
       for (let t = 0; t < n; t++) uFull[t] = y[t] - gFull[t];
@@ -329,7 +330,7 @@ export function runWeatherPipeline(input: WeatherPipelineInput): WeatherPipeline
       const weatherModel = sel.model ? { ...choiceOf(sel.model), start: startOf(sel.model.coefficients, sel.model) } : plainModel;
       const scored: Scored[] = [];
       for (const set of sets) {
-        const terms = { ...set, heatBelow: thresholds.heatBelow, coolAbove: thresholds.coolAbove };
+        const terms = { ...set, heatBelow: thresholds.heatBelow, coolAbove: thresholds.coolAbove, blockHours: set.blockHours ?? TEMPERATURE_BLOCK_HOURS };
         try {
           const sc = fitTerms(terms, hasTerms(terms) ? weatherModel : plainModel);
           candidates.push({ label: describeTerms(terms), terms, mape: sc.score.mape });
