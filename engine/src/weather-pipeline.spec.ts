@@ -15,7 +15,7 @@ describe('weather pipeline', () => {
     expect(r.method).toBe('regression-arima');
     expect(r.choice!.terms.temperature).toBe(true);
     expect(r.choice!.terms.blockHours).toBe(2); // degree terms by two-hour block of the day
-    expect(r.response.some((c) => c.name === "hdd_h06")).toBe(true);
+    expect(r.response.some((c) => c.name === 'hdd_h06')).toBe(true);
     const without = r.candidates.find((c) => !c.terms.temperature && !c.terms.recency)!;
     const chosen = r.candidates.find((c) => c.terms.temperature === r.choice!.terms.temperature && c.terms.recency === r.choice!.terms.recency)!;
     expect(chosen.mape).toBeLessThan(without.mape);
