@@ -231,19 +231,30 @@ export function runWeatherPipeline(input: WeatherPipelineInput): WeatherPipeline
    * day or week before was, a public holiday or bridge day is left out. Their errors belong to
    * the special days (a holiday's own, and its echo through the daily and weekly differences);
    * with Christmas in the four weeks, they widened every band of the weeks after by a third.
-   * Kept only when at least half of the days remain.
+   * Kept only when at least half of the days remain; otherwise (the weeks after Christmas and the
+   * New Year) only the special days themselves and the day after each are left out, when at
+   * least half remain: falling back to every error put the special days' misses of 40 % back
+   * into the calibration and widened the January bands until they covered 99–100 %.
    */
   const ordinaryDayErrors = (issued: Map<number, IntervalForecast>): number[] => {
     const all: number[] = [];
     const ordinary: number[] = [];
+    const notSpecial: number[] = [];
     let kept = 0;
+    let keptLoose = 0;
+    const specialIn = (from: number, to: number): boolean => {
+      for (let t = Math.max(0, from); t < to; t++) if (cal.holiday[t] || cal.bridge[t]) return true;
+      return false;
+    };
     for (let d = 0; d < days; d++) {
       const ws = testStart + d * 24;
       const f = issued.get(ws - lead);
       if (!f) continue;
-      let special = false;
-      for (let t = Math.max(0, ws - 168); t < ws + 24 && !special; t++) special = !!(cal.holiday[t] || cal.bridge[t]);
+      const special = specialIn(ws - 168, ws + 24);
+      // the looser rule: the day itself and the day after a special day only
+      const near = specialIn(ws - 24, ws + 24);
       if (!special) kept++;
+      if (!near) keptLoose++;
       for (let i = 0; i < 24 && ws + i < n; i++) {
         const a = y[ws + i];
         const se = f.se[lead + i];
@@ -251,9 +262,10 @@ export function runWeatherPipeline(input: WeatherPipelineInput): WeatherPipeline
         const zv = (a - f.mean[lead + i]) / se;
         all.push(zv);
         if (!special) ordinary.push(zv);
+        if (!near) notSpecial.push(zv);
       }
     }
-    return kept * 2 >= days ? ordinary : all;
+    return kept * 2 >= days ? ordinary : keptLoose * 2 >= days ? notSpecial : all;
   };
 
   const fitTerms = (terms: TermSet, model: ModelChoice): Scored => {
