@@ -226,46 +226,26 @@ export function runWeatherPipeline(input: WeatherPipelineInput): WeatherPipeline
     }
   };
 
-  /**
-   * Standardised errors for the band calibration from ordinary days only: a day that is, or whose
-   * day or week before was, a public holiday or bridge day is left out. Their errors belong to
-   * the special days (a holiday's own, and its echo through the daily and weekly differences);
-   * with Christmas in the four weeks, they widened every band of the weeks after by a third.
-   * Kept only when at least half of the days remain; otherwise (the weeks after Christmas and the
-   * New Year) only the special days themselves and the day after each are left out, when at
-   * least half remain: falling back to every error put the special days' misses of 40 % back
-   * into the calibration and widened the January bands until they covered 99–100 %.
-   */
+  /** the standardised errors of the backtest's days for the band calibration (calibrationErrors) */
   const ordinaryDayErrors = (issued: Map<number, IntervalForecast>): number[] => {
-    const all: number[] = [];
-    const ordinary: number[] = [];
-    const notSpecial: number[] = [];
-    let kept = 0;
-    let keptLoose = 0;
     const specialIn = (from: number, to: number): boolean => {
       for (let t = Math.max(0, from); t < to; t++) if (cal.holiday[t] || cal.bridge[t]) return true;
       return false;
     };
+    const list: CalibrationDay[] = [];
     for (let d = 0; d < days; d++) {
       const ws = testStart + d * 24;
       const f = issued.get(ws - lead);
       if (!f) continue;
-      const special = specialIn(ws - 168, ws + 24);
-      // the looser rule: the day itself and the day after a special day only
-      const near = specialIn(ws - 24, ws + 24);
-      if (!special) kept++;
-      if (!near) keptLoose++;
+      const z: number[] = [];
       for (let i = 0; i < 24 && ws + i < n; i++) {
         const a = y[ws + i];
         const se = f.se[lead + i];
-        if (!Number.isFinite(a) || !(se > 0)) continue;
-        const zv = (a - f.mean[lead + i]) / se;
-        all.push(zv);
-        if (!special) ordinary.push(zv);
-        if (!near) notSpecial.push(zv);
+        if (Number.isFinite(a) && se > 0) z.push((a - f.mean[lead + i]) / se);
       }
+      list.push({ z, specialWeek: specialIn(ws - 168, ws + 24), specialNear: specialIn(ws - 24, ws + 24) });
     }
-    return kept * 2 >= days ? ordinary : keptLoose * 2 >= days ? notSpecial : all;
+    return calibrationErrors(list, days);
   };
 
   const fitTerms = (terms: TermSet, model: ModelChoice): Scored => {
@@ -429,6 +409,32 @@ export function runWeatherPipeline(input: WeatherPipelineInput): WeatherPipeline
     timings: { totalMs: performance.now() - t0, selectionMs },
     warnings,
   };
+}
+
+export interface CalibrationDay {
+  /** standardised errors of the day's hours */
+  z: number[];
+  /** the day, or a day of the week before it, is a public holiday or bridge day */
+  specialWeek: boolean;
+  /** the day itself or the day before it is a public holiday or bridge day */
+  specialNear: boolean;
+}
+
+/**
+ * Standardised errors for the band calibration from ordinary days only: a day that is, or whose
+ * day or week before was, a public holiday or bridge day is left out. Their errors belong to
+ * the special days (a holiday's own, and its echo through the daily and weekly differences);
+ * with Christmas in the four weeks, they widened every band of the weeks after by a third.
+ * Kept only when at least half of the days remain; otherwise (the weeks after Christmas and the
+ * New Year) only the special days themselves and the day after each are left out, when at
+ * least half remain: falling back to every error put the special days' misses of 40 % back
+ * into the calibration and widened the January bands until they covered 99–100 %.
+ */
+export function calibrationErrors(list: readonly CalibrationDay[], days: number): number[] {
+  const pick = (keep: (d: CalibrationDay) => boolean): number[] => list.filter(keep).flatMap((d) => d.z);
+  if (list.filter((d) => !d.specialWeek).length * 2 >= days) return pick((d) => !d.specialWeek);
+  if (list.filter((d) => !d.specialNear).length * 2 >= days) return pick((d) => !d.specialNear);
+  return pick(() => true);
 }
 
 function startOf(coefficients: ReadonlyArray<{ name: string; value: number }>, m: { p: number; q: number; P: number; Q: number }): ModelChoice['start'] {
