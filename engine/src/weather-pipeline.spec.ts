@@ -3,7 +3,7 @@
  * construction (./weather/synthetic-zone): one that answers the temperature gets the temperature terms and
  * beats the model without them; one that does not keeps the model without them.
  */
-import { runWeatherPipeline } from './weather-pipeline';
+import { calibrationErrors, runWeatherPipeline } from './weather-pipeline';
 import { runPipeline } from './pipeline';
 import { syntheticZone } from './weather/synthetic-zone';
 
@@ -14,6 +14,8 @@ describe('weather pipeline', () => {
     const r = runWeatherPipeline({ history: z.load, horizon: 38, temperature: z.temperature, vintages: z.vintages });
     expect(r.method).toBe('regression-arima');
     expect(r.choice!.terms.temperature).toBe(true);
+    expect(r.choice!.terms.blockHours).toBe(2); // degree terms by two-hour block of the day
+    expect(r.response.some((c) => c.name === 'hdd_h06')).toBe(true);
     const without = r.candidates.find((c) => !c.terms.temperature && !c.terms.recency)!;
     const chosen = r.candidates.find((c) => c.terms.temperature === r.choice!.terms.temperature && c.terms.recency === r.choice!.terms.recency)!;
     expect(chosen.mape).toBeLessThan(without.mape);
@@ -42,5 +44,15 @@ describe('weather pipeline', () => {
     // 2 degrees more heating at about 12 MW per degree (the construction); recency terms, if chosen, add their share
     for (const d of diff) expect(d).toBeGreaterThan(2 * 12 * 0.6);
     for (const d of diff) expect(d).toBeLessThan(2 * 12 * 1.6);
+  });
+
+  it('calibrates the bands on ordinary days; after Christmas and the New Year on the days that are not special nor the day after one; else on every day', () => {
+    const day = (v: number, specialWeek: boolean, specialNear: boolean) => ({ z: [v], specialWeek, specialNear });
+    // 4 days: 2 ordinary (half) → the ordinary days only
+    expect(calibrationErrors([day(1, false, false), day(2, false, false), day(3, true, false), day(40, true, true)], 4)).toEqual([1, 2]);
+    // 1 ordinary of 4, 2 not near a special day → those two
+    expect(calibrationErrors([day(1, false, false), day(3, true, false), day(40, true, true), day(41, true, true)], 4)).toEqual([1, 3]);
+    // 1 of 4 not near a special day → every error
+    expect(calibrationErrors([day(1, false, false), day(3, true, true), day(40, true, true), day(41, true, true)], 4)).toEqual([1, 3, 40, 41]);
   });
 });

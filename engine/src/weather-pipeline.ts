@@ -32,7 +32,7 @@ import { choiceOf, describeModel } from './backtest';
 import { seasonalNaive } from './seasonal-naive';
 import { countFinite, SeriesInput, toSeries, withExcluded } from './series/series';
 import { describeDifferencing } from './differencing';
-import { CalendarHours, plainCalendar, TermSet } from './weather/load-terms';
+import { CalendarHours, plainCalendar, TEMPERATURE_BLOCK_HOURS, TermSet } from './weather/load-terms';
 import { chooseThresholds, estimateResponse, hasTerms, LoadResponse, responseValues } from './weather/load-response';
 import { ForecastTemperature, forecastTemperature } from './weather/forecast-temperature';
 import { responseSd } from './weather/response-uncertainty';
@@ -47,8 +47,8 @@ export interface WeatherChoice {
 export interface WeatherPipelineOptions {
   /** options of the error model's selection (./pipeline); bands are calibrated here */
   pipeline?: PipelineOptions;
-  /** candidate term sets (thresholds are chosen per zone); default: none, calendar, temperature, temperature with recency (with the calendar when one is given) */
-  termSets?: Array<Pick<TermSet, 'temperature' | 'recency' | 'calendar'>>;
+  /** candidate term sets (thresholds are chosen per zone; blocks of TEMPERATURE_BLOCK_HOURS unless given); default: none, calendar, temperature, temperature with recency (with the calendar when one is given) */
+  termSets?: Array<Pick<TermSet, 'temperature' | 'recency' | 'calendar' | 'blockHours'>>;
   /** skip the choice: these terms, thresholds, differencing and orders (β and ARMA re-estimated) */
   fixed?: WeatherChoice;
   /** days of rolling origins for the choice and the band calibration (default 28) */
@@ -226,34 +226,26 @@ export function runWeatherPipeline(input: WeatherPipelineInput): WeatherPipeline
     }
   };
 
-  /**
-   * Standardised errors for the band calibration from ordinary days only: a day that is, or whose
-   * day or week before was, a public holiday or bridge day is left out. Their errors belong to
-   * the special days (a holiday's own, and its echo through the daily and weekly differences);
-   * with Christmas in the four weeks, they widened every band of the weeks after by a third.
-   * Kept only when at least half of the days remain.
-   */
+  /** the standardised errors of the backtest's days for the band calibration (calibrationErrors) */
   const ordinaryDayErrors = (issued: Map<number, IntervalForecast>): number[] => {
-    const all: number[] = [];
-    const ordinary: number[] = [];
-    let kept = 0;
+    const specialIn = (from: number, to: number): boolean => {
+      for (let t = Math.max(0, from); t < to; t++) if (cal.holiday[t] || cal.bridge[t]) return true;
+      return false;
+    };
+    const list: CalibrationDay[] = [];
     for (let d = 0; d < days; d++) {
       const ws = testStart + d * 24;
       const f = issued.get(ws - lead);
       if (!f) continue;
-      let special = false;
-      for (let t = Math.max(0, ws - 168); t < ws + 24 && !special; t++) special = !!(cal.holiday[t] || cal.bridge[t]);
-      if (!special) kept++;
+      const z: number[] = [];
       for (let i = 0; i < 24 && ws + i < n; i++) {
         const a = y[ws + i];
         const se = f.se[lead + i];
-        if (!Number.isFinite(a) || !(se > 0)) continue;
-        const zv = (a - f.mean[lead + i]) / se;
-        all.push(zv);
-        if (!special) ordinary.push(zv);
+        if (Number.isFinite(a) && se > 0) z.push((a - f.mean[lead + i]) / se);
       }
+      list.push({ z, specialWeek: specialIn(ws - 168, ws + 24), specialNear: specialIn(ws - 24, ws + 24) });
     }
-    return kept * 2 >= days ? ordinary : all;
+    return calibrationErrors(list, days);
   };
 
   const fitTerms = (terms: TermSet, model: ModelChoice): Scored => {
@@ -306,14 +298,15 @@ export function runWeatherPipeline(input: WeatherPipelineInput): WeatherPipeline
     } else {
       // calendar candidates only when the calendar has a special day in the history or the forecast
       const withCalendar = input.calendar !== undefined && hasSpecialDay(cal, n + h);
-      const sets = o.termSets ?? [
+      const sets: NonNullable<WeatherPipelineOptions['termSets']> = o.termSets ?? [
         NO_TERMS,
         ...(withCalendar ? [{ temperature: false, recency: false, calendar: true }] : []),
         { temperature: true, recency: false, calendar: withCalendar },
         { temperature: true, recency: true, calendar: withCalendar },
       ];
       const fullest = sets.reduce((a, b) => (+b.temperature + +b.recency + +b.calendar > +a.temperature + +a.recency + +a.calendar ? b : a));
-      const thresholds = chooseThresholds(y, obs, cal, { ...fullest, heatBelow: 14, coolAbove: 20 }).terms;
+      const blockHours = fullest.blockHours ?? TEMPERATURE_BLOCK_HOURS;
+      const thresholds = chooseThresholds(y, obs, cal, { ...fullest, heatBelow: 14, coolAbove: 20, blockHours }).terms;
       const plain = plainResult();
       if (!plain.model) return fromPlain(plain, { ...NO_TERMS, heatBelow: thresholds.heatBelow, coolAbove: thresholds.coolAbove }, performance.now() - ts);
       // the model without weather: today's pipeline, scored like the others
@@ -321,7 +314,7 @@ export function runWeatherPipeline(input: WeatherPipelineInput): WeatherPipeline
       // the weather candidates' differencing and orders: the pipeline's choice on u of the fullest set
       // (the load's own orders describe weather-driven swings the terms take out; measured on the
       // simulator's zones, they doubled the perfect-weather error)
-      const full = { ...fullest, heatBelow: thresholds.heatBelow, coolAbove: thresholds.coolAbove };
+      const full = { ...fullest, heatBelow: thresholds.heatBelow, coolAbove: thresholds.coolAbove, blockHours };
       const gFull = responseValues(estimateResponse(y, obs, cal, full), obs, cal, 0, n);
       const uFull = new Float64Array(n);
       for (let t = 0; t < n; t++) uFull[t] = y[t] - gFull[t];
@@ -329,7 +322,7 @@ export function runWeatherPipeline(input: WeatherPipelineInput): WeatherPipeline
       const weatherModel = sel.model ? { ...choiceOf(sel.model), start: startOf(sel.model.coefficients, sel.model) } : plainModel;
       const scored: Scored[] = [];
       for (const set of sets) {
-        const terms = { ...set, heatBelow: thresholds.heatBelow, coolAbove: thresholds.coolAbove };
+        const terms = { ...set, heatBelow: thresholds.heatBelow, coolAbove: thresholds.coolAbove, blockHours: set.blockHours ?? TEMPERATURE_BLOCK_HOURS };
         try {
           const sc = fitTerms(terms, hasTerms(terms) ? weatherModel : plainModel);
           candidates.push({ label: describeTerms(terms), terms, mape: sc.score.mape });
@@ -416,6 +409,32 @@ export function runWeatherPipeline(input: WeatherPipelineInput): WeatherPipeline
     timings: { totalMs: performance.now() - t0, selectionMs },
     warnings,
   };
+}
+
+export interface CalibrationDay {
+  /** standardised errors of the day's hours */
+  z: number[];
+  /** the day, or a day of the week before it, is a public holiday or bridge day */
+  specialWeek: boolean;
+  /** the day itself or the day before it is a public holiday or bridge day */
+  specialNear: boolean;
+}
+
+/**
+ * Standardised errors for the band calibration from ordinary days only: a day that is, or whose
+ * day or week before was, a public holiday or bridge day is left out. Their errors belong to
+ * the special days (a holiday's own, and its echo through the daily and weekly differences);
+ * with Christmas in the four weeks, they widened every band of the weeks after by a third.
+ * Kept only when at least half of the days remain; otherwise (the weeks after Christmas and the
+ * New Year) only the special days themselves and the day after each are left out, when at
+ * least half remain: falling back to every error put the special days' misses of 40 % back
+ * into the calibration and widened the January bands until they covered 99–100 %.
+ */
+export function calibrationErrors(list: readonly CalibrationDay[], days: number): number[] {
+  const pick = (keep: (d: CalibrationDay) => boolean): number[] => list.filter(keep).flatMap((d) => d.z);
+  if (list.filter((d) => !d.specialWeek).length * 2 >= days) return pick((d) => !d.specialWeek);
+  if (list.filter((d) => !d.specialNear).length * 2 >= days) return pick((d) => !d.specialNear);
+  return pick(() => true);
 }
 
 function startOf(coefficients: ReadonlyArray<{ name: string; value: number }>, m: { p: number; q: number; P: number; Q: number }): ModelChoice['start'] {

@@ -1,4 +1,4 @@
-import { calendarEffects, responseBandBasis, temperatureResponseCurve, type ModelWeatherDto } from './model-weather';
+import { calendarEffects, dayBlockNames, responseBandBasis, temperatureResponseCurve, type ModelWeatherDto } from './model-weather';
 
 const terms = { temperature: true, recency: false, calendar: true, heatBelow: 14, coolAbove: 20 };
 
@@ -61,5 +61,21 @@ describe('the temperature response drawn from a stored model', () => {
       { label: 'Day after a holiday', mw: -15, halfWidth95: 1.96 * 5 },
     ]);
     expect(calendarEffects({ terms: { ...terms, calendar: false }, response: [] })).toEqual([]);
+  });
+
+  it('reads the two-hour blocks of the day of versions that have them (hdd_h00 … hdd_h22), each weighing 1/12', () => {
+    expect(dayBlockNames({ blockHours: 2 })).toEqual(['h00', 'h02', 'h04', 'h06', 'h08', 'h10', 'h12', 'h14', 'h16', 'h18', 'h20', 'h22']);
+    expect(dayBlockNames({})).toEqual(['night', 'morning', 'afternoon', 'evening']);
+    // hand-computed: heating 12 MW per °C in six blocks, 36 in the other six (mean 24); se 1 each
+    const blocks = dayBlockNames({ blockHours: 2 });
+    const response = blocks.map((b, i) => ({ name: `hdd_${b}`, value: i < 6 ? 12 : 36, se: 1 }));
+    const [cold] = temperatureResponseCurve({ terms: { ...terms, blockHours: 2 }, response }, 4, 4, 1);
+    expect(cold.mw).toBeCloseTo(24 * 10, 10);
+    // 1.96 · √(12 · (10/12 · 1)²) = 1.96 · 10/√12
+    expect(cold.upper95 - cold.mw).toBeCloseTo((1.96 * 10) / Math.sqrt(12), 10);
+    const holiday = calendarEffects({ terms: { ...terms, blockHours: 2 }, response: blocks.map((b, i) => ({ name: `holiday_${b}`, value: i % 2 ? -100 : -50, se: 6 })) });
+    expect(holiday).toHaveLength(1);
+    expect(holiday[0].mw).toBeCloseTo(-75, 10);
+    expect(holiday[0].halfWidth95).toBeCloseTo((1.96 * 6) / Math.sqrt(12), 10);
   });
 });

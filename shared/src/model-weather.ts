@@ -1,10 +1,11 @@
 /**
  * What a model version stores of its weather and calendar terms, and the temperature response
  * the desk draws from it. The response is the load's answer to the temperature at a steady
- * temperature: every temperature term (the hour's degree terms by part of the day, and the
+ * temperature: every temperature term (the hour's degree terms by block of the day, and the
  * recency terms of the 24-hour mean and the 3-hour lag) reads the same T, so
- *   g(T) = Σ_parts ¼·(β_hdd,part·HDD(T) + β_cdd,part·CDD(T)) + β_hdd,mean24·HDD(T) + … ,
- * the daily mean over the four parts of the day. HDD(T) = max(0, θ_h − T), CDD(T) = max(0, T − θ_c)
+ *   g(T) = Σ_blocks (1/B)·(β_hdd,block·HDD(T) + β_cdd,block·CDD(T)) + β_hdd,mean24·HDD(T) + … ,
+ * the daily mean over the B blocks of the day (twelve two-hour blocks, or the four parts of the
+ * day of the versions fitted before the blocks). HDD(T) = max(0, θ_h − T), CDD(T) = max(0, T − θ_c)
  * (degree terms: common practice). Its uncertainty: ±1.96·√Σ (x_i·se_i)², the coefficients' OLS
  * standard errors taken as independent (the stored fit keeps no covariances; a simplification
  * that ignores the correlation of the parts' coefficients, said so on the desk).
@@ -16,6 +17,8 @@ export interface ModelWeatherTermsDto {
   /** heating below θ_h °C, cooling above θ_c °C */
   heatBelow: number;
   coolAbove: number;
+  /** hours per block of the day of the degree terms and holiday dummies; absent: the four parts of the day (night, morning, afternoon, evening) */
+  blockHours?: number;
 }
 
 export interface ModelWeatherDto {
@@ -57,6 +60,13 @@ export interface ResponsePoint {
 
 const PARTS = ['night', 'morning', 'afternoon', 'evening'];
 
+/** Name suffixes of the blocks of the day of a version's terms, as the engine names them (engine/src/weather/load-terms.ts, dayBlocks). */
+export function dayBlockNames(terms: Pick<ModelWeatherTermsDto, 'blockHours'>): string[] {
+  const w = terms.blockHours;
+  if (w === undefined || !Number.isInteger(w) || w < 1 || 24 % w !== 0) return PARTS;
+  return Array.from({ length: 24 / w }, (_, b) => `h${String(b * w).padStart(2, '0')}`);
+}
+
 /** The steady-temperature response g(T) with its 95 % band, T from `fromC` to `toC` by `stepC`. */
 export function temperatureResponseCurve(w: Pick<ModelWeatherDto, 'terms' | 'response' | 'responseCovariance'>, fromC = -15, toC = 35, stepC = 0.5): ResponsePoint[] {
   const coef = new Map(w.response.map((r) => [r.name, r]));
@@ -64,13 +74,14 @@ export function temperatureResponseCurve(w: Pick<ModelWeatherDto, 'terms' | 'res
   // exact for a linear combination); otherwise Σ is taken as diagonal from the standard errors
   const cov = responseBandBasis(w) === 'covariance' ? w.responseCovariance! : null;
   const at = cov ? new Map(cov.names.map((n, i) => [n, i])) : null;
+  const blocks = dayBlockNames(w.terms);
   const out: ResponsePoint[] = [];
   for (let k = 0; fromC + k * stepC <= toC + 1e-9; k++) {
     const t = fromC + k * stepC;
     const hdd = Math.max(0, w.terms.heatBelow - t);
     const cdd = Math.max(0, t - w.terms.coolAbove);
     const xs: Array<[string, number]> = [];
-    for (const p of PARTS) xs.push([`hdd_${p}`, hdd / PARTS.length], [`cdd_${p}`, cdd / PARTS.length]);
+    for (const p of blocks) xs.push([`hdd_${p}`, hdd / blocks.length], [`cdd_${p}`, cdd / blocks.length]);
     xs.push(['hdd_mean24', hdd], ['cdd_mean24', cdd], ['hdd_lag3', hdd], ['cdd_lag3', cdd]);
     let mw = 0;
     let variance = 0;
@@ -91,18 +102,18 @@ export function temperatureResponseCurve(w: Pick<ModelWeatherDto, 'terms' | 'res
 
 export interface CalendarEffect {
   label: string;
-  /** MW added to each hour of such a day (a holiday: mean over its four parts of the day) */
+  /** MW added to each hour of such a day (a holiday: mean over its blocks of the day) */
   mw: number;
   /** 95 % half-width, MW */
   halfWidth95: number;
 }
 
-/** The calendar dummies in MW: a public holiday (mean of its parts of the day), a bridge day, the day after a holiday. */
+/** The calendar dummies in MW: a public holiday (mean of its blocks of the day), a bridge day, the day after a holiday. */
 export function calendarEffects(w: Pick<ModelWeatherDto, 'terms' | 'response'>): CalendarEffect[] {
   if (!w.terms.calendar) return [];
   const coef = new Map(w.response.map((r) => [r.name, r]));
   const effects: CalendarEffect[] = [];
-  const holidays = PARTS.map((p) => coef.get(`holiday_${p}`)).filter((c): c is NonNullable<typeof c> => c !== undefined);
+  const holidays = dayBlockNames(w.terms).map((p) => coef.get(`holiday_${p}`)).filter((c): c is NonNullable<typeof c> => c !== undefined);
   if (holidays.length) {
     const mw = holidays.reduce((s, c) => s + c.value, 0) / holidays.length;
     const v = holidays.reduce((s, c) => s + (c.se ?? 0) ** 2, 0) / holidays.length ** 2;

@@ -1,5 +1,5 @@
 /** The temperature a forecast is issued on, as known at its issue time; values worked out by hand. */
-import { combineVintages, forecastTemperature, leadErrors, observedTemperature, recentErrorUpdate } from './forecast-temperature';
+import { COMBINED_VINTAGES, combineVintages, forecastTemperature, leadErrors, observedTemperature, recentErrorUpdate } from './forecast-temperature';
 import { syntheticZone } from './synthetic-zone';
 import { knownVintages, TemperatureVintage, vintagesFromRows } from './vintages';
 
@@ -72,33 +72,63 @@ describe('forecast temperature', () => {
       expect(u.sd[j]).toBeCloseTo(0, 10);
     }
   });
-  it('errors that move together across vintages (one miss a day shared by all) give no combination: the latest alone, corrected', () => {
+  it('vintages that all miss by the same constant are each corrected by their error so far: the combination is the observed temperature', () => {
     const obs = new Float64Array(400).fill(5);
     const vs: TemperatureVintage[] = [];
-    for (let k = 0; k < 25; k++) vs.push({ issued: k * 12 + 0.5, first: k * 12 + 1, members: [new Float64Array(60).fill(5 - 1.5)] });
+    for (let k = 0; k < 25; k++) vs.push({ issued: k * 12 + 0.5, first: k * 12 + 1, members: [new Float64Array(120).fill(5 - 1.5)] });
     const at = 24 * 12 + 6;
-    expect(combineVintages(obs, knownVintages(vs, at), at, 10)).toBeNull(); // Σ of rank one
-    const f = forecastTemperature(obs, vs, at, 10);
-    expect(f.path[at]).toBeCloseTo(5, 10); // the latest, corrected by its error so far (slope 1)
-  });
-  it('independent errors growing with the lead: the latest vintage weighs most and the combination is more certain than it', () => {
-    const z = syntheticZone(8 * 168, 11);
-    const at = 8 * 168 - 14 + 0.0;
-    const known = knownVintages(z.vintages, at);
-    const c = combineVintages(z.temperature, known, at, 38)!;
-    expect(c).not.toBeNull();
-    for (const w of c.weights) {
-      expect(w.reduce((s, x) => s + x, 0)).toBeCloseTo(1, 12);
-      expect(w[3]).toBe(Math.max(...w));
+    const c = combineVintages(obs, knownVintages(vs, at), at, 10);
+    for (let j = 0; j < 10; j++) {
+      expect(c.value[j]).toBeCloseTo(5, 10); // every vintage: 3.5 + slope 1 × its error so far (1.5)
+      expect(c.vintages[j]).toBe(COMBINED_VINTAGES);
     }
+    const f = forecastTemperature(obs, vs, at, 10);
+    expect(f.path[at]).toBeCloseTo(5, 10);
+  });
+  it('a vintage with nothing observed yet enters with the measured error at its lead; two such vintages are weighted by 1/σ²', () => {
+    // past vintages miss by +1 °C at leads 0–11 and by +2 °C at leads 12–23 (never observed long
+    // enough for a slope: each covers 24 hours only, and the two newest were issued after the last observed hour)
+    const obs = new Float64Array(300).fill(0);
+    const vs: TemperatureVintage[] = [];
+    for (let k = 0; k < 19; k++) vs.push({ issued: k * 12 + 0.5, first: k * 12 + 1, members: [Float64Array.from({ length: 24 }, (_, j) => (j < 12 ? 1 : 2))] });
+    const at = 250;
+    vs.push({ issued: 238.5, first: 250, members: [new Float64Array(24).fill(10)] }); // lead of hour 250: 11.5 (bin 0, σ ≈ 1)
+    vs.push({ issued: 249.5, first: 250, members: [new Float64Array(24).fill(20)] }); // lead 0.5 (bin 0)
+    const known = knownVintages(vs, at);
+    const e = leadErrors(obs, known, at);
+    const c = combineVintages(obs, known, at, 1);
+    // only the two newest cover hour 250 (the others ended by 240); both at lead bin 0 (σ = 1 °C), so equal weights
+    expect(e[0]).toBeCloseTo(1, 12);
+    expect(c.vintages[0]).toBe(2);
+    expect(c.value[0]).toBeCloseTo(15, 10);
+    expect(c.sd[0]).toBeCloseTo(1 / Math.SQRT2, 10);
+  });
+  it('independent errors growing with the lead: the combination is more certain than the latest vintage alone, and its value is the inverse-variance mean of the corrected vintages', () => {
+    const z = syntheticZone(8 * 168, 11);
+    const at = 8 * 168 - 14;
+    const known = knownVintages(z.vintages, at);
+    const c = combineVintages(z.temperature, known, at, 38);
     const single = leadErrors(z.temperature, z.vintages, at);
     const latest = known[known.length - 1];
-    for (const j of [0, 20, 37]) expect(c.sd[j]).toBeLessThan(single[Math.floor((at + j - latest.issued) / 12)]);
+    for (const j of [0, 20, 37]) {
+      expect(c.vintages[j]).toBe(COMBINED_VINTAGES);
+      expect(c.sd[j]).toBeLessThan(single[Math.floor((at + j - latest.issued) / 12)]);
+    }
+    const j = 15;
+    const i = at + j;
+    let sw = 0;
+    let swx = 0;
+    for (const v of known.slice(-COMBINED_VINTAGES)) {
+      const u = recentErrorUpdate(z.temperature, known, v, at, 38)!;
+      const s = Math.max(0.03, u.sd[j]);
+      sw += 1 / s ** 2;
+      swx += (v.members[0][i - v.first] + u.shift[j]) / s ** 2;
+    }
+    expect(c.value[j]).toBeCloseTo(swx / sw, 10);
+    expect(c.sd[j]).toBeCloseTo(1 / Math.sqrt(sw), 10);
     const f = forecastTemperature(z.temperature, z.vintages, at, 38);
-    const w = c.weights[1];
-    const i = Math.floor(at) + 15;
-    const byHand = known.slice(-4).reduce((s, v, k) => s + w[k] * v.members[0][i - v.first], 0);
-    expect(f.path[i]).toBeCloseTo(byHand, 12);
+    expect(f.path[i]).toBeCloseTo(swx / sw, 10);
+    expect(f.sd[j]).toBeCloseTo(1 / Math.sqrt(sw), 10);
   });
   it('perfect weather is the observed temperature with no uncertainty', () => {
     const f = observedTemperature(observed, 10, 5);

@@ -2,8 +2,11 @@
  * The temperature a forecast issued at time `at` works with, and how uncertain it is, from what
  * was known then only (./vintages):
  *  - hours that ended by `at` keep their observed temperature (no uncertainty);
- *  - later hours take the latest vintage issued at or before `at` that covers them (an older one
- *    where the latest has no value), its member mean, and each member's path for the spread;
+ *  - later hours take the latest COMBINED_VINTAGES vintages issued at or before `at`, each
+ *    corrected by its own error so far and combined by inverse-variance weights (below,
+ *    combineVintages); when the latest vintage is an ensemble, it alone (corrected), its member
+ *    mean, and each member's path for the spread; where nothing combines, the latest vintage
+ *    that covers the hour;
  *  - hours no known vintage covers take the observed temperature 24 hours (48, …) earlier
  *    (persistence), with the error of that rule measured on the history.
  * The standard error of a forecast temperature at lead L hours is the root mean square error of
@@ -16,14 +19,13 @@
  * grow about linearly with the lead; common practice); with no measured error at all the
  * persistence error stands in.
  *
- * The vintage's own error so far. By the issue time the latest vintage has already been wrong
+ * A vintage's own error so far. By the issue time a vintage has already been wrong
  * for some hours (it was issued hours earlier, and those hours have been observed), and a
  * temperature forecast's errors persist over many hours (a front early or late). So its forecast
  * for the hours ahead is corrected by its recent error: with e₀ its mean error over the last
  * three observed hours and g the hours from the last observed one, the correction is b_g·e₀,
  * b_g the least-squares slope (no intercept) of the error g hours later on e₀ over the past
- * vintages at the same age (each taken at as many hours after its issue as the latest one is
- * now), and the standard error of the corrected value is the root mean square of those
+ * vintages at the same age (each taken at as many hours after its issue as this one is now), and the standard error of the corrected value is the root mean square of those
  * regressions' residuals. Where the errors do not persist b_g is near 0 and nothing changes.
  * This is the measured-error approach above made conditional on what has been observed
  * (regression on the current error is a common practice of updating a forecast with
@@ -33,13 +35,15 @@
 import { knownVintages, TemperatureVintage, vintageMean } from './vintages';
 
 export const LEAD_BIN_HOURS = 12;
-/** the latest vintages combined (./forecast-temperature, combineVintages) */
-export const COMBINED_VINTAGES = 4;
+/** the latest vintages combined (combineVintages): three days of a twice-daily service */
+export const COMBINED_VINTAGES = 6;
 /** hours of the vintage's latest errors averaged into e₀ */
 export const RECENT_ERROR_HOURS = 3;
 /** past vintages needed for a slope b_g */
 const MIN_PAST_VINTAGES = 10;
 const MIN_ERRORS_PER_BIN = 24;
+/** the smallest standard error a combined vintage is given, °C: the resolution forecasts are sent in (0.1 °C) */
+const MIN_VINTAGE_SD = 0.03;
 
 export interface ForecastTemperature {
   /** temperature path over hours 0..at+h: observed before `at`, forecast after (NaN where nothing is known) */
@@ -114,8 +118,10 @@ export function forecastTemperature(observed: ArrayLike<number>, vintages: reado
   const byBin = leadErrors(observed, vintages, at);
   const persistence = persistenceError(observed, at);
   const sd = new Float64Array(h);
-  const combined = combineVintages(observed, known, at, h);
-  const update = latest && !combined ? recentErrorUpdate(observed, known, latest, at, h) : null;
+  // an ensemble's members carry its own spread: its latest vintage alone, corrected; otherwise the combination
+  const ensemble = !!latest && latest.members.length > 1;
+  const combined = latest && !ensemble ? combineVintages(observed, known, at, h, byBin, persistence) : null;
+  const update = ensemble ? recentErrorUpdate(observed, known, latest, at, h) : null;
   for (let j = 0; j < h; j++) {
     const i = o + j;
     let v = NaN;
@@ -127,7 +133,7 @@ export function forecastTemperature(observed: ArrayLike<number>, vintages: reado
     if (used) {
       path[i] = v;
       sd[j] = sdAtLead(byBin, i - used.issued, persistence);
-      const c = combined ? combined.value(i, j) : NaN;
+      const c = combined ? combined.value[j] : NaN;
       if (combined && Number.isFinite(c)) {
         path[i] = c;
         sd[j] = combined.sd[j];
@@ -142,7 +148,7 @@ export function forecastTemperature(observed: ArrayLike<number>, vintages: reado
     }
   }
   const members: Float64Array[] = [];
-  if (latest && latest.members.length > 1 && !combined) {
+  if (latest && ensemble) {
     for (const m of latest.members) {
       const p = Float64Array.from(path);
       for (let j = 0; j < h; j++) {
@@ -224,89 +230,47 @@ export function recentErrorUpdate(observed: ArrayLike<number>, known: readonly T
 }
 
 /**
- * The latest few vintages combined with minimum-variance weights (Bates & Granger 1969, "The
- * combination of forecasts", Oper. Res. Q. 20, 451–468): w = Σ⁻¹1 / 1′Σ⁻¹1, with Σ the covariance
- * of the vintages' errors at the same ages, measured on the days before (the same issue time
- * 1, 2, … days earlier, each with the vintages it knew then, on hours observed by now), per
- * 12-hour bin of the steps ahead; the combined value's variance is 1 / 1′Σ⁻¹1. Where successive
- * forecasts err alike the weights go to the latest (it is the best informed); where their errors
- * are independent the older ones are averaged in. Returns null when the days before give too
- * few errors (fewer than 48 per bin), when the ages of the vintages differ from those of the
- * days before (a late or missed issue), or when a weight comes out below −0.5 (an unstable Σ);
- * the latest vintage alone is used then.
+ * The latest few vintages, each corrected by its own error so far, combined with inverse-variance
+ * weights (Bates & Granger 1969, "The combination of forecasts", Oper. Res. Q. 20, 451–468, whose
+ * weights w_k ∝ 1/σ_k² leave out the covariances of the errors; estimating those from a few
+ * weeks of errors made the combination worse, the "forecast combination puzzle": Smith & Wallis
+ * 2009, Oxford Bull. Econ. Stat. 71, 331–355). For each of the COMBINED_VINTAGES latest vintages
+ * and each step ahead: its value shifted by the correction b_g·e₀ of its recent error
+ * (recentErrorUpdate, slopes from the past vintages at the same age) with σ_k the standard error
+ * of that regression; where it cannot be corrected (a vintage issued so recently that none of its
+ * hours has been observed) its own value with σ_k the measured error at its lead (leadErrors).
+ * The combined value's standard error is (Σ 1/σ_k²)^−½, exact when the vintages err
+ * independently and too small when they err alike (the band calibration sees the difference).
+ * Returns NaN for a step no vintage with a known error covers.
  */
-export function combineVintages(observed: ArrayLike<number>, known: readonly TemperatureVintage[], at: number, h: number): { value: (i: number, j: number) => number; sd: Float64Array; weights: Float64Array[] } | null {
-  const K = COMBINED_VINTAGES;
-  if (known.length < K) return null;
-  const current = known.slice(-K);
-  const ages = current.map((v) => at - v.issued);
+export function combineVintages(observed: ArrayLike<number>, known: readonly TemperatureVintage[], at: number, h: number, byLead?: Float64Array, fallback = NaN): { value: Float64Array; sd: Float64Array; vintages: number[] } {
+  const current = known.slice(-COMBINED_VINTAGES);
   const o = Math.floor(at);
-  const limit = Math.min(o, observed.length);
-  const bins = Math.ceil(h / LEAD_BIN_HOURS);
-  const S = Array.from({ length: bins }, () => new Float64Array(K * K));
-  const cnt = new Float64Array(bins);
-  const e = new Float64Array(K);
-  for (let d = 1; at - 24 * d > 0; d++) {
-    const o2 = at - 24 * d;
-    const then = knownVintages(known, o2).slice(-K);
-    if (then.length < K || then.some((v, k) => Math.abs(o2 - v.issued - ages[k]) > 0.01)) continue;
-    const base = Math.floor(o2);
-    for (let j = 0; j < h; j++) {
-      const i = base + j;
-      if (i >= limit) break;
-      let ok = Number.isFinite(observed[i]);
-      for (let k = 0; k < K && ok; k++) {
-        e[k] = observed[i] - vintageMean(then[k], i);
-        ok = Number.isFinite(e[k]);
-      }
-      if (!ok) continue;
-      const b = Math.floor(j / LEAD_BIN_HOURS);
-      for (let k = 0; k < K; k++) for (let l = 0; l < K; l++) S[b][k * K + l] += e[k] * e[l];
-      cnt[b]++;
-    }
-  }
-  const weights: Float64Array[] = [];
-  const varByBin = new Float64Array(bins);
-  for (let b = 0; b < bins; b++) {
-    if (cnt[b] < 48) return null;
-    const w = solveSmall(S[b].map((x) => x / cnt[b]), K);
-    if (!w) return null;
-    let sum = 0;
-    for (let k = 0; k < K; k++) sum += w[k];
-    if (!(sum > 0)) return null;
-    for (let k = 0; k < K; k++) w[k] /= sum;
-    if (w.some((x) => x < -0.5)) return null;
-    weights.push(w);
-    varByBin[b] = 1 / sum;
-  }
-  const sd = new Float64Array(h);
-  for (let j = 0; j < h; j++) sd[j] = Math.sqrt(varByBin[Math.floor(j / LEAD_BIN_HOURS)]);
-  const value = (i: number, j: number): number => {
-    const w = weights[Math.floor(j / LEAD_BIN_HOURS)];
-    let s = 0;
-    for (let k = 0; k < K; k++) {
+  const bins = byLead ?? leadErrors(observed, known, at);
+  const updates = current.map((v) => recentErrorUpdate(observed, known, v, at, h));
+  const value = new Float64Array(h).fill(NaN);
+  const sd = new Float64Array(h).fill(NaN);
+  const vintages = new Array<number>(h).fill(0);
+  for (let j = 0; j < h; j++) {
+    const i = o + j;
+    let sw = 0;
+    let swx = 0;
+    for (let k = 0; k < current.length; k++) {
       const v = vintageMean(current[k], i);
-      if (!Number.isFinite(v)) return NaN;
-      s += w[k] * v;
+      if (!Number.isFinite(v)) continue;
+      const u = updates[k];
+      const corrected = !!u && Number.isFinite(u.shift[j]) && Number.isFinite(u.sd[j]);
+      const x = corrected ? v + u.shift[j] : v;
+      const s = Math.max(MIN_VINTAGE_SD, corrected ? u.sd[j] : sdAtLead(bins, i - current[k].issued, fallback));
+      if (!Number.isFinite(s)) continue;
+      sw += 1 / (s * s);
+      swx += x / (s * s);
+      vintages[j]++;
     }
-    return s;
-  };
-  return { value, sd, weights };
-}
-
-/** Σ⁻¹1 for a small symmetric positive-definite Σ (Gaussian elimination with partial pivoting); null when singular. */
-function solveSmall(sigma: Float64Array, K: number): Float64Array | null {
-  const a = Array.from({ length: K }, (_, r) => [...Array.from(sigma.subarray(r * K, r * K + K)), 1]);
-  for (let c = 0; c < K; c++) {
-    let p = c;
-    for (let r = c + 1; r < K; r++) if (Math.abs(a[r][c]) > Math.abs(a[p][c])) p = r;
-    if (!(Math.abs(a[p][c]) > 1e-12)) return null;
-    [a[c], a[p]] = [a[p], a[c]];
-    for (let r = 0; r < K; r++) {
-      if (r === c) continue;
-      const f = a[r][c] / a[c][c];
-      for (let k = c; k <= K; k++) a[r][k] -= f * a[c][k];
+    if (sw > 0) {
+      value[j] = swx / sw;
+      sd[j] = Math.sqrt(1 / sw);
     }
   }
-  return Float64Array.from({ length: K }, (_, r) => a[r][K] / a[r][r]);
+  return { value, sd, vintages };
 }

@@ -1,5 +1,5 @@
 /** The terms' values, checked against values worked out by hand from their definitions. */
-import { dayPart, movingMean, plainCalendar, termColumns, termNames, TermSet } from './load-terms';
+import { dayBlocks, dayPart, movingMean, plainCalendar, termColumns, termNames, TermSet } from './load-terms';
 
 const ALL: TermSet = { temperature: true, recency: true, calendar: true, heatBelow: 14, coolAbove: 20 };
 
@@ -11,6 +11,30 @@ describe('load terms', () => {
       'holiday_night', 'holiday_morning', 'holiday_afternoon', 'holiday_evening', 'bridge', 'day_after',
     ]);
     expect(termNames({ ...ALL, temperature: false, recency: false, calendar: false })).toEqual([]);
+  });
+  it('two-hour blocks: twelve per day named by their first hour, degree terms and holiday dummies in the hour’s block only', () => {
+    const B2: TermSet = { ...ALL, recency: false, blockHours: 2 };
+    const labels = ['h00', 'h02', 'h04', 'h06', 'h08', 'h10', 'h12', 'h14', 'h16', 'h18', 'h20', 'h22'];
+    expect(termNames(B2)).toEqual([...labels.flatMap((b) => [`hdd_${b}`, `cdd_${b}`]), ...labels.map((b) => `holiday_${b}`), 'bridge', 'day_after']);
+    const blocks = dayBlocks(B2);
+    expect([0, 1, 2, 3, 13, 22, 23].map(blocks.of)).toEqual([0, 0, 1, 1, 6, 11, 11]);
+    expect(() => dayBlocks({ blockHours: 5 })).toThrow(/divide 24/);
+    const temp = new Float64Array(48).fill(17);
+    temp[3] = 10; // block h02, 4 degrees of heating
+    temp[13] = 25; // block h12, 5 degrees of cooling
+    const holiday = new Uint8Array(48);
+    for (let t = 24; t < 48; t++) holiday[t] = 1; // the second day is a holiday (no weekday given: it counts)
+    const cal = { ...plainCalendar(48), holiday };
+    const cols = termColumns(B2, temp, cal, 0, 48);
+    expect(cols).toHaveLength(12 * 2 + 12 + 2);
+    expect(cols[2 * 1][3]).toBe(4); // hdd_h02
+    expect(cols[2 * 0][3]).toBe(0); // hdd_h00 outside its block
+    expect(cols[2 * 6 + 1][13]).toBe(5); // cdd_h12
+    expect(cols[2 * 7 + 1][13]).toBe(0); // cdd_h14
+    expect(cols[24 + 5][24 + 11]).toBe(1); // holiday_h10 at 11:00 of the holiday
+    expect(cols[24 + 5][24 + 12]).toBe(0);
+    expect(cols[24 + 6][24 + 12]).toBe(1); // holiday_h12
+    expect(cols[24 + 6][12]).toBe(0); // not a holiday
   });
   it('parts of the day: 0–5 night, 6–11 morning, 12–17 afternoon, 18–23 evening', () => {
     expect([0, 5, 6, 11, 12, 17, 18, 23].map(dayPart)).toEqual([0, 0, 1, 1, 2, 2, 3, 3]);
