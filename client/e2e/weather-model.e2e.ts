@@ -97,8 +97,8 @@ describe('a model that knows the weather, on the refits and schedule screens', (
     expect(await panel.getByTestId('weather-used').innerText()).toMatch(/with weather/i);
     expect(await panel.getByTestId('weather-verdict').innerText()).toMatch(/Forecasts with the weather: .*temperature \(heating below \d+ °C/);
     await panel.getByTestId('temperature-response-chart').locator('canvas').first().waitFor();
-    // the engine stores no covariance of the coefficients yet: the panel says what its band assumes
-    await panel.getByText(/taken as independent, because this version does not store their covariance/).waitFor();
+    // a refit stores the coefficients' covariance: the panel says its band uses it
+    await panel.getByText('Band: ±1.96 standard errors of the curve, from the joint covariance of the coefficients.').waitFor();
     const tried = await panel.getByTestId('weather-candidates').innerText();
     expect(tried).toContain('no weather or calendar terms');
     expect(tried).toContain('same hour one week earlier');

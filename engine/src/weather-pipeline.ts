@@ -100,6 +100,8 @@ export interface WeatherPipelineResult {
   description: string;
   /** the fitted response (estimated coefficients only) */
   response: ResponseCoefficient[];
+  /** the least-squares covariance of those coefficients (row-major, in the order of `names`), for bands on their sums; absent without terms */
+  responseCovariance?: { names: string[]; values: number[] };
   /** the error model's innovation variance and criteria */
   errorModel?: { sigma2: number; loglik: number; aicc: number; coefficients: Array<{ name: string; value: number; se: number }> };
   forecast: IntervalForecast;
@@ -395,6 +397,7 @@ export function runWeatherPipeline(input: WeatherPipelineInput): WeatherPipeline
     choice,
     description: `${label}${weather ? ` + ${describeTerms(best.terms)}` : ', no weather or calendar terms'}`,
     response: best.response.names.flatMap((name, i) => (best.response.estimated[i] ? [{ name, value: best.response.beta[i], se: best.response.se[i] }] : [])),
+    ...(weather && best.response.covariance.names.length ? { responseCovariance: { names: best.response.covariance.names, values: Array.from(best.response.covariance.values) } } : {}),
     errorModel: { sigma2: a.sigma2, loglik: a.loglik, aicc: a.aicc, coefficients: a.coefficients.map((c) => ({ name: c.name, value: c.value, se: c.se })) },
     forecast: floorAtZero(scaleBands(raw, bandScale)),
     regression: Array.from(g),

@@ -1,7 +1,7 @@
 import { EntityManager } from '@mikro-orm/mariadb';
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import request from 'supertest';
-import { operatingDayOf, temperatureResponseCurve, type ModelVersionDto, type RefitJobDto, type AdjustmentResultDto, type ScheduleRevisionDto, type WeatherVintagesDto, type WeatherWhatIfDto } from '@morrowline/shared';
+import { operatingDayOf, responseBandBasis, temperatureResponseCurve, type ModelVersionDto, type RefitJobDto, type AdjustmentResultDto, type ScheduleRevisionDto, type WeatherVintagesDto, type WeatherWhatIfDto } from '@morrowline/shared';
 import { refitZone, scoreChoice, REFIT_BACKTEST_DAYS } from '../src/models/analysis/refit';
 import { scoreWeatherChoice } from '../src/models/analysis/weather-score';
 import { AuditEntry } from '../src/audit/entities/audit-entry.entity';
@@ -111,6 +111,8 @@ describe('refits with weather: temperature response and forecasts on the vintage
     const slope = (curve[0].mw - curve[curve.length - 1].mw) / 8;
     expect(slope).toBeGreaterThan(0.8 * HEAT_MW_PER_C);
     expect(slope).toBeLessThan(1.2 * HEAT_MW_PER_C);
+    // the band on that sum of block coefficients uses their joint covariance, stored with the version
+    expect(responseBandBasis(version.weather!)).toBe('covariance');
     // the term choice was scored against the model without weather, which lost on these days
     const withoutWeather = version.weather!.candidates.find((c) => c.label === 'no weather or calendar terms');
     expect(withoutWeather?.mape).toBeGreaterThan(0);

@@ -20,6 +20,19 @@ describe('load response', () => {
     expect(r.estimated[j]).toBe(true);
     expect(Math.abs(r.beta[j] - SYNTHETIC_COOL_PER_C)).toBeLessThan(Math.max(4 * r.se[j], 1.5));
   });
+  it('gives the least-squares covariance of the estimated coefficients: s²(X′X)⁻¹, its diagonal the squared standard errors', () => {
+    const r = estimateResponse(z.load, z.temperature, cal, { temperature: true, recency: false, calendar: false, heatBelow: 14, coolAbove: 22 });
+    const { names, values } = r.covariance;
+    expect(names).toEqual(r.names.filter((_, i) => r.estimated[i]));
+    const m = names.length;
+    expect(values.length).toBe(m * m);
+    names.forEach((name, i) => {
+      expect(values[i * m + i]).toBeCloseTo(r.se[r.names.indexOf(name)] ** 2, 9);
+      for (let j = 0; j < m; j++) expect(values[i * m + j]).toBeCloseTo(values[j * m + i], 12);
+    });
+    // a covariance matrix: every correlation within [−1, 1] (Cauchy–Schwarz)
+    for (let i = 0; i < m; i++) for (let j = 0; j < m; j++) expect(Math.abs(values[i * m + j])).toBeLessThanOrEqual(Math.sqrt(values[i * m + i] * values[j * m + j]) * (1 + 1e-12));
+  });
   it('chooses the thresholds of the construction from the grid by profile likelihood', () => {
     const r = chooseThresholds(z.load, z.temperature, cal, { temperature: true, recency: false, calendar: false, heatBelow: 0, coolAbove: 0 });
     expect(r.terms.heatBelow).toBe(14);

@@ -36,15 +36,23 @@ export interface LoadResponse {
   beta: Float64Array;
   /** OLS standard errors of β (NaN for a column not estimated) */
   se: Float64Array;
+  /**
+   * The OLS covariance s²(X'X)⁻¹ of the estimated columns only (`names` in the order of `names`
+   * above, row-major `values`): what a band on a sum of coefficients (the response at a steady
+   * temperature, summed over the blocks of the day) needs, since the block terms are correlated.
+   */
+  covariance: { names: string[]; values: Float64Array };
   estimated: boolean[];
   rss: number;
   /** rows in the least-squares fit */
   n: number;
 }
 
+const NO_COVARIANCE = (): LoadResponse['covariance'] => ({ names: [], values: new Float64Array(0) });
+
 /** The response with no terms at all: the model without weather. */
 export function noResponse(terms: TermSet): LoadResponse {
-  return { terms, names: [], beta: new Float64Array(0), se: new Float64Array(0), estimated: [], rss: NaN, n: 0 };
+  return { terms, names: [], beta: new Float64Array(0), se: new Float64Array(0), covariance: NO_COVARIANCE(), estimated: [], rss: NaN, n: 0 };
 }
 
 export function hasTerms(t: TermSet): boolean {
@@ -88,7 +96,7 @@ export function estimateResponse(y: ArrayLike<number>, temp: ArrayLike<number>, 
   const se = new Float64Array(k).fill(NaN);
   const estimated = new Array<boolean>(k).fill(false);
   const m = keep.length;
-  if (!m || rows <= m + 10) return { terms, names, beta, se, estimated, rss: NaN, n: rows };
+  if (!m || rows <= m + 10) return { terms, names, beta, se, covariance: NO_COVARIANCE(), estimated, rss: NaN, n: rows };
   const A = new Matrix(m, m);
   const b = new Array<number>(m);
   keep.forEach((ci, i) => {
@@ -101,9 +109,9 @@ export function estimateResponse(y: ArrayLike<number>, temp: ArrayLike<number>, 
     sol = solve(A, Matrix.columnVector(b)).getColumn(0);
     inv = inverse(A);
   } catch {
-    return { terms, names, beta, se, estimated, rss: NaN, n: rows };
+    return { terms, names, beta, se, covariance: NO_COVARIANCE(), estimated, rss: NaN, n: rows };
   }
-  if (!sol.every(Number.isFinite)) return { terms, names, beta, se, estimated, rss: NaN, n: rows };
+  if (!sol.every(Number.isFinite)) return { terms, names, beta, se, covariance: NO_COVARIANCE(), estimated, rss: NaN, n: rows };
   // RSS = y'y − 2β'X'y + β'X'Xβ = y'y − β'X'y at the least-squares solution
   let rss = yty;
   for (let i = 0; i < m; i++) rss -= sol[i] * b[i];
@@ -114,7 +122,9 @@ export function estimateResponse(y: ArrayLike<number>, temp: ArrayLike<number>, 
     se[c] = Math.sqrt(Math.max(inv.get(i, i) * s2, 0));
     estimated[c] = true;
   });
-  return { terms, names, beta, se, estimated, rss, n: rows };
+  const covariance = { names: keep.map((c) => names[c]), values: new Float64Array(m * m) };
+  for (let i = 0; i < m; i++) for (let j = 0; j < m; j++) covariance.values[i * m + j] = inv.get(i, j) * s2;
+  return { terms, names, beta, se, covariance, estimated, rss, n: rows };
 }
 
 /** The thresholds of the grid with the smallest residual sum of squares (profile likelihood, see header). */

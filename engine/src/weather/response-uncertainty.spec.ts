@@ -6,7 +6,7 @@ import { responseSd } from './response-uncertainty';
 const terms = { temperature: true, recency: false, calendar: false, heatBelow: 14, coolAbove: 22 };
 const names = ['hdd_night', 'cdd_night', 'hdd_morning', 'cdd_morning', 'hdd_afternoon', 'cdd_afternoon', 'hdd_evening', 'cdd_evening'];
 // 10 MW per degree of heating in every part of the day, 20 MW per degree of cooling
-const response: LoadResponse = { terms, names, beta: Float64Array.from(names, (n) => (n.startsWith('hdd') ? 10 : 20)), se: new Float64Array(8), estimated: names.map(() => true), rss: 0, n: 0 };
+const response: LoadResponse = { terms, names, beta: Float64Array.from(names, (n) => (n.startsWith('hdd') ? 10 : 20)), se: new Float64Array(8), covariance: { names, values: new Float64Array(64) }, estimated: names.map(() => true), rss: 0, n: 0 };
 const cal = plainCalendar(48);
 
 describe('response uncertainty', () => {

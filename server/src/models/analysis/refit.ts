@@ -225,6 +225,7 @@ function withWeather(payload: RefitPayload, plain: ModelChoice): { result: Weath
       description: result.description,
       terms: { temperature: terms.temperature, recency: terms.recency, calendar: terms.calendar, heatBelow: finite(terms.heatBelow) ?? 0, coolAbove: finite(terms.coolAbove) ?? 0, ...(terms.blockHours !== undefined ? { blockHours: terms.blockHours } : {}) },
       response: result.response.map((c) => ({ name: c.name, value: c.value, se: finite(c.se) })),
+      responseCovariance: result.responseCovariance ?? null,
       candidates: result.candidates.map((c) => ({ label: c.label, mape: finite(c.mape) })),
       baselineMape: finite(result.baselineMape),
       selectionDays: result.selectionDays,

@@ -19,6 +19,8 @@ export function storedResponse(w: Pick<StoredWeather, 'terms' | 'response'>): Lo
     names,
     beta: Float64Array.from(names, (n) => byName.get(n)?.value ?? 0),
     se: Float64Array.from(names, (n) => byName.get(n)?.se ?? NaN),
+    // a what-if moves the temperature, not the coefficients: their covariance is not read here
+    covariance: { names: [], values: new Float64Array(0) },
     estimated: names.map((n) => byName.has(n)),
     rss: NaN,
     n: 0,
