@@ -135,26 +135,8 @@ export function backtest(values: ArrayLike<number>, o: BacktestOptions): Backtes
     const b = cut(base);
     out.push({ dayStart: ds, hours: de - ds, origin, model, choice, fallbackReason: reason, fitMs, accuracy: accuracy(actual, f), baseline: accuracy(actual, b), forecast: f });
   }
-  const summary = (pick: (d: BacktestDay) => Accuracy): BacktestSummary => {
-    const list = out.map(pick).filter((a) => a.n > 0);
-    const mean = (f: (a: Accuracy) => number) => {
-      const v = list.map(f).filter(Number.isFinite);
-      return v.length ? v.reduce((s, x) => s + x, 0) / v.length : NaN;
-    };
-    const tot = list.reduce((s, a) => s + a.n, 0);
-    const w = (f: (a: Accuracy) => number) => (tot ? list.reduce((s, a) => s + (Number.isFinite(f(a)) ? f(a) * a.n : 0), 0) / tot : NaN);
-    return {
-      mape: mean((a) => a.mape),
-      mae: mean((a) => a.mae),
-      rmse: Math.sqrt(w((a) => a.rmse * a.rmse)),
-      bias: mean((a) => a.bias),
-      peakError: mean((a) => Math.abs(a.peakError)),
-      coverage80: w((a) => a.coverage80),
-      coverage95: w((a) => a.coverage95),
-    };
-  };
-  const s = summary((d) => d.accuracy);
-  const baseline = summary((d) => d.baseline);
+  const s = summarize(out.map((d) => d.accuracy));
+  const baseline = summarize(out.map((d) => d.baseline));
   const fits = out.map((d) => d.fitMs);
   return {
     method: typeof method === 'string' ? method : `fixed ${describeModel({ label: method.diff.join('×'), ...method })}`,
@@ -167,6 +149,30 @@ export function backtest(values: ArrayLike<number>, o: BacktestOptions): Backtes
       meanFitMs: fits.length ? fits.reduce((a, b) => a + b, 0) / fits.length : 0,
       maxFitMs: fits.length ? Math.max(...fits) : 0,
     },
+  };
+}
+
+/**
+ * A backtest's summary over its days: the mean daily MAPE, MAE, bias and absolute peak-hour error,
+ * and RMSE and coverage over all hours (each day weighted by its hours); days without a scored hour
+ * are left out.
+ */
+export function summarize(all: Accuracy[]): BacktestSummary {
+  const list = all.filter((a) => a.n > 0);
+  const mean = (f: (a: Accuracy) => number) => {
+    const v = list.map(f).filter(Number.isFinite);
+    return v.length ? v.reduce((s, x) => s + x, 0) / v.length : NaN;
+  };
+  const tot = list.reduce((s, a) => s + a.n, 0);
+  const w = (f: (a: Accuracy) => number) => (tot ? list.reduce((s, a) => s + (Number.isFinite(f(a)) ? f(a) * a.n : 0), 0) / tot : NaN);
+  return {
+    mape: mean((a) => a.mape),
+    mae: mean((a) => a.mae),
+    rmse: Math.sqrt(w((a) => a.rmse * a.rmse)),
+    bias: mean((a) => a.bias),
+    peakError: mean((a) => Math.abs(a.peakError)),
+    coverage80: w((a) => a.coverage80),
+    coverage95: w((a) => a.coverage95),
   };
 }
 

@@ -15,7 +15,7 @@ import { IntervalForecast } from './forecast';
 import { PipelineOptions } from './pipeline';
 import { seasonalNaive } from './seasonal-naive';
 import { toSeries, withExcluded } from './series/series';
-import { BacktestSummary } from './backtest';
+import { BacktestSummary, summarize } from './backtest';
 import { CalendarHours } from './weather/load-terms';
 import { TemperatureVintage } from './weather/vintages';
 import { runWeatherPipeline, WeatherChoice, WeatherPipelineOptions } from './weather-pipeline';
@@ -148,25 +148,5 @@ export function weatherBacktest(values: ArrayLike<number>, o: WeatherBacktestOpt
       meanFitMs: fits.length ? fits.reduce((a, b) => a + b, 0) / fits.length : 0,
       maxFitMs: fits.length ? Math.max(...fits) : 0,
     },
-  };
-}
-
-/** The backtest's summary: mean daily MAPE, MAE, bias and peak error; RMSE and coverage over all hours (as ./backtest). */
-export function summarize(all: Accuracy[]): BacktestSummary {
-  const list = all.filter((a) => a.n > 0);
-  const mean = (f: (a: Accuracy) => number) => {
-    const v = list.map(f).filter(Number.isFinite);
-    return v.length ? v.reduce((s, x) => s + x, 0) / v.length : NaN;
-  };
-  const tot = list.reduce((s, a) => s + a.n, 0);
-  const w = (f: (a: Accuracy) => number) => (tot ? list.reduce((s, a) => s + (Number.isFinite(f(a)) ? f(a) * a.n : 0), 0) / tot : NaN);
-  return {
-    mape: mean((a) => a.mape),
-    mae: mean((a) => a.mae),
-    rmse: Math.sqrt(w((a) => a.rmse * a.rmse)),
-    bias: mean((a) => a.bias),
-    peakError: mean((a) => Math.abs(a.peakError)),
-    coverage80: w((a) => a.coverage80),
-    coverage95: w((a) => a.coverage95),
   };
 }
