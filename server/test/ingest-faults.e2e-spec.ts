@@ -115,11 +115,17 @@ describe('ingest under faults (real server processes, real MariaDB)', () => {
     return new Map(rows.map((r) => [`${codes.get(r.zone_id)}|${new Date(`${r.hour_start.replace(' ', 'T')}Z`).toISOString()}`, { mw: Number(r.mw), version: Number(r.version) }]));
   }
 
-  /** Every acknowledged reading is stored: its (zone, hour) holds its version or a later one. */
+  /**
+   * Every acknowledged reading is stored: its (zone, hour) holds its version or a later one. The
+   * acknowledgements are copied before the table is read: readings go on flowing while the query
+   * runs (after the database kill the server is up), and a batch acknowledged after the query's
+   * snapshot would otherwise count as lost.
+   */
   async function lostAcknowledged(acked: Map<string, number>): Promise<string[]> {
+    const ackedBefore = new Map(acked);
     const stored = await storedRows();
     const lost: string[] = [];
-    for (const [key, version] of acked) if ((stored.get(key)?.version ?? 0) < version) lost.push(key);
+    for (const [key, version] of ackedBefore) if ((stored.get(key)?.version ?? 0) < version) lost.push(key);
     return lost;
   }
 
