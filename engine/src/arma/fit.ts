@@ -1,7 +1,8 @@
 /**
  * Exact maximum-likelihood estimation of ARMA(p, q) with an optional multiplicative seasonal
  * block (P, Q)_s and an optional mean (Box & Jenkins 1970; Harvey 1989):
- *  - starting values by Hannan–Rissanen (1982),
+ *  - starting values by Hannan–Rissanen (1982), or by the method of moments for MA(1) and
+ *    ARMA(1,1) (moment-start.ts),
  *  - coefficients kept stationary / invertible through the partial-autocorrelation transform
  *    (Barndorff-Nielsen & Schou 1973; Jones 1980; Monahan 1984),
  *  - objective the exact Gaussian likelihood from the Kalman filter with σ² concentrated out and
@@ -26,6 +27,7 @@ import { minimizeBfgs } from './bfgs';
 import { chandrasekharScore } from './chandrasekhar-score';
 import { cssStart } from './css';
 import { hannanRissanen } from './hannan-rissanen';
+import { hasMomentStart, momentStart } from './moment-start';
 import { armaInformation, inverseSpd } from './information';
 import { concentratedLogLik, FilterResult, kalmanFilter } from './kalman';
 import { expandAr, expandMa } from './polynomials';
@@ -85,7 +87,7 @@ export interface ArmaFit {
   /** likelihood evaluations of the estimation, over every start */
   evaluations: number;
   /** where the search that was kept began */
-  startedFrom: 'given' | 'hannan-rissanen' | 'zero' | 'opposed' | 'css';
+  startedFrom: 'given' | 'hannan-rissanen' | 'moments' | 'zero' | 'opposed' | 'css';
   /** wall time of the estimation, ms */
   fitMs: number;
   forecast(h: number): ArmaForecast;
@@ -216,10 +218,14 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   }
   const st = opts.start;
   // a start given in full (the hourly update, a selected order's final fit) needs no regression
+  const none = new Float64Array(0);
+  const moments = !st && hasMomentStart(o.p, o.q, o.P, o.Q) ? momentStart(centred, o.p as 0 | 1) : null;
   const hr =
     st?.ar && st.ma && st.sar && st.sma
-      ? { ar: new Float64Array(0), ma: new Float64Array(0), sar: new Float64Array(0), sma: new Float64Array(0) }
-      : hannanRissanen(centred, { p: o.p, q: o.q, P: o.P, Q: o.Q, period: s || 1 });
+      ? { ar: none, ma: none, sar: none, sma: none }
+      : moments
+        ? { ...moments, sar: none, sma: none }
+        : hannanRissanen(centred, { p: o.p, q: o.q, P: o.P, Q: o.Q, period: s || 1 });
   const startNat: Natural = {
     ar: st?.ar ? Float64Array.from(st.ar) : hr.ar,
     ma: st?.ma ? Float64Array.from(st.ma) : hr.ma,
@@ -291,7 +297,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   // unchanged (see keptStart below)
   const fAtStart = st && startInRegion ? objective(u0) : Infinity;
   let opt = search(u0);
-  let startedFrom: ArmaFit['startedFrom'] = st ? 'given' : 'hannan-rissanen';
+  let startedFrom: ArmaFit['startedFrom'] = st ? 'given' : moments ? 'moments' : 'hannan-rissanen';
   let evaluations = opt.evaluations;
   let cssTried = false;
   if (!st && (opts.secondStart ?? needsSecondStart(o))) {
@@ -393,8 +399,8 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   const keptStart = st !== undefined && Number.isFinite(fAtStart) && !(opt.f < fAtStart - 1e-10);
   const nat = keptStart ? startNat : fromUnconstrained(opt.x, o);
   const ss = stateSpaceOf(nat, s);
-  const prof = kalmanFilter(x, ss, { profileMean: o.includeMean, tol });
-  const mean = o.includeMean ? prof.mean : 0;
+  // the GLS mean at the estimate (a pass of its own only when there is a mean)
+  const mean = o.includeMean ? kalmanFilter(x, ss, { profileMean: true, tol }).mean : 0;
   const residuals = new Float64Array(x.length);
   const predictions = new Float64Array(x.length);
   const final = kalmanFilter(x, ss, { mean, tol, residuals, predictions, keepState: true });

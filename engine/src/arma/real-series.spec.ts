@@ -4,7 +4,9 @@
  * R (sunspot.month, sunspots, sunspot.year, lynx, BJsales, Nile, LakeHuron, treering, co2,
  * nottem, UKDriverDeaths): long quasi-periodic cycles, means far from zero, near-unit roots and
  * seasonal differencing; and the open demand series (forecast's taylor, hourly) differenced as
- * the pipeline does, at orders where R's "CSS-ML" once beat the engine. R fitted each case by "CSS-ML" and by "ML"; the engine must reach the
+ * the pipeline does, at orders where R's "CSS-ML" once beat the engine, and MA(1) and ARMA(1,1)
+ * (searched from the method of moments) on the demand series, an over-differenced lh, Nile's
+ * local level, sunspot.year, LakeHuron and treering. R fitted each case by "CSS-ML" and by "ML"; the engine must reach the
  * higher of the two (R's "ML" itself stops on the boundary for sunspot.month ARMA(2,1)).
  */
 import fixture from '../fixtures/r-arima-real.json';

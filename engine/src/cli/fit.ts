@@ -25,6 +25,7 @@ const USAGE =
 const START_LABELS: Record<ArimaFit['arma']['startedFrom'], string> = {
   given: 'given',
   'hannan-rissanen': 'Hannan–Rissanen',
+  moments: 'method-of-moments',
   zero: 'all-zero',
   opposed: 'opposed AR/MA',
   css: 'conditional-sum-of-squares',
