@@ -8,7 +8,7 @@
  *  - objective the exact Gaussian likelihood from the Kalman filter with σ² concentrated out and
  *    the mean concentrated out by GLS, initial covariance by Gardner, Harvey & Phillips (1980),
  *  - BFGS on the unconstrained values, started from the information matrix (information.ts), with
- *    the exact gradient for a complete series without a mean (steady-score.ts, or
+ *    the exact gradient for a complete series, with a mean by the envelope theorem (steady-score.ts, or
  *    chandrasekhar-score.ts where the filter settles late or never) and forward differences
  *    otherwise; for AR and MA orders both ≥ 2 a second search from the conditional-sum-of-squares
  *    estimate (css.ts) and, when the two end at different maxima, two more, from all-zero
@@ -238,22 +238,28 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   const complete = nFinite === x.length;
   const model = s === 0 ? nonSeasonalModel(o.p, o.q) : (u: Float64Array): ArmaStateSpace => stateSpaceOf(fromUnconstrained(u, o), s);
   const step = 1e-6;
-  // A complete series with a known mean: the likelihood's gradient exactly, by one backward
-  // pass over the steady stretch and tangents of the start-up (steady-score.ts), which pays
-  // from three coefficients on; otherwise the whole likelihood is forward-differenced.
-  const scoreInput = complete && !o.includeMean && k >= 3 ? { x, model: (u: Float64Array) => stateSpaceWithTangents(u, o) } : null;
+  // A complete series: the likelihood's gradient exactly, by one backward pass over the steady
+  // stretch and tangents of the start-up (steady-score.ts), which pays from three coefficients
+  // on; otherwise the whole likelihood is forward-differenced. With a mean the objective is the
+  // likelihood profiled over it (its GLS estimate μ̂(u) at each u), and by the envelope theorem
+  // its gradient is the gradient at the mean held at μ̂(u) (the derivative through μ̂ vanishes
+  // at the minimum over the mean; Magnus & Neudecker 1999, ch. 7): the score of the known-mean
+  // likelihood of x − μ̂, from one plain pass over it beside the profiled one.
+  const withMean = o.includeMean;
+  const scoreInput = complete && k >= 3 ? { x: withMean ? new Float64Array(x.length) : x, model: (u: Float64Array) => stateSpaceWithTangents(u, o) } : null;
   // the last evaluation's point and what its filter left for the steady-state score there
   const lastU = new Float64Array(k);
   let lastValid = false;
   let lastPass: SteadyPass | null = null;
   let lastSteadyAt = -1;
+  let lastMean = 0;
   const trace = scoreInput ? new Float64Array(x.length) : undefined;
   const objective = (u: Float64Array): number => {
     const ss = model(u);
     let f: FilterResult;
     lastValid = false;
     try {
-      f = kalmanFilter(x, ss, { profileMean: o.includeMean, tol, complete, trace });
+      f = kalmanFilter(x, ss, { profileMean: withMean, tol, complete, trace: withMean ? undefined : trace });
     } catch {
       // a root on the unit circle to machine precision (the transform's tanh saturates far out):
       // no stationary covariance there, so no likelihood; the line search steps back
@@ -264,7 +270,21 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
     lastValid = true;
     lastPass = f.entry && trace ? { ssq: f.ssq, entry: f.entry, trace } : null;
     lastSteadyAt = f.steadyAt;
+    lastMean = f.mean;
     return 0.5 * Math.log(f.ssq / f.nUsed) + (0.5 * f.sumLogF) / f.nUsed;
+  };
+  /** With a mean: the plain pass over x − μ̂(u) whose trace the steady-state score reads. */
+  const passAtMean = (u: Float64Array, xc: Float64Array): boolean => {
+    for (let t = 0; t < x.length; t++) xc[t] = x[t] - lastMean;
+    let f: FilterResult;
+    try {
+      f = kalmanFilter(xc, model(u), { tol, complete: true, trace });
+    } catch {
+      return false;
+    }
+    lastPass = f.entry && trace ? { ssq: f.ssq, entry: f.entry, trace } : null;
+    lastSteadyAt = f.steadyAt;
+    return true;
   };
   // Where the filter settles late or never (a seasonal MA part near the unit circle), the
   // steady-state score has nothing to work on; the gradient then comes from the Chandrasekhar
@@ -272,13 +292,14 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   const gradient = scoreInput
     ? (u: Float64Array): Float64Array | null => {
         if (!lastValid || !sameValues(lastU, u)) return null;
+        if (withMean && !passAtMean(u, scoreInput.x)) return null;
         const steady = lastPass ? steadyStateScore(scoreInput, u, lastPass) : null;
         if (steady || k < CHANDRASEKHAR_SCORE_MIN_K) return steady;
         // differences cost k passes that stop where the filter settles; the backward score
         // three to four passes over the whole series without that stop
         if (lastSteadyAt >= 0 && k * (lastSteadyAt + 1) < 3 * x.length) return null;
         try {
-          return chandrasekharScore(x, scoreInput.model(u), k);
+          return chandrasekharScore(scoreInput.x, scoreInput.model(u), k);
         } catch {
           return null;
         }

@@ -539,6 +539,63 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       t = u - 1;
       continue;
     }
+    if (steady && observed && profile && r <= 4 && !wantRes && !wantPred && !wantTrace) {
+      // the steady recursion with the mean profiled out, in local scalars up to the next
+      // missing hour: the data's state a and the state c of the column of ones (de Jong 1991)
+      // follow the same fixed recursion, c_i a_0 + d_i y + a_{i+1} with y = 1 for the ones
+      const cd = ws.cd;
+      const c0 = cd[0];
+      const c1 = cd[1];
+      const c2 = cd[2];
+      const c3 = cd[3];
+      const d0 = cd[4];
+      const d1 = cd[5];
+      const d2 = cd[6];
+      const d3 = cd[7];
+      let a0 = a[0];
+      let a1 = r > 1 ? a[1] : 0;
+      let a2 = r > 2 ? a[2] : 0;
+      let a3 = r > 3 ? a[3] : 0;
+      let o0 = c[0];
+      let o1 = r > 1 ? c[1] : 0;
+      let o2 = r > 2 ? c[2] : 0;
+      let o3 = r > 3 ? c[3] : 0;
+      let svv = 0;
+      let sv1 = 0;
+      let s11 = 0;
+      const end = complete ? n : nextMissing(x, t);
+      for (let u = t; u < end; u++) {
+        const yu = x[u] - mu0;
+        const v = yu - a0;
+        const v1 = 1 - o0;
+        svv += v * v;
+        sv1 += v1 * v;
+        s11 += v1 * v1;
+        const na0 = c0 * a0 + (d0 * yu + a1);
+        a1 = c1 * a0 + (d1 * yu + a2);
+        a2 = c2 * a0 + (d2 * yu + a3);
+        a3 = c3 * a0 + d3 * yu;
+        a0 = na0;
+        const no0 = c0 * o0 + (d0 + o1);
+        o1 = c1 * o0 + (d1 + o2);
+        o2 = c2 * o0 + (d2 + o3);
+        o3 = c3 * o0 + d3;
+        o0 = no0;
+      }
+      a[0] = a0;
+      c[0] = o0;
+      if (r > 1) (a[1] = a1), (c[1] = o1);
+      if (r > 2) (a[2] = a2), (c[2] = o2);
+      if (r > 3) (a[3] = a3), (c[3] = o3);
+      const m = end - t;
+      ssq += svv / Fss;
+      sxy += sv1 / Fss;
+      sxx += s11 / Fss;
+      sumLogF += m * logFss;
+      nUsed += m;
+      t = end - 1;
+      continue;
+    }
     if (steady && observed) {
       if (wantTrace) tr[t] = a[0];
       const v = yt - a[0];
