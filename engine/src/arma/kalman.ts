@@ -584,9 +584,18 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       }
       a[0] = a0;
       c[0] = o0;
-      if (r > 1) (a[1] = a1), (c[1] = o1);
-      if (r > 2) (a[2] = a2), (c[2] = o2);
-      if (r > 3) (a[3] = a3), (c[3] = o3);
+      if (r > 1) {
+        a[1] = a1;
+        c[1] = o1;
+      }
+      if (r > 2) {
+        a[2] = a2;
+        c[2] = o2;
+      }
+      if (r > 3) {
+        a[3] = a3;
+        c[3] = o3;
+      }
       const m = end - t;
       ssq += svv / Fss;
       sxy += sv1 / Fss;
