@@ -89,3 +89,40 @@ describe('kalmanFilter: a large state with missing hours', () => {
     for (let i = 0; i < r; i++) for (let j = i; j < r; j++) expect(Math.abs(P[i * s + j] - full[i * r + j])).toBeLessThan(1e-9 * full[0]);
   });
 });
+
+/**
+ * The mean profiled out by GLS inside the filter (the column of ones filtered beside the data,
+ * de Jong 1991). For AR(1) with a stationary start the exact GLS mean has a closed form (the
+ * exact AR(1) likelihood, Hamilton 1994, §5.2): minimising
+ * (1 − φ²)(x₁ − μ)² + Σ_{t≥2} (x_t − φ x_{t−1} − (1 − φ) μ)² gives
+ * μ̂ = [(1 − φ²) x₁ + (1 − φ) Σ_{t≥2} (x_t − φ x_{t−1})] / [(1 − φ²) + (n − 1)(1 − φ)²].
+ */
+describe('kalmanFilter: the mean profiled out', () => {
+  const y = Float64Array.from(simulateArma21(800, 21), (v) => v + 250);
+
+  it('AR(1): the GLS mean of the closed form, on the quick path and on the general one', () => {
+    const phi = 0.7;
+    const n = y.length;
+    let s = (1 - phi * phi) * y[0];
+    for (let t = 1; t < n; t++) s += (1 - phi) * (y[t] - phi * y[t - 1]);
+    const closedForm = s / (1 - phi * phi + (n - 1) * (1 - phi) ** 2);
+    const ss = armaStateSpace([phi], []);
+    const quick = kalmanFilter(y, ss, { profileMean: true, complete: true });
+    // asking for residuals takes the general recursions
+    const general = kalmanFilter(y, ss, { profileMean: true, residuals: new Float64Array(n) });
+    expect(quick.mean).toBeCloseTo(closedForm, 9);
+    expect(general.mean).toBeCloseTo(closedForm, 9);
+  });
+
+  it.each([
+    ['ARMA(2,2) near a unit MA root (settles late)', [0.5, -0.3], [1.6, 0.62]],
+    ['ARMA(3,3)', [0.5, -0.3, 0.1], [0.9, 0.5, 0.2]],
+    ['ARMA(2,1) near a unit AR root', [1.19, -0.205], [-0.6]],
+  ])('%s: the quick path gives the general recursions’ mean and likelihood', (_n, ar, ma) => {
+    const ss = armaStateSpace(ar, ma);
+    const quick = kalmanFilter(y, ss, { profileMean: true, complete: true });
+    const general = kalmanFilter(y, ss, { profileMean: true, residuals: new Float64Array(y.length) });
+    expect(quick.mean).toBeCloseTo(general.mean, 8);
+    expect(Math.abs(concentratedLogLik(quick) - concentratedLogLik(general))).toBeLessThan(1e-7);
+  });
+});

@@ -100,7 +100,8 @@ interface Workspace {
   wn: Float64Array;
   /** the steady recursion's constants c_0..c_3, d_0..d_3 */
   cd: Float64Array;
-  /** what quickStartUp hands back: Σ v²/F, Σ log F, whether it reached the steady state */
+  /** what quickStartUp hands back: Σ v²/F, Σ log F, whether it reached the steady state (and
+   *  with the mean profiled out Σ v·v₁/F, Σ v₁²/F) */
   sums: Float64Array;
   /** the steady state handed to and from tracedStretch */
   st: Float64Array;
@@ -114,7 +115,7 @@ function workspaceFor(r: number): Workspace {
     const s = r + 1;
     const v = () => new Float64Array(s);
     const m = () => new Float64Array(s * s);
-    ws = { phi: v(), P: m(), Pn: m(), P0: new Float64Array(r * r), RR: m(), a: v(), c: v(), K: v(), g: v(), w: v(), wn: v(), cd: new Float64Array(8), sums: new Float64Array(3), st: new Float64Array(4), io: new Float64Array(16) };
+    ws = { phi: v(), P: m(), Pn: m(), P0: new Float64Array(r * r), RR: m(), a: v(), c: v(), K: v(), g: v(), w: v(), wn: v(), cd: new Float64Array(8), sums: new Float64Array(5), st: new Float64Array(4), io: new Float64Array(20) };
     workspaces.set(r, ws);
   }
   return ws;
@@ -323,6 +324,109 @@ function quickStartUpSmall(x: Float64Array, mu0: number, io: Float64Array, mw0: 
   return Math.min(t, n - 1);
 }
 
+/**
+ * quickStartUpSmall with the mean profiled out: the column of ones filtered beside the data with
+ * the same gains (de Jong 1991), its state c and the sums Σ v·v₁/F and Σ v₁²/F of the GLS mean
+ * carried in scalars too. io as for quickStartUpSmall, and c returned in 16–19; sums gets Σ v²/F,
+ * Σ log F, whether the steady state was reached, Σ v·v₁/F and Σ v₁²/F.
+ */
+function quickStartUpSmallProfile(x: Float64Array, io: Float64Array, mw0: number, tol: number, sums: Float64Array): number {
+  const n = x.length;
+  const f0 = io[0];
+  const f1 = io[1];
+  const f2 = io[2];
+  const f3 = io[3];
+  let p0 = io[4];
+  let p1 = io[5];
+  let p2 = io[6];
+  let p3 = io[7];
+  let w0 = io[8];
+  let w1 = io[9];
+  let w2 = io[10];
+  let w3 = io[11];
+  let a0 = 0;
+  let a1 = 0;
+  let a2 = 0;
+  let a3 = 0;
+  let o0 = 0;
+  let o1 = 0;
+  let o2 = 0;
+  let o3 = 0;
+  let mw = mw0;
+  let ssq = 0;
+  let sxy = 0;
+  let sxx = 0;
+  let sumLogF = 0;
+  let prodF = 1;
+  let inProd = 0;
+  let ginv = 1 / p0;
+  let t = 0;
+  let reached = 0;
+  for (; t < n; t++) {
+    const y = x[t];
+    const v = y - a0;
+    const v1 = 1 - o0;
+    const vf = v * ginv;
+    const v1f = v1 * ginv;
+    ssq += v * vf;
+    sxy += v1 * vf;
+    sxx += v1 * v1f;
+    prodF *= p0;
+    if (++inProd === 4) {
+      sumLogF += Math.log(prodF);
+      prodF = 1;
+      inProd = 0;
+    }
+    const coef = w0 * ginv;
+    const mz = mw * w0;
+    a0 = f0 * y + a1 + p1 * vf;
+    a1 = f1 * y + a2 + p2 * vf;
+    a2 = f2 * y + a3 + p3 * vf;
+    a3 = f3 * y;
+    o0 = f0 + o1 + p1 * v1f;
+    o1 = f1 + o2 + p2 * v1f;
+    o2 = f2 + o3 + p3 * v1f;
+    o3 = f3;
+    const nw0 = w1 - p1 * coef;
+    const nw1 = w2 - p2 * coef;
+    const nw2 = w3 - p3 * coef;
+    const change = Math.abs(mw) * Math.max(w0 * w0, w1 * w1, w2 * w2, w3 * w3);
+    p0 += mz * w0;
+    p1 += mz * w1;
+    p2 += mz * w2;
+    p3 += mz * w3;
+    w0 = nw0;
+    w1 = nw1;
+    w2 = nw2;
+    w3 = 0;
+    ginv = 1 / p0;
+    mw -= mz * mz * ginv;
+    if (change < tol) {
+      reached = 1;
+      break;
+    }
+  }
+  if (inProd > 0) sumLogF += Math.log(prodF);
+  io[4] = p0;
+  io[5] = p1;
+  io[6] = p2;
+  io[7] = p3;
+  io[12] = a0;
+  io[13] = a1;
+  io[14] = a2;
+  io[15] = a3;
+  io[16] = o0;
+  io[17] = o1;
+  io[18] = o2;
+  io[19] = o3;
+  sums[0] = ssq;
+  sums[1] = sumLogF;
+  sums[2] = reached;
+  sums[3] = sxy;
+  sums[4] = sxx;
+  return Math.min(t, n - 1);
+}
+
 /** Stands in for an output that was not asked for (never written: its flag is false). */
 const NO_OUTPUT = new Float64Array(0);
 
@@ -421,6 +525,35 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
     tStart = last + 1;
     if (sums[2] === 1) {
       if (wantTrace) entry = entryOf(last, ssq, sumLogF, a, P, r);
+      steady = true;
+      steadyAt = last;
+      Fss = P[0];
+      logFss = Math.log(Fss);
+      steadyConstants(P, phi, r, K, ws.cd);
+    }
+  } else if (chandra && !trackP && complete && profile && r <= 4 && !wantRes && !wantPred && !wantTrace && stopAt < 0) {
+    // the same with the mean profiled out (the fit of a model with a mean): the start-up of the
+    // data and of the column of ones in scalars, then the profiled steady loop below
+    const io = ws.io;
+    const sums = ws.sums;
+    for (let i = 0; i < 4; i++) {
+      io[i] = i < r ? phi[i] : 0;
+      io[4 + i] = i < r ? P[i] : 0;
+      io[8 + i] = i < r ? w[i] : 0;
+    }
+    const last = quickStartUpSmallProfile(x, io, mw, tol, sums);
+    for (let i = 0; i < r; i++) {
+      P[i] = io[4 + i];
+      a[i] = io[12 + i];
+      c[i] = io[16 + i];
+    }
+    ssq = sums[0];
+    sumLogF = sums[1];
+    sxy = sums[3];
+    sxx = sums[4];
+    nUsed = last + 1;
+    tStart = last + 1;
+    if (sums[2] === 1) {
       steady = true;
       steadyAt = last;
       Fss = P[0];
