@@ -4,7 +4,8 @@
  *  0. the real-series table first (bench-real.ts): the open demand series under each differencing
  *     the pipeline considers, every order p, q ≤ 3 with and without a seasonal block at 24,
  *     against R in the same run (`--real-only` runs this table alone, `--no-real` leaves it out,
- *     `--pipeline-only` runs parts 2 and 4 alone);
+ *     `--pipeline-only` runs parts 2 and 4 alone), then R's own real datasets with means, long
+ *     cycles and seasonal differencing the same way (bench-datasets.ts);
  *  1. exact-ML ARMA fits (with standard errors) on 2,000 and 8,760 hourly points, median wall
  *     time, on simulated ARMA(2,1) series (φ = 0.6, −0.2; θ = 0.4), several orders;
  *  2. the automatic pipeline on eight weeks (1,344 h) of the real demand fixture;
@@ -27,6 +28,7 @@ import { accuracy, backtest, describeModel, fitArma, median, runPipeline, type B
 import { simulateArma21 as simulate } from './bench-series';
 import { printRealTable, RealCase, realCases, RFitTiming, timeEngine, timeRealTable } from './bench-real';
 import { runWeatherBench } from './bench-weather';
+import { datasetCases, printDatasetTable, timeDatasets } from './bench-datasets';
 
 function valueOf(args: string[], name: string): string | undefined {
   const i = args.indexOf(name);
@@ -141,6 +143,15 @@ function main(): void {
     };
     const rows = timeRealTable(taylorLoad, cases, rVersion ? fitR : null);
     printRealTable(rows);
+    console.log('');
+    // the engine's fits first, then R's: each table is timed in a few seconds on both sides
+    const datasets = datasetCases(JSON.parse(readFileSync(join(FIX, 'r-arima-real.json'), 'utf8')));
+    const dsRows = timeDatasets(datasets);
+    if (rVersion) {
+      const out = runR({ datasets: datasets.map((c, i) => ({ id: i, x: c.x, order: c.order, seasonal: c.seasonal, period: c.period, includeMean: c.includeMean })) });
+      (out.datasets as Array<{ id: number; cssMl: RFitTiming; ml: RFitTiming }>).forEach((r) => (dsRows[r.id].r = { cssMl: r.cssMl, ml: r.ml }));
+    }
+    printDatasetTable(dsRows);
     console.log('');
     if (args.includes('--real-only')) return;
   }
