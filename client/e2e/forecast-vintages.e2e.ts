@@ -1,7 +1,7 @@
 import { DateTime } from 'luxon';
 import { operatingDayBounds, type DayScheduleDto, type ScheduleRevisionDto } from '@morrowline/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { BASE_URL, demoUser, openDesk, screenshot, signInAs, type Desk } from './support/browser';
+import { BASE_URL, demoUser, openDesk, screenshot, signInAs, waitForLoaded, type Desk } from './support/browser';
 import { apiToken } from './support/history';
 import { insertPastForecastRun } from './support/test-database';
 import { ownZone } from './support/zones';
@@ -47,7 +47,9 @@ describe('forecast vintages on the day-ahead schedule', () => {
     const operator = await apiToken('operator');
     await signInAs(page, demoUser('operator'));
     await page.goto(`/schedules?day=${day}&zones=${ZONE}`);
-    await page.getByTestId(`zone-schedule-${ZONE}`).waitFor({ timeout: 60_000 });
+    // The card needs GET /api/zones and GET /api/schedules/:day; a refusal (the server once
+    // answered "No active zone with code WILLOW" for a zone added a moment ago) fails here at once.
+    await waitForLoaded(page, `zone-schedule-${ZONE}`);
     await page.getByRole('button', { name: 'Start the draft' }).click();
     const origin = page.getByTestId('revision-forecast');
     await origin.waitFor();

@@ -309,4 +309,19 @@ describe('day-ahead schedules (real MariaDB, SMTP fake)', () => {
     const audit = await em.fork().find(AuditEntry, { action: 'schedule.restart', subjectId: String(draft.id) });
     expect(audit).toHaveLength(1);
   });
+
+  it('shows the day of a zone added a moment ago, though the zone list the forecasts read was cached just before', async () => {
+    // this read fills the server's short-lived list of active zones (ReadingsService.zones)
+    await api().get(`/api/schedules/${DAY}?zone=${ZONE}`).set(as(viewer)).expect(200);
+    const code = `FRESH${Date.now() % 100000}`;
+    const zone = { code, name: `Fresh Meadow ${code.slice(5)}`, timeZone: 'America/Denver', alertThresholdPct: 5, alertConsecutiveHours: 2, gateClosure: '10:00', minPlausibleMw: 0, maxPlausibleMw: 400 };
+    await api().post('/api/zones').set(as(admin)).send(zone).expect(201);
+    // at once, well inside the cache's lifetime: the zone exists, so its day is shown (not a 400 "no active zone")
+    const day = (await api().get(`/api/schedules/${DAY}?zone=${code}`).set(as(ines)).expect(200)).body as DayScheduleDto;
+    expect(day.zones.map((z) => [z.zone, z.slots.length, z.forecast, z.working])).toEqual([[code, 24, null, null]]);
+    expect(((await api().get(`/api/forecasts/runs?zone=${code}`).set(as(viewer)).expect(200)).body as ForecastRunSummaryDto[])).toEqual([]);
+    // a code that names no zone is still refused, after the list is read afresh
+    const unknown = await api().get(`/api/schedules/${DAY}?zone=NOSUCH${code.slice(5)}`).set(as(ines)).expect(400);
+    expect(unknown.body.message).toBe(`No active zone with code NOSUCH${code.slice(5)}`);
+  });
 });

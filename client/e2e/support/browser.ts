@@ -70,6 +70,26 @@ export async function signInAs(page: Page, user: DemoUser, startPath = '/sign-in
   await page.getByTestId('signed-in-name').waitFor({ state: 'visible' });
 }
 
+/** The title of the desk's inline failure notice (client/src/components/ErrorNotice.tsx). */
+const REFUSAL_TITLE = 'That did not work';
+
+/**
+ * Waits for the element a page shows once its queries have answered. A request the server
+ * refused shows an error notice instead, which no amount of waiting mends: that fails at once
+ * with the server's message, and a timeout says what the page showed meanwhile.
+ */
+export async function waitForLoaded(page: Page, testId: string, timeout = 60_000): Promise<void> {
+  const loaded = page.getByTestId(testId);
+  const refused = page.getByRole('alert').filter({ hasText: REFUSAL_TITLE });
+  try {
+    await loaded.or(refused).first().waitFor({ timeout });
+  } catch (error) {
+    const shown = (await page.locator('main').innerText().catch(() => '')).replace(/\s+/g, ' ').slice(0, 400);
+    throw new Error(`${testId} did not appear within ${timeout} ms at ${page.url()}; the page showed: ${shown}`, { cause: error });
+  }
+  if (!(await loaded.isVisible())) throw new Error(`${testId} did not appear: the page answered "${(await refused.first().innerText()).replace(/\s+/g, ' ')}"`);
+}
+
 /** The section labels in the side navigation, in order. */
 export async function navigationLabels(page: Page): Promise<string[]> {
   const navigation = page.getByRole('navigation', { name: 'Sections' });

@@ -108,9 +108,15 @@ export class ReadingsService {
     this.events.publish(DOMAIN_EVENTS.readingsStored, { zones: [...perZone.values()], receivedAt: new Date().toISOString() });
   }
 
-  /** Resolves zone codes (all active zones when none given); unknown codes are a 400. */
+  /**
+   * Resolves zone codes (all active zones when none given); unknown codes are a 400. A code the
+   * cached list lacks is looked up afresh before it is refused: a zone added a moment ago (less
+   * than ZONE_CACHE_MS) is a zone, and its schedule, forecast or history must not be answered
+   * "no active zone" until the cache happens to expire.
+   */
   async resolveZones(codes: readonly string[] | undefined): Promise<ZoneLimits[]> {
-    const zones = await this.zones();
+    let zones = await this.zones();
+    if (codes?.some((code) => !zones.byCode.has(code))) zones = await this.zones(true);
     return pickActiveZones([...zones.byCode.values()], codes);
   }
 

@@ -168,7 +168,6 @@ export class SchedulesService {
     }
   }
 
-  /** Refuses (409) an action the workflow does not allow from the revision's state (schedule-transitions.ts). */
   /** The next revision of the zone's day, as a draft on the given forecast (a first draft or a correction). */
   private async addDraft(
     tx: EntityManager,
@@ -191,9 +190,28 @@ export class SchedulesService {
     });
   }
 
+  /** Refuses (409) an action the workflow does not allow from the revision's state (schedule-transitions.ts). */
   private allowed(revision: ScheduleRevision, action: ScheduleAction): void {
     const refusal = transitionRefusal(action, at(revision));
     if (refusal) throw new ConflictException(refusal);
+  }
+
+  /**
+   * The zone/day's working revision, locked for the rest of the transaction, for adjustments (one
+   * or a batch). Refused (409) when there is none — published, so a correction is needed, or never
+   * drafted — or when its state allows no adjustment (submitted).
+   */
+  private async adjustableRevision(tx: EntityManager, zone: Zone, day: string): Promise<ScheduleRevision> {
+    const revision = await this.revisionsRepo.lockWorking(tx, zone.id, day);
+    if (!revision) {
+      const published = await this.revisionsRepo.isPublished(tx, zone.id, day);
+      throw published
+        ? new ConflictException(`The ${zone.code} schedule for ${day} is published and cannot be changed; start a correction`)
+        : new ConflictException(`There is no ${zone.code} draft for ${day}; start one first`);
+    }
+    await tx.populate(revision, ['zone']);
+    this.allowed(revision, 'adjust');
+    return revision;
   }
 
   /** Recomputes adjustedMw from startMw and the active adjustments; throws on an impossible result. */
@@ -213,15 +231,7 @@ export class SchedulesService {
       const made: ScheduleAdjustment[] = [];
       const revisions: ScheduleRevision[] = [];
       for (const zone of zones) {
-        const revision = await this.revisionsRepo.lockWorking(tx, zone.id, day);
-        if (!revision) {
-          const published = await this.revisionsRepo.isPublished(tx, zone.id, day);
-          throw published
-            ? new ConflictException(`The ${zone.code} schedule for ${day} is published and cannot be changed; start a correction`)
-            : new ConflictException(`There is no ${zone.code} draft for ${day}; start one first`);
-        }
-        await tx.populate(revision, ['zone']);
-        this.allowed(revision, 'adjust');
+        const revision = await this.adjustableRevision(tx, zone, day);
         if (request.toHour >= revision.hours.length) {
           throw new BadRequestException(`${zone.code} ${day} has ${revision.hours.length} hours (0..${revision.hours.length - 1}); toHour ${request.toHour} is outside it`);
         }
@@ -279,15 +289,7 @@ export class SchedulesService {
     if (!hours.length) throw new BadRequestException('No hour of the what-if changes the load by 0.1 MW or more: there is nothing to add');
     const result = await this.revisionsRepo.fork().transactional(async (tx) => {
       const [zone] = await this.zones(tx, [zoneCode]);
-      const revision = await this.revisionsRepo.lockWorking(tx, zone.id, day);
-      if (!revision) {
-        const published = await this.revisionsRepo.isPublished(tx, zone.id, day);
-        throw published
-          ? new ConflictException(`The ${zone.code} schedule for ${day} is published and cannot be changed; start a correction`)
-          : new ConflictException(`There is no ${zone.code} draft for ${day}; start one first`);
-      }
-      await tx.populate(revision, ['zone']);
-      this.allowed(revision, 'adjust');
+      const revision = await this.adjustableRevision(tx, zone, day);
       const items = hours.map((h) => ({ kind: 'add' as const, fromHour: h.hour, toHour: h.hour, value: h.value }));
       for (const it of items) {
         if (!Number.isInteger(it.fromHour) || it.fromHour < 0 || it.fromHour >= revision.hours.length) throw new BadRequestException(`${zone.code} ${day} has ${revision.hours.length} hours; hour ${it.fromHour} is outside it`);

@@ -1,27 +1,9 @@
-import { plainCalendar } from '@morrowline/engine';
 import { scoreAtIssueTimes } from './issue-time-score';
-import { forecastStored, refitZone, type RefitWeather } from './refit';
+import { forecastStored, refitZone } from './refit';
+import { temperatureZone } from '../../../test/support/temperature-zone';
 
-/** Six weeks of a zone whose load answers the temperature (12 MW per °C below 14 °C), and daily vintages for 48 hours. */
-function zone(): { values: Float64Array; weather: RefitWeather } {
-  const n = 6 * 168;
-  const h = 48;
-  let s = 5;
-  const rnd = () => ((s = (s * 1103515245 + 12345) % 2 ** 31) / 2 ** 31 - 0.5) * 2;
-  // a daily swing and a wandering weather (AR(1) per hour), so the load's own past cannot foresee it
-  const path = new Float64Array(n + 96);
-  let drift = 0;
-  for (let t = 0; t < path.length; t++) {
-    drift = 0.99 * drift + 0.6 * rnd();
-    path[t] = 5 + 6 * Math.sin((2 * Math.PI * ((t % 24) - 15)) / 24) + 3 * drift;
-  }
-  const temp = (t: number) => path[t];
-  const temperature = path.slice(0, n);
-  const values = Float64Array.from({ length: n }, (_, t) => 400 + 60 * Math.sin((2 * Math.PI * ((t % 24) - 9)) / 24) + (Math.floor(t / 24) % 7 >= 5 ? -40 : 0) + 12 * Math.max(0, 14 - temp(t)) + 4 * rnd());
-  const vintages = [];
-  for (let issued = 5; issued < n; issued += 24) vintages.push({ issued, first: issued + 1, members: [Float64Array.from({ length: 72 }, (_, k) => temp(issued + 1 + k) + 0.05 * k * rnd())] });
-  return { values, weather: { firstHourMs: 0, temperature, vintages, calendar: plainCalendar(n + h), issuedAt: n - 0.5 } };
-}
+/** The zone of test/support/temperature-zone.ts, with this spec's own noise. */
+const zone = () => temperatureZone(5);
 
 describe('a stored version with weather terms forecasts as the refit that made it did', () => {
   it('gives the refit\'s own forecast again from the stored terms, response and error model (coefficients held)', () => {

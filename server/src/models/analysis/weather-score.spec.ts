@@ -1,23 +1,9 @@
-import { plainCalendar } from '@morrowline/engine';
 import { refitZone, scoreChoice, type RefitWeather } from './refit';
 import { scoreWeatherChoice } from './weather-score';
+import { temperatureZone } from '../../../test/support/temperature-zone';
 
-/** Six weeks of a zone whose load answers the temperature (12 MW per °C below 14 °C), with daily vintages issued at 05:00 for 72 hours. */
-function zone(): { values: Float64Array; weather: RefitWeather } {
-  const n = 6 * 168;
-  let s = 11;
-  const rnd = () => ((s = (s * 1103515245 + 12345) % 2 ** 31) / 2 ** 31 - 0.5) * 2;
-  const path = new Float64Array(n + 96);
-  let drift = 0;
-  for (let t = 0; t < path.length; t++) {
-    drift = 0.99 * drift + 0.6 * rnd();
-    path[t] = 5 + 6 * Math.sin((2 * Math.PI * ((t % 24) - 15)) / 24) + 3 * drift;
-  }
-  const values = Float64Array.from({ length: n }, (_, t) => 400 + 60 * Math.sin((2 * Math.PI * ((t % 24) - 9)) / 24) + (Math.floor(t / 24) % 7 >= 5 ? -40 : 0) + 12 * Math.max(0, 14 - path[t]) + 4 * rnd());
-  const vintages = [];
-  for (let issued = 5; issued < n; issued += 24) vintages.push({ issued, first: issued + 1, members: [Float64Array.from({ length: 72 }, (_, k) => path[issued + 1 + k] + 0.05 * k * rnd())] });
-  return { values, weather: { firstHourMs: 0, temperature: path.slice(0, n), vintages, calendar: plainCalendar(n + 48), issuedAt: n - 0.5 } };
-}
+/** The zone of test/support/temperature-zone.ts, with this spec's own noise. */
+const zone = () => temperatureZone(11);
 
 describe('a version with weather terms is scored on its weather backtest', () => {
   const { values, weather } = zone();
