@@ -126,3 +126,41 @@ describe('kalmanFilter: the mean profiled out', () => {
     expect(Math.abs(concentratedLogLik(quick) - concentratedLogLik(general))).toBeLessThan(1e-7);
   });
 });
+
+/**
+ * A final pass (residuals, predictions and the end state, as a fit's last pass and the hourly
+ * update make) runs its steady stretches in scalars. With tol = 0 the filter never switches to
+ * the steady state and runs the time-varying recursions throughout: both must give the same
+ * outputs to round-off, with and without missing hours.
+ */
+describe('kalmanFilter: the final pass in the steady state', () => {
+  const y = Float64Array.from(simulateArma21(900, 23));
+  const gappy = Float64Array.from(y);
+  for (const t of [300, 301, 650]) gappy[t] = NaN;
+  it.each([
+    ['MA(1)', [], [0.83]],
+    ['ARMA(1,1)', [0.9], [0.2]],
+    ['ARMA(3,2)', [0.5, -0.2, 0.1], [0.4, 0.3]],
+  ])('%s: residuals, predictions and end state as the time-varying recursions give them', (_n, ar, ma) => {
+    const ss = armaStateSpace(ar, ma);
+    for (const x of [y, gappy]) {
+      const run = (tol: number) => {
+        const residuals = new Float64Array(x.length);
+        const predictions = new Float64Array(x.length);
+        const f = kalmanFilter(x, ss, { mean: 0.7, tol, residuals, predictions, keepState: true });
+        return { f, residuals, predictions };
+      };
+      const steady = run(1e-10);
+      const full = run(0);
+      expect(steady.f.steadyAt).toBeGreaterThanOrEqual(0);
+      expect(full.f.steadyAt).toBe(-1);
+      for (let t = 0; t < x.length; t++) {
+        if (Number.isNaN(x[t])) expect(steady.residuals[t]).toBeNaN();
+        else expect(Math.abs(steady.residuals[t] - full.residuals[t])).toBeLessThan(1e-6);
+        expect(Math.abs(steady.predictions[t] - full.predictions[t])).toBeLessThan(1e-6);
+      }
+      for (let i = 0; i < ss.r; i++) expect(Math.abs(steady.f.aPred![i] - full.f.aPred![i])).toBeLessThan(1e-6);
+      expect(Math.abs(concentratedLogLik(steady.f) - concentratedLogLik(full.f))).toBeLessThan(1e-6);
+    }
+  });
+});

@@ -161,6 +161,48 @@ function tracedStretch(x: Float64Array, from: number, end: number, mu0: number, 
 }
 
 /**
+ * The steady recursion of tracedStretch writing what a final pass keeps instead of the trace:
+ * the standardised innovations v/√F (when res is not empty) and the predictions a_{t,0} + μ
+ * (when pred is not empty). Returns Σ v². The pass that makes a fit's residuals, predictions and
+ * final state (and the hourly update's) took the general loop over the whole steady stretch,
+ * several times the cost of a likelihood pass.
+ */
+function steadyStretchWithOutputs(x: Float64Array, from: number, end: number, mu0: number, st: Float64Array, cd: Float64Array, invSqrtF: number, res: Float64Array, pred: Float64Array): number {
+  const c0 = cd[0];
+  const c1 = cd[1];
+  const c2 = cd[2];
+  const c3 = cd[3];
+  const d0 = cd[4];
+  const d1 = cd[5];
+  const d2 = cd[6];
+  const d3 = cd[7];
+  const wantRes = res.length > 0;
+  const wantPred = pred.length > 0;
+  let a0 = st[0];
+  let a1 = st[1];
+  let a2 = st[2];
+  let a3 = st[3];
+  let sv = 0;
+  for (let u = from; u < end; u++) {
+    const yu = x[u] - mu0;
+    if (wantPred) pred[u] = a0 + mu0;
+    const v = yu - a0;
+    if (wantRes) res[u] = v * invSqrtF;
+    sv += v * v;
+    const na0 = c0 * a0 + (d0 * yu + a1);
+    a1 = c1 * a0 + (d1 * yu + a2);
+    a2 = c2 * a0 + (d2 * yu + a3);
+    a3 = c3 * a0 + d3 * yu;
+    a0 = na0;
+  }
+  st[0] = a0;
+  st[1] = a1;
+  st[2] = a2;
+  st[3] = a3;
+  return sv;
+}
+
+/**
  * The steady gain K = P[·,0]/F into K, and the steady recursion's constants for up to four
  * states into cd: c_i = φ_i (1 − k_0) − k_{i+1}, then d_i = φ_i k_0 + k_{i+1} (K and φ are zero
  * beyond r, so the unused constants come out zero).
@@ -733,6 +775,21 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       ssq += svv / Fss;
       sxy += sv1 / Fss;
       sxx += s11 / Fss;
+      sumLogF += m * logFss;
+      nUsed += m;
+      t = end - 1;
+      continue;
+    }
+    if (steady && observed && r <= 4 && !profile && !wantTrace && (wantRes || wantPred)) {
+      // the final pass's steady stretch in scalars (see steadyStretchWithOutputs), to the next
+      // missing hour; P stays the steady covariance, so only the state is written back
+      const st = ws.st;
+      for (let i = 0; i < 4; i++) st[i] = i < r ? a[i] : 0;
+      const end = complete ? n : nextMissing(x, t);
+      const sv = steadyStretchWithOutputs(x, t, end, mu0, st, ws.cd, 1 / Math.sqrt(Fss), res, pred);
+      for (let i = 0; i < r; i++) a[i] = st[i];
+      const m = end - t;
+      ssq += sv / Fss;
       sumLogF += m * logFss;
       nUsed += m;
       t = end - 1;
