@@ -1,6 +1,7 @@
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import request from 'supertest';
 import { DEMO_ZONES } from '@morrowline/shared';
+import { ReadingsService } from '../src/readings/readings.service';
 import { startTestApp, tokenFor } from './support/test-app';
 
 describe('zones (real MariaDB)', () => {
@@ -54,6 +55,24 @@ describe('zones (real MariaDB)', () => {
     expect(updated.body.alertThresholdPct).toBe(6);
     const unchanged = await api().get('/api/zones').set('Authorization', `Bearer ${admin}`).expect(200);
     expect((unchanged.body as { code: string; minPlausibleMw: number }[]).find((z) => z.code === zone.code)?.minPlausibleMw).toBe(0);
+  });
+
+  it('applies a zone change to the very next batch of readings: a narrower range, then the zone switched off', async () => {
+    const zone = { code: `SWTC${Date.now() % 100000}`, name: `Switch Hollow ${Date.now() % 100000}`, timeZone: 'America/Denver', alertThresholdPct: 4, alertConsecutiveHours: 3, gateClosure: '09:30', minPlausibleMw: 0, maxPlausibleMw: 90 };
+    const created = await api().post('/api/zones').set('Authorization', `Bearer ${admin}`).send(zone).expect(201);
+    const readings = app.get(ReadingsService);
+    const hour = (h: number) => new Date(Date.UTC(2026, 0, 5, h)).toISOString();
+    const send = (h: number, mw: number) => readings.ingest([{ zone: zone.code, hour: hour(h), mw }], { source: 'csv:test@tallowmere.example' });
+    // the readings' zone list is read (and kept for a few seconds) by the first batch
+    expect(await send(0, 80)).toMatchObject({ stored: 1, rejected: [] });
+    await api().patch(`/api/zones/${created.body.id}`).set('Authorization', `Bearer ${admin}`).send({ maxPlausibleMw: 60, reason: 'Feeder split' }).expect(200);
+    const narrow = await send(1, 80);
+    expect(narrow.stored).toBe(0);
+    expect(narrow.rejected[0]).toMatchObject({ reason: 'implausible', message: expect.stringMatching(/plausible range 0–60 MW/) });
+    await api().patch(`/api/zones/${created.body.id}`).set('Authorization', `Bearer ${admin}`).send({ active: false, reason: 'Retired' }).expect(200);
+    const off = await send(2, 50);
+    expect(off.stored).toBe(0);
+    expect(off.rejected[0]).toMatchObject({ reason: 'unknown-zone', message: `No zone with code ${zone.code}` });
   });
 
   it('refuses a second zone with a name already taken, whatever its case, on create and on rename', async () => {

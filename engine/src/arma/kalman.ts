@@ -370,7 +370,9 @@ function quickStartUpSmall(x: Float64Array, mu0: number, io: Float64Array, mw0: 
  * quickStartUpSmall with the mean profiled out: the column of ones filtered beside the data with
  * the same gains (de Jong 1991), its state c and the sums Σ v·v₁/F and Σ v₁²/F of the GLS mean
  * carried in scalars too. io as for quickStartUpSmall, and c returned in 16–19; sums gets Σ v²/F,
- * Σ log F, whether the steady state was reached, Σ v·v₁/F and Σ v₁²/F.
+ * Σ log F, whether the steady state was reached, Σ v·v₁/F and Σ v₁²/F. A copy of
+ * quickStartUpSmall with the ones added rather than a flag in it: the plain start-up is the
+ * loop a fit without a mean runs hundreds of times, and each line it does not need costs there.
  */
 function quickStartUpSmallProfile(x: Float64Array, io: Float64Array, mw0: number, tol: number, sums: Float64Array): number {
   const n = x.length;

@@ -21,12 +21,21 @@ export const DOMAIN_EVENTS = {
   alertAcknowledged: 'alert.acknowledged',
   /** A user's sessions ended or their grounds changed: signed out, deactivated, role changed (SessionEnded). */
   sessionEnded: 'session.ended',
+  /** A zone was created or its settings changed: switched on or off, plausible range (ZoneChanged). */
+  zoneChanged: 'zone.changed',
 } as const;
 
 /** Whose open desk sockets must close, and why (they may reconnect if their token still holds). */
 export interface SessionEnded {
   userId: number;
   reason: 'signed-out' | 'deactivated' | 'role-changed';
+}
+
+/** A zone created or changed, as stored. */
+export interface ZoneChanged {
+  zoneId: number;
+  code: string;
+  active: boolean;
 }
 
 /** Readings of one stored batch, per zone: parallel arrays of UTC hour starts (ISO 8601) and MW. */
@@ -45,6 +54,7 @@ export interface DomainEventPayloads {
   [DOMAIN_EVENTS.alertRaised]: AlertDto;
   [DOMAIN_EVENTS.alertAcknowledged]: AlertDto;
   [DOMAIN_EVENTS.sessionEnded]: SessionEnded;
+  [DOMAIN_EVENTS.zoneChanged]: ZoneChanged;
 }
 
 export type DomainEventName = keyof DomainEventPayloads;

@@ -13,6 +13,9 @@ function zonesTable(codes: string[]) {
     add(code: string) {
       rows.push({ id: rows.length + 1, code, minPlausibleMw: 0, maxPlausibleMw: 500 });
     },
+    switchOff(code: string) {
+      rows.splice(rows.findIndex((r) => r.code === code), 1);
+    },
     repository: {
       active: async () => {
         table.reads++;
@@ -55,5 +58,17 @@ describe('ReadingsService.resolveZones (the short-lived list of active zones)', 
     await readings.resolveZones(undefined);
     await expect(readings.resolveZones(['NOSUCH'])).rejects.toThrow(new BadRequestException('No active zone with code NOSUCH'));
     expect(table.reads).toBe(2);
+  });
+
+  it('drops its list when a zone changes, so a zone switched off a moment ago is no longer served', async () => {
+    const table = zonesTable(['MILLRACE', 'HARROW']);
+    const readings = service(table.repository);
+    await readings.resolveZones(undefined);
+    table.switchOff('HARROW');
+    // without the change event the list of a moment ago still answers
+    expect((await readings.resolveZones(undefined)).map((z) => z.code)).toEqual(['MILLRACE', 'HARROW']);
+    readings.onZoneChanged();
+    expect((await readings.resolveZones(undefined)).map((z) => z.code)).toEqual(['MILLRACE']);
+    await expect(readings.resolveZones(['HARROW'])).rejects.toThrow(new BadRequestException('No active zone with code HARROW'));
   });
 });

@@ -1,3 +1,4 @@
+import { OnEvent } from '@nestjs/event-emitter';
 import { BadRequestException, Injectable } from '@nestjs/common';
 import { HOUR_MS, STALE_AFTER_HOURS, type FeedStatusDto, type ReadingRejection, type ReadingSeriesDto } from '@morrowline/shared';
 import { DOMAIN_EVENTS, type ReadingsStored } from '../events/domain-events';
@@ -10,7 +11,7 @@ import { ReadingsRepository, type StoredRow, type VersionedReading } from './rea
 
 /** Longest range one series request may ask for. */
 export const MAX_SERIES_HOURS = 24 * 92;
-/** Zone settings are re-read at most this often (a change reaches validation within seconds). */
+/** Zone settings are re-read at most this often; a change made on this node drops them at once (onZoneChanged). */
 const ZONE_CACHE_MS = 5_000;
 
 export interface IngestOptions {
@@ -41,6 +42,16 @@ export class ReadingsService {
     private readonly repository: ReadingsRepository,
     private readonly events: DomainEventsPublisher,
   ) {}
+
+  /**
+   * A zone created, switched off or given another plausible range is seen at once, not when the
+   * cache expires: a switched-off zone's readings are refused from the next batch on (on this
+   * node; in a cluster the others read the change within ZONE_CACHE_MS).
+   */
+  @OnEvent(DOMAIN_EVENTS.zoneChanged)
+  onZoneChanged(): void {
+    this.zoneCache = null;
+  }
 
   async zones(refresh = false): Promise<{ byCode: Map<string, ZoneLimits>; byId: Map<number, ZoneLimits> }> {
     if (!refresh && this.zoneCache && Date.now() - this.zoneCache.at < ZONE_CACHE_MS) return this.zoneCache;

@@ -2,6 +2,8 @@ import { EntityManager, UniqueConstraintViolationException } from '@mikro-orm/ma
 import { BadRequestException, ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import type { CreateZoneRequest, UpdateZoneRequest, ZoneDto } from '@morrowline/shared';
 import { AuditService, type Actor } from '../audit/audit.service';
+import { DOMAIN_EVENTS } from '../events/domain-events';
+import { DomainEventsPublisher } from '../events/domain-events.publisher';
 import { Zone } from './entities/zone.entity';
 
 export function toZoneDto(zone: Zone): ZoneDto {
@@ -28,7 +30,13 @@ export class ZonesService {
   constructor(
     private readonly em: EntityManager,
     private readonly audit: AuditService,
+    private readonly events: DomainEventsPublisher,
   ) {}
+
+  /** Told once the change is committed: the readings' cached zone list is dropped at once. */
+  private changed(zone: ZoneDto): void {
+    this.events.publish(DOMAIN_EVENTS.zoneChanged, { zoneId: zone.id, code: zone.code, active: zone.active });
+  }
 
   async list(): Promise<ZoneDto[]> {
     const zones = await this.em.fork().find(Zone, {}, { orderBy: { code: 'asc' } });
@@ -67,11 +75,13 @@ export class ZonesService {
       if (error instanceof UniqueConstraintViolationException) throw new ConflictException(`A zone with code ${request.code} already exists`);
       throw error;
     }
-    return toZoneDto(zone);
+    const created = toZoneDto(zone);
+    this.changed(created);
+    return created;
   }
 
   async update(actor: Actor, id: number, request: UpdateZoneRequest): Promise<ZoneDto> {
-    return this.em.fork().transactional(async (tx) => {
+    const updated = await this.em.fork().transactional(async (tx) => {
       const zone = await tx.findOne(Zone, { id });
       if (!zone) throw new NotFoundException(`No zone with id ${id}`);
       const before = toZoneDto(zone);
@@ -83,5 +93,7 @@ export class ZonesService {
       this.audit.stage(tx, actor, { action: 'zone.update', subjectType: 'zone', subjectId: zone.code, before, after, reason: reason ?? null });
       return after;
     });
+    this.changed(updated);
+    return updated;
   }
 }
