@@ -295,6 +295,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
         if (withMean && !passAtMean(u, scoreInput.x)) return null;
         const steady = lastPass ? steadyStateScore(scoreInput, u, lastPass) : null;
         if (steady || k < CHANDRASEKHAR_SCORE_MIN_K) return steady;
+        // the steady score declined a filter that settles (its start-up tangents failed):
         // differences cost k passes that stop where the filter settles; the backward score
         // three to four passes over the whole series without that stop
         if (lastSteadyAt >= 0 && k * (lastSteadyAt + 1) < 3 * x.length) return null;

@@ -85,15 +85,40 @@ describe('steadyStateScore: the gradient of the concentrated likelihood', () => 
     }
   });
 
-  it('declines when the filter reaches its steady state too late to pay (then the caller differences)', () => {
+  describe('a late steady state', () => {
     const model = (v: Float64Array): ArmaStateSpace => armaStateSpace(toStationary(v.subarray(0, 2)), toInvertible(v.subarray(2)));
-    // an MA root this close to the unit circle keeps the gain moving for over half the series
-    const at = Float64Array.from([0.3, 0.2, 2.2, 0.5]);
-    const trace = new Float64Array(y.length);
-    const pass = kalmanFilter(y, model(at), { tol: 1e-10, complete: true, trace });
-    expect(pass.entry?.steadyAt).toBeGreaterThan(y.length / 2);
     const tangents = (v: Float64Array) => stateSpaceWithTangents(v, { p: 2, q: 2, P: 0, Q: 0, period: 0 });
-    expect(steadyStateScore({ x: y, model: tangents }, at, { ssq: pass.ssq, entry: pass.entry!, trace })).toBeNull();
+    const objective = (v: Float64Array): number => {
+      const f = kalmanFilter(y, model(v), { tol: 1e-10, complete: true });
+      return 0.5 * Math.log(f.ssq / f.nUsed) + (0.5 * f.sumLogF) / f.nUsed;
+    };
+    const scoreAt = (at: Float64Array) => {
+      const trace = new Float64Array(y.length);
+      const pass = kalmanFilter(y, model(at), { tol: 1e-10, complete: true, trace });
+      return { steadyAt: pass.entry?.steadyAt ?? -1, g: pass.entry ? steadyStateScore({ x: y, model: tangents }, at, { ssq: pass.ssq, entry: pass.entry, trace }) : null };
+    };
+
+    it('is still scored past half the series (cheaper than k differenced passes through the same start-up)', () => {
+      // an MA root this close to the unit circle keeps the gain moving for over half the series
+      const at = Float64Array.from([0.3, 0.2, 2.2, 0.5]);
+      const { steadyAt, g } = scoreAt(at);
+      expect(steadyAt).toBeGreaterThan(y.length / 2);
+      expect(g).not.toBeNull();
+      for (let j = 0; j < at.length; j++) {
+        const h = 1e-5;
+        const up = Float64Array.from(at);
+        const down = Float64Array.from(at);
+        up[j] += h;
+        down[j] -= h;
+        expect(Math.abs(g![j] - (objective(up) - objective(down)) / (2 * h))).toBeLessThan(1e-6);
+      }
+    });
+
+    it('is declined past 3n/k hours of start-up (the caller then takes the Chandrasekhar score)', () => {
+      const { steadyAt, g } = scoreAt(Float64Array.from([0.3, 0.2, 2.45, 0.5]));
+      expect(steadyAt).toBeGreaterThan((3 * y.length) / 4);
+      expect(g).toBeNull();
+    });
   });
 
   it('the state-space derivatives match differences of the transform, seasonal product included', () => {
