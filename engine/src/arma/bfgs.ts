@@ -29,6 +29,12 @@ export interface BfgsOptions {
    * route to it than differences (null: fall back to them)
    */
   gradient?: (x: Float64Array, fx: number) => Float64Array | null;
+  /**
+   * asked after each accepted step, before the gradient there is computed: true ends the
+   * search at that point (the result says `stopped`), for a caller that can tell the search is
+   * headed somewhere it will search from elsewhere first
+   */
+  stopWhen?: (x: Float64Array, fx: number) => boolean;
 }
 
 export interface BfgsResult {
@@ -38,6 +44,8 @@ export interface BfgsResult {
   evaluations: number;
   converged: boolean;
   gradNorm: number;
+  /** ended by stopWhen, not converged */
+  stopped?: boolean;
 }
 
 export function minimizeBfgs(fn: (x: Float64Array) => number, x0: ArrayLike<number>, opts: BfgsOptions = {}): BfgsResult {
@@ -144,6 +152,9 @@ export function minimizeBfgs(fn: (x: Float64Array) => number, x0: ArrayLike<numb
       H.fill(0);
       for (let i = 0; i < k; i++) H[i * k + i] = 1;
       continue;
+    }
+    if (opts.stopWhen?.(xn, fn1)) {
+      return { x: xn, f: fn1, iterations: iter + 1, evaluations, converged: false, gradNorm: gnorm, stopped: true };
     }
     const gn = grad(xn, fn1);
     const s = new Float64Array(k);

@@ -306,7 +306,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
         }
       }
     : undefined;
-  const search = (from: Float64Array) =>
+  const search = (from: Float64Array, stopWhen?: (u: Float64Array) => boolean) =>
     minimizeBfgs(objective, from, {
       maxIter: opts.maxIter ?? 200,
       gradTol: 1e-7,
@@ -314,11 +314,22 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       step,
       gradient,
       inverseHessian: startingInverseHessian(from, o, Math.min(x.length, Math.max(2000, 20 * s))) ?? undefined,
+      stopWhen,
     });
+  const restarts = opts.boundaryRestarts ?? true;
+  // A search from the regression start that takes two steps in a row on the boundary is sliding
+  // onto it: on real series with long cycles that is a lower maximum where a unit AR root and
+  // an MA root near −1 cancel, the filter never settles and every step costs several passes
+  // (sunspot.month ARMA(2,1) with a mean: 60 of the 67 evaluations were on that slide, and the
+  // CSS restart below found the maximum in 5). Such a search is stopped there, the restarts
+  // below run as for a search that ended on the boundary, and it is taken up again from where
+  // it stopped only when none of them found a higher point.
+  let onEdge = 0;
+  const slide = (u: Float64Array): boolean => (onBoundary(u) ? ++onEdge >= 2 : ((onEdge = 0), false));
   // the objective at a given start, so that a start that is already the maximum comes back
   // unchanged (see keptStart below)
   const fAtStart = st && startInRegion ? objective(u0) : Infinity;
-  let opt = search(u0);
+  let opt = search(u0, !st && restarts ? slide : undefined);
   let startedFrom: ArmaFit['startedFrom'] = st ? 'given' : moments ? 'moments' : 'hannan-rissanen';
   let evaluations = opt.evaluations;
   let cssTried = false;
@@ -373,7 +384,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       }
     }
   }
-  if (!st && !cssTried && o.P + o.Q > 0 && (opts.boundaryRestarts ?? true)) {
+  if (!st && !cssTried && o.P + o.Q > 0 && restarts) {
     // A search that ends below a point we already know is at a lower local maximum: with a
     // seasonal block the conditional-sum-of-squares estimate costs little beside the fit (one
     // CSS search and one likelihood pass) to look at. On the daily-differenced demand series
@@ -396,7 +407,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       }
     }
   }
-  if ((opts.boundaryRestarts ?? true) && onBoundary(opt.x)) {
+  if (restarts && onBoundary(opt.x)) {
     // The search ended where a partial autocorrelation is ±1 to three digits: a unit AR root
     // (often cancelled by an MA root near −1) or an MA root on the unit circle. On real series
     // with long cycles that is commonly a saddle or a lower maximum the search slid onto, so
@@ -416,6 +427,13 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
         startedFrom = label;
       }
     }
+  }
+  if (opt.stopped) {
+    // nothing found above the slide: the boundary it was sliding onto may be the maximum after
+    // all (an over-differenced series' MA root at −1), so the stopped search goes on from there
+    const on = search(opt.x);
+    evaluations += on.evaluations;
+    if (on.f <= opt.f) opt = on;
   }
   // A given start the search could not improve on by more than round-off (1e-10 of −log L / n)
   // is returned exactly as given, not through the transform's round trip: re-estimating a model

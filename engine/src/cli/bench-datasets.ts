@@ -9,6 +9,7 @@
  * series' own cases of that fixture are left out: the first table has them.
  */
 import { fitArima, median } from '@morrowline/engine';
+import { timeWarm } from './warm-timing';
 import { bestOfR, RFitTiming } from './bench-real';
 
 export interface DatasetCase {
@@ -41,20 +42,16 @@ function differencesOf(c: DatasetCase): number[] {
   return d;
 }
 
-/** The engine's warm median over a budget of about a second a case (3 to 25 fits after a first). */
+/** The engine's warm median (warm-timing.ts): 3 to 25 fits over about a second, after a warm-up. */
 export function timeDatasets(cases: DatasetCase[]): DatasetRow[] {
   return cases.map((c) => {
     const x = c.x.map((v) => (v === null ? NaN : v));
     const spec = { diff: differencesOf(c), p: c.order[0], q: c.order[2], P: c.seasonal[0], Q: c.seasonal[2], period: c.period ?? 0, includeMean: c.includeMean };
     let f = fitArima(x, spec);
-    const ts: number[] = [];
-    const budget = performance.now() + 1000;
-    while (ts.length < 3 || (ts.length < 25 && performance.now() < budget)) {
-      const t = performance.now();
+    const t = timeWarm(() => {
       f = fitArima(x, spec);
-      ts.push(performance.now() - t);
-    }
-    return { name: c.name, n: x.length, engineMs: median(ts), loglik: f.arma.loglik };
+    });
+    return { name: c.name, n: x.length, engineMs: t.warmMs, loglik: f.arma.loglik };
   });
 }
 
@@ -62,7 +59,7 @@ const fmt = (v: number, d = 1) => (Number.isFinite(v) ? v.toFixed(d) : 'n/a');
 
 export function printDatasetTable(rows: DatasetRow[], log: (s: string) => void = console.log): void {
   log("other real series (R's datasets, fixtures/r-arima-real.R), each as R's arima is called on it (differencing, seasonal part,");
-  log('mean); exact ML with standard errors, compiled engine warm (median over about a second) against R stats::arima in the same run');
+  log('mean); exact ML with standard errors, compiled engine warm (median of 3-25 fits after a warm-up) against R stats::arima in the same run');
   log('series and model                                 n   engine ms  R CSS-ML ms  R ML ms  R/engine  loglik engine  R best        engine-R  note');
   const ratios: number[] = [];
   let below = 0;

@@ -8,6 +8,7 @@
  * no mean, as the engine does.
  */
 import { DEFAULT_CANDIDATES, difference, fitArma, median } from '@morrowline/engine';
+import { timeWarm } from './warm-timing';
 
 export interface RealCase {
   id: string;
@@ -57,24 +58,18 @@ export function realCases(candidates: number[][] = DEFAULT_CANDIDATES): RealCase
 }
 
 /**
- * Times the engine on each case: the first fit, then more (the median of the rest is reported)
- * as many as a budget of about two seconds per case allows, at least two and at most nine.
+ * Times the engine on each case warm (warm-timing.ts): the first fit apart, then the median of
+ * the fits after a warm-up, over a budget of about a second per case (3 to 25 fits).
  */
 export function timeEngine(load: number[], cases: RealCase[]): RealRow[] {
   return cases.map((c) => {
     const w = difference(load, c.diff);
     const spec = { p: c.p, q: c.q, P: c.P, Q: c.Q, period: c.P + c.Q > 0 ? 24 : 0, includeMean: false };
-    let t = performance.now();
     let f = fitArma(w, spec);
-    const firstMs = performance.now() - t;
-    const reps = Math.max(2, Math.min(9, Math.floor(2000 / Math.max(firstMs, 1))));
-    const ts: number[] = [];
-    for (let i = 0; i < reps; i++) {
-      t = performance.now();
+    const t = timeWarm(() => {
       f = fitArma(w, spec);
-      ts.push(performance.now() - t);
-    }
-    return { ...c, n: w.length, engineMs: median(ts), firstMs, fits: reps, loglik: f.loglik, startedFrom: f.startedFrom };
+    });
+    return { ...c, n: w.length, engineMs: t.warmMs, firstMs: t.firstMs, fits: t.timed, loglik: f.loglik, startedFrom: f.startedFrom };
   });
 }
 
@@ -126,8 +121,8 @@ function rNote(r: { cssMl: RFitTiming; ml: RFitTiming }): string {
 export function printRealTable(rows: RealRow[], log: (s: string) => void = console.log): void {
   log('real demand (England & Wales, R forecast::taylor, hourly means, 2,016 h), each differencing the pipeline considers,');
   log('ARMA(p,q) p, q <= 3 without and with a seasonal block (1,1) at 24; exact ML with standard errors, compiled engine warm in one');
-  log('process (median of 2-9 fits after a first one) against R stats::arima on the same differenced series, no mean, in the same run,');
-  log('each group of 16 orders timed on both sides in turn; R fits under 100 ms timed as the mean of a loop of at least 200 ms');
+  log('process (median of 3-25 fits after a first one and a warm-up of up to 20) against R stats::arima on the same differenced series,');
+  log('no mean, in the same run, each group of 16 orders timed on both sides in turn; R fits under 100 ms timed as the mean of a loop of at least 200 ms');
   log('differencing  order              n   engine ms  first ms  R CSS-ML ms  R ML ms  R/engine  loglik engine  R CSS-ML       R ML      engine-R  note');
   for (const r of rows) {
     const order = `ARMA(${r.p},${r.q})${r.P + r.Q > 0 ? `(${r.P},${r.Q})24` : ''}`;
