@@ -453,7 +453,6 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
     // (1 − B²⁴), MA(2) from Hannan–Rissanen stopped at θ = (1.389, 0.954), 24.9 below the
     // maximum R's arima reaches, θ = (1.619, 0.868); the search from all-zero coefficients (R's
     // own start) reaches it. So such an estimate is searched again from zero.
-    zeroTried = true;
     const other = search(new Float64Array(k), slide());
     evaluations += other.evaluations;
     if (other.f < opt.f - 1e-9) {

@@ -17,7 +17,9 @@
  *     backtest (MAPE, 80 % and 95 % coverage) beside R's auto.arima with weekly seasonal
  *     differencing on the same origins (fixtures/r-auto-arima-backtest.json);
  *  5. `--weather-only [--seeds 1,2] [--data DIR]`: the pipeline with weather on the simulator's
- *     exported zones, winter and summer, beside the same pipeline without weather (bench-weather.ts).
+ *     exported zones, winter and summer, beside the same pipeline without weather (bench-weather.ts);
+ *  6. `--windows-only`: every order of the real-series table on eight-week windows of the demand
+ *     series against R, the fits where the engine ends below R's best (bench-windows.ts).
  * Prints a table and the machine (CPU model, cores, Node and R versions).
  */
 import { spawnSync } from 'node:child_process';
@@ -29,6 +31,7 @@ import { simulateArma21 as simulate } from './bench-series';
 import { printRealTable, RealCase, realCases, RFitTiming, timeEngine, timeRealTable } from './bench-real';
 import { runWeatherBench } from './bench-weather';
 import { datasetCases, printDatasetTable, timeDatasets } from './bench-datasets';
+import { fitWindows, printWindows, windowCases } from './bench-windows';
 
 function valueOf(args: string[], name: string): string | undefined {
   const i = args.indexOf(name);
@@ -122,7 +125,7 @@ function main(): void {
   const rVersion = hasR();
   console.log(`machine: ${cpu}, ${cpus().length} cores, Node ${process.version}${rVersion ? `, ${rVersion}` : ', R not found'}; ${new Date().toISOString().slice(0, 16)} UTC\n`);
   const args = process.argv.slice(2);
-  const known = ['--real-only', '--no-real', '--pipeline-only', '--weather-only'];
+  const known = ['--real-only', '--no-real', '--pipeline-only', '--weather-only', '--windows-only'];
   const weatherSeeds = valueOf(args, '--seeds') ?? '1,2';
   const weatherData = valueOf(args, '--data') ?? join(tmpdir(), 'morrowline-bench-weather');
   const unknown = args.filter((a, i) => !known.includes(a) && !['--seeds', '--data'].includes(a) && !['--seeds', '--data'].includes(args[i - 1]));
@@ -133,6 +136,24 @@ function main(): void {
     return;
   }
   const taylorLoad = JSON.parse(readFileSync(join(FIX, 'taylor-hourly.json'), 'utf8')).load as number[];
+  if (args.includes('--windows-only')) {
+    const cases = windowCases();
+    const rows = fitWindows(taylorLoad, cases);
+    if (rVersion) {
+      const out = runR({ windows: { load: taylorLoad, cases: cases.map((c) => ({ id: c.id, from: c.from, hours: c.hours, diff: [c.diff], p: c.p, q: c.q, P: c.P, Q: c.Q })) } });
+      const num = (v: unknown): number => (typeof v === 'number' ? v : NaN);
+      const byId = new Map((out.windows as Array<{ id: string; cssMl: unknown; ml: unknown }>).map((r) => [r.id, r]));
+      for (const row of rows) {
+        const r = byId.get(row.c.id);
+        if (r) {
+          row.rCssMl = num(r.cssMl);
+          row.rMl = num(r.ml);
+        }
+      }
+    }
+    printWindows(rows);
+    return;
+  }
   if (!args.includes('--no-real') && !args.includes('--pipeline-only')) {
     const cases = realCases();
     // warm the JIT on the first cases before any is timed (a long-running server is warm)
