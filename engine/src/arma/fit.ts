@@ -430,7 +430,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
     const probe = Float64Array.from(from);
     const first = o.p + o.q + o.P;
     for (let i = first; i < k; i++) probe[i] = i === first ? Math.atanh(0.99) : 0;
-    // A probe that walks back to within 0.05 (in every unconstrained value) of the estimate it
+    // A probe that walks back to within 0.2 (in every unconstrained value) of the estimate it
     // started from has fallen into that estimate's basin and is stopped there: it would only
     // climb to the same maximum (on the doubly differenced demand series that was most of
     // the probe's cost).
@@ -553,16 +553,16 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   return fit;
 }
 
-/**
- * The objective's state space without a seasonal block, written into one object reused for
- * every evaluation (the filter copies what it keeps): φ, and R = (1, θ).
- */
 /** Whether a partial autocorrelation of the unconstrained values u[from, from + m) lies beyond ±0.95. */
 function nearUnitCircle(u: ArrayLike<number>, from: number, m: number): boolean {
   for (let i = from; i < from + m; i++) if (Math.abs(Math.tanh(u[i])) > 0.95) return true;
   return false;
 }
 
+/**
+ * The objective's state space without a seasonal block, written into one object reused for
+ * every evaluation (the filter copies what it keeps): φ, and R = (1, θ).
+ */
 function nonSeasonalModel(p: number, q: number): (u: Float64Array) => ArmaStateSpace {
   const r = Math.max(p, q + 1, 1);
   const ss: ArmaStateSpace = { r, phi: new Float64Array(r), R: new Float64Array(r) };
