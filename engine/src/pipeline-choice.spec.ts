@@ -74,6 +74,9 @@ describe('differencing and order choice on series of known construction', () => 
     expect(r.selectionDays).toBe(28);
     expect(r.model?.diff).toEqual([168]);
     expect([r.model?.P, r.model?.Q, r.model?.period]).toEqual([1, 1, 24]);
+    // (1−B)(1−B^168) was in the running: its orders with an MA root on the unit circle (θ₁ = −1.000,
+    // the difference too many) were left out (./over-differencing), and what remained forecast worse
+    expect(r.candidates.find((c) => c.diff.join() === '1,168')?.mape).toBeGreaterThan(r.candidates.find((c) => c.diff.join() === '168')!.mape);
     const double = r.candidates.find((c) => c.diff.length === 2)!;
     const weekly = r.candidates.find((c) => c.diff.length === 1 && c.diff[0] === 168)!;
     expect(double.mape).toBeGreaterThan(weekly.mape);

@@ -51,6 +51,8 @@ export interface CandidateScore {
 export interface Selection {
   best: ArmaFit;
   candidates: CandidateScore[];
+  /** every candidate fitted without error, in the order fitted (the winner's first fit, not its final one) */
+  fits: ArmaFit[];
   criterion: Criterion;
 }
 
@@ -60,6 +62,7 @@ export function selectOrder(x: ArrayLike<number>, opts: SelectOptions = {}): Sel
   if (maxP > 5 || maxQ > 5) throw new Error('orders above 5 are not supported');
   const criterion = opts.criterion ?? 'aicc';
   const candidates: CandidateScore[] = [];
+  const fits: ArmaFit[] = [];
   let best: ArmaFit | null = null;
   let orders: Array<[number, number]> = [];
   for (let p = 0; p <= maxP; p++) for (let q = 0; q <= maxQ; q++) orders.push([p, q]);
@@ -100,6 +103,7 @@ export function selectOrder(x: ArrayLike<number>, opts: SelectOptions = {}): Sel
         const f = fitArma(x, { p, q, P: opts.P, Q: opts.Q, period: opts.period, includeMean: opts.includeMean ?? false }, { computeSe: false, maxIter: opts.maxIter, fTol: opts.fTol, secondStart: opts.secondStart ?? false, boundaryRestarts: opts.secondStart ?? false });
         const ok = Number.isFinite(f.loglik);
         candidates.push({ p, q, loglik: f.loglik, aic: f.aic, aicc: f.aicc, bic: f.bic, ok });
+        if (ok) fits.push(f);
         if (ok && (!best || f[criterion] < best[criterion])) best = f;
       } catch (e) {
         candidates.push({ p, q, loglik: NaN, aic: NaN, aicc: NaN, bic: NaN, ok: false, error: (e as Error).message });
@@ -117,5 +121,5 @@ export function selectOrder(x: ArrayLike<number>, opts: SelectOptions = {}): Sel
       if (other.loglik > best.loglik) best = { ...other, startedFrom: 'zero' };
     }
   }
-  return { best, candidates, criterion };
+  return { best, candidates, fits, criterion };
 }

@@ -6,7 +6,7 @@
  * and "ML") in the same run, and the fits where the engine's log-likelihood ends below R's best.
  * The exact likelihood of differenced load can have several maxima near a unit root, and which
  * one a search reaches depends on the data: a change to the starts or the search is checked here
- * on 288 fits instead of the 96 of one series. No timing (one fit a side).
+ * on 384 fits instead of the 128 of one series. No timing (one fit a side).
  */
 import { difference, fitArma } from '@morrowline/engine';
 import { RealCase, realCases } from './bench-real';
