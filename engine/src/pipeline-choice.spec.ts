@@ -116,4 +116,13 @@ describe('differencing and order choice on series of known construction', () => 
     // same data, so the likelihoods are comparable: the true seasonal structure wins decisively
     expect(seasonal.best.aicc).toBeLessThan(plain.best.aicc - 10); // ΔAICc > 10: no support left for the other (Burnham & Anderson 2002, §2.6)
   });
+
+  it('a series with a deterministic cycle still gets a model: orders with an MA unit root stay when nothing else does', () => {
+    // a daily sine plus a 13-hour sawtooth, no noise: every differencing leaves a deterministic
+    // cycle, whose MA estimates pile up on the unit circle (the history the refit queue tests store)
+    const y = Array.from({ length: 8 * WEEK }, (_, i) => Math.round((300 + 80 * Math.sin((2 * Math.PI * ((i % 24) - 9)) / 24) + ((i * 7919) % 13) - 6) * 10) / 10);
+    const r = runPipeline({ history: y, horizon: 24, options: { computeSe: false } });
+    expect(r.candidates.every((c) => c.error === undefined)).toBe(true);
+    expect(r.method).toBe('arima');
+  });
 });

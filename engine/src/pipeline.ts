@@ -4,7 +4,8 @@
  *  2. for each candidate differencing, (1−B^24), (1−B^168), (1−B^24)(1−B^168) and
  *     (1−B)(1−B^168), the ARMA orders p, q ≤ 3 are fitted on the whole history; on a differencing
  *     without a lag-24 difference the multiplicative block (1,1) at lag 24 is a candidate too
- *     (Box & Jenkins 1970, ch. 9). Orders with an MA root on the unit circle are left out: they
+ *     (Box & Jenkins 1970, ch. 9). Orders with an MA root on the unit circle are left out while
+ *     any other order of the differencing remains: they
  *     undo a difference the series did not need (./over-differencing). Of the rest, the best
  *     DEFAULT_DAY_AHEAD_CHOICE by AICc are scored on the test days of step 3 and the best of them
  *     stands for its differencing: AICc ranks one-step fit, the desk is judged a day ahead.
@@ -102,6 +103,9 @@ export interface PipelineOptions {
   /** orders per differencing, best first by the criterion, that the day-ahead backtest chooses
    *  among (default DEFAULT_DAY_AHEAD_CHOICE; 1 = the criterion alone) */
   dayAheadChoice?: number;
+  /** leave orders with an MA root on the unit circle out of the choice while any other order of
+   *  their differencing remains (./over-differencing; default true) */
+  leaveOutMaUnitRoots?: boolean;
   /** calibrate the bands on the backtest's errors (default true) */
   calibrateBands?: boolean;
   /** skip all selection and fit this model (the hourly update with fixed orders) */
@@ -324,10 +328,12 @@ function chooseModel(
       }
       // the best few by the criterion, and of them the one that forecast the test days best
       fits.sort((a, b) => a[common.criterion] - b[common.criterion]);
-      const kept = fits.filter((f) => !overDifferenced(f));
-      if (kept.length === 0) throw new Error('over-differenced: every order fitted has a moving-average root on the unit circle');
+      // orders with an MA unit root are left out while any other remains: on a series whose
+      // cycle is deterministic every differencing leaves one, and the fit is still a forecast
+      const kept = (o.leaveOutMaUnitRoots ?? true) ? fits.filter((f) => !overDifferenced(f)) : fits;
+      const pool = kept.length > 0 ? kept : fits;
       let local: { b: ArmaFit; score: DayAheadScore } | null = null;
-      for (const f of kept.slice(0, Math.max(1, Math.floor(o.dayAheadChoice ?? DEFAULT_DAY_AHEAD_CHOICE)))) {
+      for (const f of pool.slice(0, Math.max(1, Math.floor(o.dayAheadChoice ?? DEFAULT_DAY_AHEAD_CHOICE)))) {
         const score = scoreModel(y, ev, { diff, arma: f, filled: new Float64Array(0), filledCount: 0 });
         if (Number.isFinite(score.mape) && (!local || score.mape < local.score.mape)) local = { b: f, score };
       }

@@ -69,6 +69,9 @@ export const REFIT_SEASONAL_BLOCK = false;
  */
 export const DESK_CANDIDATES: number[][] = [[24], [168], [24, 168]];
 export const DESK_DAY_AHEAD_CHOICE = 1;
+/** The engine's check for an MA unit root (a difference too many) came with the fourth
+ *  differencing and was measured with it; the desk takes it when it takes that. */
+export const DESK_LEAVE_OUT_MA_UNIT_ROOTS = false;
 
 /**
  * How the desk's pipeline chooses a zone's model: the engine's four weeks of rolling day-ahead
@@ -80,6 +83,7 @@ export const DESK_PIPELINE_OPTIONS: PipelineOptions = {
   screen: REFIT_SCREEN,
   candidates: DESK_CANDIDATES,
   dayAheadChoice: DESK_DAY_AHEAD_CHOICE,
+  leaveOutMaUnitRoots: DESK_LEAVE_OUT_MA_UNIT_ROOTS,
   ...(REFIT_SEASONAL_BLOCK ? {} : { seasonalBlock: false as const }),
 };
 
