@@ -61,9 +61,9 @@ export const REFIT_SEASONAL_BLOCK = false;
  * The differencings the desk's refits try, and how many orders of each the day-ahead backtest
  * chooses among. The engine's defaults add (1−B)(1−B^168) and choose among the best three orders
  * by AICc; without the seasonal block (above) both made the open demand series' rolling
- * day-ahead MAPE worse (28 days: 1.08 % and 1.12 % against 1.075 % with these; the simulator's
- * ten zone-seeds 3.54 % against 3.62 % with the day-ahead choice, 3.62 % without; README,
- * "Day-ahead backtests"), so the desk keeps the three differencings and the criterion alone until
+ * day-ahead MAPE worse (28 days: 1.084 % with the fourth differencing, 1.122 % with both, against
+ * 1.075 % with these), while on the simulator's ten zone-seeds the day-ahead choice helped (3.54 %
+ * against 3.62 %; README, "Day-ahead backtests"), so the desk keeps the three differencings and the criterion alone until
  * the block is on. The extra differencing also costs a fifth of the nightly refit's time (200
  * zones: 80.8 s against 62.1 s).
  */
