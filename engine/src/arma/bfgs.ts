@@ -46,6 +46,8 @@ export interface BfgsResult {
   gradNorm: number;
   /** ended by stopWhen, not converged */
   stopped?: boolean;
+  /** set by the caller (fitArma) when the search stopped in the basin of a maximum it already had */
+  joined?: boolean;
 }
 
 export function minimizeBfgs(fn: (x: Float64Array) => number, x0: ArrayLike<number>, opts: BfgsOptions = {}): BfgsResult {

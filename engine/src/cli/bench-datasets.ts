@@ -59,7 +59,7 @@ const fmt = (v: number, d = 1) => (Number.isFinite(v) ? v.toFixed(d) : 'n/a');
 
 export function printDatasetTable(rows: DatasetRow[], log: (s: string) => void = console.log): void {
   log("other real series (R's datasets, fixtures/r-arima-real.R), each as R's arima is called on it (differencing, seasonal part,");
-  log('mean); exact ML with standard errors, compiled engine warm (median of 3-25 fits after a warm-up) against R stats::arima in the same run');
+  log('mean); exact ML with standard errors, compiled engine warm (median of 3-100 fits after a warm-up of at least 100 ms) against R stats::arima in the same run');
   log('series and model                                 n   engine ms  R CSS-ML ms  R ML ms  R/engine  loglik engine  R best        engine-R  note');
   const ratios: number[] = [];
   let below = 0;
