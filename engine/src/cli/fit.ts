@@ -28,6 +28,7 @@ const START_LABELS: Record<ArimaFit['arma']['startedFrom'], string> = {
   moments: 'method-of-moments',
   zero: 'all-zero',
   opposed: 'opposed AR/MA',
+  'ma-unit-root': 'MA near its unit root',
   'seasonal-unit-root': 'seasonal MA near its unit root',
   css: 'conditional-sum-of-squares',
 };
