@@ -184,3 +184,24 @@ describe('a maximum with an MA root on the unit circle', () => {
     expect(fit.startedFrom).toBe('ma-unit-root');
   });
 });
+
+describe('a search stopped on its slide onto the boundary, taken up again for p, q ≥ 2', () => {
+  // sunspot.month ARMA(3,3) with a mean: R 4.2.2 stats::arima's best is −13281.355 (fixture);
+  // the slide, taken up again after the other starts, climbs to coefficients where R's own
+  // likelihood (arima with every coefficient fixed, transform.pars = FALSE) is −13206.42, AR
+  // roots of modulus 1.0127 (Rscript, 2026-12-04).
+  it('reaches a maximum above every other start on sunspot.month ARMA(3,3)', () => {
+    const k = cases.find((c) => c.name === 'sunspot.month ARMA(3,3) with mean') as Case;
+    const fit = fitArma(k.x, { p: 3, q: 3, includeMean: true }, { computeSe: false });
+    expect(fit.loglik).toBeGreaterThan(-13206.43);
+  });
+
+  // Weeks 3–10 of the open demand series weekly-differenced, ARMA(3,3) without a mean: R's
+  // "CSS-ML" reached −8051.980 (`npm run bench -- --windows-only` and Rscript, 2026-12-04); the
+  // best start inside the region ends at −8054.696.
+  it('reaches R on weeks 3–10 of the weekly-differenced demand series, ARMA(3,3)', () => {
+    const w = difference((taylor.load as number[]).slice(2 * 168, 10 * 168), [168]);
+    const fit = fitArma(w, { p: 3, q: 3, includeMean: false }, { computeSe: false });
+    expect(fit.loglik).toBeGreaterThanOrEqual(-8051.98 - 0.01);
+  });
+});
