@@ -1,4 +1,5 @@
-import { DEMO_TIME_ZONE, DEMO_USERS, operatingDayOf, type ModelVersionDto, type RefitJobDto } from '@morrowline/shared';
+import { DateTime } from 'luxon';
+import { DEMO_TIME_ZONE, DEMO_USERS, type ModelVersionDto, type RefitJobDto } from '@morrowline/shared';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { BASE_URL, openDesk, screenshot, signInAs, type Desk } from './support/browser';
 import { apiToken, HOUR_MS } from './support/history';
@@ -34,7 +35,10 @@ async function upload(token: string, path: string, csv: string): Promise<void> {
 describe('a model that knows the weather, on the refits and schedule screens', () => {
   let desk: Desk;
   const last = Math.floor(Date.now() / HOUR_MS) * HOUR_MS - HOUR_MS;
-  const day = operatingDayOf(last + 30 * HOUR_MS, DEMO_TIME_ZONE);
+  // tomorrow in the zone's time zone: the forecast reaches the end of the next operating day,
+  // not 30 hours past the last reading (from 18:00 local that is the day after tomorrow, and
+  // the draft could not start there for want of a forecast)
+  const day = DateTime.now().setZone(DEMO_TIME_ZONE).plus({ days: 1 }).toISODate() as string;
 
   beforeAll(async () => {
     const admin = await apiToken('admin');

@@ -328,7 +328,9 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   // evaluations were that climb (weekly-differenced ARMA(3,3): the opposed start entered the
   // zero start's basin at its 55th of 70 iterations).
   const maxima: BfgsResult[] = [];
-  const slideStops: BfgsResult[] = [];
+  // searches stopped on their slide onto the boundary, with the start each began from
+  const slideStops: Array<{ r: BfgsResult; from: ArmaFit['startedFrom'] }> = [];
+  let searchingFrom: ArmaFit['startedFrom'] = 'given';
   const basinRadius = opts.knownBasinRadius ?? KNOWN_BASIN_RADIUS;
   const search = (from: Float64Array, stopWhen?: (u: Float64Array) => boolean): BfgsResult => {
     let joined: BfgsResult | null = null;
@@ -349,7 +351,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
     const known = joined as BfgsResult | null;
     if (known) return { ...known, x: Float64Array.from(known.x), iterations: r.iterations, evaluations: r.evaluations, joined: true };
     if (!r.stopped) maxima.push(r);
-    else if (onBoundary(r.x)) slideStops.push(r);
+    else if (onBoundary(r.x)) slideStops.push({ r, from: searchingFrom });
     return r;
   };
   const restarts = opts.boundaryRestarts ?? true;
@@ -372,6 +374,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   // the objective at a given start, so that a start that is already the maximum comes back
   // unchanged (see keptStart below)
   const fAtStart = st && startInRegion ? objective(u0) : Infinity;
+  searchingFrom = st ? 'given' : moments ? 'moments' : 'hannan-rissanen';
   let opt = search(u0, slide());
   let startedFrom: ArmaFit['startedFrom'] = st ? 'given' : moments ? 'moments' : 'hannan-rissanen';
   let evaluations = opt.evaluations;
@@ -387,6 +390,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
     const css = cssStart(centred, { p: o.p, q: o.q, P: o.P, Q: o.Q, period: s || 1 });
     let agree = false;
     if (css) {
+      searchingFrom = 'css';
       const other = search(css, slide());
       evaluations += other.evaluations;
       cssTried = true;
@@ -406,6 +410,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
     if (!agree) {
       // the all-zero start (the one R's arima begins its conditional sum of squares from)
       zeroTried = true;
+      searchingFrom = 'zero';
       const other = search(new Float64Array(k), slide());
       evaluations += other.evaluations;
       if (other.f < opt.f - 1e-9) {
@@ -419,6 +424,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       const opposed = new Float64Array(k);
       for (let i = 0; i < o.p; i++) opposed[i] = 0.5;
       for (let i = o.p; i < o.p + o.q; i++) opposed[i] = -0.5;
+      searchingFrom = 'opposed';
       const third = search(opposed, slide());
       evaluations += third.evaluations;
       // kept only when it is higher by more than round-off (1e-9 of −log L / n): on a tie the
@@ -439,6 +445,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       if (o.P + o.Q === 0) {
         const maRoot = new Float64Array(k);
         maRoot[o.p] = Math.atanh(-0.99);
+        searchingFrom = 'ma-unit-root';
         const fourth = search(maRoot, slide());
         evaluations += fourth.evaluations;
         if (fourth.f < opt.f - 1e-9) {
@@ -462,6 +469,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       const fCss = objective(css);
       evaluations++;
       if (fCss < opt.f) {
+        searchingFrom = 'css';
         const other = search(css, slide());
         evaluations += other.evaluations;
         if (other.f < opt.f - 1e-9) {
@@ -494,6 +502,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       for (let i = 0; i < k; i++) if (Math.abs(u[i] - from[i]) >= 0.2) return false;
       return true;
     };
+    searchingFrom = 'seasonal-unit-root';
     const other = search(probe, (u) => (sliding?.(u) ?? false) || back(u));
     evaluations += other.evaluations;
     if (other.f < opt.f - 1e-9) {
@@ -508,6 +517,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
     // (1 − B²⁴), MA(2) from Hannan–Rissanen stopped at θ = (1.389, 0.954), 24.9 below the
     // maximum R's arima reaches, θ = (1.619, 0.868); the search from all-zero coefficients (R's
     // own start) reaches it. So such an estimate is searched again from zero.
+    searchingFrom = 'zero';
     const other = search(new Float64Array(k), slide());
     evaluations += other.evaluations;
     if (other.f < opt.f - 1e-9) {
@@ -528,6 +538,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       // answer this rule looks for; the zero start is for when it did not (on sunspot.month
       // ARMA(2,1) the CSS restart reaches R's maximum in 5 evaluations, the zero one in 33 more)
       if (!from || !onBoundary(opt.x)) continue;
+      searchingFrom = label;
       const other = search(from, slide());
       evaluations += other.evaluations;
       if (other.f < opt.f - 1e-9) {
@@ -553,11 +564,12 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
     // cancellation that stopping it is for (sunspot.month ARMA(2,1): taken up again it ended
     // 215 below the maximum), so it is not; nor with a seasonal block, where on the demand
     // series six such slides cost 53–188 evaluations each and all ended 190 or more below.
-    const best = slideStops.reduce((a, b) => (b.f < a.f ? b : a));
-    const on = search(best.x);
+    const best = slideStops.reduce((a, b) => (b.r.f < a.r.f ? b : a));
+    const on = search(best.r.x);
     evaluations += on.evaluations;
     if (on.f < opt.f - 1e-9) {
       opt = on;
+      startedFrom = best.from;
     }
   }
   // A given start the search could not improve on by more than round-off (1e-10 of −log L / n)

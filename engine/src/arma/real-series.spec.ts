@@ -203,5 +203,7 @@ describe('a search stopped on its slide onto the boundary, taken up again for p,
     const w = difference((taylor.load as number[]).slice(2 * 168, 10 * 168), [168]);
     const fit = fitArma(w, { p: 3, q: 3, includeMean: false }, { computeSe: false });
     expect(fit.loglik).toBeGreaterThanOrEqual(-8051.98 - 0.01);
+    // the kept search is the CSS start's slide, taken up again
+    expect(fit.startedFrom).toBe('css');
   });
 });
