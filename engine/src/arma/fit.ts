@@ -378,6 +378,21 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   let opt = search(u0, slide());
   let startedFrom: ArmaFit['startedFrom'] = st ? 'given' : moments ? 'moments' : 'hannan-rissanen';
   let evaluations = opt.evaluations;
+  /**
+   * A search from another start (stopped on its slide onto the boundary unless told otherwise),
+   * kept when it ends higher than the best so far by more than round-off (1e-9 of −log L / n):
+   * on a tie the earlier start stands.
+   */
+  const tryStart = (from: Float64Array, label: ArmaFit['startedFrom'], stopWhen = slide()): BfgsResult => {
+    searchingFrom = label;
+    const r = search(from, stopWhen);
+    evaluations += r.evaluations;
+    if (r.f < opt.f - 1e-9) {
+      opt = r;
+      startedFrom = label;
+    }
+    return r;
+  };
   let cssTried = false;
   let zeroTried = false;
   if (!st && (opts.secondStart ?? needsSecondStart(o))) {
@@ -390,15 +405,8 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
     const css = cssStart(centred, { p: o.p, q: o.q, P: o.P, Q: o.Q, period: s || 1 });
     let agree = false;
     if (css) {
-      searchingFrom = 'css';
-      const other = search(css, slide());
-      evaluations += other.evaluations;
       cssTried = true;
-      agree = sameMaximum(hrEnd, other);
-      if (other.f < opt.f - 1e-9) {
-        opt = other;
-        startedFrom = 'css';
-      }
+      agree = sameMaximum(hrEnd, tryStart(css, 'css'));
     }
     // Two starts built in unrelated ways (a long-AR regression and a conditional least-squares
     // fit) that end at the same maximum mark the one a search from these data reaches; the
@@ -410,13 +418,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
     if (!agree) {
       // the all-zero start (the one R's arima begins its conditional sum of squares from)
       zeroTried = true;
-      searchingFrom = 'zero';
-      const other = search(new Float64Array(k), slide());
-      evaluations += other.evaluations;
-      if (other.f < opt.f - 1e-9) {
-        opt = other;
-        startedFrom = 'zero';
-      }
+      tryStart(new Float64Array(k), 'zero');
       // A start on the other side of the cancellation ridge: a persistent AR part (every
       // unconstrained AR value +0.5, partial autocorrelations 0.46) against an MA part leaning
       // the other way (−0.5). On real series with long cycles (sunspots, LakeHuron ARMA(3,3))
@@ -424,15 +426,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       const opposed = new Float64Array(k);
       for (let i = 0; i < o.p; i++) opposed[i] = 0.5;
       for (let i = o.p; i < o.p + o.q; i++) opposed[i] = -0.5;
-      searchingFrom = 'opposed';
-      const third = search(opposed, slide());
-      evaluations += third.evaluations;
-      // kept only when it is higher by more than round-off (1e-9 of −log L / n): on a tie the
-      // earlier start stands
-      if (third.f < opt.f - 1e-9) {
-        opt = third;
-        startedFrom = 'opposed';
-      }
+      tryStart(opposed, 'opposed');
       // A start at an MA unit root: no AR part and θ₁ = 0.99 (a root near B = −1), the rest
       // zero. Where a series is differenced once too often the exact likelihood can rise to a
       // maximum with an MA root on the unit circle (Davis & Dunsmuir 1996) that the starts above,
@@ -445,13 +439,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       if (o.P + o.Q === 0) {
         const maRoot = new Float64Array(k);
         maRoot[o.p] = Math.atanh(-0.99);
-        searchingFrom = 'ma-unit-root';
-        const fourth = search(maRoot, slide());
-        evaluations += fourth.evaluations;
-        if (fourth.f < opt.f - 1e-9) {
-          opt = fourth;
-          startedFrom = 'ma-unit-root';
-        }
+        tryStart(maRoot, 'ma-unit-root');
       }
     }
   }
@@ -468,15 +456,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       cssTried = true;
       const fCss = objective(css);
       evaluations++;
-      if (fCss < opt.f) {
-        searchingFrom = 'css';
-        const other = search(css, slide());
-        evaluations += other.evaluations;
-        if (other.f < opt.f - 1e-9) {
-          opt = other;
-          startedFrom = 'css';
-        }
-      }
+      if (fCss < opt.f) tryStart(css, 'css');
     }
   }
   if (!st && restarts && o.Q > 0 && !onBoundary(opt.x)) {
@@ -502,13 +482,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       for (let i = 0; i < k; i++) if (Math.abs(u[i] - from[i]) >= 0.2) return false;
       return true;
     };
-    searchingFrom = 'seasonal-unit-root';
-    const other = search(probe, (u) => (sliding?.(u) ?? false) || back(u));
-    evaluations += other.evaluations;
-    if (other.f < opt.f - 1e-9) {
-      opt = other;
-      startedFrom = 'seasonal-unit-root';
-    }
+    tryStart(probe, 'seasonal-unit-root', (u) => (sliding?.(u) ?? false) || back(u));
   }
   if (!st && restarts && !zeroTried && o.q >= 2 && nearUnitCircle(opt.x, o.p, o.q)) {
     // An MA part of order two or more with a root close to the unit circle (a partial
@@ -517,13 +491,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
     // (1 − B²⁴), MA(2) from Hannan–Rissanen stopped at θ = (1.389, 0.954), 24.9 below the
     // maximum R's arima reaches, θ = (1.619, 0.868); the search from all-zero coefficients (R's
     // own start) reaches it. So such an estimate is searched again from zero.
-    searchingFrom = 'zero';
-    const other = search(new Float64Array(k), slide());
-    evaluations += other.evaluations;
-    if (other.f < opt.f - 1e-9) {
-      opt = other;
-      startedFrom = 'zero';
-    }
+    tryStart(new Float64Array(k), 'zero');
   }
   if (restarts && onBoundary(opt.x)) {
     // The search ended where a partial autocorrelation is ±1 to three digits: a unit AR root
@@ -538,13 +506,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       // answer this rule looks for; the zero start is for when it did not (on sunspot.month
       // ARMA(2,1) the CSS restart reaches R's maximum in 5 evaluations, the zero one in 33 more)
       if (!from || !onBoundary(opt.x)) continue;
-      searchingFrom = label;
-      const other = search(from, slide());
-      evaluations += other.evaluations;
-      if (other.f < opt.f - 1e-9) {
-        opt = other;
-        startedFrom = label;
-      }
+      tryStart(from, label);
     }
   }
   if (opt.stopped) {
