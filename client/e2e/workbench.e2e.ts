@@ -60,6 +60,7 @@ describe('model workbench', () => {
     const result = page.getByTestId('backtest-result');
     await result.waitFor({ state: 'visible', timeout: 120_000 });
     expect(await result.innerText()).toMatch(/Over 7 days/);
+    expect(await page.getByTestId('backtest-issue-time').innerText()).toMatch(/Each day forecast at the \d{2}:\d{2} gate closure the day before \([A-Za-z_/]+\)/);
     const scores = await page.getByRole('table', { name: 'Backtest scores' }).innerText();
     expect(scores).toMatch(/MAPE\s+\d+\.\d+ %\s+\d+\.\d+ %/);
     await page.getByTestId('chart-backtest-daily').locator('canvas').first().waitFor({ state: 'attached' });

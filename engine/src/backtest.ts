@@ -9,7 +9,9 @@
  * forecast is issued at its start (horizon = the day's hours). With `issueHour` H the forecast is
  * issued H hours after the start of the day before (e.g. 9 → 09:00 the day before), so the
  * horizons run from 24 − H + 1 to 48 − H hours. `dayStarts` gives explicit day boundaries
- * (23- and 25-hour operating days at daylight-saving changes).
+ * (23- and 25-hour operating days at daylight-saving changes), and `origins` an explicit issue
+ * time for each of them (a gate closure in local time, which moves against the hours at those
+ * changes).
  */
 import { accuracy, Accuracy } from './metrics';
 import { IntervalForecast } from './forecast';
@@ -26,6 +28,11 @@ export interface BacktestOptions {
   issueHour?: number;
   /** indices of operating-day starts, ascending; default every 24 hours from 0 */
   dayStarts?: number[];
+  /**
+   * with dayStarts: for each day start, the index of the first hour not yet known when that day's
+   * forecast is issued (at most the day start); overrides issueHour
+   */
+  origins?: number[];
   /** indices of hours marked as outage or bad data */
   excluded?: Iterable<number>;
   /** hours of history each fit may use (default 8 weeks) */
@@ -76,6 +83,7 @@ export function backtest(values: ArrayLike<number>, o: BacktestOptions): Backtes
   const method = o.method ?? 'auto';
   const window = o.windowHours ?? 8 * 168;
   const starts = o.dayStarts ?? Array.from({ length: Math.floor(n / 24) + 1 }, (_, i) => i * 24);
+  if (o.origins && o.origins.length !== starts.length) throw new Error(`backtest: ${o.origins.length} issue times for ${starts.length} day starts`);
   // complete days: start and next start both inside the series
   const days: Array<[number, number]> = [];
   for (let i = 0; i + 1 < starts.length; i++) if (starts[i + 1] <= n) days.push([starts[i], starts[i + 1]]);
@@ -88,7 +96,7 @@ export function backtest(values: ArrayLike<number>, o: BacktestOptions): Backtes
   for (const [ds, de] of target) {
     const prevIdx = days.findIndex((d) => d[0] === ds) - 1;
     const prevStart = prevIdx >= 0 ? days[prevIdx][0] : ds - 24;
-    const origin = o.issueHour === undefined ? ds : Math.min(ds, prevStart + o.issueHour);
+    const origin = o.origins ? Math.min(ds, o.origins[prevIdx + 1]) : o.issueHour === undefined ? ds : Math.min(ds, prevStart + o.issueHour);
     if (origin < 168 * 3) continue;
     const from = Math.max(0, origin - window);
     const hist = y.subarray(from, origin);

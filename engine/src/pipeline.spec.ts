@@ -127,4 +127,19 @@ describe('backtest', () => {
     const d = r.days[1];
     expect(d.dayStart - d.origin).toBe(15);
   });
+  it('takes an issue time per day: the same days as issue hour 9 when they say 09:00, their own where they differ', () => {
+    const starts = Array.from({ length: Math.floor(load.length / 24) + 1 }, (_, i) => i * 24);
+    const at9 = backtest(load, { days: 3, method: 'seasonal-naive', issueHour: 9 });
+    const given = backtest(load, { days: 3, method: 'seasonal-naive', dayStarts: starts, origins: starts.map((s) => s - 15) });
+    expect(given.days.map((d) => d.origin)).toEqual(at9.days.map((d) => d.origin));
+    expect(given.days.map((d) => d.accuracy.mape)).toEqual(at9.days.map((d) => d.accuracy.mape));
+    // a gate closure an hour later on one day (a clock change the night before): that day only moves
+    const moved = starts.map((s, i) => s - 15 + (i === starts.length - 2 ? 1 : 0));
+    const r = backtest(load, { days: 3, method: 'seasonal-naive', dayStarts: starts, origins: moved });
+    expect(r.days.map((d) => d.dayStart - d.origin)).toEqual([15, 15, 14]);
+    // an issue time after the day has begun is held at its start
+    const late = backtest(load, { days: 1, method: 'seasonal-naive', dayStarts: starts, origins: starts.map((s) => s + 5) });
+    expect(late.days[0].origin).toBe(late.days[0].dayStart);
+    expect(() => backtest(load, { days: 1, dayStarts: starts, origins: [0] })).toThrow(/1 issue times for \d+ day starts/);
+  });
 });

@@ -180,7 +180,12 @@ describe('workbench: stationarity, model and backtest of a zone (real MariaDB)',
       const local = DateTime.fromISO(day.start, { zone: 'America/Denver' });
       expect(local.toFormat('HH:mm')).toBe('00:00');
       expect(local.toISODate()).toBe(day.date);
+      // forecast as the desk does: from the hours ended by the zone's 10:00 gate closure the day before
+      const issued = DateTime.fromISO(day.issuedFrom, { zone: 'America/Denver' });
+      expect(issued.toFormat('HH:mm')).toBe('10:00');
+      expect(issued.toISODate()).toBe(local.minus({ days: 1 }).toISODate());
     }
+    expect(body.issueTime).toMatch(/at the 10:00 gate closure the day before \(America\/Denver\)/);
     expect(body.model.mape).toBeGreaterThan(0);
     expect(body.baseline.mape).toBeGreaterThan(0);
     expect(body.summary).toMatch(/same hour last week/);

@@ -213,6 +213,8 @@ export interface BacktestDayDto {
   /** UTC start of the operating day. */
   start: string;
   hours: number;
+  /** The first hour the day's forecast did not know (its issue time, on the hour), ISO. */
+  issuedFrom: string;
   /** What forecast the day: "(1−B^168) ARMA(2,1)" or "seasonal naive". */
   model: string;
   fallbackReason: string | null;
@@ -228,6 +230,8 @@ export interface BacktestReportDto {
   zone: string;
   timeZone: string;
   days: number;
+  /** When each day was forecast: "at the 10:00 gate closure the day before (America/Denver), …". */
+  issueTime: string;
   model: BacktestScoresDto;
   baseline: BacktestScoresDto;
   /** 1 − model MAPE / baseline MAPE (0.2 = 20 % smaller error than seasonal naive). */

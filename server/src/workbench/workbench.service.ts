@@ -3,6 +3,7 @@ import {
   type BacktestReportDto,
   type ModelReportDto,
   type StationarityReportDto,
+  gateClosureAt,
   HOUR_MS,
   operatingDayStarts,
   WORKBENCH_DEFAULT_WEEKS,
@@ -104,18 +105,23 @@ export class WorkbenchService {
       // each scored day needs the fitting window before it, plus the partial day at the end
       const h = await this.history(latest, BACKTEST_WINDOW_HOURS + (days + 1) * 24, `the ${days} days and the 8 weeks before them`, WORKBENCH_MIN_HOURS + days * 24);
       const { starts, dates } = operatingDayStarts(h.firstHourMs, h.values.length, h.timeZone);
+      const zone = latest.zone;
+      // each day's forecast from the hours that had ended by the gate closure the day before
+      const origins = dates.map((date) => Math.floor((gateClosureAt(date, zone.timeZone, zone.gateClosure) - h.firstHourMs) / HOUR_MS));
       const out = await this.compute.run('workbench.backtest', {
         values: h.values,
         excluded: h.excluded,
         days,
         dayStarts: starts,
         dayDates: dates,
+        origins,
         firstHourMs: h.firstHourMs,
       });
       return {
         zone: h.zone,
         timeZone: h.timeZone,
         days,
+        issueTime: `at the ${zone.gateClosure} gate closure the day before (${zone.timeZone}), from the hours that had ended by then, with the model choice of the desk's refits`,
         ...out,
         computedAt: new Date().toISOString(),
         computeMs: Math.round(performance.now() - t0),

@@ -1,11 +1,15 @@
 /**
  * The workbench's rolling day-ahead backtest (pure; runs in the compute pool): the engine's
- * rolling-origin backtest (./forecasting/backtest) over the zone's last N operating days, with
- * the weekly seasonal-naive baseline beside it. Day boundaries come from the zone's time zone,
- * so 23- and 25-hour days are scored whole.
+ * rolling-origin backtest over the zone's last N operating days, with the weekly seasonal-naive
+ * baseline beside it, run as the desk forecasts: each day issued at the zone's gate closure the
+ * day before from the hours that had ended by then, and the model chosen with the options the
+ * desk's refits use (DESK_PIPELINE_OPTIONS), so that the figures are those of the schedules the
+ * desk would have submitted. Day boundaries come from the zone's time zone, so 23- and 25-hour
+ * days are scored whole.
  */
 import type { BacktestDayDto, BacktestScoresDto } from '@morrowline/shared';
 import { backtest, type BacktestSummary } from '@morrowline/engine';
+import { DESK_PIPELINE_OPTIONS } from '../../models/analysis/refit';
 import { num } from './stationarity-analysis';
 
 export interface BacktestInput {
@@ -16,6 +20,8 @@ export interface BacktestInput {
   dayStarts: number[];
   /** local date (yyyy-MM-dd) of each day start */
   dayDates: string[];
+  /** for each day start, the index of the first hour not known at its issue time (the gate closure the day before) */
+  origins: number[];
   /** UTC ms of index 0 */
   firstHourMs: number;
 }
@@ -39,11 +45,19 @@ const scores = (s: BacktestSummary): BacktestScoresDto => ({
 });
 
 export function runWorkbenchBacktest(input: BacktestInput): BacktestOutput {
-  const r = backtest(input.values, { days: input.days, dayStarts: input.dayStarts, excluded: input.excluded, method: 'auto' });
+  const r = backtest(input.values, {
+    days: input.days,
+    dayStarts: input.dayStarts,
+    origins: input.origins,
+    excluded: input.excluded,
+    method: 'auto',
+    pipeline: DESK_PIPELINE_OPTIONS,
+  });
   const dateOf = new Map(input.dayStarts.map((s, i) => [s, input.dayDates[i]]));
   const perDay: BacktestDayDto[] = r.days.map((d) => ({
     date: dateOf.get(d.dayStart) ?? '',
     start: new Date(input.firstHourMs + d.dayStart * 3_600_000).toISOString(),
+    issuedFrom: new Date(input.firstHourMs + d.origin * 3_600_000).toISOString(),
     hours: d.hours,
     model: d.model,
     fallbackReason: d.fallbackReason ?? null,

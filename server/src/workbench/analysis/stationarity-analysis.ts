@@ -7,9 +7,11 @@
  */
 import type { Correlogram, SeriesCheckDto, StationarityVerdictDto } from '@morrowline/shared';
 import { acf, acfBand, adfTest, countFinite, difference, kpssTest, meanFinite, pacfFromAcf, rollingStats, varianceFinite } from '@morrowline/engine';
+import { DESK_CANDIDATES } from '../../models/analysis/refit';
 import { adfReading, differencingLabel, judgeVersion, kpssReading, overallVerdict } from './verdict';
 
-export const STATIONARITY_CANDIDATES: number[][] = [[24], [168], [24, 168]];
+/** The differencings the tests look at: those the desk's refits choose among, so that the one in service is always among them. */
+export const STATIONARITY_CANDIDATES: number[][] = DESK_CANDIDATES;
 
 export interface StationarityInput {
   /** hourly MW, oldest first; NaN for a missing or excluded hour */

@@ -65,6 +65,9 @@ export function BacktestPanel({ zone, canRun }: { zone: string; canRun: boolean 
             <Alert color={result.improvement !== null && result.improvement > 0 ? 'tide' : 'ember'} variant="light">
               {result.summary}
             </Alert>
+            <Text size="sm" c="dimmed" data-testid="backtest-issue-time">
+              Each day forecast {result.issueTime}.
+            </Text>
             <Table aria-label="Backtest scores" fz="sm" withTableBorder maw={640}>
               <Table.Thead>
                 <Table.Tr>
