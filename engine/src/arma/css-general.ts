@@ -28,18 +28,16 @@ export function generalCss(x: Float64Array, o: CssOrders, terms: Int32Array = us
   const maLags = filledLags(q, Q, s);
   const lastU = new Float64Array(k);
   let lastSsq = NaN;
-  let last: { a: Float64Array; b: Float64Array } | null = null;
   const objective = (u: Float64Array): number => {
     const a = expandAr(toStationary(at(u, 0, p)), toStationary(at(u, p + q, P)), s);
     const b = expandMa(toInvertible(at(u, p, q)), toInvertible(at(u, p + q + P, Q)), s);
     const ms = sparseSumOfSquares(x, lags.set(a, b), terms, e);
     lastU.set(u);
     lastSsq = ms * terms.length;
-    last = { a, b };
     return Math.log(ms);
   };
   const gradient = (u: Float64Array): Float64Array | null => {
-    if (!(lastSsq > 0) || !last) return null;
+    if (!(lastSsq > 0)) return null;
     for (let i = 0; i < k; i++) if (u[i] !== lastU[i]) return null;
     // ∂S/∂a_L and ∂S/∂b_L at the filled lags, dense by lag (index L − 1)
     const dA = new Float64Array(p + P * s);
