@@ -6,7 +6,7 @@ import { describe, expect, it } from 'vitest';
 import { createDeskSocket } from '../../../lib/desk-socket';
 import { createSessionStore } from '../../../lib/session-store';
 import { fakeSocketFactory } from '../../../test/fake-socket';
-import { modelVersionsKey, refitJobsKey } from '../api/refit-keys';
+import { modelCompareKey, modelVersionsKey, refitJobsKey } from '../api/refit-keys';
 import { useRefitProgress } from '../hooks/use-refit-progress';
 import { mergeJobs } from './refit-jobs';
 
@@ -64,15 +64,31 @@ describe('refit job list from progress events', () => {
     expect(queryClient.getQueryState(modelVersionsKey('QUARRY'))?.isInvalidated).toBe(true);
   });
 
-  it('fetches the jobs and versions again after the connection dropped and came back (a job may have ended meanwhile)', () => {
+  it('fetches the jobs and versions again on the first connection: a job that ended before the handshake sent its last event to nobody', () => {
     const { queryClient, server } = renderRefitProgress();
+    // what the screen fetched while the socket was still connecting
     queryClient.setQueryData<RefitJobDto[]>(refitJobsKey, [job(6, { state: 'running', progress: 20 })]);
     queryClient.setQueryData(modelVersionsKey('QUARRY'), []);
-    act(() => server.fire('connect'));
+    queryClient.setQueryData(modelCompareKey(12), { candidate: 12 });
     expect(queryClient.getQueryState(refitJobsKey)?.isInvalidated).toBe(false);
-    act(() => server.fire('disconnect'));
     act(() => server.fire('connect'));
     expect(queryClient.getQueryState(refitJobsKey)?.isInvalidated).toBe(true);
     expect(queryClient.getQueryState(modelVersionsKey('QUARRY'))?.isInvalidated).toBe(true);
+    // a comparison is not the list of what exists; it waits for a dropped connection
+    expect(queryClient.getQueryState(modelCompareKey(12))?.isInvalidated).toBe(false);
+  });
+
+  it('fetches everything of the screen again after the connection dropped and came back (a job may have ended meanwhile)', () => {
+    const { queryClient, server } = renderRefitProgress();
+    act(() => server.fire('connect'));
+    queryClient.setQueryData<RefitJobDto[]>(refitJobsKey, [job(6, { state: 'running', progress: 20 })]);
+    queryClient.setQueryData(modelVersionsKey('QUARRY'), []);
+    queryClient.setQueryData(modelCompareKey(12), { candidate: 12 });
+    act(() => server.fire('disconnect'));
+    expect(queryClient.getQueryState(refitJobsKey)?.isInvalidated).toBe(false);
+    act(() => server.fire('connect'));
+    expect(queryClient.getQueryState(refitJobsKey)?.isInvalidated).toBe(true);
+    expect(queryClient.getQueryState(modelVersionsKey('QUARRY'))?.isInvalidated).toBe(true);
+    expect(queryClient.getQueryState(modelCompareKey(12))?.isInvalidated).toBe(true);
   });
 });
