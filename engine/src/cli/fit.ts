@@ -31,6 +31,7 @@ const START_LABELS: Record<ArimaFit['arma']['startedFrom'], string> = {
   'ma-unit-root': 'MA near its unit root',
   'seasonal-unit-root': 'seasonal MA near its unit root',
   css: 'conditional-sum-of-squares',
+  'css-free-ma': 'conditional-sum-of-squares, MA unconstrained',
 };
 
 export function parseIntList(s: string, name: string, len?: number): number[] {
