@@ -112,9 +112,12 @@ describe('the free-MA CSS objective', () => {
 });
 
 describe('every ARMA(p, q), p, q ≤ 3, on 25 of R’s datasets against R’s best', () => {
-  // Without the free-MA start 11 of the 375 fits ended 0.02–0.75 below R; these seven reach R's
-  // best from it. The four that still end below are named: a search there is where the issue stays open.
+  // Without the free-MA start 11 of the 375 fits ended 0.02–0.75 below R; these nine reach R's
+  // best from it (the two log returns as series close to white noise, n = 1,859). The two that
+  // still end below are named: R's maxima there have an MA root within 0.007 of the unit circle.
   const reachedFromFreeStart = [
+    'DAX log returns (3,2)',
+    'SMI log returns (1,3)',
     'beaver2 temp (3,1)',
     'Seatbelts DriversKilled (1,3)',
     'WWWusage (1-B) (3,2)',
@@ -123,9 +126,9 @@ describe('every ARMA(p, q), p, q ≤ 3, on 25 of R’s datasets against R’s be
     'BJsales.lead (1-B) (1,2)',
     'BJsales.lead (1-B) (1,3)',
   ];
-  const stillBelow = ['DAX log returns (3,2)', 'SMI log returns (1,3)', 'BJsales.lead (1-B) (2,3)', 'mdeaths (1-B12) (2,3)'];
+  const stillBelow = ['BJsales.lead (1-B) (2,3)', 'mdeaths (1-B12) (2,3)'];
 
-  it('ends below R’s best log-likelihood (by more than 0.001) only at the four known fits', () => {
+  it('ends below R’s best log-likelihood (by more than 0.001) only at the two known fits', () => {
     const below: string[] = [];
     const gaps: Record<string, number> = {};
     let fits = 0;
@@ -144,7 +147,7 @@ describe('every ARMA(p, q), p, q ≤ 3, on 25 of R’s datasets against R’s be
     expect(fits).toBe(375);
     expect(below.sort()).toEqual([...stillBelow].sort());
     for (const id of reachedFromFreeStart) expect(gaps[id]).toBeGreaterThan(-0.001);
-    // and the four are within 0.75 of R
+    // and the two are within 0.75 of R
     for (const id of stillBelow) expect(gaps[id]).toBeGreaterThan(-0.76);
   }, 60_000);
 });

@@ -12,7 +12,8 @@
  * Why it is kept beside css.ts's start: over R's datasets differenced as usual (EuStockMarkets'
  * log returns, WWWusage, beaver2, Seatbelts, BJsales.lead, JohnsonJohnson; every ARMA(p, q),
  * p, q ≤ 3), 11 of 375 fits ended below R's best log-likelihood by 0.02–0.75 from the other
- * starts, and 10 of them reach it from this one (engine/src/fixtures/r-arima-sweep.R).
+ * starts, and 9 of them reach it from this one (engine/src/fixtures/r-arima-sweep.R; when it is
+ * tried, fitArma).
  */
 import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
 import { minimizeBfgs } from './bfgs';

@@ -38,6 +38,7 @@ import { armaStateSpace, ArmaStateSpace } from './state-space';
 import { SteadyPass, steadyStateScore } from './steady-score';
 import { stateSpaceWithTangents } from './state-space-tangents';
 import { fromInvertible, fromStationary, toInvertible, toStationary, toStationaryInto } from './transform';
+import { acf } from '../series/acf';
 import { countFinite, meanFinite, toSeries, varianceFinite } from '../series/series';
 
 export interface ArmaSpec {
@@ -147,10 +148,23 @@ export function needsSecondStart(o: Required<ArmaSpec>): boolean {
  */
 export const BOUNDARY_MARGIN = 1e-3;
 
-/** See `maxima` in fitArma: the half-width of the box around a known maximum that a later search stops in. */
-export /** The longest series searched from the free-MA CSS start as well (see fitArma). */
+/** The longest series searched from the free-MA CSS start as well unless close to white noise (see fitArma). */
 const FREE_MA_START_MAX_LENGTH = 1000;
-const KNOWN_BASIN_RADIUS = 0.2;
+/**
+ * Close to white noise: the first ten autocorrelations' squares sum to less than this. The four
+ * EuStockMarkets log returns give 0.003–0.016; of the long series of the bench, the demand series
+ * differenced by (1 − B)(1 − B¹⁶⁸) gives 0.086 and treering 0.090, the others 3–9.
+ */
+const NEAR_WHITE_NOISE = 0.03;
+
+function nearWhiteNoise(x: Float64Array): boolean {
+  const rho = acf(x, 10);
+  let s = 0;
+  for (let k = 1; k <= 10; k++) s += rho[k] * rho[k];
+  return s < NEAR_WHITE_NOISE;
+}
+/** See `maxima` in fitArma: the half-width of the box around a known maximum that a later search stops in. */
+export const KNOWN_BASIN_RADIUS = 0.2;
 
 /** Whether every value of u lies within r of the same value of c. */
 function withinBox(u: ArrayLike<number>, c: ArrayLike<number>, r: number): boolean {
@@ -446,18 +460,21 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       }
     }
   }
-  if (!st && restarts && o.P + o.Q === 0 && o.p >= 1 && o.q >= 1 && o.p + o.q >= 3 && x.length <= FREE_MA_START_MAX_LENGTH) {
+  if (!st && restarts && o.P + o.Q === 0 && o.p >= 1 && o.q >= 1 && o.p + o.q >= 3 && (x.length <= FREE_MA_START_MAX_LENGTH || nearWhiteNoise(x))) {
     // The CSS estimate searched as R's arima searches it (MA part unconstrained, the mean a
-    // parameter; css-free-ma.ts): on short real series the CSS surface has several minima and
-    // the two parametrisations can end in different ones, each leading the exact likelihood to
-    // its own maximum. Over 25 of R's datasets (fixtures/r-arima-sweep.R, every ARMA(p, q) with
-    // p, q ≤ 3 but (0,0)) 11 of 375 fits ended 0.02–0.75 below R's best without it, 4 with it:
+    // parameter; css-free-ma.ts): where the CSS surface has several minima the two
+    // parametrisations can end in different ones, each leading the exact likelihood to its own
+    // maximum. Over 25 of R's datasets (fixtures/r-arima-sweep.R, every ARMA(p, q) with
+    // p, q ≤ 3 but (0,0)) 11 of 375 fits ended 0.02–0.75 below R's best without it, 2 with it:
     // beaver2's ARMA(3,1) had ended 0.64 below, Seatbelts' ARMA(1,3) 0.41, WWWusage's ARMA(3,2)
-    // 0.24. Orders with one AR and one MA term had one maximum in every case measured and are
-    // left out. So are series longer than FREE_MA_START_MAX_LENGTH: the start costs a CSS search
-    // over the whole series, on the demand series 0.6–6.5 ms, and made those orders 1.2–4.4 times
-    // slower there, while on its 128 fits and 384 eight-week windows (`npm run bench`) it raised
-    // one maximum (a window's ARMA(2,2), by 7.4) and lowered none.
+    // 0.24, SMI's log returns' ARMA(1,3) 0.20. Orders with one AR and one MA term had one maximum
+    // in every case measured and are left out. So are long series that are not close to white
+    // noise: there the start costs a CSS search over the whole series (on the demand series
+    // 0.6–6.5 ms, and those orders became 1.2–4.4 times slower), while on its 128 fits and 384
+    // eight-week windows (`npm run bench`) it raised one maximum (a window's ARMA(2,2), by 7.4)
+    // and lowered none. Close to white noise (the stock-index returns), every ARMA(p, q) with
+    // p, q ≥ 1 nearly has a common factor, the likelihood is flat along the ridge where AR and
+    // MA roots cancel, and the maxima are many (parameter redundancy; Box & Jenkins 1970).
     const free = freeMaCssStart(x, o.p, o.q, o.includeMean);
     if (free) tryStart(free, 'css-free-ma');
   }
