@@ -7,7 +7,8 @@
  * on short real series the CSS surface has several minima, and the two searches can end in
  * different ones. The MA roots of the end point that lie inside the unit circle are then
  * reflected to 1/z̄ (the exact Gaussian likelihood is the same for both: Brockwell & Davis 1991,
- * §3.5), which is what R's arima does before its ML step (maInvert).
+ * §3.5), which is what R's arima does before its ML step (maInvert). A seasonal block is searched
+ * the same way: the seasonal AR part through the transform, the seasonal MA part as it is.
  *
  * Why it is kept beside css.ts's start: over R's datasets differenced as usual (EuStockMarkets'
  * log returns, WWWusage, beaver2, Seatbelts, BJsales.lead, JohnsonJohnson; every ARMA(p, q),
@@ -17,25 +18,41 @@
  */
 import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
 import { minimizeBfgs } from './bfgs';
-import { usableTerms } from './css-problem';
+import { CssOrders, usableTerms } from './css-problem';
+import { expandAr, expandMa } from './polynomials';
 import { fromInvertible, fromStationary, toStationaryJacobian } from './transform';
 
 /** How close to the unit circle a reflected MA root may stay (a start needs a finite transform). */
 const MIN_ROOT_MODULUS = 1.001;
 
-/** The free-MA CSS objective log(Σ e_t² / m) over v = (AR unconstrained, MA as is, ν), μ = x̄ + s·ν. */
+/** Coefficients in the fit's natural terms. */
+export interface FreeMaNatural {
+  ar: ArrayLike<number>;
+  ma: ArrayLike<number>;
+  sar?: ArrayLike<number>;
+  sma?: ArrayLike<number>;
+}
+
+/**
+ * The free-MA CSS objective log(Σ e_t² / m) over v = (AR unconstrained, MA as is, seasonal AR
+ * unconstrained, seasonal MA as is, ν), with the mean μ = x̄ + s·ν.
+ */
 export interface FreeMaCssProblem {
   /** length of v */
   k: number;
   objective: (v: Float64Array) => number;
   /** at the point of the last evaluation (null elsewhere) */
   gradient: (v: Float64Array) => Float64Array | null;
-  /** v for stationary AR coefficients, MA coefficients and a mean (null when the AR part is not stationary) */
-  encode: (ar: ArrayLike<number>, ma: ArrayLike<number>, mean: number) => Float64Array | null;
+  /** v for stationary AR parts, MA parts and a mean (null when an AR part is not stationary) */
+  encode: (nat: FreeMaNatural, mean: number) => Float64Array | null;
 }
 
-export function freeMaCssProblem(x: Float64Array, p: number, q: number, includeMean: boolean): FreeMaCssProblem {
-  const terms = usableTerms(x, p);
+export function freeMaCssProblem(x: Float64Array, o: CssOrders, includeMean: boolean): FreeMaCssProblem {
+  const { p, q, P, Q } = o;
+  const s = o.period || 1;
+  const nAr = p + P * s;
+  const nMa = q + Q * s;
+  const terms = usableTerms(x, nAr);
   const used = new Uint8Array(x.length);
   for (let i = 0; i < terms.length; i++) used[terms[i]] = 1;
   // the mean as x̄ + s·ν, so that ν is on the scale of the coefficients whatever the data's units
@@ -54,88 +71,151 @@ export function freeMaCssProblem(x: Float64Array, p: number, q: number, includeM
     for (const v of x) if (v === v) ss += (v - mean) * (v - mean);
     sd = Math.sqrt(ss / count) || 1;
   }
-  const k = p + q + (includeMean ? 1 : 0);
+  const k = p + q + P + Q + (includeMean ? 1 : 0);
+  const at = (v: Float64Array, from: number, len: number) => v.subarray(from, from + len);
   const e = new Float64Array(x.length);
   const lambda = new Float64Array(x.length);
+  const aLags = filledLags(p, P, s);
+  const bLags = filledLags(q, Q, s);
   let last: Float64Array | null = null;
   let lastSsq = NaN;
-  let lastA: Float64Array = new Float64Array(p);
-  let lastJac: Float64Array = new Float64Array(p * p);
+  let lastA: Float64Array = new Float64Array(nAr);
+  let lastB: Float64Array = new Float64Array(nMa);
+  let lastMu = 0;
   const objective = (v: Float64Array): number => {
-    const { phi, jac } = toStationaryJacobian(v.subarray(0, p));
-    const mu = includeMean ? mean + sd * v[p + q] : 0;
-    const ssq = forward(x, used, e, phi, v.subarray(p, p + q), mu, p);
+    lastA = expandAr(toStationaryJacobian(at(v, 0, p)).phi, toStationaryJacobian(at(v, p + q, P)).phi, s);
+    lastB = expandMa(at(v, p, q), at(v, p + q + P, Q), s);
+    lastMu = includeMean ? mean + sd * v[k - 1] : 0;
+    const ssq = forward(x, used, e, lastA, aLags, lastB, bLags, lastMu, nAr);
     last = Float64Array.from(v);
     lastSsq = ssq;
-    lastA = phi;
-    lastJac = jac;
     return ssq > 0 && terms.length > 0 ? Math.log(ssq / terms.length) : Infinity;
   };
   const gradient = (v: Float64Array): Float64Array | null => {
     if (!last || !(lastSsq > 0)) return null;
     for (let i = 0; i < k; i++) if (v[i] !== last[i]) return null;
-    const mu = includeMean ? mean + sd * v[p + q] : 0;
-    const d = adjoint(x, used, e, lambda, lastA, v.subarray(p, p + q), mu, p);
+    // ∂S/∂a_L, ∂S/∂b_L at the filled lags (index L − 1) and ∂S/∂μ
+    const dA = new Float64Array(nAr);
+    const dB = new Float64Array(nMa);
+    const dMu = adjoint(x, used, e, lambda, lastA, aLags, lastB, bLags, lastMu, nAr, dA, dB);
+    const ar = toStationaryJacobian(at(v, 0, p));
+    const sar = toStationaryJacobian(at(v, p + q, P));
+    const theta = at(v, p, q);
+    const stheta = at(v, p + q + P, Q);
+    // through the expansion: a_{js+i} = −φ_i Φ_j, b_{js+i} = θ_i Θ_j (polynomials.ts)
     const g = new Float64Array(k);
-    for (let j = 0; j < p; j++) {
-      let s = 0;
-      for (let i = 0; i < p; i++) s += d[i] * lastJac[j * p + i];
-      g[j] = s / lastSsq;
+    const dPhi = new Float64Array(p);
+    for (let i = 0; i < p; i++) {
+      let d = dA[i];
+      for (let j = 0; j < P; j++) d -= dA[(j + 1) * s + i] * sar.phi[j];
+      dPhi[i] = d;
     }
-    for (let j = 0; j < q; j++) g[p + j] = d[p + j] / lastSsq;
-    if (includeMean) g[p + q] = (d[p + q] * sd) / lastSsq;
+    const dSphi = new Float64Array(P);
+    for (let j = 0; j < P; j++) {
+      let d = dA[(j + 1) * s - 1];
+      for (let i = 0; i < p; i++) d -= dA[(j + 1) * s + i] * ar.phi[i];
+      dSphi[j] = d;
+    }
+    for (let i = 0; i < q; i++) {
+      let d = dB[i];
+      for (let j = 0; j < Q; j++) d += dB[(j + 1) * s + i] * stheta[j];
+      g[p + i] = d / lastSsq;
+    }
+    for (let j = 0; j < Q; j++) {
+      let d = dB[(j + 1) * s - 1];
+      for (let i = 0; i < q; i++) d += dB[(j + 1) * s + i] * theta[i];
+      g[p + q + P + j] = d / lastSsq;
+    }
+    // the AR parts through the transform's Jacobians, jac[j·m + i] = ∂φ_i/∂v_j
+    const chain = (d: Float64Array, jac: Float64Array, m: number, from: number) => {
+      for (let j = 0; j < m; j++) {
+        let sum = 0;
+        for (let i = 0; i < m; i++) sum += d[i] * jac[j * m + i];
+        g[from + j] = sum / lastSsq;
+      }
+    };
+    chain(dPhi, ar.jac, p, 0);
+    chain(dSphi, sar.jac, P, p + q);
+    if (includeMean) g[k - 1] = (dMu * sd) / lastSsq;
     return g;
   };
-  const encode = (ar: ArrayLike<number>, ma: ArrayLike<number>, mu: number): Float64Array | null => {
-    const u = fromStationary(ar);
-    if (!u) return null;
+  const encode = (nat: FreeMaNatural, mu: number): Float64Array | null => {
+    const u = fromStationary(nat.ar);
+    const su = fromStationary(nat.sar ?? []);
+    if (!u || !su) return null;
     const v = new Float64Array(k);
     v.set(u, 0);
-    for (let j = 0; j < q; j++) v[p + j] = ma[j];
-    if (includeMean) v[p + q] = (mu - mean) / sd;
+    for (let j = 0; j < q; j++) v[p + j] = nat.ma[j];
+    v.set(su, p + q);
+    for (let j = 0; j < Q; j++) v[p + q + P + j] = (nat.sma ?? [])[j];
+    if (includeMean) v[k - 1] = (mu - mean) / sd;
     return v;
   };
   return { k, objective, gradient, encode };
 }
 
 /**
- * The start in the fit's unconstrained values (AR, then MA), or null when the search fails or
- * its end cannot be carried into the region. `maxHours` keeps only the latest values.
+ * The start in the fit's unconstrained values (AR, MA, seasonal AR, seasonal MA), or null when
+ * the search fails or its end cannot be carried into the region. `maxHours` keeps only the
+ * latest values.
  */
-export function freeMaCssStart(series: Float64Array, p: number, q: number, includeMean: boolean, maxHours = 4000): Float64Array | null {
+export function freeMaCssStart(series: Float64Array, o: CssOrders, includeMean: boolean, maxHours = 4000): Float64Array | null {
   const x = series.length > maxHours ? series.subarray(series.length - maxHours) : series;
-  if (usableTerms(x, p).length <= p + q + 1) return null;
-  const problem = freeMaCssProblem(x, p, q, includeMean);
+  const { p, q, P, Q } = o;
+  if (usableTerms(x, p + P * (o.period || 1)).length <= p + q + P + Q + 1) return null;
+  const problem = freeMaCssProblem(x, o, includeMean);
   // A start, not an estimate: R's optim stops at a relative change of about 1e-8, and with the MA
   // part free the search can wander where the recursion explodes (Nile's ARMA(2,2) and
   // LakeHuron's ARMA(3,3) ran to 100 iterations without converging); 30 iterations gave the same
   // maxima on R's datasets as 100, at a third of the evaluations.
   const r = minimizeBfgs(problem.objective, new Float64Array(problem.k), { maxIter: 30, gradTol: 1e-6, fTol: 1e-8, step: 1e-6, gradient: problem.gradient });
   if (!Number.isFinite(r.f) || !r.x.every(Number.isFinite)) return null;
-  const ar = fromStationary(toStationaryJacobian(r.x.subarray(0, p)).phi);
-  const ma = fromInvertible(invertibleMa(r.x.subarray(p, p + q)));
-  if (!ar || !ma || !ar.every(Number.isFinite) || !ma.every(Number.isFinite)) return null;
-  const out = new Float64Array(p + q);
-  out.set(ar, 0);
-  out.set(ma, p);
+  const at = (from: number, len: number) => r.x.subarray(from, from + len);
+  const parts = [
+    fromStationary(toStationaryJacobian(at(0, p)).phi),
+    fromInvertible(invertibleMa(at(p, q))),
+    fromStationary(toStationaryJacobian(at(p + q, P)).phi),
+    fromInvertible(invertibleMa(at(p + q + P, Q))),
+  ];
+  const out = new Float64Array(p + q + P + Q);
+  let from = 0;
+  for (const part of parts) {
+    if (!part || !part.every(Number.isFinite)) return null;
+    out.set(part, from);
+    from += part.length;
+  }
   return out;
 }
 
+/** The lags (1-based) that (1 ∓ Σ c_i B^i)(1 ∓ Σ C_j B^{js}) can fill: 1..m, js, js + i. */
+function filledLags(m: number, M: number, s: number): Int32Array {
+  const set = new Set<number>();
+  for (let i = 1; i <= m; i++) set.add(i);
+  for (let j = 1; j <= M; j++) {
+    set.add(j * s);
+    for (let i = 1; i <= m; i++) set.add(j * s + i);
+  }
+  return Int32Array.from([...set].sort((a, b) => a - b));
+}
+
 /**
- * Σ e_t² of e_t = (x_t − μ) − Σ a_i (x_{t−i} − μ) − Σ b_j e_{t−j}, zero pre-sample innovations,
- * conditioning on the first p values; an unusable term (a value of its window missing) adds
- * nothing and its innovation is zero, as in css.ts.
+ * Σ e_t² of e_t = (x_t − μ) − Σ a_L (x_{t−L} − μ) − Σ b_L e_{t−L} over the expanded polynomials'
+ * fillable lags, zero pre-sample innovations, conditioning on the first p + P·s values; an
+ * unusable term (a value of its window missing) adds nothing and its innovation is zero, as in
+ * css.ts.
  */
-function forward(x: Float64Array, used: Uint8Array, e: Float64Array, a: Float64Array, b: Float64Array, mu: number, p: number): number {
+function forward(x: Float64Array, used: Uint8Array, e: Float64Array, a: Float64Array, aLags: Int32Array, b: Float64Array, bLags: Int32Array, mu: number, from: number): number {
   const n = x.length;
-  const q = b.length;
   let ssq = 0;
   e.fill(0);
-  for (let t = p; t < n; t++) {
+  for (let t = from; t < n; t++) {
     if (!used[t]) continue;
     let v = x[t] - mu;
-    for (let i = 0; i < p; i++) v -= a[i] * (x[t - i - 1] - mu);
-    for (let j = 0; j < q && j < t; j++) v -= b[j] * e[t - j - 1];
+    for (let k = 0; k < aLags.length; k++) v -= a[aLags[k] - 1] * (x[t - aLags[k]] - mu);
+    for (let k = 0; k < bLags.length; k++) {
+      const l = t - bLags[k];
+      if (l >= 0) v -= b[bLags[k] - 1] * e[l];
+    }
     e[t] = v;
     ssq += v * v;
   }
@@ -143,29 +223,46 @@ function forward(x: Float64Array, used: Uint8Array, e: Float64Array, a: Float64A
 }
 
 /**
- * ∂S/∂a_i, ∂S/∂b_j and ∂S/∂μ at the last forward pass, by one backward (adjoint) pass
- * (Griewank & Walther 2008, ch. 3): λ_t = 2e_t − Σ_j b_j λ_{t+j} on used terms (zero elsewhere),
- * ∂S/∂a_i = −Σ λ_t (x_{t−i} − μ), ∂S/∂b_j = −Σ λ_t e_{t−j}, ∂S/∂μ = −(1 − Σ a_i) Σ λ_t.
+ * ∂S/∂a_L and ∂S/∂b_L (into dA, dB at index L − 1) and ∂S/∂μ (returned) at the last forward
+ * pass, by one backward (adjoint) pass (Griewank & Walther 2008, ch. 3):
+ *   λ_t = 2e_t − Σ_L b_L λ_{t+L} on used terms (zero elsewhere),
+ *   ∂S/∂a_L = −Σ λ_t (x_{t−L} − μ), ∂S/∂b_L = −Σ λ_t e_{t−L}, ∂S/∂μ = −(1 − Σ a_L) Σ λ_t.
  */
-function adjoint(x: Float64Array, used: Uint8Array, e: Float64Array, lambda: Float64Array, a: Float64Array, b: Float64Array, mu: number, p: number): Float64Array {
+function adjoint(
+  x: Float64Array,
+  used: Uint8Array,
+  e: Float64Array,
+  lambda: Float64Array,
+  a: Float64Array,
+  aLags: Int32Array,
+  b: Float64Array,
+  bLags: Int32Array,
+  mu: number,
+  from: number,
+  dA: Float64Array,
+  dB: Float64Array,
+): number {
   const n = x.length;
-  const q = b.length;
-  const d = new Float64Array(p + q + 1);
   lambda.fill(0);
   let sumLambda = 0;
-  for (let t = n - 1; t >= p; t--) {
+  for (let t = n - 1; t >= from; t--) {
     if (!used[t]) continue;
     let l = 2 * e[t];
-    for (let j = 0; j < q && t + j + 1 < n; j++) l -= b[j] * lambda[t + j + 1];
+    for (let k = 0; k < bLags.length; k++) {
+      const f = t + bLags[k];
+      if (f < n) l -= b[bLags[k] - 1] * lambda[f];
+    }
     lambda[t] = l;
     sumLambda += l;
-    for (let i = 0; i < p; i++) d[i] -= l * (x[t - i - 1] - mu);
-    for (let j = 0; j < q && j < t; j++) d[p + j] -= l * e[t - j - 1];
+    for (let k = 0; k < aLags.length; k++) dA[aLags[k] - 1] -= l * (x[t - aLags[k]] - mu);
+    for (let k = 0; k < bLags.length; k++) {
+      const f = t - bLags[k];
+      if (f >= 0) dB[bLags[k] - 1] -= l * e[f];
+    }
   }
   let sumA = 0;
-  for (let i = 0; i < p; i++) sumA += a[i];
-  d[p + q] = -(1 - sumA) * sumLambda;
-  return d;
+  for (let L = 0; L < a.length; L++) sumA += a[L];
+  return -(1 - sumA) * sumLambda;
 }
 
 /**

@@ -157,6 +157,16 @@ const FREE_MA_START_MAX_LENGTH = 1000;
  */
 const NEAR_WHITE_NOISE = 0.03;
 
+/**
+ * The orders searched from the free-MA CSS start as well: without a seasonal block, p, q ≥ 1 and
+ * p + q ≥ 3 (ARMA(1,1) and the pure orders had one maximum in every case of the sweep); with one,
+ * any MA part and three coefficients or more.
+ */
+function wantsFreeMaStart(o: Required<ArmaSpec>): boolean {
+  if (o.P + o.Q === 0) return o.p >= 1 && o.q >= 1 && o.p + o.q >= 3;
+  return o.q + o.Q >= 1 && o.p + o.q + o.P + o.Q >= 3;
+}
+
 function nearWhiteNoise(x: Float64Array): boolean {
   const rho = acf(x, 10);
   let s = 0;
@@ -460,22 +470,24 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       }
     }
   }
-  if (!st && restarts && o.P + o.Q === 0 && o.p >= 1 && o.q >= 1 && o.p + o.q >= 3 && (x.length <= FREE_MA_START_MAX_LENGTH || nearWhiteNoise(x))) {
+  if (!st && restarts && wantsFreeMaStart(o) && (x.length <= FREE_MA_START_MAX_LENGTH || nearWhiteNoise(x))) {
     // The CSS estimate searched as R's arima searches it (MA part unconstrained, the mean a
     // parameter; css-free-ma.ts): where the CSS surface has several minima the two
     // parametrisations can end in different ones, each leading the exact likelihood to its own
     // maximum. Over 25 of R's datasets (fixtures/r-arima-sweep.R, every ARMA(p, q) with
     // p, q ≤ 3 but (0,0)) 11 of 375 fits ended 0.02–0.75 below R's best without it, 2 with it:
     // beaver2's ARMA(3,1) had ended 0.64 below, Seatbelts' ARMA(1,3) 0.41, WWWusage's ARMA(3,2)
-    // 0.24, SMI's log returns' ARMA(1,3) 0.20. Orders with one AR and one MA term had one maximum
-    // in every case measured and are left out. So are long series that are not close to white
-    // noise: there the start costs a CSS search over the whole series (on the demand series
-    // 0.6–6.5 ms, and those orders became 1.2–4.4 times slower), while on its 128 fits and 384
-    // eight-week windows (`npm run bench`) it raised one maximum (a window's ARMA(2,2), by 7.4)
+    // 0.24, SMI's log returns' ARMA(1,3) 0.20. With a seasonal block, over every
+    // (p,0,q)(P,0,Q)_s with p, q ≤ 2, P, Q ≤ 1 on 14 seasonal series, 4 of 378 ended 0.006–0.18
+    // below R's best without it, 1 with it. Which orders: wantsFreeMaStart. Long series that
+    // are not close to white noise are left out: there the start costs a CSS search over the
+    // whole series (on the demand series 0.6–6.5 ms, and those orders became 1.2–4.4 times
+    // slower), while on its 128 fits and 384 eight-week windows (`npm run bench`) it raised one
+    // maximum (a window's ARMA(2,2), by 7.4)
     // and lowered none. Close to white noise (the stock-index returns), every ARMA(p, q) with
     // p, q ≥ 1 nearly has a common factor, the likelihood is flat along the ridge where AR and
     // MA roots cancel, and the maxima are many (parameter redundancy; Box & Jenkins 1970).
-    const free = freeMaCssStart(x, o.p, o.q, o.includeMean);
+    const free = freeMaCssStart(x, { p: o.p, q: o.q, P: o.P, Q: o.Q, period: s || 1 }, o.includeMean);
     if (free) tryStart(free, 'css-free-ma');
   }
   if (!st && !cssTried && o.P + o.Q > 0 && restarts) {
