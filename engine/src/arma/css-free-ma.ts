@@ -19,8 +19,7 @@
 import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
 import { minimizeBfgs } from './bfgs';
 import { CssOrders, usableTerms } from './css-problem';
-import { expandAr, expandMa } from './polynomials';
-import { fromInvertible, fromStationary, toStationaryJacobian } from './transform';
+import { fromInvertible, fromStationary, toStationaryInto, toStationaryJacobian } from './transform';
 
 /** How close to the unit circle a reflected MA root may stay (a start needs a finite transform). */
 const MIN_ROOT_MODULUS = 1.001;
@@ -79,15 +78,23 @@ export function freeMaCssProblem(x: Float64Array, o: CssOrders, includeMean: boo
   const bLags = filledLags(q, Q, s);
   let last: Float64Array | null = null;
   let lastSsq = NaN;
-  let lastA: Float64Array = new Float64Array(nAr);
-  let lastB: Float64Array = new Float64Array(nMa);
+  // the coefficients of the last evaluation, in buffers of their own (the search evaluates the
+  // objective some dozens of times and a start must cost little beside the fit)
+  const phi = new Float64Array(p);
+  const sphi = new Float64Array(P);
+  const work = new Float64Array(Math.max(p, P, 1));
+  const a = new Float64Array(nAr);
+  const b = new Float64Array(nMa);
   let lastMu = 0;
   const objective = (v: Float64Array): number => {
-    lastA = expandAr(toStationaryJacobian(at(v, 0, p)).phi, toStationaryJacobian(at(v, p + q, P)).phi, s);
-    lastB = expandMa(at(v, p, q), at(v, p + q + P, Q), s);
+    toStationaryInto(v, 0, p, phi, work, 1);
+    toStationaryInto(v, p + q, P, sphi, work, 1);
+    expandInto(a, phi, sphi, s, -1);
+    expandInto(b, v.subarray(p, p + q), v.subarray(p + q + P, p + q + P + Q), s, 1);
     lastMu = includeMean ? mean + sd * v[k - 1] : 0;
-    const ssq = forward(x, used, e, lastA, aLags, lastB, bLags, lastMu, nAr);
-    last = Float64Array.from(v);
+    const ssq = forward(x, used, e, a, aLags, b, bLags, lastMu, nAr);
+    if (last) last.set(v);
+    else last = Float64Array.from(v);
     lastSsq = ssq;
     return ssq > 0 && terms.length > 0 ? Math.log(ssq / terms.length) : Infinity;
   };
@@ -97,7 +104,7 @@ export function freeMaCssProblem(x: Float64Array, o: CssOrders, includeMean: boo
     // ∂S/∂a_L, ∂S/∂b_L at the filled lags (index L − 1) and ∂S/∂μ
     const dA = new Float64Array(nAr);
     const dB = new Float64Array(nMa);
-    const dMu = adjoint(x, used, e, lambda, lastA, aLags, lastB, bLags, lastMu, nAr, dA, dB);
+    const dMu = adjoint(x, used, e, lambda, a, aLags, b, bLags, lastMu, nAr, dA, dB);
     const ar = toStationaryJacobian(at(v, 0, p));
     const sar = toStationaryJacobian(at(v, p + q, P));
     const theta = at(v, p, q);
@@ -185,6 +192,19 @@ export function freeMaCssStart(series: Float64Array, o: CssOrders, includeMean: 
     from += part.length;
   }
   return out;
+}
+
+/**
+ * expandAr (sign −1) or expandMa (sign +1) of polynomials.ts written into out: c_i at lag i,
+ * C_j at lag js, sign·c_i·C_j at lag js + i.
+ */
+function expandInto(out: Float64Array, c: ArrayLike<number>, C: ArrayLike<number>, s: number, sign: number): void {
+  out.fill(0);
+  for (let i = 0; i < c.length; i++) out[i] += c[i];
+  for (let j = 0; j < C.length; j++) {
+    out[(j + 1) * s - 1] += C[j];
+    for (let i = 0; i < c.length; i++) out[(j + 1) * s + i] += sign * c[i] * C[j];
+  }
 }
 
 /** The lags (1-based) that (1 ∓ Σ c_i B^i)(1 ∓ Σ C_j B^{js}) can fill: 1..m, js, js + i. */
