@@ -30,6 +30,7 @@ interface SweepSeries {
 }
 const series = sweep.arma as SweepSeries[];
 const seasonalSeries = sweep.seasonal as SweepSeries[];
+const widerFits = sweep.wider as Array<{ name: string; fits: Array<SweepFit & { P: number; Q: number }> }>;
 const values = (s: SweepSeries) => Float64Array.from(s.x, (v) => (v === null ? NaN : v));
 
 describe('invertibleMa', () => {
@@ -186,4 +187,46 @@ describe('every (p, 0, q)(P, 0, Q)_s, p, q ≤ 2, P, Q ≤ 1, on 14 of R’s sea
     expect(below).toHaveLength(1);
     expect(below[0]).toMatch(/^mdeaths \(1-B12\) \(2,2\)\(1,0\) -0\.1[0-9]{2}$/);
   }, 60_000);
+});
+
+describe('wider orders on the same 14 seasonal series: where the engine still ends below R', () => {
+  // Every ARMA(p, q), p, q ≤ 3, without a seasonal part, and every (p,0,q)(P,0,Q)_s with p or
+  // q = 3, on the 14 series above (n = 59–468): 503 fits R reached by one method at least. The
+  // engine ends below R's best in these eleven, by 0.07–4.35, all with three AR or MA terms,
+  // ten of them on 60 to 120 values, one on co2's 455. Found at the end of a stop and left open (issue 16); the list is
+  // here so that a change that frees one of them, or adds another, is seen.
+  const known = [
+    'co2 (1-B)(1-B12) (2,3)(1,0)',
+    'fdeaths (3,3)(1,1)',
+    'ldeaths (1-B12) (1,3)(0,1)',
+    'ldeaths (1-B12) (1,3)(1,1)',
+    'ldeaths (1-B12) (3,2)(0,1)',
+    'ldeaths (1-B12) (3,3)(0,1)',
+    'ldeaths (1-B12) (3,3)(1,1)',
+    'mdeaths (1-B12) (1,3)(1,1)',
+    'mdeaths (1-B12) (2,3)(0,0)',
+    'mdeaths (1-B12) (3,3)(1,0)',
+    'presidents (gaps) (3,2)(0,1)',
+  ];
+  it('ends below R’s best (by more than 0.001) in exactly the eleven known fits, none by more than 4.4', () => {
+    const below: string[] = [];
+    let fits = 0;
+    for (const w of widerFits) {
+      const s = seasonalSeries.find((c) => c.name === w.name)!;
+      const x = values(s);
+      for (const f of w.fits) {
+        const best = Math.max(f.ml ?? -Infinity, f.cssMl ?? -Infinity);
+        if (!Number.isFinite(best)) continue;
+        const spec = f.P + f.Q > 0 ? { p: f.p, q: f.q, P: f.P, Q: f.Q, period: s.period, includeMean: s.includeMean } : { p: f.p, q: f.q, includeMean: s.includeMean };
+        const fit = fitArma(x, spec, { computeSe: false });
+        fits++;
+        if (fit.loglik < best - 0.001) {
+          below.push(`${s.name} (${f.p},${f.q})(${f.P},${f.Q})`);
+          expect(fit.loglik).toBeGreaterThan(best - 4.4);
+        }
+      }
+    }
+    expect(fits).toBe(503);
+    expect(below.sort()).toEqual(known);
+  }, 120_000);
 });
