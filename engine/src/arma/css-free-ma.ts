@@ -1,8 +1,10 @@
 /**
- * A second conditional-sum-of-squares start, searched in the parametrisation of R's arima CSS
- * step (stats::arima, method "CSS-ML", transform.pars = TRUE): the AR coefficients through the
- * partial-autocorrelation transform, the MA coefficients as they are (unconstrained), and the
- * mean as a parameter beside them, from zero coefficients and the sample mean. css.ts searches
+ * A second conditional-sum-of-squares start, searched close to the way R's arima searches its
+ * CSS step (stats::arima, method "CSS-ML": its armaCSS leaves every coefficient as it is): the MA
+ * coefficients as they are (unconstrained) and the mean as a parameter beside them, from zero
+ * coefficients and the sample mean. The AR coefficients go through the partial-autocorrelation
+ * transform, so that the end is stationary (R stops with "non-stationary AR part from CSS"
+ * where its CSS end is not). css.ts searches
  * the MA part through the same transform as the AR part, which keeps it invertible all the way;
  * on short real series the CSS surface has several minima, and the two searches can end in
  * different ones. The MA roots of the end point that lie inside the unit circle are then
