@@ -21,6 +21,7 @@
 import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
 import { minimizeBfgs } from './bfgs';
 import { CssOrders, usableTerms } from './css-problem';
+import { expansionAdjoint, filledLags } from './polynomials';
 import { fromInvertible, fromStationary, toStationaryInto, toStationaryJacobian } from './transform';
 
 /** How close to the unit circle a reflected MA root may stay (a start needs a finite transform). */
@@ -112,29 +113,11 @@ export function freeMaCssProblem(x: Float64Array, o: CssOrders, includeMean: boo
     const theta = at(v, p, q);
     const stheta = at(v, p + q + P, Q);
     // through the expansion: a_{js+i} = −φ_i Φ_j, b_{js+i} = θ_i Θ_j (polynomials.ts)
+    const { dc: dPhi, dC: dSphi } = expansionAdjoint(dA, ar.phi, sar.phi, s, -1);
+    const { dc: dTheta, dC: dStheta } = expansionAdjoint(dB, theta, stheta, s, 1);
     const g = new Float64Array(k);
-    const dPhi = new Float64Array(p);
-    for (let i = 0; i < p; i++) {
-      let d = dA[i];
-      for (let j = 0; j < P; j++) d -= dA[(j + 1) * s + i] * sar.phi[j];
-      dPhi[i] = d;
-    }
-    const dSphi = new Float64Array(P);
-    for (let j = 0; j < P; j++) {
-      let d = dA[(j + 1) * s - 1];
-      for (let i = 0; i < p; i++) d -= dA[(j + 1) * s + i] * ar.phi[i];
-      dSphi[j] = d;
-    }
-    for (let i = 0; i < q; i++) {
-      let d = dB[i];
-      for (let j = 0; j < Q; j++) d += dB[(j + 1) * s + i] * stheta[j];
-      g[p + i] = d / lastSsq;
-    }
-    for (let j = 0; j < Q; j++) {
-      let d = dB[(j + 1) * s - 1];
-      for (let i = 0; i < q; i++) d += dB[(j + 1) * s + i] * theta[i];
-      g[p + q + P + j] = d / lastSsq;
-    }
+    for (let i = 0; i < q; i++) g[p + i] = dTheta[i] / lastSsq;
+    for (let j = 0; j < Q; j++) g[p + q + P + j] = dStheta[j] / lastSsq;
     // the AR parts through the transform's Jacobians, jac[j·m + i] = ∂φ_i/∂v_j
     const chain = (d: Float64Array, jac: Float64Array, m: number, from: number) => {
       for (let j = 0; j < m; j++) {
@@ -207,17 +190,6 @@ function expandInto(out: Float64Array, c: ArrayLike<number>, C: ArrayLike<number
     out[(j + 1) * s - 1] += C[j];
     for (let i = 0; i < c.length; i++) out[(j + 1) * s + i] += sign * c[i] * C[j];
   }
-}
-
-/** The lags (1-based) that (1 ∓ Σ c_i B^i)(1 ∓ Σ C_j B^{js}) can fill: 1..m, js, js + i. */
-function filledLags(m: number, M: number, s: number): Int32Array {
-  const set = new Set<number>();
-  for (let i = 1; i <= m; i++) set.add(i);
-  for (let j = 1; j <= M; j++) {
-    set.add(j * s);
-    for (let i = 1; i <= m; i++) set.add(j * s + i);
-  }
-  return Int32Array.from([...set].sort((a, b) => a - b));
 }
 
 /**

@@ -3,7 +3,7 @@
  * the expanded polynomials' non-zero coefficients, and its exact gradient.
  */
 import { CssOrders, CssProblem, usableTerms } from './css-problem';
-import { expandAr, expandMa } from './polynomials';
+import { expandAr, expandMa, expansionAdjoint, filledLags } from './polynomials';
 import { toInvertible, toStationary, toStationaryJacobian } from './transform';
 
 /**
@@ -50,31 +50,9 @@ export function generalCss(x: Float64Array, o: CssOrders, terms: Int32Array = us
     // θ and Θ are −toStationary: their values and Jacobians change sign
     const theta = ma.phi.map((v) => -v);
     const stheta = sma.phi.map((v) => -v);
-    // ∂S with respect to φ, θ, Φ, Θ through the expansion
-    const dPhi = new Float64Array(p);
-    const dTheta = new Float64Array(q);
-    const dSphi = new Float64Array(P);
-    const dStheta = new Float64Array(Q);
-    for (let i = 0; i < p; i++) {
-      let v = dA[i];
-      for (let j = 0; j < P; j++) v -= dA[(j + 1) * s + i] * sar.phi[j];
-      dPhi[i] = v;
-    }
-    for (let j = 0; j < P; j++) {
-      let v = dA[(j + 1) * s - 1];
-      for (let i = 0; i < p; i++) v -= dA[(j + 1) * s + i] * ar.phi[i];
-      dSphi[j] = v;
-    }
-    for (let i = 0; i < q; i++) {
-      let v = dB[i];
-      for (let j = 0; j < Q; j++) v += dB[(j + 1) * s + i] * stheta[j];
-      dTheta[i] = v;
-    }
-    for (let j = 0; j < Q; j++) {
-      let v = dB[(j + 1) * s - 1];
-      for (let i = 0; i < q; i++) v += dB[(j + 1) * s + i] * theta[i];
-      dStheta[j] = v;
-    }
+    // ∂S with respect to φ, Φ and θ, Θ through the expansion
+    const { dc: dPhi, dC: dSphi } = expansionAdjoint(dA, ar.phi, sar.phi, s, -1);
+    const { dc: dTheta, dC: dStheta } = expansionAdjoint(dB, theta, stheta, s, 1);
     const g = new Float64Array(k);
     const chain = (d: Float64Array, jac: Float64Array, m: number, from: number, sign: number) => {
       for (let j = 0; j < m; j++) {
@@ -90,17 +68,6 @@ export function generalCss(x: Float64Array, o: CssOrders, terms: Int32Array = us
     return g;
   };
   return { objective, gradient };
-}
-
-/** The lags (1-based) that (1 ∓ Σ c_i B^i)(1 ∓ Σ C_j B^{js}) can fill: 1..m, js, js + i. */
-function filledLags(m: number, M: number, s: number): Int32Array {
-  const set = new Set<number>();
-  for (let i = 1; i <= m; i++) set.add(i);
-  for (let j = 1; j <= M; j++) {
-    set.add(j * s);
-    for (let i = 1; i <= m; i++) set.add(j * s + i);
-  }
-  return Int32Array.from([...set].sort((a, b) => a - b));
 }
 
 /** The backward pass of generalCss over the last evaluation's innovations e; writes dA, dB at the filled lags. */

@@ -67,3 +67,40 @@ export function expandMaTangent(theta: ArrayLike<number>, stheta: ArrayLike<numb
   }
   return out;
 }
+
+/**
+ * The adjoint (transpose) of the expansion's derivative: given d = ∂S/∂(expanded coefficients),
+ * by lag (index L − 1), the derivatives of S with respect to the factors' coefficients c and C,
+ * for (1 ∓ Σ c_i B^i)(1 ∓ Σ C_j B^{js}) with sign −1 (expandAr) or +1 (expandMa):
+ *   ∂S/∂c_i = d_i + sign Σ_j d_{js+i} C_j,   ∂S/∂C_j = d_{js} + sign Σ_i d_{js+i} c_i
+ * (indices 1-based in the formulas). The reverse-mode partner of expandArTangent /
+ * expandMaTangent, for gradients that come back by lag from one backward pass.
+ */
+export function expansionAdjoint(d: ArrayLike<number>, c: ArrayLike<number>, C: ArrayLike<number>, s: number, sign: 1 | -1): { dc: Float64Array; dC: Float64Array } {
+  const m = c.length;
+  const M = C.length;
+  const dc = new Float64Array(m);
+  const dC = new Float64Array(M);
+  for (let i = 0; i < m; i++) {
+    let v = d[i];
+    for (let j = 0; j < M; j++) v += sign * d[(j + 1) * s + i] * C[j];
+    dc[i] = v;
+  }
+  for (let j = 0; j < M; j++) {
+    let v = d[(j + 1) * s - 1];
+    for (let i = 0; i < m; i++) v += sign * d[(j + 1) * s + i] * c[i];
+    dC[j] = v;
+  }
+  return { dc, dC };
+}
+
+/** The lags (1-based) that (1 ∓ Σ c_i B^i)(1 ∓ Σ C_j B^{js}), with m and M coefficients, can fill: 1..m, js, js + i. */
+export function filledLags(m: number, M: number, s: number): Int32Array {
+  const set = new Set<number>();
+  for (let i = 1; i <= m; i++) set.add(i);
+  for (let j = 1; j <= M; j++) {
+    set.add(j * s);
+    for (let i = 1; i <= m; i++) set.add(j * s + i);
+  }
+  return Int32Array.from([...set].sort((a, b) => a - b));
+}
