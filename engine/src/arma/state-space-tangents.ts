@@ -25,22 +25,28 @@ export interface StateSpaceTangents {
   dR: Float64Array;
 }
 
-export function stateSpaceWithTangents(u: Float64Array, o: Orders): StateSpaceTangents {
-  if (o.P + o.Q === 0) return nonSeasonal(u, o.p, o.q);
+/**
+ * With `naturalMa` the MA values of u are the coefficients themselves (θ of 1 + θ₁B + …, no
+ * transform, so the MA part may leave the invertible region), as R's arima searches them; the AR
+ * values go through the transform either way (see fit.ts, the natural-MA start).
+ */
+export function stateSpaceWithTangents(u: Float64Array, o: Orders, naturalMa = false): StateSpaceTangents {
+  if (o.P + o.Q === 0) return nonSeasonal(u, o.p, o.q, naturalMa);
   const s = o.period || 1;
   const ar = toStationaryJacobian(u.subarray(0, o.p));
-  const ma = toStationaryJacobian(u.subarray(o.p, o.p + o.q));
   const sar = toStationaryJacobian(u.subarray(o.p + o.q, o.p + o.q + o.P));
-  const sma = toStationaryJacobian(u.subarray(o.p + o.q + o.P, o.p + o.q + o.P + o.Q));
-  // invertible MA coefficients are the negated stationary ones (transform.ts), derivatives too
-  const negate = (v: Float64Array) => {
-    for (let i = 0; i < v.length; i++) v[i] = -v[i];
-    return v;
+  const maPart = (from: number, m: number): { phi: Float64Array; jac: Float64Array } => {
+    if (naturalMa) return { phi: Float64Array.from(u.subarray(from, from + m)), jac: identity(m) };
+    // invertible MA coefficients are the negated stationary ones (transform.ts), derivatives too
+    const t = toStationaryJacobian(u.subarray(from, from + m));
+    for (let i = 0; i < t.phi.length; i++) t.phi[i] = -t.phi[i];
+    for (let i = 0; i < t.jac.length; i++) t.jac[i] = -t.jac[i];
+    return t;
   };
-  const theta = negate(ma.phi);
-  const stheta = negate(sma.phi);
-  negate(ma.jac);
-  negate(sma.jac);
+  const ma = maPart(o.p, o.q);
+  const sma = maPart(o.p + o.q + o.P, o.Q);
+  const theta = ma.phi;
+  const stheta = sma.phi;
   const ss = armaStateSpace(expandAr(ar.phi, sar.phi, s), expandMa(theta, stheta, s));
   const r = ss.r;
   const k = o.p + o.q + o.P + o.Q;
@@ -58,19 +64,33 @@ export function stateSpaceWithTangents(u: Float64Array, o: Orders): StateSpaceTa
 }
 
 /** Without a seasonal block the polynomials are the coefficients themselves: φ, and R = (1, θ). */
-function nonSeasonal(u: Float64Array, p: number, q: number): StateSpaceTangents {
+function nonSeasonal(u: Float64Array, p: number, q: number, naturalMa: boolean): StateSpaceTangents {
   const ar = toStationaryJacobian(u.subarray(0, p));
-  const ma = toStationaryJacobian(u.subarray(p, p + q));
   const r = Math.max(p, q + 1, 1);
   const phi = new Float64Array(r);
   const R = new Float64Array(r);
   phi.set(ar.phi);
   R[0] = 1;
-  for (let i = 0; i < q; i++) R[i + 1] = -ma.phi[i];
   const k = p + q;
   const dPhi = new Float64Array(k * r);
   const dR = new Float64Array(k * r);
   for (let j = 0; j < p; j++) for (let i = 0; i < p; i++) dPhi[j * r + i] = ar.jac[j * p + i];
-  for (let j = 0; j < q; j++) for (let i = 0; i < q; i++) dR[(p + j) * r + i + 1] = -ma.jac[j * q + i];
+  if (naturalMa) {
+    for (let i = 0; i < q; i++) {
+      R[i + 1] = u[p + i];
+      dR[(p + i) * r + i + 1] = 1;
+    }
+  } else {
+    const ma = toStationaryJacobian(u.subarray(p, p + q));
+    for (let i = 0; i < q; i++) R[i + 1] = -ma.phi[i];
+    for (let j = 0; j < q; j++) for (let i = 0; i < q; i++) dR[(p + j) * r + i + 1] = -ma.jac[j * q + i];
+  }
   return { ss: { r, phi, R }, dPhi, dR };
+}
+
+/** The m×m identity, row-major (the Jacobian of coefficients searched as they are). */
+function identity(m: number): Float64Array {
+  const out = new Float64Array(m * m);
+  for (let i = 0; i < m; i++) out[i * m + i] = 1;
+  return out;
 }

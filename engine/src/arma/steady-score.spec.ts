@@ -6,6 +6,17 @@ import { stateSpaceWithTangents } from './state-space-tangents';
 import { steadyStateScore } from './steady-score';
 import { toInvertible, toStationary } from './transform';
 
+/** Each element of g within tol of the central difference of f at `at` over ±h. */
+function expectCentralDifferences(g: Float64Array, f: (v: Float64Array) => number, at: Float64Array, h: number, tol: number): void {
+  for (let j = 0; j < at.length; j++) {
+    const up = Float64Array.from(at);
+    const down = Float64Array.from(at);
+    up[j] += h;
+    down[j] -= h;
+    expect(Math.abs(g[j] - (f(up) - f(down)) / (2 * h))).toBeLessThan(tol);
+  }
+}
+
 /**
  * The steady-state score is a rewriting of the gradient, so it is checked against the plain
  * definition: central differences of the same objective, ½ log(S/n) + ½ Σ log F_t / n, with
@@ -39,15 +50,7 @@ describe('steadyStateScore: the gradient of the concentrated likelihood', () => 
     expect(pass.entry).toBeDefined();
     const g = steadyStateScore({ x: y, model: (v) => stateSpaceWithTangents(v, { p, q, P, Q, period: s }) }, at, { ssq: pass.ssq, entry: pass.entry!, trace });
     expect(g).not.toBeNull();
-    for (let j = 0; j < at.length; j++) {
-      const h = 1e-5;
-      const up = Float64Array.from(at);
-      const down = Float64Array.from(at);
-      up[j] += h;
-      down[j] -= h;
-      const central = (objective(up) - objective(down)) / (2 * h);
-      expect(Math.abs(g![j] - central)).toBeLessThan(1e-6);
-    }
+    expectCentralDifferences(g!, objective, at, 1e-5, 1e-6);
   });
 
   it.each([
@@ -75,14 +78,7 @@ describe('steadyStateScore: the gradient of the concentrated likelihood', () => 
     // turn into a few 1e-6. The gradients are of order 0.1 to 1.
     const plainAt = kalmanFilter(centred, model(at), { tol: 1e-10, complete: true });
     expect(Math.abs(profiled(at) - (0.5 * Math.log(plainAt.ssq / plainAt.nUsed) + (0.5 * plainAt.sumLogF) / plainAt.nUsed))).toBeLessThan(1e-8);
-    for (let j = 0; j < at.length; j++) {
-      const h = 1e-3;
-      const up = Float64Array.from(at);
-      const down = Float64Array.from(at);
-      up[j] += h;
-      down[j] -= h;
-      expect(Math.abs(g![j] - (profiled(up) - profiled(down)) / (2 * h))).toBeLessThan(5e-6);
-    }
+    expectCentralDifferences(g!, profiled, at, 1e-3, 5e-6);
   });
 
   describe('a late steady state', () => {
@@ -104,20 +100,68 @@ describe('steadyStateScore: the gradient of the concentrated likelihood', () => 
       const { steadyAt, g } = scoreAt(at);
       expect(steadyAt).toBeGreaterThan(y.length / 2);
       expect(g).not.toBeNull();
-      for (let j = 0; j < at.length; j++) {
-        const h = 1e-5;
-        const up = Float64Array.from(at);
-        const down = Float64Array.from(at);
-        up[j] += h;
-        down[j] -= h;
-        expect(Math.abs(g![j] - (objective(up) - objective(down)) / (2 * h))).toBeLessThan(1e-6);
-      }
+      expectCentralDifferences(g!, objective, at, 1e-5, 1e-6);
     });
 
     it('is declined past 3n/k hours of start-up (the caller then takes the Chandrasekhar score)', () => {
       const { steadyAt, g } = scoreAt(Float64Array.from([0.3, 0.2, 2.45, 0.5]));
       expect(steadyAt).toBeGreaterThan((3 * y.length) / 4);
       expect(g).toBeNull();
+    });
+  });
+
+  // The natural-MA start of fit.ts searches the MA coefficients as they are (R's "ML"), so the
+  // MA part may leave the invertible region: the model is the plain polynomial product there,
+  // built here independently, and the score must still match differences of the objective.
+  describe('with the MA coefficients as they are (the natural-MA start)', () => {
+    const naturalModel = (v: Float64Array, o: { p: number; q: number; P: number; Q: number; period: number }): ArmaStateSpace => {
+      const s = o.period || 1;
+      const ar = toStationary(v.subarray(0, o.p));
+      const sar = toStationary(v.subarray(o.p + o.q, o.p + o.q + o.P));
+      return armaStateSpace(expandAr(ar, sar, s), expandMa(v.slice(o.p, o.p + o.q), v.slice(o.p + o.q + o.P), s));
+    };
+
+    it.each([
+      ['ARMA(2,2) with an MA root inside the unit circle', { p: 2, q: 2, P: 0, Q: 0, period: 0 }, [0.4, -0.3, 1.6, 0.7]],
+      ['ARMA(1,2)(1,1)_12 with a seasonal MA coefficient beyond 1', { p: 1, q: 2, P: 1, Q: 1, period: 12 }, [0.4, 0.3, -0.2, 0.5, -1.3]],
+    ])('%s: the same model, and derivatives within 1e-7 of central differences', (_n, o, u) => {
+      const at = Float64Array.from(u);
+      const { ss, dPhi, dR } = stateSpaceWithTangents(at, o, true);
+      const ref = naturalModel(at, o);
+      expect(ss.r).toBe(ref.r);
+      for (let i = 0; i < ss.r; i++) {
+        expect(ss.phi[i]).toBeCloseTo(ref.phi[i], 14);
+        expect(ss.R[i]).toBeCloseTo(ref.R[i], 14);
+      }
+      const h = 1e-6;
+      for (let j = 0; j < u.length; j++) {
+        const up = Float64Array.from(u);
+        const down = Float64Array.from(u);
+        up[j] += h;
+        down[j] -= h;
+        const a = naturalModel(up, o);
+        const b = naturalModel(down, o);
+        for (let i = 0; i < ss.r; i++) {
+          expect(Math.abs(dPhi[j * ss.r + i] - (a.phi[i] - b.phi[i]) / (2 * h))).toBeLessThan(1e-7);
+          expect(Math.abs(dR[j * ss.r + i] - (a.R[i] - b.R[i]) / (2 * h))).toBeLessThan(1e-7);
+        }
+      }
+    });
+
+    it('ARMA(3,3) with an MA root inside the unit circle: the steady-state score within 1e-6 of central differences', () => {
+      const o = { p: 3, q: 3, P: 0, Q: 0, period: 0 };
+      // θ = (0.3, −0.2, 1.5): |θ₃| > 1, so a root lies inside the unit circle
+      const at = Float64Array.from([0.5, -0.3, 0.2, 0.3, -0.2, 1.5]);
+      const objective = (v: Float64Array): number => {
+        const f = kalmanFilter(y, naturalModel(v, o), { tol: 1e-10, complete: true });
+        return 0.5 * Math.log(f.ssq / f.nUsed) + (0.5 * f.sumLogF) / f.nUsed;
+      };
+      const trace = new Float64Array(y.length);
+      const pass = kalmanFilter(y, naturalModel(at, o), { tol: 1e-10, complete: true, trace });
+      expect(pass.entry).toBeDefined();
+      const g = steadyStateScore({ x: y, model: (v) => stateSpaceWithTangents(v, o, true) }, at, { ssq: pass.ssq, entry: pass.entry!, trace });
+      expect(g).not.toBeNull();
+      expectCentralDifferences(g!, objective, at, 1e-5, 1e-6);
     });
   });
 

@@ -33,6 +33,7 @@ const START_LABELS: Record<ArimaFit['arma']['startedFrom'], string> = {
   'seasonal-unit-root': 'seasonal MA near its unit root',
   css: 'conditional-sum-of-squares',
   'css-free-ma': 'conditional-sum-of-squares, MA unconstrained',
+  'natural-ma': 'exact likelihood with the MA part unconstrained, from zero',
 };
 
 export function parseIntList(s: string, name: string, len?: number): number[] {
