@@ -315,7 +315,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   // likelihood profiled over it (its GLS estimate μ̂(u) at each u), and by the envelope theorem
   // its gradient is the gradient at the mean held at μ̂(u) (the derivative through μ̂ vanishes
   // at the minimum over the mean; Magnus & Neudecker 1999, ch. 7): the score of the known-mean
-  // likelihood of x − μ̂, from one plain pass over it beside the profiled one.
+  // likelihood of x − μ̂, whose predictions the profiled pass leaves as well (kalman.ts, traceOnes).
   const withMean = o.includeMean;
   // The coordinates the searches run in: the transform's (every search) or, for the natural-MA
   // start only, the MA coefficients as they are (see there).
@@ -329,12 +329,15 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   let lastSteadyAt = -1;
   let lastMean = 0;
   const trace = scoreInput ? new Float64Array(x.length) : undefined;
+  const traceOnes = scoreInput && withMean ? new Float64Array(x.length) : undefined;
+  // with a mean: whether lastPass has been carried to x − μ̂ yet (atMean)
+  let lastAtMean = false;
   const objective = (u: Float64Array): number => {
     const ss = naturalMa ? naturalModel(u) : model(u);
     let f: FilterResult;
     lastValid = false;
     try {
-      f = kalmanFilter(x, ss, { profileMean: withMean, tol, complete, trace: withMean ? undefined : trace });
+      f = kalmanFilter(x, ss, { profileMean: withMean, tol, complete, trace, traceOnes });
     } catch {
       // a root on the unit circle to machine precision (the transform's tanh saturates far out):
       // no stationary covariance there, so no likelihood; the line search steps back
@@ -346,20 +349,29 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
     lastPass = f.entry && trace ? { ssq: f.ssq, entry: f.entry, trace } : null;
     lastSteadyAt = f.steadyAt;
     lastMean = f.mean;
+    lastAtMean = false;
     return 0.5 * Math.log(f.ssq / f.nUsed) + (0.5 * f.sumLogF) / f.nUsed;
   };
-  /** With a mean: the plain pass over x − μ̂(u) whose trace the steady-state score reads. */
-  const passAtMean = (u: Float64Array, xc: Float64Array): boolean => {
+  /**
+   * With a mean: the last pass carried to x − μ̂(u), what the steady-state score reads. The
+   * profiled pass filtered the column of ones beside the data with the same gains, so the
+   * predictions of x − μ̂ are a − μ̂ c and the start-up's sum of squares is
+   * Σ v²/F − 2μ̂ Σ v v₁/F + μ̂² Σ v₁²/F (kalman.ts, traceOnes): no second pass.
+   */
+  const atMean = (xc: Float64Array): void => {
     subtractInto(x, lastMean, xc);
-    let f: FilterResult;
-    try {
-      f = kalmanFilter(xc, naturalMa ? naturalModel(u) : model(u), { tol, complete: true, trace });
-    } catch {
-      return false;
+    if (lastAtMean) return;
+    lastAtMean = true;
+    const e = lastPass?.entry;
+    if (!lastPass || !e?.ones || !traceOnes) {
+      lastPass = null;
+      return;
     }
-    lastPass = f.entry && trace ? { ssq: f.ssq, entry: f.entry, trace } : null;
-    lastSteadyAt = f.steadyAt;
-    return true;
+    const mu = lastMean;
+    removeMultiple(lastPass.trace, traceOnes, mu, e.steadyAt + 1);
+    const a = new Float64Array(e.a.length);
+    for (let i = 0; i < a.length; i++) a[i] = e.a[i] - mu * e.ones.c[i];
+    lastPass = { ssq: lastPass.ssq, trace: lastPass.trace, entry: { ...e, ssq: e.ssq - 2 * mu * e.ones.sxy + mu * mu * e.ones.sxx, a, ones: undefined } };
   };
   // Where the filter settles late or never (a seasonal MA part near the unit circle), the
   // steady-state score has nothing to work on; the gradient then comes from the Chandrasekhar
@@ -367,7 +379,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   const gradient = scoreInput
     ? (u: Float64Array): Float64Array | null => {
         if (!lastValid || !sameValues(lastU, u)) return null;
-        if (withMean && !passAtMean(u, scoreInput.x)) return null;
+        if (withMean) atMean(scoreInput.x);
         const steady = lastPass ? steadyStateScore(scoreInput, u, lastPass) : null;
         if (steady || k < CHANDRASEKHAR_SCORE_MIN_K) return steady;
         // the steady score declined a filter that settles (its start-up tangents failed):
@@ -754,6 +766,11 @@ function sameMaximum(a: { f: number; x: Float64Array }, b: { f: number; x: Float
   if (!(Math.abs(a.f - b.f) <= 1e-9)) return false;
   for (let i = 0; i < a.x.length; i++) if (!(Math.abs(a.x[i] - b.x[i]) < 1e-3)) return false;
   return true;
+}
+
+/** tr[t] −= m·ones[t] for t ≥ from, in a function of its own (see subtractInto). */
+function removeMultiple(tr: Float64Array, ones: Float64Array, m: number, from: number): void {
+  for (let t = from; t < tr.length; t++) tr[t] -= m * ones[t];
 }
 
 /** out = x − m, in a function of its own (inside the fit's closure the loop ran several times slower). */

@@ -128,6 +128,39 @@ describe('kalmanFilter: the mean profiled out', () => {
 });
 
 /**
+ * With the mean profiled out, `traceOnes` hands the fit what a plain pass over x − μ̂ would give
+ * the steady-state score (its predictions after the switch, and the start-up's state and sum of
+ * squares), without that pass: checked against the plain pass itself, on the scalar path (up to
+ * four states) and on the general one (a seasonal block).
+ */
+describe('kalmanFilter: the pass over x − μ̂ from the profiled one', () => {
+  const y = Float64Array.from(simulateArma21(900, 29), (v) => v + 480);
+  it.each([
+    ['ARMA(3,3)', [0.5, -0.3, 0.1], [0.9, 0.5, 0.2]],
+    ['ARMA(2,1) near a unit AR root', [1.19, -0.205], [-0.6]],
+    ['ARMA(1,1)(0,1)_12, fourteen states', expandAr([0.6], [], 12), expandMa([0.3], [-0.5], 12)],
+  ])('%s: predictions, start-up state and sum of squares as the plain pass gives them', (_n, ar, ma) => {
+    const ss = armaStateSpace(ar, ma);
+    const trace = new Float64Array(y.length);
+    const traceOnes = new Float64Array(y.length);
+    const profiled = kalmanFilter(y, ss, { profileMean: true, complete: true, trace, traceOnes });
+    const mu = profiled.mean;
+    const centred = Float64Array.from(y, (v) => v - mu);
+    const plainTrace = new Float64Array(y.length);
+    const plain = kalmanFilter(centred, ss, { complete: true, trace: plainTrace });
+    const e = profiled.entry!;
+    const p = plain.entry!;
+    expect(e.steadyAt).toBe(p.steadyAt);
+    expect(e.steadyAt).toBeGreaterThan(0);
+    expect(e.ones).toBeDefined();
+    expect(Math.abs(profiled.ssq - plain.ssq) / plain.ssq).toBeLessThan(1e-9);
+    expect(Math.abs(e.ssq - 2 * mu * e.ones!.sxy + mu * mu * e.ones!.sxx - p.ssq)).toBeLessThan(1e-8 * Math.max(1, p.ssq));
+    for (let i = 0; i < ss.r; i++) expect(Math.abs(e.a[i] - mu * e.ones!.c[i] - p.a[i])).toBeLessThan(1e-8 * 480);
+    for (let t = e.steadyAt + 1; t < y.length; t++) expect(Math.abs(trace[t] - mu * traceOnes[t] - plainTrace[t])).toBeLessThan(1e-8 * 480);
+  });
+});
+
+/**
  * A final pass (residuals, predictions and the end state, as a fit's last pass and the hourly
  * update make) runs its steady stretches in scalars. With tol = 0 the filter never switches to
  * the steady state and runs the time-varying recursions throughout: both must give the same

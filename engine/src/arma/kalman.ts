@@ -45,6 +45,14 @@ export interface FilterOptions {
    * pass that evaluated the likelihood.
    */
   trace?: Float64Array;
+  /**
+   * With `profileMean` and `trace`: fill with the predicted state of the column of ones c_{t,0}
+   * for the same hours, and return in `entry.ones` what the start-up left for it. The filter is
+   * linear in the data with gains that do not depend on it, so the predictions of x − μ are
+   * a_{t,0} − μ c_{t,0} and the start-up's Σ (v − μ v₁)²/F is Σ v²/F − 2μ Σ v v₁/F + μ² Σ v₁²/F:
+   * the pass over x − μ̂ the steady-state score needs, without running it.
+   */
+  traceOnes?: Float64Array;
 }
 
 /** The filter at the end of a start-up stretch: hours 0..steadyAt run. */
@@ -59,6 +67,8 @@ export interface SteadyEntry {
   gain: Float64Array;
   /** F = P_{steadyAt+1}[0,0], in units of σ² */
   F: number;
+  /** with `traceOnes`: the column of ones' predicted state and Σ v v₁/F, Σ v₁²/F over the start-up */
+  ones?: { c: Float64Array; sxy: number; sxx: number };
 }
 
 export interface FilterResult {
@@ -105,6 +115,8 @@ interface Workspace {
   sums: Float64Array;
   /** the steady state handed to and from tracedStretch */
   st: Float64Array;
+  /** the data's and the column of ones' steady states handed to and from tracedProfileStretch */
+  st8: Float64Array;
   /** what quickStartUpSmall reads and writes */
   io: Float64Array;
 }
@@ -115,7 +127,7 @@ function workspaceFor(r: number): Workspace {
     const s = r + 1;
     const v = () => new Float64Array(s);
     const m = () => new Float64Array(s * s);
-    ws = { phi: v(), P: m(), Pn: m(), P0: new Float64Array(r * r), RR: m(), a: v(), c: v(), K: v(), g: v(), w: v(), wn: v(), cd: new Float64Array(8), sums: new Float64Array(5), st: new Float64Array(4), io: new Float64Array(20) };
+    ws = { phi: v(), P: m(), Pn: m(), P0: new Float64Array(r * r), RR: m(), a: v(), c: v(), K: v(), g: v(), w: v(), wn: v(), cd: new Float64Array(8), sums: new Float64Array(5), st: new Float64Array(4), st8: new Float64Array(8), io: new Float64Array(20) };
     workspaces.set(r, ws);
   }
   return ws;
@@ -200,6 +212,65 @@ function steadyStretchWithOutputs(x: Float64Array, from: number, end: number, mu
   st[2] = a2;
   st[3] = a3;
   return sv;
+}
+
+/**
+ * The steady recursion with the mean profiled out (the data's state a and the column of ones'
+ * state c, both by the fixed recursion; see kalmanFilter) over hours from..end−1, writing the
+ * predictions a_{t,0} to tr and c_{t,0} to tr1; states in and out through st (a in 0–3, c in
+ * 4–7). Writes Σ v², Σ v v₁ and Σ v₁² to sums[0], sums[3] and sums[4].
+ */
+function tracedProfileStretch(x: Float64Array, from: number, end: number, mu0: number, st: Float64Array, cd: Float64Array, tr: Float64Array, tr1: Float64Array, sums: Float64Array): void {
+  const c0 = cd[0];
+  const c1 = cd[1];
+  const c2 = cd[2];
+  const c3 = cd[3];
+  const d0 = cd[4];
+  const d1 = cd[5];
+  const d2 = cd[6];
+  const d3 = cd[7];
+  let a0 = st[0];
+  let a1 = st[1];
+  let a2 = st[2];
+  let a3 = st[3];
+  let o0 = st[4];
+  let o1 = st[5];
+  let o2 = st[6];
+  let o3 = st[7];
+  let svv = 0;
+  let sv1 = 0;
+  let s11 = 0;
+  for (let u = from; u < end; u++) {
+    const yu = x[u] - mu0;
+    tr[u] = a0;
+    tr1[u] = o0;
+    const v = yu - a0;
+    const v1 = 1 - o0;
+    svv += v * v;
+    sv1 += v1 * v;
+    s11 += v1 * v1;
+    const na0 = c0 * a0 + (d0 * yu + a1);
+    a1 = c1 * a0 + (d1 * yu + a2);
+    a2 = c2 * a0 + (d2 * yu + a3);
+    a3 = c3 * a0 + d3 * yu;
+    a0 = na0;
+    const no0 = c0 * o0 + (d0 + o1);
+    o1 = c1 * o0 + (d1 + o2);
+    o2 = c2 * o0 + (d2 + o3);
+    o3 = c3 * o0 + d3;
+    o0 = no0;
+  }
+  st[0] = a0;
+  st[1] = a1;
+  st[2] = a2;
+  st[3] = a3;
+  st[4] = o0;
+  st[5] = o1;
+  st[6] = o2;
+  st[7] = o3;
+  sums[0] = svv;
+  sums[3] = sv1;
+  sums[4] = s11;
 }
 
 /**
@@ -531,6 +602,8 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
   const stopAt = opts.stopAt ?? -1;
   const wantTrace = opts.trace !== undefined;
   const tr: Float64Array = opts.trace ?? NO_OUTPUT;
+  const wantOnes = profile && wantTrace && opts.traceOnes !== undefined;
+  const tr1: Float64Array = wantOnes ? (opts.traceOnes as Float64Array) : NO_OUTPUT;
   let entry: SteadyEntry | undefined;
   let ssq = 0;
   let sumLogF = 0;
@@ -575,7 +648,7 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       logFss = Math.log(Fss);
       steadyConstants(P, phi, r, K, ws.cd);
     }
-  } else if (chandra && !trackP && complete && profile && r <= 4 && !wantRes && !wantPred && !wantTrace && stopAt < 0) {
+  } else if (chandra && !trackP && complete && profile && r <= 4 && !wantRes && !wantPred && wantTrace === wantOnes && stopAt < 0) {
     // the same with the mean profiled out (the fit of a model with a mean): the start-up of the
     // data and of the column of ones in scalars, then the profiled steady loop below
     const io = ws.io;
@@ -598,6 +671,7 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
     nUsed = last + 1;
     tStart = last + 1;
     if (sums[2] === 1) {
+      if (wantTrace) entry = entryWithOnes(last, ssq, sumLogF, a, P, r, c, sxy, sxx);
       steady = true;
       steadyAt = last;
       Fss = P[0];
@@ -716,6 +790,29 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       t = u - 1;
       continue;
     }
+    if (steady && observed && profile && r <= 4 && wantOnes && !wantRes && !wantPred) {
+      // the same with both predictions written down (traceOnes), in a function of its own
+      const st = ws.st8;
+      for (let i = 0; i < 4; i++) {
+        st[i] = i < r ? a[i] : 0;
+        st[4 + i] = i < r ? c[i] : 0;
+      }
+      const end = complete ? n : nextMissing(x, t);
+      const sums = ws.sums;
+      tracedProfileStretch(x, t, end, mu0, st, ws.cd, tr, tr1, sums);
+      for (let i = 0; i < r; i++) {
+        a[i] = st[i];
+        c[i] = st[4 + i];
+      }
+      const m = end - t;
+      ssq += sums[0] / Fss;
+      sxy += sums[3] / Fss;
+      sxx += sums[4] / Fss;
+      sumLogF += m * logFss;
+      nUsed += m;
+      t = end - 1;
+      continue;
+    }
     if (steady && observed && profile && r <= 4 && !wantRes && !wantPred && !wantTrace) {
       // the steady recursion with the mean profiled out, in local scalars up to the next
       // missing hour: the data's state a and the state c of the column of ones (de Jong 1991)
@@ -799,6 +896,7 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
     }
     if (steady && observed) {
       if (wantTrace) tr[t] = a[0];
+      if (wantOnes) tr1[t] = c[0];
       const v = yt - a[0];
       const vf = v / Fss;
       ssq += v * vf;
@@ -898,7 +996,7 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
     }
     if (t === stopAt) return { ssq, sumLogF, nUsed, mean: mu0, steadyAt: -1, entry: entryOf(t, ssq, sumLogF, a, P, r) };
     if (observed && change < tol && stopAt < 0) {
-      if (wantTrace && !entry) entry = entryOf(t, ssq, sumLogF, a, P, r);
+      if (wantTrace && !entry) entry = wantOnes ? entryWithOnes(t, ssq, sumLogF, a, P, r, c, sxy, sxx) : entryOf(t, ssq, sumLogF, a, P, r);
       chandra = false;
       steady = true;
       steadyAt = t;
@@ -929,6 +1027,12 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
     out.PPred = POut;
   }
   return out;
+}
+
+function entryWithOnes(t: number, ssq: number, sumLogF: number, a: Float64Array, P: Float64Array, r: number, c: Float64Array, sxy: number, sxx: number): SteadyEntry {
+  const e = entryOf(t, ssq, sumLogF, a, P, r);
+  e.ones = { c: Float64Array.from(c.subarray(0, r)), sxy, sxx };
+  return e;
 }
 
 function entryOf(t: number, ssq: number, sumLogF: number, a: Float64Array, P: Float64Array, r: number): SteadyEntry {
