@@ -131,7 +131,7 @@ export interface FitOptions {
   /** half-width of the box around a maximum already found that a later search stops in
    *  (default KNOWN_BASIN_RADIUS; 0 lets every search run to its end) */
   knownBasinRadius?: number;
-  /** the natural-MA start on the short series (default on; see fitArma) */
+  /** the natural-MA start where fitArma runs it (default on; off only to measure what it does) */
   naturalMaStart?: boolean;
 }
 
@@ -566,8 +566,9 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       // (3,0,3)(0,0,1)_12 by 0.07) and raised four more already above R (by 0.06–1.75); one
       // ended 3.0 lower but still above R (fdeaths (1,0,3)(1,0,1)_12: a stopped slide no longer
       // taken up). For 9.7 % more evaluations over the sweeps: every fit that gained has six
-      // coefficients or more (from five, 16 % more for one more gain, on a fit already above R),
-      // and NATURAL_MA_START_ITERATIONS iterations found what 40 and 80 found.
+      // coefficients or more (from five, 16 % more for one more gain, on a fit already above R).
+      // With NATURAL_MA_START_ITERATIONS iterations it frees the same three fits as with 40 or
+      // 80 (which move a few others' maxima either way, all above R), with 10 only two.
       naturalMa = true;
       lastValid = false;
       const nat = minimizeBfgs(objective, new Float64Array(k), { maxIter: NATURAL_MA_START_ITERATIONS, gradTol: 1e-7, fTol: opts.fTol ?? 1e-13, step, gradient });
