@@ -12,9 +12,25 @@ import { Orders, stateSpaceWithTangents } from './state-space-tangents';
  * plain definition: central differences of the fit's objective, ½ log(S/n) + ½ Σ log F_t / n,
  * with the Kalman filter run in full at each probe.
  */
-function objective(y: Float64Array, o: Orders, v: Float64Array, tol = 1e-10): number {
+function objective(y: Float64Array, o: Orders, v: Float64Array, tol: number): number {
   const f = kalmanFilter(y, stateSpaceWithTangents(v, o).ss, { tol, complete: true });
   return 0.5 * Math.log(f.ssq / f.nUsed) + (0.5 * f.sumLogF) / f.nUsed;
+}
+
+/** The score at u within 1e-6 of central differences (±1e-5) of the objective, its filter run with tol. */
+function expectCentralDifferences(y: Float64Array, o: Orders, u: number[], tol: number): void {
+  const at = Float64Array.from(u);
+  const g = chandrasekharScore(y, stateSpaceWithTangents(at, o), at.length);
+  expect(g).not.toBeNull();
+  for (let j = 0; j < at.length; j++) {
+    const h = 1e-5;
+    const up = Float64Array.from(at);
+    const down = Float64Array.from(at);
+    up[j] += h;
+    down[j] -= h;
+    const central = (objective(y, o, up, tol) - objective(y, o, down, tol)) / (2 * h);
+    expect(Math.abs(g![j] - central)).toBeLessThan(1e-6);
+  }
 }
 
 describe('chandrasekharScore: the gradient where the filter does not settle', () => {
@@ -27,20 +43,7 @@ describe('chandrasekharScore: the gradient where the filter does not settle', ()
     { name: 'simulated, ARMA(2,2) with a small state', y: simulated, o: { p: 2, q: 2, P: 0, Q: 0, period: 0 }, u: [0.3, 0.2, 1.6, 0.3] },
   ];
 
-  it.each(cases)('$name: within 1e-6 of central differences', ({ y, o, u }) => {
-    const at = Float64Array.from(u);
-    const g = chandrasekharScore(y, stateSpaceWithTangents(at, o), at.length);
-    expect(g).not.toBeNull();
-    for (let j = 0; j < at.length; j++) {
-      const h = 1e-5;
-      const up = Float64Array.from(at);
-      const down = Float64Array.from(at);
-      up[j] += h;
-      down[j] -= h;
-      const central = (objective(y, o, up) - objective(y, o, down)) / (2 * h);
-      expect(Math.abs(g![j] - central)).toBeLessThan(1e-6);
-    }
-  });
+  it.each(cases)('$name: within 1e-6 of central differences', ({ y, o, u }) => expectCentralDifferences(y, o, u, 1e-10));
 
   // up to four states the adjoint runs in scalars (smallAdjoint): the weekly-differenced demand
   // series, whose MA part sits near the unit circle, with one to four states
@@ -53,20 +56,7 @@ describe('chandrasekharScore: the gradient where the filter does not settle', ()
   ];
   // the differences with the filter run in full (tol 0): this close to the unit circle its switch
   // to the steady state at 1e-10 moves them by a few 1e-6, as the objective of a fit allows
-  it.each(small)('weekly-differenced demand, $name: within 1e-6 of central differences', ({ o, u }) => {
-    const at = Float64Array.from(u);
-    const g = chandrasekharScore(weekly, stateSpaceWithTangents(at, o), at.length);
-    expect(g).not.toBeNull();
-    for (let j = 0; j < at.length; j++) {
-      const h = 1e-5;
-      const up = Float64Array.from(at);
-      const down = Float64Array.from(at);
-      up[j] += h;
-      down[j] -= h;
-      const central = (objective(weekly, o, up, 0) - objective(weekly, o, down, 0)) / (2 * h);
-      expect(Math.abs(g![j] - central)).toBeLessThan(1e-6);
-    }
-  });
+  it.each(small)('weekly-differenced demand, $name: within 1e-6 of central differences', ({ o, u }) => expectCentralDifferences(weekly, o, u, 0));
 
   it('the scalar adjoint of up to four states gives the general one to the last bit (the same sums in the same order)', () => {
     let compared = 0;

@@ -208,7 +208,9 @@ const HOUR = 11;
  * zero in both directions (φ_i = 0 and p_i = 0 there), so one four-state body serves r = 1…4 with
  * the same sums in the same order, and the forward pass keeps eleven values an hour instead of
  * the general one's three (r + 1)-vectors. On the weekly-differenced demand series' ARMA(3,3)
- * this function was a fifth of the fit's time.
+ * this function was a fifth of the fit's time. Its forward step is the scalar Chandrasekhar step
+ * of kalman.ts and start-up-tangents.ts again, kept apart on purpose: shared, it would put a
+ * call or an array store into every hour of those passes (DEVELOPERS.md, engine hot paths).
  */
 export function smallAdjoint(x: Float64Array, phi: Float64Array, row: Float64Array, r: number): Adjoint | null {
   const n = x.length;
