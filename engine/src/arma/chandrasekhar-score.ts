@@ -199,16 +199,16 @@ export function generalAdjoint(x: Float64Array, phi: Float64Array, row: Float64A
   return { phib, rowb };
 }
 
-
 /** Values of the forward recursion the backward one reads, per hour (smallAdjoint). */
 const HOUR = 11;
 
 /**
  * generalAdjoint for up to four states, the state in scalars: the states beyond r stay exactly
- * zero in both directions (φ_i = 0 and p_i = 0 there), so one four-state body serves r = 1…4 with
- * the same sums in the same order, and the forward pass keeps eleven values an hour instead of
- * the general one's three (r + 1)-vectors. On the weekly-differenced demand series' ARMA(3,3)
- * this function was a fifth of the fit's time. Its forward step is the scalar Chandrasekhar step
+ * zero (φ_i = 0 and p_i = 0 there), and their adjoints reach the others only multiplied by those
+ * zeros, so one four-state body serves r = 1…4 with the same sums in the same order, and the
+ * forward pass keeps eleven values an hour instead of the general one's three (r + 1)-vectors.
+ * On the weekly-differenced demand series' ARMA(3,3) the general one was a fifth of the fit's
+ * time. Its forward step is the scalar Chandrasekhar step
  * of kalman.ts and start-up-tangents.ts again, kept apart on purpose: shared, it would put a
  * call or an array store into every hour of those passes (DEVELOPERS.md, engine hot paths).
  */
