@@ -3,8 +3,8 @@ import taylor from '../fixtures/taylor-hourly.json';
 import { difference } from '../series/differencing';
 import { chandrasekharScore, generalAdjoint, smallAdjoint } from './chandrasekhar-score';
 import { firstRowTangents } from './first-row-tangents';
-import { kalmanFilter } from './kalman';
-import { seriesCovarianceTangents, stationaryCovarianceTangents } from './state-space';
+import { kalmanFilter, SteadyEntry } from './kalman';
+import { armaStateSpace, ArmaStateSpace, seriesCovarianceTangents, stationaryCovarianceTangents } from './state-space';
 import { Orders, stateSpaceWithTangents } from './state-space-tangents';
 
 /**
@@ -79,6 +79,54 @@ describe('chandrasekharScore: the gradient where the filter does not settle', ()
   it('the seasonal case is one where the filter never reaches its steady state', () => {
     const { ss } = stateSpaceWithTangents(Float64Array.from(cases[0].u), cases[0].o);
     expect(kalmanFilter(daily, ss, { tol: 1e-10, complete: true }).steadyAt).toBe(-1);
+  });
+});
+
+/**
+ * Run over the filter's start-up only, from a seed (what the steady-state score does), the
+ * adjoint is the gradient of G = ½/S · Σ v²/F + ½/n · Σ log F + ā·a + p̄·p + φ̄·φ over hours
+ * 0..t₀, a and p the predicted state and first row of P after them, with any weights ā, p̄, φ̄:
+ * checked against central differences of G along directions in φ and R, G computed by the
+ * plain Kalman filter stopped at t₀ (its time-varying recursions, not the Chandrasekhar form).
+ */
+describe('the adjoint over the start-up only, from a seed', () => {
+  const y = Float64Array.from(simulateArma21(400, 3));
+  const models: Array<{ name: string; ss: ArmaStateSpace }> = [
+    { name: 'three states (smallAdjoint)', ss: armaStateSpace([0.5, -0.3, 0.2], [0.4, 0.1]) },
+    { name: 'four states (smallAdjoint)', ss: armaStateSpace([0.5, -0.3], [0.4, 0.1, -0.6]) },
+    { name: 'a seasonal MA block, 26 states (generalAdjoint)', ss: armaStateSpace([0.6], [0.3, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, -0.7, -0.21]) },
+  ];
+  const cases = models.flatMap((m) => [0, 5, 60].map((t0) => ({ ...m, t0 })));
+
+  it.each(cases)('$name, to hour $t0: within 1e-6 (relative) of central differences', ({ ss, t0 }) => {
+    const r = ss.r;
+    const weights = (seed: number) => Float64Array.from({ length: Math.max(r, 4) }, (_, i) => (i < r ? Math.sin(seed + 1.7 * i) : 0));
+    const a = weights(1);
+    const p = weights(2);
+    const phiSeed = weights(3);
+    const ssqBar = 0.37;
+    const logBar = 0.011;
+    const G = (model: ArmaStateSpace): number => {
+      const e: SteadyEntry = kalmanFilter(y, model, { stopAt: t0, complete: true }).entry!;
+      let g = ssqBar * e.ssq + logBar * e.sumLogF;
+      for (let i = 0; i < r; i++) g += a[i] * e.a[i] + p[i] * e.gain[i] * e.F + phiSeed[i] * model.phi[i];
+      return g;
+    };
+    // two directions: AR coefficients; AR and MA together
+    const dPhi = Float64Array.from({ length: 2 * r }, (_, i) => (i < r ? (i === 0 ? 1 : 0) : i - r < 1 ? 0.3 : 0));
+    const dR = Float64Array.from({ length: 2 * r }, (_, i) => (i >= r && i - r >= 1 ? 0.2 * Math.cos(i) : 0));
+    const { row, dRow } = stationaryCovarianceTangents(ss, dPhi, dR, 2);
+    const seed = { hours: t0 + 1, ssqBar, logBar, a, p, phi: phiSeed };
+    const adj = (r <= 4 ? smallAdjoint : generalAdjoint)(y, ss.phi, row, r, seed);
+    expect(adj).not.toBeNull();
+    const h = 1e-6;
+    for (let j = 0; j < 2; j++) {
+      let g = 0;
+      for (let i = 0; i < r; i++) g += adj!.phib[i] * dPhi[j * r + i] + adj!.rowb[i] * dRow[j * r + i];
+      const moved = (sign: number): ArmaStateSpace => ({ r, phi: ss.phi.map((v, i) => v + sign * h * dPhi[j * r + i]), R: ss.R.map((v, i) => v + sign * h * dR[j * r + i]) });
+      const central = (G(moved(1)) - G(moved(-1))) / (2 * h);
+      expect(Math.abs(g - central)).toBeLessThan(1e-6 * (1 + Math.abs(central)));
+    }
   });
 });
 

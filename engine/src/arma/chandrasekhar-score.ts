@@ -54,8 +54,8 @@ export interface Adjoint {
  * cleared between calls (not clearing them made the slow demand fits of `npm run bench` 4–17 %
  * faster, before smallAdjoint took the small states).
  */
-export function generalAdjoint(x: Float64Array, phi: Float64Array, row: Float64Array, r: number): Adjoint | null {
-  const n = x.length;
+export function generalAdjoint(x: Float64Array, phi: Float64Array, row: Float64Array, r: number, seed?: AdjointSeed): Adjoint | null {
+  const n = seed ? seed.hours : x.length;
   const s = r + 1;
   // a, w, p before each hour t at offset t·s (element r the zero padding), then m and 1/F: the
   // recursion writes each hour's state straight after the previous one, nothing is copied
@@ -73,7 +73,8 @@ export function generalAdjoint(x: Float64Array, phi: Float64Array, row: Float64A
   let m = -1 / Pr[0];
   let ginv = 1 / Pr[0];
   let ssq = 0;
-  let sumLogF = 0;
+  // every F positive and finite, as in smallAdjoint
+  let positive = true;
   for (let t = 0; t < n; t++) {
     const o = t * s;
     const on = o + s;
@@ -83,7 +84,7 @@ export function generalAdjoint(x: Float64Array, phi: Float64Array, row: Float64A
     const v = y - A[o];
     const vf = v * ginv;
     ssq += v * vf;
-    sumLogF += Math.log(Pr[o]);
+    if (!(Pr[o] > 0 && Pr[o] < Infinity)) positive = false;
     const zw = W[o];
     const coef = zw * ginv;
     const mz = m * zw;
@@ -99,7 +100,7 @@ export function generalAdjoint(x: Float64Array, phi: Float64Array, row: Float64A
     ginv = 1 / Pr[on];
     m -= mz * mz * ginv;
   }
-  if (!(ssq > 0) || !Number.isFinite(ssq) || !Number.isFinite(sumLogF)) return null;
+  if (!positive || !Number.isFinite(ssq) || !(seed ? seed.ssqBar > 0 : ssq > 0)) return null;
   // adjoints of the state after hour t (entering hour t + 1): ā, w̄, p̄, m̄, ḡ (of 1/F); each
   // hour writes those of the state before it into the other buffers (element r stays zero)
   let ab = scratch('chs.ab', s);
@@ -117,8 +118,15 @@ export function generalAdjoint(x: Float64Array, phi: Float64Array, row: Float64A
   let mb = 0;
   let gb = 0;
   const phib = new Float64Array(r);
-  const ssqBar = 0.5 / ssq;
-  const logBar = 0.5 / n;
+  if (seed) {
+    for (let i = 0; i < r; i++) {
+      ab[i] = seed.a[i];
+      pb[i] = seed.p[i];
+      phib[i] = seed.phi[i];
+    }
+  }
+  const ssqBar = seed ? seed.ssqBar : 0.5 / ssq;
+  const logBar = seed ? seed.logBar : 0.5 / n;
   for (let t = n - 1; t >= 0; t--) {
     const o = t * s;
     const y = x[t];
@@ -199,6 +207,23 @@ export function generalAdjoint(x: Float64Array, phi: Float64Array, row: Float64A
   return { phib, rowb };
 }
 
+/**
+ * An adjoint pass that ends early: the steady-state score (steady-score.ts) runs smallAdjoint
+ * over the filter's start-up only, hours 0 … hours − 1, from the adjoints of the state after
+ * the last of them that its own backward pass over the steady stretch gave, with the whole
+ * objective's ½/S and ½/n; generalAdjoint likewise for a longer state. Arrays of the state
+ * size at least (smallAdjoint reads four, zero beyond the state size).
+ */
+export interface AdjointSeed {
+  hours: number;
+  ssqBar: number;
+  logBar: number;
+  /** adjoints of a and of p (the first row of P) after the last hour, and of φ so far */
+  a: ArrayLike<number>;
+  p: ArrayLike<number>;
+  phi: ArrayLike<number>;
+}
+
 /** Values of the forward recursion the backward one reads, per hour (smallAdjoint). */
 const HOUR = 11;
 
@@ -208,12 +233,12 @@ const HOUR = 11;
  * zeros, so one four-state body serves r = 1…4 with the same sums in the same order, and the
  * forward pass keeps eleven values an hour instead of the general one's three (r + 1)-vectors.
  * On the weekly-differenced demand series' ARMA(3,3) the general one was a fifth of the fit's
- * time. Its forward step is the scalar Chandrasekhar step
- * of kalman.ts and start-up-tangents.ts again, kept apart on purpose: shared, it would put a
+ * time. With a seed it runs over the filter's start-up only (AdjointSeed). Its forward step is
+ * the scalar Chandrasekhar step of kalman.ts again, kept apart on purpose: shared, it would put a
  * call or an array store into every hour of those passes (DEVELOPERS.md, engine hot paths).
  */
-export function smallAdjoint(x: Float64Array, phi: Float64Array, row: Float64Array, r: number): Adjoint | null {
-  const n = x.length;
+export function smallAdjoint(x: Float64Array, phi: Float64Array, row: Float64Array, r: number, seed?: AdjointSeed): Adjoint | null {
+  const n = seed ? seed.hours : x.length;
   const ph0 = phi[0];
   const ph1 = r > 1 ? phi[1] : 0;
   const ph2 = r > 2 ? phi[2] : 0;
@@ -234,7 +259,9 @@ export function smallAdjoint(x: Float64Array, phi: Float64Array, row: Float64Arr
   let m = -1 / p0;
   let ginv = 1 / p0;
   let ssq = 0;
-  let sumLogF = 0;
+  // every F positive and finite (what a finite Σ log F says, without a logarithm an hour: the
+  // backward pass needs only 1/F)
+  let positive = true;
   // per hour: a₀, w₀…w₃, p₀…p₃, m, 1/F before it; hour n holds p₀ after the last one
   const T = scratchAtLeast('chs.small', (n + 1) * HOUR);
   for (let t = 0; t < n; t++) {
@@ -254,7 +281,7 @@ export function smallAdjoint(x: Float64Array, phi: Float64Array, row: Float64Arr
     const v = y - a0;
     const vf = v * ginv;
     ssq += v * vf;
-    sumLogF += Math.log(p0);
+    if (!(p0 > 0 && p0 < Infinity)) positive = false;
     const coef = w0 * ginv;
     const mz = m * w0;
     a0 = ph0 * y + a1 + p1 * vf;
@@ -276,28 +303,28 @@ export function smallAdjoint(x: Float64Array, phi: Float64Array, row: Float64Arr
     m -= mz * mz * ginv;
   }
   T[n * HOUR + 5] = p0;
-  if (!(ssq > 0) || !Number.isFinite(ssq) || !Number.isFinite(sumLogF)) return null;
-  // adjoints of the state after hour t (see generalAdjoint)
-  let ab0 = 0;
-  let ab1 = 0;
-  let ab2 = 0;
-  let ab3 = 0;
+  if (!positive || !Number.isFinite(ssq) || !(seed ? seed.ssqBar > 0 : ssq > 0)) return null;
+  // adjoints of the state after hour t (see generalAdjoint), after the last hour the seed's
+  let ab0 = seed ? seed.a[0] : 0;
+  let ab1 = seed ? seed.a[1] : 0;
+  let ab2 = seed ? seed.a[2] : 0;
+  let ab3 = seed ? seed.a[3] : 0;
   let wb0 = 0;
   let wb1 = 0;
   let wb2 = 0;
   let wb3 = 0;
-  let pb0 = 0;
-  let pb1 = 0;
-  let pb2 = 0;
-  let pb3 = 0;
+  let pb0 = seed ? seed.p[0] : 0;
+  let pb1 = seed ? seed.p[1] : 0;
+  let pb2 = seed ? seed.p[2] : 0;
+  let pb3 = seed ? seed.p[3] : 0;
   let mb = 0;
   let gb = 0;
-  let phib0 = 0;
-  let phib1 = 0;
-  let phib2 = 0;
-  let phib3 = 0;
-  const ssqBar = 0.5 / ssq;
-  const logBar = 0.5 / n;
+  let phib0 = seed ? seed.phi[0] : 0;
+  let phib1 = seed ? seed.phi[1] : 0;
+  let phib2 = seed ? seed.phi[2] : 0;
+  let phib3 = seed ? seed.phi[3] : 0;
+  const ssqBar = seed ? seed.ssqBar : 0.5 / ssq;
+  const logBar = seed ? seed.logBar : 0.5 / n;
   for (let t = n - 1; t >= 0; t--) {
     const o = t * HOUR;
     const y = x[t];

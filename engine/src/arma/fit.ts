@@ -309,9 +309,10 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   const complete = nFinite === x.length;
   const model = s === 0 ? nonSeasonalModel(o.p, o.q) : (u: Float64Array): ArmaStateSpace => stateSpaceOf(fromUnconstrained(u, o), s);
   const step = 1e-6;
-  // A complete series: the likelihood's gradient exactly, by one backward pass over the steady
-  // stretch and tangents of the start-up (steady-score.ts), which pays from three coefficients
-  // on; otherwise the whole likelihood is forward-differenced. With a mean the objective is the
+  // A complete series: the likelihood's gradient exactly, by a backward pass over the steady
+  // stretch joined to one over the start-up, or to tangents of a long state's start-up
+  // (steady-score.ts), which pays from three coefficients on; otherwise the whole likelihood is
+  // forward-differenced. With a mean the objective is the
   // likelihood profiled over it (its GLS estimate μ̂(u) at each u), and by the envelope theorem
   // its gradient is the gradient at the mean held at μ̂(u) (the derivative through μ̂ vanishes
   // at the minimum over the mean; Magnus & Neudecker 1999, ch. 7): the score of the known-mean
@@ -382,7 +383,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
         if (withMean) atMean(scoreInput.x);
         const steady = lastPass ? steadyStateScore(scoreInput, u, lastPass) : null;
         if (steady || k < CHANDRASEKHAR_SCORE_MIN_K) return steady;
-        // the steady score declined a filter that settles (its start-up tangents failed):
+        // the steady score declined a filter that settles (its start-up's derivatives failed):
         // differences cost k passes that stop where the filter settles; the backward score
         // three to four passes over the whole series without that stop
         if (lastSteadyAt >= 0 && k * (lastSteadyAt + 1) < 3 * x.length) return null;

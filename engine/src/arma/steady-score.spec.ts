@@ -103,10 +103,29 @@ describe('steadyStateScore: the gradient of the concentrated likelihood', () => 
       expectCentralDifferences(g!, objective, at, 1e-5, 1e-6);
     });
 
-    it('is declined past 3n/k hours of start-up (the caller then takes the Chandrasekhar score)', () => {
-      const { steadyAt, g } = scoreAt(Float64Array.from([0.3, 0.2, 2.45, 0.5]));
+    it('up to four states, is scored past 3n/k hours of start-up too (the start-up differentiated backwards)', () => {
+      const at = Float64Array.from([0.3, 0.2, 2.45, 0.5]);
+      const { steadyAt, g } = scoreAt(at);
       expect(steadyAt).toBeGreaterThan((3 * y.length) / 4);
-      expect(g).toBeNull();
+      expect(g).not.toBeNull();
+      expectCentralDifferences(g!, objective, at, 1e-5, 1e-6);
+    });
+
+    it('with more than four states, past 3n/k hours of start-up too (where forward tangents gave way to the Chandrasekhar score)', () => {
+      const o = { p: 2, q: 2, P: 0, Q: 1, period: 24 };
+      const seasonal = (v: Float64Array): ArmaStateSpace => armaStateSpace(toStationary(v.subarray(0, 2)), expandMa(toInvertible(v.subarray(2, 4)), toInvertible(v.subarray(4)), 24));
+      const at = Float64Array.from([0.3, 0.2, 0.4, 0.1, 1.2]);
+      const trace = new Float64Array(y.length);
+      const pass = kalmanFilter(y, seasonal(at), { tol: 1e-10, complete: true, trace });
+      expect(pass.entry).toBeDefined();
+      expect(pass.entry!.steadyAt).toBeGreaterThan((3 * y.length) / 5);
+      const g = steadyStateScore({ x: y, model: (v) => stateSpaceWithTangents(v, o) }, at, { ssq: pass.ssq, entry: pass.entry!, trace });
+      expect(g).not.toBeNull();
+      const objective = (v: Float64Array): number => {
+        const f = kalmanFilter(y, seasonal(v), { tol: 1e-10, complete: true });
+        return 0.5 * Math.log(f.ssq / f.nUsed) + (0.5 * f.sumLogF) / f.nUsed;
+      };
+      expectCentralDifferences(g!, objective, at, 1e-5, 1e-6);
     });
   });
 

@@ -13,14 +13,16 @@
  * ch. 3): with γ_t = ∂E/∂a_{t,0}, the shift structure gives ∂E/∂a_{t,j} = γ_{t+j}, so
  *   γ_t = −2 e_t + Σ_i c_i γ_{t+1+i},  ∂E/∂c_i = Σ_t γ_{t+1+i} a_{t,0},  ∂E/∂d_i = Σ_t γ_{t+1+i} y_t.
  * The forward half, a_{t,0}, is what the likelihood pass at the same point already computed (its
- * `trace`). What happens before t₀ (the stationary start, the time-varying gain, F_t) is short;
- * its derivatives along every coefficient come from forward-mode tangents
- * (start-up-tangents.ts), and the chain rule joins the two parts.
+ * `trace`). What happens before t₀ (the stationary start, the time-varying gain, F_t) is
+ * differentiated backwards as well, by the Chandrasekhar recursions' adjoint
+ * (chandrasekhar-score.ts) started from what this pass leaves on the state at t₀ + 1
+ * (startUpAdjointScore): reverse mode end to end.
  */
+import { generalAdjoint, smallAdjoint } from './chandrasekhar-score';
+import { firstRowTangents } from './first-row-tangents';
 import { SteadyEntry } from './kalman';
 import { scratch } from './scratch';
-import { startUpTangents, StartUpTangents } from './start-up-tangents';
-import { ArmaStateSpace } from './state-space';
+import { ArmaStateSpace, stationaryCovarianceTangents } from './state-space';
 import { StateSpaceTangents } from './state-space-tangents';
 
 export interface SteadyScoreInput {
@@ -61,14 +63,13 @@ export function steadyStateScore(input: SteadyScoreInput, u: Float64Array, pass:
   const entry = pass.entry;
   const t0 = entry.steadyAt;
   const k = u.length;
-  // The start-up's tangents cost about k filter steps per hour of it, as k differenced passes
-  // through the same start-up do, and the rest is one backward pass where differences take k
-  // steady ones: so this score is the cheaper of the two wherever the filter settles. Past 3n/k
-  // hours of start-up the Chandrasekhar score (three to four passes without the steady stop)
-  // is cheaper still. (Until 3 December 2026 the bound was n/k, and start-ups between n/k and
-  // 3n/k hours were differenced: LakeHuron ARMA(3,3) with a mean took 1,187 passes instead of
-  // 224, the weekly-differenced demand series ARMA(3,3) 766 instead of 258, to the same maxima.)
-  if (t0 < 0 || k * (t0 + 1) > 3 * n) return null;
+  // The start-up's backward pass costs about three filter steps an hour of it whatever k, and
+  // the steady stretch's one step an hour: never dearer than the Chandrasekhar score (three to
+  // four passes without the steady stop), and about three passes where differences take k.
+  // (Until 4 December 2026 the start-up was differentiated forwards, by tangents along each
+  // coefficient, about k steps an hour; past 3n/k hours of start-up the Chandrasekhar score
+  // took over.)
+  if (t0 < 0) return null;
   const { ss, dPhi, dR } = model(u);
   const r = ss.r;
   const c = recursionC(ss, entry.gain);
@@ -82,33 +83,80 @@ export function steadyStateScore(input: SteadyScoreInput, u: Float64Array, pass:
   const F = entry.F;
   // E = Σ e_t² over the steady stretch, where the pass divided by the constant F
   const E = (pass.ssq - entry.ssq) * F;
-  const S = pass.ssq;
-  const m = n - first;
-  let tan: StartUpTangents;
   try {
-    tan = startUpTangents(x, ss, dPhi, dR, k, t0);
+    return startUpAdjointScore(x, ss, dPhi, dR, k, entry, { S: pass.ssq, E, m: n - first, ga, gc, gd });
   } catch {
+    // no stationary covariance near u
     return null;
   }
+}
+
+/** What the backward pass over the steady stretch leaves for the start-up's. */
+interface SteadyAdjoints {
+  /** the whole Σ v²/F, the steady stretch's Σ e², and its number of hours */
+  S: number;
+  E: number;
+  m: number;
+  /** ∂E/∂a_{t₀+1}, ∂E/∂c, ∂E/∂d */
+  ga: Float64Array;
+  gc: Float64Array;
+  gd: Float64Array;
+}
+
+/**
+ * The gradient with the start-up differentiated backwards too: the adjoints the steady stretch
+ * leaves on the state after hour t₀ (its predicted state a, its gain p/p₀ and its F = p₀, where
+ * p is the first row of P) seed the Chandrasekhar adjoint (chandrasekhar-score.ts) run over
+ * hours 0..t₀ only, which carries them back to φ and to the first row of the stationary
+ * covariance. About three start-up passes whatever k, where forward tangents cost about one
+ * per coefficient: on the weekly-differenced demand series they were a quarter of ARMA(3,3)'s
+ * time and two thirds of ARMA(3,3)×(1,1)_24's.
+ *
+ * With the objective ½ log(S/n) + ½ Σ log F / n, S = S₀ + E/F, Σ log F = L₀ + m log F, and
+ * c_i = φ_i (1 − k₀) − k_{i+1}, d_i = φ_i k₀ + k_{i+1}, k_j = p_j / p₀:
+ *   ∂E/∂k₀ = Σ_i φ_i (∂E/∂d_i − ∂E/∂c_i),  ∂E/∂k_j = ∂E/∂d_{j−1} − ∂E/∂c_{j−1} (j ≥ 1),
+ *   ∂E/∂φ_i (held gain) = ∂E/∂c_i (1 − k₀) + ∂E/∂d_i k₀,
+ * and the quotient rule carries ∂E/∂k to p.
+ */
+function startUpAdjointScore(x: Float64Array, ss: ArmaStateSpace, dPhi: Float64Array, dR: Float64Array, k: number, entry: SteadyEntry, st: SteadyAdjoints): Float64Array | null {
+  const { r, phi } = ss;
+  const { S, E, m, ga, gc, gd } = st;
+  const F = entry.F;
   const gain = entry.gain;
   const k0 = gain[0];
+  const n = x.length;
+  const ssqBar = 0.5 / S;
+  const logBar = 0.5 / n;
+  // the objective reads E through ½ (E/F) / S
+  const scale = ssqBar / F;
+  const size = Math.max(r, 4);
+  const kb = new Float64Array(size);
+  for (let i = 0; i < r; i++) kb[0] += phi[i] * (gd[i] - gc[i]);
+  for (let j = 1; j < r; j++) kb[j] = gd[j - 1] - gc[j - 1];
+  const a = new Float64Array(size);
+  const p = new Float64Array(size);
+  const phiSeed = new Float64Array(size);
+  let kbGain = 0;
+  for (let j = 0; j < r; j++) {
+    a[j] = scale * ga[j];
+    phiSeed[j] = scale * (gc[j] * (1 - k0) + gd[j] * k0);
+    p[j] = (scale * kb[j]) / F;
+    kbGain += kb[j] * gain[j];
+  }
+  // p₀ is F as well: in E/F, in m log F, and in every k_j = p_j / p₀
+  p[0] += (-scale * kbGain) / F - (ssqBar * E) / (F * F) + (logBar * m) / F;
+  const { row, dRow } = (r > 12 ? firstRowTangents(r, phi, ss.R, dPhi, dR, k) : null) ?? stationaryCovarianceTangents(ss, dPhi, dR, k);
+  const seed = { hours: entry.steadyAt + 1, ssqBar, logBar, a, p, phi: phiSeed };
+  const adj = r <= 4 ? smallAdjoint(x, phi, row, r, seed) : generalAdjoint(x, phi, row, r, seed);
+  if (!adj) return null;
   const grad = new Float64Array(k);
   for (let j = 0; j < k; j++) {
     const o = j * r;
-    const dk0 = tan.gain[o];
-    let dE = 0;
-    for (let i = 0; i < r; i++) {
-      const dkNext = i + 1 < r ? tan.gain[o + i + 1] : 0;
-      const dc = dPhi[o + i] * (1 - k0) - ss.phi[i] * dk0 - dkNext;
-      const dd = dPhi[o + i] * k0 + ss.phi[i] * dk0 + dkNext;
-      dE += gc[i] * dc + gd[i] * dd + ga[i] * tan.a[o + i];
-    }
-    const dF = tan.F[j];
-    const dS = tan.ssq[j] + dE / F - (E * dF) / (F * F);
-    const dL = tan.sumLogF[j] + (m * dF) / F;
-    grad[j] = (0.5 * dS) / S + (0.5 * dL) / n;
+    let g = 0;
+    for (let i = 0; i < r; i++) g += adj.phib[i] * dPhi[o + i] + adj.rowb[i] * dRow[o + i];
+    grad[j] = g;
   }
-  return grad;
+  return grad.every(Number.isFinite) ? grad : null;
 }
 
 /**

@@ -1,8 +1,5 @@
 import fc from 'fast-check';
-import { simulateArma21 } from '../cli/bench-series';
-import { kalmanFilter, SteadyEntry } from './kalman';
 import { armaStateSpace, gardnerCovariance, seriesCovariance, seriesCovarianceTangents, stationaryCovarianceTangents } from './state-space';
-import { startUpTangents } from './start-up-tangents';
 import { toInvertible, toStationary } from './transform';
 
 /** A random stationary and invertible ARMA(3,3) through the transform, and a direction. */
@@ -44,34 +41,5 @@ describe('stationary covariance: Gardner, Harvey & Phillips against the series f
       }),
       { numRuns: 60 },
     );
-  });
-});
-
-describe('startUpTangents: derivatives of the filter start-up', () => {
-  const y = Float64Array.from(simulateArma21(400, 3));
-  it.each([0, 1, 7, 40])('match central differences of the start-up run to hour %i', (t0) => {
-    const ss = armaStateSpace([0.5, -0.3, 0.2], [0.4, 0.1]);
-    const r = ss.r;
-    // two directions: one AR coefficient; one AR and one MA coefficient together
-    const dPhi = Float64Array.from([0, 1, 0, 0.3, 0, 0]);
-    const dR = Float64Array.from([0, 0, 0, 0, 0, -0.7]);
-    const t = startUpTangents(y, ss, dPhi, dR, 2, t0);
-    const h = 1e-6;
-    for (let j = 0; j < 2; j++) {
-      const at = (sign: number): SteadyEntry => {
-        const moved = { r, phi: ss.phi.map((v, i) => v + sign * h * dPhi[j * r + i]), R: ss.R.map((v, i) => v + sign * h * dR[j * r + i]) };
-        return kalmanFilter(y, moved, { stopAt: t0, complete: true }).entry!;
-      };
-      const up = at(1);
-      const down = at(-1);
-      const close = (tangent: number, a: number, b: number) => expect(Math.abs(tangent - (a - b) / (2 * h))).toBeLessThan(1e-5 * (1 + Math.abs(a - b) / (2 * h)));
-      close(t.ssq[j], up.ssq, down.ssq);
-      close(t.sumLogF[j], up.sumLogF, down.sumLogF);
-      close(t.F[j], up.F, down.F);
-      for (let i = 0; i < r; i++) {
-        close(t.a[j * r + i], up.a[i], down.a[i]);
-        close(t.gain[j * r + i], up.gain[i], down.gain[i]);
-      }
-    }
   });
 });
