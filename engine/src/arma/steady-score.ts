@@ -129,13 +129,14 @@ function startUpAdjointScore(x: Float64Array, ss: ArmaStateSpace, dPhi: Float64A
   const logBar = 0.5 / n;
   // the objective reads E through ½ (E/F) / S
   const scale = ssqBar / F;
+  // zeroed, and zero beyond r (smallAdjoint reads four)
   const size = Math.max(r, 4);
-  const kb = new Float64Array(size);
+  const kb = scratch('score.kb', size);
   for (let i = 0; i < r; i++) kb[0] += phi[i] * (gd[i] - gc[i]);
   for (let j = 1; j < r; j++) kb[j] = gd[j - 1] - gc[j - 1];
-  const a = new Float64Array(size);
-  const p = new Float64Array(size);
-  const phiSeed = new Float64Array(size);
+  const a = scratch('score.seed.a', size);
+  const p = scratch('score.seed.p', size);
+  const phiSeed = scratch('score.seed.phi', size);
   let kbGain = 0;
   for (let j = 0; j < r; j++) {
     a[j] = scale * ga[j];
