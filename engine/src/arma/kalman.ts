@@ -35,8 +35,8 @@ export interface FilterOptions {
   /**
    * Run the hours 0..stopAt only, with the time-varying recursions throughout (no steady-state
    * switch), and return with `entry` describing where they stopped: the start-up stretch on its
-   * own, what the steady-state score differentiates (start-up-tangents.ts is checked against
-   * differences of this).
+   * own, what the steady-state score differentiates (its backward pass over the start-up,
+   * chandrasekhar-score.ts, is checked against differences of this).
    */
   stopAt?: number;
   /**
