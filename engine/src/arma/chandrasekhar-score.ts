@@ -18,7 +18,7 @@
  * the chain rule. Three to four passes' work whatever the number of coefficients (measured).
  */
 import { firstRowTangents } from './first-row-tangents';
-import { stationaryCovarianceTangents } from './state-space';
+import { ArmaStateSpace, stationaryCovarianceTangents } from './state-space';
 import { StateSpaceTangents } from './state-space-tangents';
 import { scratch, scratchAtLeast } from './scratch';
 
@@ -27,10 +27,22 @@ export function chandrasekharScore(x: Float64Array, model: StateSpaceTangents, k
   const { r, phi } = ss;
   const n = x.length;
   if (n === 0) return null;
-  const { row, dRow } = (r > 12 ? firstRowTangents(r, phi, ss.R, dPhi, dR, k) : null) ?? stationaryCovarianceTangents(ss, dPhi, dR, k);
+  const { row, dRow } = firstRowWithTangents(ss, dPhi, dR, k);
   if (!(row[0] > 0)) return null;
   const adj = r <= 4 ? smallAdjoint(x, phi, row, r) : generalAdjoint(x, phi, row, r);
-  if (!adj) return null;
+  return adj ? gradientAlong(adj, dPhi, dRow, r, k) : null;
+}
+
+/**
+ * The first row of the stationary covariance and its derivatives along the k directions: through
+ * the autocovariances for a large state (first-row-tangents.ts), Gardner's system otherwise.
+ */
+export function firstRowWithTangents(ss: ArmaStateSpace, dPhi: Float64Array, dR: Float64Array, k: number): { row: Float64Array; dRow: Float64Array } {
+  return (ss.r > 12 ? firstRowTangents(ss.r, ss.phi, ss.R, dPhi, dR, k) : null) ?? stationaryCovarianceTangents(ss, dPhi, dR, k);
+}
+
+/** The gradient in the k directions from the adjoints of φ and of the starting row (chain rule); null where not finite. */
+export function gradientAlong(adj: Adjoint, dPhi: Float64Array, dRow: Float64Array, r: number, k: number): Float64Array | null {
   const { phib, rowb } = adj;
   const grad = new Float64Array(k);
   for (let j = 0; j < k; j++) {

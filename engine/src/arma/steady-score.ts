@@ -18,11 +18,10 @@
  * (chandrasekhar-score.ts) started from what this pass leaves on the state at t₀ + 1
  * (startUpAdjointScore): reverse mode end to end.
  */
-import { generalAdjoint, smallAdjoint } from './chandrasekhar-score';
-import { firstRowTangents } from './first-row-tangents';
+import { firstRowWithTangents, generalAdjoint, gradientAlong, smallAdjoint } from './chandrasekhar-score';
 import { SteadyEntry } from './kalman';
 import { scratch } from './scratch';
-import { ArmaStateSpace, stationaryCovarianceTangents } from './state-space';
+import { ArmaStateSpace } from './state-space';
 import { StateSpaceTangents } from './state-space-tangents';
 
 export interface SteadyScoreInput {
@@ -146,18 +145,10 @@ function startUpAdjointScore(x: Float64Array, ss: ArmaStateSpace, dPhi: Float64A
   }
   // p₀ is F as well: in E/F, in m log F, and in every k_j = p_j / p₀
   p[0] += (-scale * kbGain) / F - (ssqBar * E) / (F * F) + (logBar * m) / F;
-  const { row, dRow } = (r > 12 ? firstRowTangents(r, phi, ss.R, dPhi, dR, k) : null) ?? stationaryCovarianceTangents(ss, dPhi, dR, k);
+  const { row, dRow } = firstRowWithTangents(ss, dPhi, dR, k);
   const seed = { hours: entry.steadyAt + 1, ssqBar, logBar, a, p, phi: phiSeed };
   const adj = r <= 4 ? smallAdjoint(x, phi, row, r, seed) : generalAdjoint(x, phi, row, r, seed);
-  if (!adj) return null;
-  const grad = new Float64Array(k);
-  for (let j = 0; j < k; j++) {
-    const o = j * r;
-    let g = 0;
-    for (let i = 0; i < r; i++) g += adj.phib[i] * dPhi[o + i] + adj.rowb[i] * dRow[o + i];
-    grad[j] = g;
-  }
-  return grad.every(Number.isFinite) ? grad : null;
+  return adj ? gradientAlong(adj, dPhi, dRow, r, k) : null;
 }
 
 /**
