@@ -310,9 +310,9 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   const model = s === 0 ? nonSeasonalModel(o.p, o.q) : (u: Float64Array): ArmaStateSpace => stateSpaceOf(fromUnconstrained(u, o), s);
   const step = 1e-6;
   // A complete series: the likelihood's gradient exactly, by a backward pass over the steady
-  // stretch joined to one over the start-up, or to tangents of a long state's start-up
-  // (steady-score.ts), which pays from three coefficients on; otherwise the whole likelihood is
-  // forward-differenced. With a mean the objective is the
+  // stretch joined to one over the start-up (steady-score.ts), which pays from three
+  // coefficients on; otherwise the whole likelihood is forward-differenced. With a mean the
+  // objective is the
   // likelihood profiled over it (its GLS estimate μ̂(u) at each u), and by the envelope theorem
   // its gradient is the gradient at the mean held at μ̂(u) (the derivative through μ̂ vanishes
   // at the minimum over the mean; Magnus & Neudecker 1999, ch. 7): the score of the known-mean
