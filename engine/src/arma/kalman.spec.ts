@@ -53,8 +53,10 @@ describe('kalmanFilter: Chandrasekhar recursions against the full Riccati recurs
 
 /**
  * A seasonal state (r = 26) with missing hours: the start-up by the quick recursions up to the
- * first missing hour and the whole covariance rebuilt from its steady first row, against the
- * full Riccati recursion throughout (the same series behind one leading missing hour, as above).
+ * first missing hour, then the whole covariance rebuilt from its steady first row or, before the
+ * steady state, the gapless filter carried on with the gaps' low-rank deviation (steady-gap.ts),
+ * against the full Riccati recursion throughout (the same series behind one leading missing
+ * hour, as above; with tol = 0 it never switches to the steady state).
  */
 describe('kalmanFilter: a large state with missing hours', () => {
   const y = Float64Array.from(simulateArma21(1200, 4));
@@ -66,7 +68,7 @@ describe('kalmanFilter: a large state with missing hours', () => {
   };
   it.each([
     ['gaps after the steady state', [500, 501, 900]],
-    ['a gap before the steady state (tracked from the start instead)', [3, 800]],
+    ['a gap before the steady state (the gapless filter plus the deviation)', [3, 800]],
   ])('%s: same log-likelihood as the full recursion', (_name, at) => {
     const g = withGaps(at as number[]);
     const behind = Float64Array.from([NaN, ...g]);

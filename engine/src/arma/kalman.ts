@@ -12,6 +12,9 @@
  * column of ones alongside the data with the same gains (the augmented filter of de Jong 1991).
  */
 import { ArmaStateSpace, stationaryCovariance, stationaryCovarianceFirstRow } from './state-space';
+import { filterThroughGaps, GAP_RESTART, GAP_STEADY, GAP_SUMS, steadyCovarianceFromRow } from './steady-gap';
+
+export { steadyCovarianceFromRow };
 
 export interface FilterOptions {
   /** Subtract this known mean before filtering. */
@@ -119,6 +122,8 @@ interface Workspace {
   st8: Float64Array;
   /** what quickStartUpSmall reads and writes */
   io: Float64Array;
+  /** the running sums handed to and from filterThroughGaps */
+  gapSums: Float64Array;
 }
 const workspaces = new Map<number, Workspace>();
 function workspaceFor(r: number): Workspace {
@@ -127,7 +132,7 @@ function workspaceFor(r: number): Workspace {
     const s = r + 1;
     const v = () => new Float64Array(s);
     const m = () => new Float64Array(s * s);
-    ws = { phi: v(), P: m(), Pn: m(), P0: new Float64Array(r * r), RR: m(), a: v(), c: v(), K: v(), g: v(), w: v(), wn: v(), cd: new Float64Array(8), sums: new Float64Array(5), st: new Float64Array(4), st8: new Float64Array(8), io: new Float64Array(20) };
+    ws = { phi: v(), P: m(), Pn: m(), P0: new Float64Array(r * r), RR: m(), a: v(), c: v(), K: v(), g: v(), w: v(), wn: v(), cd: new Float64Array(8), sums: new Float64Array(5), st: new Float64Array(4), st8: new Float64Array(8), io: new Float64Array(20), gapSums: new Float64Array(GAP_SUMS) };
     workspaces.set(r, ws);
   }
   return ws;
@@ -295,7 +300,8 @@ function steadyConstants(P: Float64Array, phi: Float64Array, r: number, K: Float
  * The Chandrasekhar start-up of kalmanFilter for a complete series, likelihood only: hours from
  * 0 until the covariance stops changing (or the end), updating the state a and the first row
  * of P in place. Writes Σ v²/F, Σ log F and whether the steady state was reached (1 or 0) to
- * sums; returns the last hour run. The same recursions as the general loop, with what an
+ * sums, and leaves w_t in wIn and m_t in sums[3] (t the hour after the last one run); returns
+ * the last hour run. The same recursions as the general loop, with what an
  * observed hour makes exact used (a_{t|t,0} = y_t; the first element of w − P Z'(Z w)/F is
  * zero) and one division per hour: 1/F of the next hour also updates m.
  */
@@ -351,6 +357,9 @@ function quickStartUp(x: Float64Array, mu0: number, r: number, phi: Float64Array
   sums[0] = ssq;
   sums[1] = sumLogF;
   sums[2] = reached;
+  // where the recursions stopped, for a caller that carries them on: w_t back in wIn, m_t in sums[3]
+  if (w !== wIn) for (let i = 0; i < r; i++) wIn[i] = w[i];
+  sums[3] = mw;
   return Math.min(t, n - 1);
 }
 
@@ -616,6 +625,14 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
   const pred: Float64Array = opts.predictions ?? NO_OUTPUT;
   // likelihood only, small state: the steady-state stretches take the scalar loop below
   const fast = r <= 4 && !profile && !wantRes && !wantPred;
+  // A large state through missing hours: the deviation from the gapless filter's covariance
+  // grows by a rank with each missing hour (steady-gap.ts), here up to half the state's size.
+  // Up to the whole size, the 5-hour gaps of the weekly-differenced demand series with a
+  // seasonal block cost more than the full recursion (an hour of the deviation at rank g costs
+  // about 5 r g, the full step 4 r²), and more of them still ran out of rank in the end. Not
+  // with the traced or stopped passes of the steady-state score (complete series only).
+  const lowRankGaps = r > 4 && !complete && !wantTrace && stopAt < 0;
+  const gapRank = r >> 1;
   let tStart = 0;
   if (chandra && !trackP && complete && !profile && !wantRes && !wantPred && stopAt < 0) {
     // the likelihood-only case, the one a fit runs hundreds of times: the start-up in a
@@ -679,15 +696,49 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       steadyConstants(P, phi, r, K, ws.cd);
     }
   } else if (chandra && !complete && r > 4 && !opts.keepState && !profile && !wantRes && !wantPred && !wantTrace && stopAt < 0) {
-    // The likelihood of a large state (a seasonal block) with missing hours: the full covariance
-    // is needed from the first missing hour on, but tracking it from the start costs O(r²) an
-    // hour. So the start-up runs by the quick O(r) recursions up to the first missing hour and,
-    // when the filter is steady by then, the whole of P is rebuilt from its first row
-    // (steadyCovarianceFromRow); otherwise it starts again with P tracked.
+    // The likelihood of a large state (a seasonal block) with missing hours: tracking the full
+    // covariance from the start costs O(r²) an hour. So the start-up runs by the quick O(r)
+    // recursions up to the first missing hour and, when the filter is steady by then, the whole
+    // of P is rebuilt from its first row (steadyCovarianceFromRow); otherwise the filter goes on
+    // through the gaps as the gapless one plus a low-rank deviation (steady-gap.ts) and, only
+    // where that deviation outgrows its rank before the steady state, starts again with P tracked.
     const first = nextMissing(x, 0);
     const sums = ws.sums;
     const last = quickStartUp(x.subarray(0, first), mu0, r, phi, P, a, w, wn, mw, tol, sums);
-    if (sums[2] === 1) {
+    let ended = GAP_RESTART;
+    // With more missing hours left than the deviation's rank may reach, it would run out of rank
+    // unless the filter settled between them, which a seasonal MA part near the unit circle does
+    // not do within weeks: the work done until then would be lost (on the doubly differenced
+    // demand series with three 5-hour gaps, a tenth more time per fit), so such a series starts
+    // again with P tracked at once.
+    if (sums[2] !== 1 && missingCount(x, first, gapRank + 1) <= gapRank) {
+      const gs = ws.gapSums;
+      gs[0] = sums[0];
+      gs[1] = sums[1];
+      gs[2] = last + 1;
+      gs[3] = 0;
+      gs[4] = 0;
+      const next = filterThroughGaps(x, first, mu0, r, phi, R, P, a, c, false, NO_OUTPUT, NO_OUTPUT, tol, gapRank, false, gs, w, sums[3]);
+      ended = gs[5];
+      if (ended !== GAP_RESTART) {
+        ssq = gs[0];
+        sumLogF = gs[1];
+        nUsed = gs[2];
+        tStart = next;
+        chandra = false;
+      }
+      if (ended === GAP_STEADY) {
+        steady = true;
+        steadyAt = next - 1;
+        Fss = P[0];
+        logFss = Math.log(Fss);
+        steadyConstants(P, phi, r, K, ws.cd);
+        steadyCovarianceFromRow(P, R, r);
+      }
+    }
+    if (ended !== GAP_RESTART) {
+      // carried on through the gaps above
+    } else if (sums[2] === 1) {
       ssq = sums[0];
       sumLogF = sums[1];
       nUsed = last + 1;
@@ -915,6 +966,30 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       }
       continue;
     }
+    if (steady && lowRankGaps) {
+      // a missing hour after the steady state, a large state: the covariance as the steady one
+      // plus a low-rank deviation until the filter is steady again (steady-gap.ts)
+      const sums = ws.gapSums;
+      sums[0] = ssq;
+      sums[1] = sumLogF;
+      sums[2] = nUsed;
+      sums[3] = sxy;
+      sums[4] = sxx;
+      const next = filterThroughGaps(x, t, mu0, r, phi, R, P, a, c, profile, res, pred, tol, gapRank, !!opts.keepState, sums, null, 0);
+      ssq = sums[0];
+      sumLogF = sums[1];
+      nUsed = sums[2];
+      sxy = sums[3];
+      sxx = sums[4];
+      if (sums[5] !== GAP_STEADY) {
+        // handed over (P is the whole covariance of hour `next`, which the full recursion runs)
+        // or at the end
+        steady = false;
+        chandra = false;
+      }
+      t = next - 1;
+      continue;
+    }
     let ginv = 0; // 1/F when observed (the update's rank-one term), 0 when missing
     const p00 = P[0];
     if (observed) {
@@ -1079,27 +1154,17 @@ function riccatiStep(P: Float64Array, Pn: Float64Array, RR: Float64Array, phi: F
   return change;
 }
 
-/**
- * The whole steady predicted covariance (upper triangle, stride r + 1) from its first row, in
- * place. At the steady state P = T (P − p p'/F) T' + R R' with p = P e₀ and F = p₀; the first
- * row and column of P − p p'/F vanish, so by the shift structure of T
- *   P_ij = P_{i+1,j+1} − p_{i+1} p_{j+1} / F + R_i R_j,
- * filled from the last row up (row r is the zero padding). O(r²).
- */
-export function steadyCovarianceFromRow(P: Float64Array, R: Float64Array, r: number): void {
-  const s = r + 1;
-  const F = P[0];
-  for (let i = r - 1; i >= 1; i--) {
-    const pi = P[i + 1] / F; // p_{i+1}/F (P[r] is the padding: 0)
-    const below = (i + 1) * s + 1;
-    for (let j = i; j < r; j++) P[i * s + j] = P[below + j] - pi * P[j + 1] + R[i] * R[j];
-  }
-}
-
 /** Index of the first missing value at or after `from` (x.length when there is none). */
 function nextMissing(x: Float64Array, from: number): number {
   for (let t = from; t < x.length; t++) if (!(x[t] === x[t])) return t;
   return x.length;
+}
+
+/** How many values from `from` on are missing, counted up to `limit`. */
+function missingCount(x: Float64Array, from: number, limit: number): number {
+  let count = 0;
+  for (let t = from; t < x.length && count < limit; t++) if (!(x[t] === x[t])) count++;
+  return count;
 }
 
 function hasMissing(x: Float64Array): boolean {
