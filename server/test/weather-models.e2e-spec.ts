@@ -174,11 +174,17 @@ describe('refits with weather: temperature response and forecasts on the vintage
     expect(after.forecast.upper95).toEqual(before.forecast.upper95);
     expect(after.weather?.vintageIssuedAt).toBe(before.weather?.vintageIssuedAt);
 
-    // the control: issued after that vintage, the forecast does read it (60 °C: no heating, load far lower)
+    // the control: issued after that vintage, the forecast does read it. 60 °C leaves no heating
+    // (25 MW/°C on this zone), so the night and morning hours fall by hundreds of MW; a cooling
+    // slope the fit may have found on the warmer hours is taken far past anything it saw, so
+    // those can rise instead (with the engine's default choices, a cooling term of 0.1–3 MW/°C
+    // on hours 10–18 did)
     const informed = await run(later + 1000);
     expect(informed.weather?.vintageIssuedAt).toBe(new Date(later).toISOString());
     const mean = (xs: number[]) => xs.reduce((a, b) => a + b, 0) / xs.length;
-    expect(mean(informed.forecast.mean)).toBeLessThan(mean(before.forecast.mean) - 100);
+    const change = informed.forecast.mean.map((v, j) => v - before.forecast.mean[j]);
+    expect(Math.min(...change)).toBeLessThan(-200);
+    expect(mean(change.map(Math.abs))).toBeGreaterThan(80);
   });
 
   it('answers a weather what-if for the next day beside the model forecast: 2 °C colder means HEAT_MW_PER_C × 2 more on heating hours', async () => {

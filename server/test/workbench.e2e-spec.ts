@@ -76,7 +76,7 @@ describe('workbench: stationarity, model and backtest of a zone (real MariaDB)',
       for (const r of [report.rolling.day.mean, report.rolling.day.variance, report.rolling.week.mean, report.rolling.week.variance]) expect(r).toHaveLength(8 * 168);
       expect(report.rolling.week.mean[166]).toBeNull();
       expect(report.rolling.week.mean[167]).toEqual(expect.any(Number));
-      expect(report.checks.map((c) => c.label)).toEqual(['as recorded', '(1−B^24)', '(1−B^168)', '(1−B^24)(1−B^168)']);
+      expect(report.checks.map((c) => c.label)).toEqual(['as recorded', '(1−B^24)', '(1−B^168)', '(1−B^24)(1−B^168)', '(1−B)(1−B^168)']);
       for (const check of report.checks) {
         expect(check.adf.map((a) => a.regression)).toEqual(['c', 'ct']);
         expect(check.adf[0].statistic).toEqual(expect.any(Number));
@@ -148,7 +148,7 @@ describe('workbench: stationarity, model and backtest of a zone (real MariaDB)',
     expect(m.ljungBox.map((l) => l.lag)).toEqual([24, 48]);
     expect(m.residualAcf.values).toHaveLength(48);
     expect(m.residualVerdict).toMatch(/Ljung–Box/);
-    expect(body.candidates.map((c) => c.label)).toEqual(['(1−B^24)', '(1−B^168)', '(1−B^24)(1−B^168)']);
+    expect(body.candidates.map((c) => c.label)).toEqual(['(1−B^24)', '(1−B^168)', '(1−B^24)(1−B^168)', '(1−B)(1−B^168)']);
     expect(body.candidates.filter((c) => c.chosen)).toHaveLength(1);
     expect(body.baselineMape).toBeGreaterThan(0);
     // chosen on the same evidence as the desk's refits: four weeks of rolling day-ahead origins

@@ -41,7 +41,7 @@ describe('compute pool', () => {
     const noise = () => ((seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31 - 0.5) * 6;
     const values = Float64Array.from({ length: 24 * 28 }, (_, t) => 100 + 20 * Math.sin((2 * Math.PI * t) / 24) + noise());
     const report = await compute.run('workbench.stationarity', { values, maxLag: 48 });
-    expect(report.checks.map((c) => c.label)).toEqual(['as recorded', '(1−B^24)', '(1−B^168)', '(1−B^24)(1−B^168)']);
+    expect(report.checks.map((c) => c.label)).toEqual(['as recorded', '(1−B^24)', '(1−B^168)', '(1−B^24)(1−B^168)', '(1−B)(1−B^168)']);
     expect(report.checks[0].problems).toContain('daily');
   });
 

@@ -12,6 +12,8 @@
 import {
   applyArima,
   backtest,
+  DEFAULT_CANDIDATES,
+  DEFAULT_DAY_AHEAD_CHOICE,
   choiceOf,
   scaleBands,
   UNSCALED,
@@ -48,30 +50,28 @@ export const REFIT_SCREEN = 2;
 
 /**
  * Whether the nightly and hourly refits try the engine's lag-24 seasonal block on the
- * weekly-differenced series. Off for now: on the synthesised demo zones of `npm run bench:refit`
- * (a few missing hours each) a refit with it took a median 1.7 times as long as without, 0.7–8.4×
- * zone by zone (README, Benchmarks: the filter with a state of about 28 and gaps gets no exact
- * gradient, and the seven-day score refits the model each day), which would take the 200-zone
- * nightly refit, 73.5 s quiet without it, past its two minutes. Turn it on when bench:refit with
- * it stays within that. The engine's own pipeline, backtest and command line try it.
+ * weekly-differenced series. On since 5 December 2026: `npm run bench:refit` (200 zones of eight
+ * weeks with the demo zones' occasional missing hours, quiet machine, README "Benchmarks") took
+ * 52.9 s with the block and the engine's other choices below, against 65.2 and 67.2 s without
+ * them, within the nightly refit's two minutes. It had been off while the block cost 2–4 times
+ * the time (216–412 s on 3 December: a state of about 28 had no exact gradient and, with a
+ * missing hour anywhere, its whole covariance tracked from the first hour).
  */
-export const REFIT_SEASONAL_BLOCK = false;
+export const REFIT_SEASONAL_BLOCK = true;
 
 /**
- * The differencings the desk's refits try, and how many orders of each the day-ahead backtest
- * chooses among. The engine's defaults add (1−B)(1−B^168) and choose among the best three orders
- * by AICc; without the seasonal block (above) both made the open demand series' rolling
- * day-ahead MAPE worse (28 days: 1.084 % with the fourth differencing, 1.122 % with both, against
- * 1.075 % with these), while on the simulator's ten zone-seeds the day-ahead choice helped (3.54 %
- * against 3.62 %; README, "Day-ahead backtests"), so the desk keeps the three differencings and the criterion alone until
- * the block is on. The extra differencing also costs a fifth of the nightly refit's time (200
- * zones: 80.8 s against 62.1 s).
+ * The differencings the desk's refits try, how many orders of each the day-ahead backtest
+ * chooses among, and whether orders with an MA unit root are left out: the engine's own
+ * defaults, which with the seasonal block made the open demand series' rolling day-ahead MAPE
+ * 0.957 % over 28 days against 1.075 % with the three differencings and the criterion alone
+ * (README, "Day-ahead backtests"). Without the block the fourth differencing and the day-ahead
+ * choice had made it worse, which is why the desk kept them out while the block was off.
  */
-export const DESK_CANDIDATES: number[][] = [[24], [168], [24, 168]];
-export const DESK_DAY_AHEAD_CHOICE = 1;
+export const DESK_CANDIDATES: number[][] = DEFAULT_CANDIDATES;
+export const DESK_DAY_AHEAD_CHOICE = DEFAULT_DAY_AHEAD_CHOICE;
 /** The engine's check for an MA unit root (a difference too many) came with the fourth
- *  differencing and was measured with it; the desk takes it when it takes that. */
-export const DESK_LEAVE_OUT_MA_UNIT_ROOTS = false;
+ *  differencing and was measured with it; the desk takes it with it. */
+export const DESK_LEAVE_OUT_MA_UNIT_ROOTS = true;
 
 /**
  * How the desk's pipeline chooses a zone's model: the engine's four weeks of rolling day-ahead
