@@ -76,7 +76,7 @@ describe('refits', () => {
     expect(await firstJob.innerText()).toMatch(/Quarry Hill[\s\S]*by hand[\s\S]*done[\s\S]*100 %[\s\S]*into service[\s\S]*feeder outage/i);
     const inService = versions.locator('[data-status="in-service"]');
     await inService.waitFor({ timeout: 30_000 });
-    expect(await inService.innerText()).toMatch(/in service[\s\S]*refit by hand[\s\S]*ARMA\(\d,\d\) on \(1−B\^(24|168)\)[\s\S]*4 h left out[\s\S]*\d+\.\d\d %[\s\S]*\d+\.\d\d %/i);
+    expect(await inService.innerText()).toMatch(/in service[\s\S]*refit by hand[\s\S]*ARMA\(\d,\d\)(×\(\d,\d\)_24)? on \(1−B(\^(24|168))?\)[\s\S]*4 h left out[\s\S]*\d+\.\d\d %[\s\S]*\d+\.\d\d %/i);
     const firstVersion = await inService.getAttribute('data-testid');
 
     // Second refit: a candidate beside the model in service.
