@@ -150,6 +150,10 @@ describe('workbench: stationarity, model and backtest of a zone (real MariaDB)',
     expect(m.residualVerdict).toMatch(/Ljung–Box/);
     expect(body.candidates.map((c) => c.label)).toEqual(['(1−B^24)', '(1−B^168)', '(1−B^24)(1−B^168)', '(1−B)(1−B^168)']);
     expect(body.candidates.filter((c) => c.chosen)).toHaveLength(1);
+    // the chosen candidate's orders are the model's, its seasonal block included
+    const chosen = body.candidates.find((c) => c.chosen)!;
+    expect([chosen.p, chosen.q, chosen.seasonal?.P ?? 0, chosen.seasonal?.Q ?? 0]).toEqual([m.p, m.q, m.P, m.Q]);
+    for (const c of body.candidates) if (c.seasonal) expect(c.seasonal.P + c.seasonal.Q).toBeGreaterThan(0);
     expect(body.baselineMape).toBeGreaterThan(0);
     // chosen on the same evidence as the desk's refits: four weeks of rolling day-ahead origins
     // (eight weeks of history leave room for all 28), not one week
@@ -157,7 +161,7 @@ describe('workbench: stationarity, model and backtest of a zone (real MariaDB)',
     if (body.method === 'seasonal-naive') expect(body.fallbackReason).toEqual(expect.any(String));
     else {
       expect(body.fallbackReason).toBeNull();
-      expect(body.summary).toMatch(/smallest day-ahead error over the last 28 days/);
+      expect(body.summary).toMatch(/of the 3 orders with the lowest AICc on each differencing, it had the smallest day-ahead error over the last 28 days/);
     }
   });
 

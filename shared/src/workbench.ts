@@ -141,6 +141,8 @@ export interface ModelCandidateDto {
   label: string;
   p: number | null;
   q: number | null;
+  /** the seasonal block at 24 hours of the orders kept for this differencing, when they have one */
+  seasonal?: { P: number; Q: number };
   aicc: number | null;
   /** Mean day-ahead MAPE (%) on the selection days. */
   mape: number | null;

@@ -6,7 +6,7 @@
  */
 import type { ModelCandidateDto, ModelFitDto, ModelReportDto } from '@morrowline/shared';
 import { describeModel, runPipeline } from '@morrowline/engine';
-import { DESK_PIPELINE_OPTIONS } from '../../models/analysis/refit';
+import { DESK_DAY_AHEAD_CHOICE, DESK_PIPELINE_OPTIONS } from '../../models/analysis/refit';
 import { num, toWire } from './stationarity-analysis';
 import { differencingLabel, residualVerdict } from './verdict';
 
@@ -54,6 +54,7 @@ export function analyseModel(input: ModelInput): ModelOutput {
     label: differencingLabel(c.diff),
     p: num(c.p),
     q: num(c.q),
+    ...((c.P ?? 0) + (c.Q ?? 0) > 0 ? { seasonal: { P: c.P ?? 0, Q: c.Q ?? 0 } } : {}),
     aicc: num(c.aicc),
     mape: num(c.mape),
     ...(c.error ? { error: c.error } : {}),
@@ -64,9 +65,12 @@ export function analyseModel(input: ModelInput): ModelOutput {
   let summary: string;
   if (r.method === 'arima' && model) {
     const orders = describeModel({ label: '', p: model.p, q: model.q, P: model.P, Q: model.Q, period: model.period }).trim();
-    summary = `The desk would forecast with ${orders} on ${model.label}: it had the smallest day-ahead error over the last ${r.selectionDays} days${
+    // each differencing stands with the best day-ahead forecaster of its DESK_DAY_AHEAD_CHOICE
+    // orders with the lowest AICc (the criterion alone when that is one)
+    const kept = DESK_DAY_AHEAD_CHOICE > 1 ? `of the ${DESK_DAY_AHEAD_CHOICE} orders with the lowest AICc on each differencing, it` : 'it';
+    summary = `The desk would forecast with ${orders} on ${model.label}: ${kept} had the smallest day-ahead error over the last ${r.selectionDays} days${
       chosen?.mape != null ? ` (MAPE ${chosen.mape.toFixed(2)} %` + (baselineMape !== null ? ` against ${baselineMape.toFixed(2)} % for the same hour last week)` : ')') : ''
-    }, and its orders have the lowest AICc.`;
+    }${DESK_DAY_AHEAD_CHOICE > 1 ? '.' : ', and its orders have the lowest AICc.'}`;
   } else {
     summary = `The desk would fall back to the same hour last week (seasonal naive): ${r.fallbackReason ?? 'the model could not be used'}.`;
   }

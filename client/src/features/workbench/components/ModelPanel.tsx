@@ -126,7 +126,7 @@ export function ModelPanel({ report }: { report: ModelReportDto }) {
             <Table.Thead>
               <Table.Tr>
                 <Table.Th>Differencing</Table.Th>
-                <Table.Th>Best orders by AICc</Table.Th>
+                <Table.Th>Orders kept (lowest AICc, then day-ahead error)</Table.Th>
                 <Table.Th ta="right">AICc</Table.Th>
                 <Table.Th ta="right">MAPE</Table.Th>
                 <Table.Th />
@@ -136,7 +136,7 @@ export function ModelPanel({ report }: { report: ModelReportDto }) {
               {report.candidates.map((c) => (
                 <Table.Tr key={c.label}>
                   <Table.Td ff="monospace">{c.label}</Table.Td>
-                  <Table.Td ff="monospace">{c.p === null ? (c.error ?? '—') : `ARMA(${c.p},${c.q})`}</Table.Td>
+                  <Table.Td ff="monospace">{c.p === null ? (c.error ?? '—') : `ARMA(${c.p},${c.q})${c.seasonal ? `×(${c.seasonal.P},${c.seasonal.Q})_24` : ''}`}</Table.Td>
                   <Table.Td ta="right" ff="monospace">{fmtNum(c.aicc, 1)}</Table.Td>
                   <Table.Td ta="right" ff="monospace">{c.mape === null ? '—' : `${fmtNum(c.mape, 2)} %`}</Table.Td>
                   <Table.Td>{c.chosen && <Badge color="tide">chosen</Badge>}</Table.Td>
