@@ -67,7 +67,7 @@ describe('model comparison on the days each version forecast', () => {
     const compare = page.getByRole('dialog', { name: /beside the model in service/ });
     const verdict = compare.getByTestId('compare-verdict');
     await verdict.waitFor({ timeout: 120_000 });
-    expect(await verdict.innerText()).toMatch(/^Over the same 7 days this version is (not )?better: \d+\.\d\d % against \d+\.\d\d % for the model in service\. The same hour one week earlier scores \d+\.\d\d %\.$/);
+    expect(await verdict.innerText()).toMatch(/^Over the same 7 days this version is (not )?better: \d+\.\d{2,4} % against \d+\.\d{2,4} % for the model in service\. The same hour one week earlier scores \d+\.\d\d %\.$/);
 
     // seven whole days, each forecast at 10:00 Bramblewick time the day before
     const days = compare.getByRole('table', { name: 'Scored days' }).locator('tbody tr');

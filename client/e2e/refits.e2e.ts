@@ -93,7 +93,7 @@ describe('refits', () => {
     const compare = page.getByRole('dialog', { name: /beside the model in service/ });
     const verdict = compare.getByTestId('compare-verdict');
     await verdict.waitFor({ timeout: 120_000 });
-    expect(await verdict.innerText()).toMatch(/Over the same \d+ days this version is (not )?better: \d+\.\d\d % against \d+\.\d\d %[\s\S]*one week earlier scores \d+\.\d\d %/);
+    expect(await verdict.innerText()).toMatch(/Over the same \d+ days this version is (not )?better: \d+\.\d{2,4} % against \d+\.\d{2,4} %[\s\S]*one week earlier scores \d+\.\d\d %/);
     const table = await compare.getByRole('table', { name: 'Comparison' }).innerText();
     expect(table).toMatch(/Backtest MAPE, same \d+ days/);
     expect(table).toMatch(/AICc[\s\S]*BIC[\s\S]*Ljung–Box/);

@@ -56,6 +56,13 @@ describe('CompareView', () => {
     expect(within(cell('in-service-Backtest MAPE, same 7 days')).getByText('better')).toBeInTheDocument();
   });
 
+  it('prints the two same-day figures with decimals enough to tell them apart', () => {
+    renderWithProviders(<CompareView compare={compare(3.6912, 3.6934)} />);
+    expect(screen.getByTestId('compare-verdict')).toHaveTextContent('this version is better: 3.691 % against 3.693 % for the model in service');
+    expect(cell('candidate-Backtest MAPE, same 7 days')).toHaveTextContent('3.691 %');
+    expect(cell('in-service-Backtest MAPE, same 7 days')).toHaveTextContent('3.693 %');
+  });
+
   it('names the seasonal block of a model that has one', () => {
     renderWithProviders(<CompareView compare={compare(3.05, 4.4, { p: 3, q: 1, seasonal: { P: 1, Q: 1, period: 24 } })} />);
     expect(screen.getByText('ARMA(3,1)×(1,1)_24 on (1−B^168)')).toBeTruthy();

@@ -18,9 +18,20 @@ function fixed(value: number | null | undefined, digits: number): string {
   return value === null || value === undefined || !Number.isFinite(value) ? '—' : value.toFixed(digits);
 }
 
-function pct(value: number | null | undefined): string {
-  const text = fixed(value, 2);
+function pct(value: number | null | undefined, digits = 2): string {
+  const text = fixed(value, digits);
   return text === '—' ? text : `${text} %`;
+}
+
+/**
+ * Decimals enough to tell two ranked percentages apart: two, or up to four where two would print
+ * the same number on both sides of a "better" ("3.69 % against 3.69 %").
+ */
+function digitsToTell(a: number | null | undefined, b: number | null | undefined): number {
+  if (a === null || a === undefined || b === null || b === undefined || !Number.isFinite(a) || !Number.isFinite(b) || a === b) return 2;
+  let digits = 2;
+  while (digits < 4 && a.toFixed(digits) === b.toFixed(digits)) digits++;
+  return digits;
 }
 
 /** lower is better */
@@ -76,8 +87,8 @@ export function compareRows(cmp: ModelCompareDto): CompareRow[] {
   const rows: CompareRow[] = [
     {
       label: `Backtest MAPE, same ${cmp.sameDays.days} days`,
-      candidate: pct(cmp.sameDays.candidateMape),
-      inService: pct(cmp.sameDays.inServiceMape),
+      candidate: pct(cmp.sameDays.candidateMape, digitsToTell(cmp.sameDays.candidateMape, cmp.sameDays.inServiceMape)),
+      inService: pct(cmp.sameDays.inServiceMape, digitsToTell(cmp.sameDays.candidateMape, cmp.sameDays.inServiceMape)),
       better: comparable ? lower(cmp.sameDays.candidateMape, cmp.sameDays.inServiceMape) : null,
       baseline: pct(cmp.sameDays.baselineMape),
       note: comparable ? `day-ahead, each day forecast ${cmp.sameDays.issueTime}, own coefficients` : `not ranked: ${cmp.sameDays.notComparable ?? 'not scored alike'}`,
@@ -109,6 +120,8 @@ export function compareVerdict(cmp: ModelCompareDto): string {
   if (!cmp.sameDays.comparable) return `The two cannot be ranked: ${cmp.sameDays.notComparable ?? 'they were not scored on the same days'}.`;
   if (candidateMape === null || inServiceMape === null) return 'The two could not both be scored on the same days.';
   const base = baselineMape === null ? '' : ` The same hour one week earlier scores ${baselineMape.toFixed(2)} %.`;
-  if (cmp.candidateBetter) return `Over the same ${days} days this version is better: ${candidateMape.toFixed(2)} % against ${inServiceMape.toFixed(2)} % for the model in service.${base}`;
-  return `Over the same ${days} days this version is not better: ${candidateMape.toFixed(2)} % against ${inServiceMape.toFixed(2)} % for the model in service.${base}`;
+  const digits = digitsToTell(candidateMape, inServiceMape);
+  const both = `${candidateMape.toFixed(digits)} % against ${inServiceMape.toFixed(digits)} %`;
+  if (cmp.candidateBetter) return `Over the same ${days} days this version is better: ${both} for the model in service.${base}`;
+  return `Over the same ${days} days this version is not better: ${both} for the model in service.${base}`;
 }
