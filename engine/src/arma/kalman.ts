@@ -736,9 +736,7 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
         steadyCovarianceFromRow(P, R, r);
       }
     }
-    if (ended !== GAP_RESTART) {
-      // carried on through the gaps above
-    } else if (sums[2] === 1) {
+    if (sums[2] === 1) {
       ssq = sums[0];
       sumLogF = sums[1];
       nUsed = last + 1;
@@ -750,7 +748,7 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       steadyConstants(P, phi, r, K, ws.cd);
       steadyCovarianceFromRow(P, R, r);
       chandra = false;
-    } else {
+    } else if (ended === GAP_RESTART) {
       const P0 = ws.P0;
       for (let j = 0; j < r; j++) P[j] = P0[j];
       a.fill(0);
