@@ -84,9 +84,20 @@ describe('wider orders on the same 14 seasonal series against R’s best', () =>
   // (3,0,3)(0,0,1)_12 at θ₃ = −0.986 and −0.982 (roots of modulus 1.0002 and 1.000001, nearly
   // cancelled by AR roots of modulus 1.0008 and 1.000005), −402.544 and −419.814. Searching
   // inside the region the engine ended 1.84, 0.43 and 0.07 below; the natural-MA start, whose MA
-  // part may cross the circle, reaches them.
+  // part may cross the circle, reaches them. Presidents, whose series has gaps, is reached
+  // from zero as well since the gradient through missing values is exact (gap-score.ts): with
+  // differenced gradients the search stopped short of the circle.
+  it('reaches R’s maximum with an MA root on the unit circle on presidents (gaps) (3,0,2)(0,0,1) with the gradient through its gaps, with or without the natural-MA start', () => {
+    const c = cases.find((k) => k.s.name === 'presidents (gaps)')!;
+    const f = c.fits.find((k) => k.p === 3 && k.q === 2 && (k.P ?? 0) === 0 && (k.Q ?? 0) === 1)!;
+    for (const naturalMaStart of [true, false]) {
+      const fit = fitLike(c.s, f, { naturalMaStart });
+      expect(fit.loglik).toBeGreaterThan(rBest(f) - 0.001);
+      expect(fit.ma[1]).toBeGreaterThan(0.99);
+    }
+  }, 30_000);
+
   it.each([
-    ['presidents (gaps)', 3, 2, 0, 1, 1],
     ['mdeaths (1-B12)', 3, 3, 1, 0, -1],
     ['ldeaths (1-B12)', 3, 3, 0, 1, -1],
   ])('reaches R’s maximum with an MA root on the unit circle on %s (%i,0,%i)(%i,0,%i) from the natural-MA start, and not without it', (name, p, q, P, Q, sign) => {

@@ -31,6 +31,7 @@
 import { Matrix, inverse } from 'ml-matrix';
 import { BfgsResult, minimizeBfgs } from './bfgs';
 import { chandrasekharScore } from './chandrasekhar-score';
+import { gapScore } from './gap-score';
 import { cssStart } from './css';
 import { freeMaCssStart, invertibleMa } from './css-free-ma';
 import { hannanRissanen } from './hannan-rissanen';
@@ -142,6 +143,17 @@ export interface FitOptions {
  * daily-differenced demand series: 69 likelihood evaluations instead of 268).
  */
 const CHANDRASEKHAR_SCORE_MIN_K = 4;
+/**
+ * With missing values, the exact gradient through them (gap-score.ts) from this many
+ * coefficients and up to this size of state (Gardner's system; a seasonal block at 24 is larger
+ * and differences). It costs about four likelihood passes (the filter's steps after each gap,
+ * where P moves, are most of it); differences cost k. On the weekly- and doubly differenced
+ * demand series with five hours taken out, fits with four to six coefficients took 0.70–0.89 of
+ * the time, with three 0.99–1.28 and with fewer up to 1.5 (the same maxima; measured fit by fit
+ * in one process).
+ */
+const GAP_SCORE_MIN_K = 4;
+const GAP_SCORE_MAX_STATE = 12;
 
 /** Orders whose likelihood commonly has several maxima (near-cancelling AR and MA roots). */
 export function needsSecondStart(o: Required<ArmaSpec>): boolean {
@@ -322,15 +334,18 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   // start only, the MA coefficients as they are (see there).
   let naturalMa = false;
   const naturalModel = (u: Float64Array): ArmaStateSpace => stateSpaceOf(naturalMaOf(u, o), s);
-  const scoreInput = complete && k >= 3 ? { x: withMean ? new Float64Array(x.length) : x, model: (u: Float64Array) => stateSpaceWithTangents(u, o, naturalMa) } : null;
+  // With missing values the gradient comes from the filter through them run backwards
+  // (gap-score.ts), for states up to Gardner's size; a larger one differences.
+  const gapScored = !complete && k >= GAP_SCORE_MIN_K && Math.max(o.p + o.P * s, o.q + o.Q * s + 1) <= GAP_SCORE_MAX_STATE;
+  const scoreInput = (complete && k >= 3) || gapScored ? { x: withMean ? new Float64Array(x.length) : x, model: (u: Float64Array) => stateSpaceWithTangents(u, o, naturalMa) } : null;
   // the last evaluation's point and what its filter left for the steady-state score there
   const lastU = new Float64Array(k);
   let lastValid = false;
   let lastPass: SteadyPass | null = null;
   let lastSteadyAt = -1;
   let lastMean = 0;
-  const trace = scoreInput ? new Float64Array(x.length) : undefined;
-  const traceOnes = scoreInput && withMean ? new Float64Array(x.length) : undefined;
+  const trace = scoreInput && complete ? new Float64Array(x.length) : undefined;
+  const traceOnes = trace && withMean ? new Float64Array(x.length) : undefined;
   // with a mean: whether lastPass has been carried to x − μ̂ yet (atMean)
   let lastAtMean = false;
   const objective = (u: Float64Array): number => {
@@ -380,6 +395,14 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   const gradient = scoreInput
     ? (u: Float64Array): Float64Array | null => {
         if (!lastValid || !sameValues(lastU, u)) return null;
+        if (gapScored) {
+          if (withMean) subtractInto(x, lastMean, scoreInput.x);
+          try {
+            return gapScore(scoreInput.x, scoreInput.model(u), k, tol);
+          } catch {
+            return null;
+          }
+        }
         if (withMean) atMean(scoreInput.x);
         const steady = lastPass ? steadyStateScore(scoreInput, u, lastPass) : null;
         if (steady || k < CHANDRASEKHAR_SCORE_MIN_K) return steady;

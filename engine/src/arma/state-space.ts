@@ -125,8 +125,23 @@ function gardnerSystem(ss: ArmaStateSpace): Float64Array {
  * P and all its derivatives. Beyond the sizes Gardner's system is used for, the series form.
  */
 export function stationaryCovarianceTangents(ss: ArmaStateSpace, dPhi: Float64Array, dR: Float64Array, k: number): { row: Float64Array; dRow: Float64Array } {
+  if (ss.r > GARDNER_MAX_R) return seriesCovarianceTangents(ss, dPhi, dR, k);
+  const { P, dP } = gardnerTangents(ss, dPhi, dR, k, 1);
+  return { row: P, dRow: dP };
+}
+
+/**
+ * The whole stationary covariance P (row-major r×r) and its derivatives along the k directions
+ * (k blocks of r×r), by the same factorisation of Gardner's system; null beyond the sizes that
+ * system is used for. What the filter through missing values differentiates (gap-score.ts).
+ */
+export function stationaryCovarianceFullTangents(ss: ArmaStateSpace, dPhi: Float64Array, dR: Float64Array, k: number): { P: Float64Array; dP: Float64Array } | null {
+  return ss.r > GARDNER_MAX_R ? null : gardnerTangents(ss, dPhi, dR, k, ss.r);
+}
+
+/** P's first `rows` rows and their derivatives along the k directions (k blocks of rows·r). */
+function gardnerTangents(ss: ArmaStateSpace, dPhi: Float64Array, dR: Float64Array, k: number, rows: number): { P: Float64Array; dP: Float64Array } {
   const { r, phi, R } = ss;
-  if (r > GARDNER_MAX_R) return seriesCovarianceTangents(ss, dPhi, dR, k);
   const m = (r * (r + 1)) / 2;
   const w = r + 1;
   const idx = triangleOf(r);
@@ -136,12 +151,13 @@ export function stationaryCovarianceTangents(ss: ArmaStateSpace, dPhi: Float64Ar
   const b = scratch('tangents.b', m);
   for (let i = 0; i < r; i++) for (let j = i; j < r; j++) b[idx[i * w + j]] = R[i] * R[j];
   luSolveInPlace(A, m, piv, b);
-  const row = new Float64Array(r);
-  for (let j = 0; j < r; j++) row[j] = b[idx[j]];
+  const size = rows * r;
+  const P = new Float64Array(size);
+  for (let i = 0; i < rows; i++) for (let j = 0; j < r; j++) P[i * r + j] = b[idx[i * w + j]];
   // q_j = (T P)_{j0} = φ_j P_00 + P_{j+1,0}
   const q = scratch('tangents.q', r);
-  for (let j = 0; j < r; j++) q[j] = phi[j] * row[0] + (j + 1 < r ? row[j + 1] : 0);
-  const dRow = new Float64Array(k * r);
+  for (let j = 0; j < r; j++) q[j] = phi[j] * b[idx[0]] + (j + 1 < r ? b[idx[j + 1]] : 0);
+  const dP = new Float64Array(k * size);
   const rhs = scratch('tangents.rhs', m);
   for (let h = 0; h < k; h++) {
     const o = h * r;
@@ -151,9 +167,10 @@ export function stationaryCovarianceTangents(ss: ArmaStateSpace, dPhi: Float64Ar
       }
     }
     luSolveInPlace(A, m, piv, rhs);
-    for (let j = 0; j < r; j++) dRow[o + j] = rhs[idx[j]];
+    const od = h * size;
+    for (let i = 0; i < rows; i++) for (let j = 0; j < r; j++) dP[od + i * r + j] = rhs[idx[i * w + j]];
   }
-  return { row, dRow };
+  return { P, dP };
 }
 
 /**

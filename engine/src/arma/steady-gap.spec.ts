@@ -1,58 +1,15 @@
 import { simulateArma21 } from '../cli/bench-series';
 import { concentratedLogLik, kalmanFilter } from './kalman';
 import { expandAr, expandMa } from './polynomials';
-import { ArmaStateSpace, armaStateSpace, stationaryCovariance } from './state-space';
-
-/**
- * The textbook Kalman filter with dense matrices, as the reference: prediction and update of
- * the state and its whole covariance every hour, a missing observation skipping the update
- * (Durbin & Koopman 2012, §4.3 and §4.10), the stationary covariance as the start, the log
- * likelihood with σ² concentrated out (Harvey 1989, §3.4). O(r³) an hour, nothing of kalman.ts
- * or steady-gap.ts but the stationary start.
- */
-function denseFilter(x: Float64Array, ss: ArmaStateSpace, mean: number) {
-  const r = ss.r;
-  const P0 = stationaryCovariance(ss);
-  let P: number[][] = Array.from({ length: r }, (_, i) => Array.from({ length: r }, (_, j) => P0[i * r + j]));
-  let a = new Array<number>(r).fill(0);
-  const T = (v: number[]) => v.map((_, i) => ss.phi[i] * v[0] + (i + 1 < r ? v[i + 1] : 0));
-  const residuals = new Float64Array(x.length);
-  const predictions = new Float64Array(x.length);
-  let ssq = 0;
-  let sumLogF = 0;
-  let nUsed = 0;
-  for (let t = 0; t < x.length; t++) {
-    predictions[t] = a[0] + mean;
-    const y = x[t] - mean;
-    if (Number.isNaN(y)) residuals[t] = NaN;
-    else {
-      const F = P[0][0];
-      const v = y - a[0];
-      ssq += (v * v) / F;
-      sumLogF += Math.log(F);
-      nUsed++;
-      residuals[t] = v / Math.sqrt(F);
-      const p = P.map((row) => row[0]);
-      a = a.map((ai, i) => ai + (p[i] * v) / F);
-      P = P.map((row, i) => row.map((pij, j) => pij - (p[i] * p[j]) / F));
-    }
-    a = T(a);
-    // T P T' + R R': T applied to the columns, then to the rows
-    const TP = P[0].map((_, j) => T(P.map((row) => row[j])));
-    const TPT = TP.map((_, i) => T(TP.map((col) => col[i])));
-    P = TPT.map((row, i) => row.map((v, j) => v + ss.R[i] * ss.R[j]));
-  }
-  const n = nUsed;
-  const logLik = -0.5 * (n * Math.log((2 * Math.PI * ssq) / n) + sumLogF + n);
-  return { logLik, residuals, predictions, a, P };
-}
+import { denseFilter } from './dense-filter.testing';
+import { ArmaStateSpace, armaStateSpace } from './state-space';
 
 /**
  * A seasonal state (r = 26, the weekly-differenced demand models' size) through missing hours:
  * the filter carries its covariance as the gapless filter's plus a low-rank deviation
  * (steady-gap.ts), from the first missing hour whether or not the filter is steady by then, and
  * hands over to the full recursion where the deviation's rank would pass half the state. Every
- * path against the dense textbook filter above.
+ * path against the dense textbook filter (dense-filter.testing.ts).
  */
 describe('kalmanFilter through missing hours with a large state, against the dense textbook filter', () => {
   const y = Float64Array.from(simulateArma21(900, 17));
