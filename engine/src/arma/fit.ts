@@ -145,14 +145,16 @@ export interface FitOptions {
 const CHANDRASEKHAR_SCORE_MIN_K = 4;
 /**
  * With missing values, the exact gradient through them (gap-score.ts) from this many
- * coefficients and up to this size of state (Gardner's system; a seasonal block at 24 is larger
- * and differences). It costs about four likelihood passes (the filter's steps after each gap,
- * where P moves, are most of it); differences cost k. On the weekly- and doubly differenced
- * demand series with five hours taken out, fits with four to six coefficients took 0.70–0.89 of
- * the time, with three 0.99–1.28 and with fewer up to 1.5 (the same maxima; measured fit by fit
- * in one process).
+ * coefficients, or with an MA part of this order (it keeps P moving for long after each gap, and
+ * every hour where P moves is dear to difference), up to the size of state Gardner's system
+ * serves (a seasonal block at 24 is larger and differences). It costs about four likelihood
+ * passes, differences k. On the weekly- and doubly differenced demand series with five hours
+ * taken out, measured fit by fit in one process against differences (the same maxima): with four
+ * coefficients or more 0.51–0.94 of the time, MA(3) 0.66–0.84; the other orders of three
+ * coefficients 0.99–1.12, of one or two 1.09–1.64.
  */
 const GAP_SCORE_MIN_K = 4;
+const GAP_SCORE_MIN_Q = 3;
 const GAP_SCORE_MAX_STATE = 12;
 
 /** Orders whose likelihood commonly has several maxima (near-cancelling AR and MA roots). */
@@ -336,7 +338,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   const naturalModel = (u: Float64Array): ArmaStateSpace => stateSpaceOf(naturalMaOf(u, o), s);
   // With missing values the gradient comes from the filter through them run backwards
   // (gap-score.ts), for states up to Gardner's size; a larger one differences.
-  const gapScored = !complete && k >= GAP_SCORE_MIN_K && Math.max(o.p + o.P * s, o.q + o.Q * s + 1) <= GAP_SCORE_MAX_STATE;
+  const gapScored = !complete && (k >= GAP_SCORE_MIN_K || o.q >= GAP_SCORE_MIN_Q) && Math.max(o.p + o.P * s, o.q + o.Q * s + 1) <= GAP_SCORE_MAX_STATE;
   const scoreInput = (complete && k >= 3) || gapScored ? { x: withMean ? new Float64Array(x.length) : x, model: (u: Float64Array) => stateSpaceWithTangents(u, o, naturalMa) } : null;
   // the last evaluation's point and what its filter left for the steady-state score there
   const lastU = new Float64Array(k);

@@ -29,6 +29,7 @@
  */
 import { stationaryCovarianceFullTangents } from './state-space';
 import { StateSpaceTangents } from './state-space-tangents';
+import { backwardSmall, forwardSmall } from './gap-score-small';
 import { scratch, scratchAtLeast } from './scratch';
 
 export function gapScore(x: Float64Array, model: StateSpaceTangents, k: number, tol = 1e-10): Float64Array | null {
@@ -37,18 +38,30 @@ export function gapScore(x: Float64Array, model: StateSpaceTangents, k: number, 
   const n = x.length;
   const start = stationaryCovarianceFullTangents(ss, dPhi, dR, k);
   if (!start || n === 0) return null;
-  const C = scratchAtLeast('gaps.c', n * r);
+  const small = r <= 4;
+  const C = scratchAtLeast('gaps.c', n * (small ? 4 : r));
   const Fs = scratchAtLeast('gaps.f', n);
   const V = scratchAtLeast('gaps.v', n);
   const A0 = scratchAtLeast('gaps.a0', n);
   const Held = scratchAtLeast('gaps.held', n);
-  const sums = forwardPass(x, phi, R, r, start.P, tol, C, Fs, V, A0, Held);
-  if (!sums) return null;
-  const { S, N } = sums;
-  if (!(S > 0) || N === 0) return null;
   const phib = scratch('gaps.phib', r);
   const PbR = scratch('gaps.PbR', r);
-  const Pb = backwardPass(n, phi, R, r, S, N, C, Fs, V, A0, Held, phib, PbR);
+  let Pb: Float64Array;
+  if (small) {
+    // a state of at most 4 in scalars (gap-score-small.ts)
+    const sums = scratch('gaps.sums', 2);
+    if (!forwardSmall(x, phi, R, r, start.P, tol, C, Fs, V, A0, Held, sums)) return null;
+    const [S, N] = sums;
+    if (!(S > 0) || N === 0) return null;
+    Pb = scratch('gaps.Pb1', r * r);
+    backwardSmall(n, phi, R, r, S, N, C, Fs, V, A0, Held, phib, PbR, Pb);
+  } else {
+    const sums = forwardPass(x, phi, R, r, start.P, tol, C, Fs, V, A0, Held);
+    if (!sums) return null;
+    const { S, N } = sums;
+    if (!(S > 0) || N === 0) return null;
+    Pb = backwardPass(n, phi, R, r, S, N, C, Fs, V, A0, Held, phib, PbR);
+  }
   const grad = new Float64Array(k);
   const { dP } = start;
   for (let h = 0; h < k; h++) {
@@ -90,8 +103,6 @@ function forwardPass(
   let S = 0;
   let N = 0;
   let held = false;
-  // S and N of the held stretches (heldForward4)
-  const sums = scratch('gaps.sums', 2);
   // the held P's first column and 1/F
   const ch = scratch('gaps.ch', r);
   let fh = 0;
@@ -99,14 +110,8 @@ function forwardPass(
     const y = x[t];
     const o = t * r;
     const observed = y === y;
-    if (held && observed && r <= 4) {
-      // P held: c and F as at the switch, only the state moves, up to the next missing hour
-      const end = heldForward4(x, t, r, phi, ch, fh, a, V, Fs, A0, Held, sums);
-      C.set(ch, o);
-      t = end - 1;
-      continue;
-    }
     if (held && observed) {
+      // P held: c and F as at the switch, only the state moves
       const v = y - a[0];
       const vf = v * fh;
       Fs[t] = fh;
@@ -171,59 +176,11 @@ function forwardPass(
     Pn = tmp;
     held = observed && change < tol;
     if (held) {
-      // (the held stretches' S and N are added at the end)
       for (let i = 0; i < r; i++) ch[i] = P[i * r];
       fh = 1 / P[0];
     }
   }
-  return { S: S + sums[0], N: N + sums[1] };
-}
-
-/**
- * The hours from t on while P is held, for a state of at most 4 (the non-seasonal orders
- * p, q ≤ 3) in scalars, zero beyond r: what the likelihood's steady stretch costs, not the
- * arrays' loop. Returns the first hour not done (missing, or the end); S and N into sums.
- */
-function heldForward4(x: Float64Array, t: number, r: number, phi: Float64Array, c: Float64Array, fh: number, a: Float64Array, V: Float64Array, Fs: Float64Array, A0: Float64Array, Held: Float64Array, sums: Float64Array): number {
-  const n = x.length;
-  const p0 = phi[0];
-  const p1 = r > 1 ? phi[1] : 0;
-  const p2 = r > 2 ? phi[2] : 0;
-  const p3 = r > 3 ? phi[3] : 0;
-  const c0 = c[0];
-  const c1 = r > 1 ? c[1] : 0;
-  const c2 = r > 2 ? c[2] : 0;
-  const c3 = r > 3 ? c[3] : 0;
-  let a0 = a[0];
-  let a1 = r > 1 ? a[1] : 0;
-  let a2 = r > 2 ? a[2] : 0;
-  let a3 = r > 3 ? a[3] : 0;
-  let S = 0;
-  let N = 0;
-  for (; t < n; t++) {
-    const y = x[t];
-    if (y !== y) break;
-    const v = y - a0;
-    const vf = v * fh;
-    S += v * vf;
-    N++;
-    const af0 = a0 + c0 * vf;
-    V[t] = v;
-    Fs[t] = fh;
-    A0[t] = af0;
-    Held[t] = 1;
-    a0 = p0 * af0 + a1 + c1 * vf;
-    a1 = p1 * af0 + a2 + c2 * vf;
-    a2 = p2 * af0 + a3 + c3 * vf;
-    a3 = p3 * af0;
-  }
-  a[0] = a0;
-  if (r > 1) a[1] = a1;
-  if (r > 2) a[2] = a2;
-  if (r > 3) a[3] = a3;
-  sums[0] += S;
-  sums[1] += N;
-  return t;
+  return { S, N };
 }
 
 /** The backward pass: φ̄ into phib, Σ P̄ R over the covariance steps into PbR; returns P̄ at the first hour. */
@@ -249,26 +206,10 @@ function backwardPass(
   const Pc = scratch('gaps.Pc', r);
   const invS = 1 / S;
   const invN = 1 / N;
-  const acc = scratch('gaps.acc', 5);
   for (let t = n - 1; t >= 0; t--) {
     const o = t * r;
     const missing = V[t] !== V[t];
     const held = Held[t] === 1;
-    if (held && r <= 4) {
-      // the stretch with P held, back to its first hour (where its c is stored)
-      let h0 = t;
-      while (h0 > 0 && Held[h0 - 1] === 1) h0--;
-      acc.fill(0);
-      heldBackward4(h0, t, r, phi, C.subarray(h0 * r, h0 * r + r), Fs[t], invS, V, A0, ab, phib, acc);
-      // what the stretch's hours leave on the held P: sym(Σ c̄ e₀') + Σ F̄ e₀e₀'
-      Pb[0] += acc[0] + acc[4] + 0.5 * (t - h0 + 1) * Fs[t] * invN;
-      for (let i = 1; i < r; i++) {
-        Pb[i * r] += 0.5 * acc[i];
-        Pb[i] += 0.5 * acc[i];
-      }
-      t = h0;
-      continue;
-    }
     // a_{t+1} = T a⁺: φ̄ += ā a⁺₀, then ā⁺ = T'ā ((T'z)₀ = Σ φ_k z_k, (T'z)_i = z_{i−1})
     const a0 = A0[t];
     let s0 = 0;
@@ -347,71 +288,3 @@ function backwardPass(
   return Pb;
 }
 
-/**
- * The backward pass over the hours h1 down to h0 while P is held (state of at most 4, in
- * scalars): ā and φ̄ carried as in backwardPass; Σ c̄ (its part ā⁺ v/F) into acc[0..r) and
- * Σ F̄ (less its constant 1/(2NF)) into acc[4], for the caller to put on the held P once.
- */
-function heldBackward4(h0: number, h1: number, r: number, phi: Float64Array, c: Float64Array, fh: number, invS: number, V: Float64Array, A0: Float64Array, ab: Float64Array, phib: Float64Array, acc: Float64Array): void {
-  const p0 = phi[0];
-  const p1 = r > 1 ? phi[1] : 0;
-  const p2 = r > 2 ? phi[2] : 0;
-  const p3 = r > 3 ? phi[3] : 0;
-  const c0 = c[0];
-  const c1 = r > 1 ? c[1] : 0;
-  const c2 = r > 2 ? c[2] : 0;
-  const c3 = r > 3 ? c[3] : 0;
-  let b0 = ab[0];
-  let b1 = r > 1 ? ab[1] : 0;
-  let b2 = r > 2 ? ab[2] : 0;
-  let b3 = r > 3 ? ab[3] : 0;
-  let g0 = 0;
-  let g1 = 0;
-  let g2 = 0;
-  let g3 = 0;
-  let k0 = 0;
-  let k1 = 0;
-  let k2 = 0;
-  let k3 = 0;
-  let kF = 0;
-  for (let t = h1; t >= h0; t--) {
-    const a0 = A0[t];
-    g0 += b0 * a0;
-    g1 += b1 * a0;
-    g2 += b2 * a0;
-    g3 += b3 * a0;
-    // ā⁺ = T'ā
-    const s0 = p0 * b0 + p1 * b1 + p2 * b2 + p3 * b3;
-    b3 = b2;
-    b2 = b1;
-    b1 = b0;
-    b0 = s0;
-    const vf = V[t] * fh;
-    const ac = b0 * c0 + b1 * c1 + b2 * c2 + b3 * c3;
-    kF -= 0.5 * vf * vf * invS + ac * vf * fh;
-    k0 += b0 * vf;
-    k1 += b1 * vf;
-    k2 += b2 * vf;
-    k3 += b3 * vf;
-    b0 -= vf * invS + ac * fh;
-  }
-  ab[0] = b0;
-  phib[0] += g0;
-  acc[0] = k0;
-  if (r > 1) {
-    ab[1] = b1;
-    phib[1] += g1;
-    acc[1] = k1;
-  }
-  if (r > 2) {
-    ab[2] = b2;
-    phib[2] += g2;
-    acc[2] = k2;
-  }
-  if (r > 3) {
-    ab[3] = b3;
-    phib[3] += g3;
-    acc[3] = k3;
-  }
-  acc[4] = kF;
-}
