@@ -41,6 +41,20 @@ export interface RealRow extends RealCase {
 
 export const REAL_MAX_ORDER = 3;
 
+/**
+ * The hours taken out of the demand series for `npm run bench -- --gaps-only` (indices into its
+ * 2,016 hours): four single hours and a run of three, as a meter's dropped readings and a short
+ * outage leave them. Each differencing carries a missing hour into every difference that uses it.
+ */
+export const BENCH_MISSING_HOURS = [300, 700, 1100, 1101, 1102, 1500, 1900];
+
+/** The series with the bench's missing hours set to NaN (a copy). */
+export function withMissingHours(load: number[], hours: number[] = BENCH_MISSING_HOURS): number[] {
+  const out = load.slice();
+  for (const h of hours) if (h < out.length) out[h] = NaN;
+  return out;
+}
+
 export function realCases(candidates: number[][] = DEFAULT_CANDIDATES): RealCase[] {
   const out: RealCase[] = [];
   for (const diff of candidates) {
@@ -118,8 +132,10 @@ function rNote(r: { cssMl: RFitTiming; ml: RFitTiming }): string {
   return notes.join('; ');
 }
 
-export function printRealTable(rows: RealRow[], log: (s: string) => void = console.log): void {
-  log('real demand (England & Wales, R forecast::taylor, hourly means, 2,016 h), each differencing the pipeline considers,');
+export function printRealTable(rows: RealRow[], log: (s: string) => void = console.log, missing: number[] = []): void {
+  log(
+    `real demand (England & Wales, R forecast::taylor, hourly means, 2,016 h${missing.length ? `; hours ${missing.join(', ')} taken out, missing on both sides` : ''}), each differencing the pipeline considers,`,
+  );
   log('ARMA(p,q) p, q <= 3 without and with a seasonal block (1,1) at 24; exact ML with standard errors, compiled engine warm in one');
   log('process (median of 3-100 fits over about a second, after a first one and a warm-up of at least 100 ms and 20 fits, cut at 1 s) against R stats::arima on the same differenced series,');
   log('no mean, in the same run, each group of 16 orders timed on both sides in turn; R fits under 100 ms timed as the mean of a loop of at least 200 ms');

@@ -19,7 +19,9 @@
  *  5. `--weather-only [--seeds 1,2] [--data DIR]`: the pipeline with weather on the simulator's
  *     exported zones, winter and summer, beside the same pipeline without weather (bench-weather.ts);
  *  6. `--windows-only`: every order of the real-series table on eight-week windows of the demand
- *     series against R, the fits where the engine ends below R's best (bench-windows.ts).
+ *     series against R, the fits where the engine ends below R's best (bench-windows.ts);
+ *  7. `--gaps-only`: the real-series table with a few hours of the demand series missing on both
+ *     sides (bench-real.ts, BENCH_MISSING_HOURS), as real meter data has them.
  * Prints a table and the machine (CPU model, cores, Node and R versions).
  */
 import { spawnSync } from 'node:child_process';
@@ -28,7 +30,7 @@ import { cpus, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { accuracy, backtest, describeModel, fitArma, median, runPipeline, type BacktestResult } from '@morrowline/engine';
 import { simulateArma21 as simulate } from './bench-series';
-import { printRealTable, RealCase, realCases, RFitTiming, timeEngine, timeRealTable } from './bench-real';
+import { BENCH_MISSING_HOURS, printRealTable, RealCase, realCases, RFitTiming, timeEngine, timeRealTable, withMissingHours } from './bench-real';
 import { runWeatherBench } from './bench-weather';
 import { datasetCases, printDatasetTable, timeDatasets } from './bench-datasets';
 import { fitWindows, printWindows, windowCases } from './bench-windows';
@@ -125,7 +127,7 @@ function main(): void {
   const rVersion = hasR();
   console.log(`machine: ${cpu}, ${cpus().length} cores, Node ${process.version}${rVersion ? `, ${rVersion}` : ', R not found'}; ${new Date().toISOString().slice(0, 16)} UTC\n`);
   const args = process.argv.slice(2);
-  const known = ['--real-only', '--no-real', '--pipeline-only', '--weather-only', '--windows-only'];
+  const known = ['--real-only', '--no-real', '--pipeline-only', '--weather-only', '--windows-only', '--gaps-only'];
   const weatherSeeds = valueOf(args, '--seeds') ?? '1,2';
   const weatherData = valueOf(args, '--data') ?? join(tmpdir(), 'morrowline-bench-weather');
   const unknown = args.filter((a, i) => !known.includes(a) && !['--seeds', '--data'].includes(a) && !['--seeds', '--data'].includes(args[i - 1]));
@@ -152,6 +154,18 @@ function main(): void {
       }
     }
     printWindows(rows);
+    return;
+  }
+  if (args.includes('--gaps-only')) {
+    // the real-series table again with a few hours missing, as real meter data has them
+    const gappy = withMissingHours(taylorLoad);
+    const cases = realCases();
+    timeEngine(gappy, cases.filter((c) => c.P === 0).slice(0, 16));
+    const fitR = (group: RealCase[]) => {
+      const out = runR({ real: { load: gappy, cases: group.map((c) => ({ id: c.id, diff: [c.diff], p: c.p, q: c.q, P: c.P, Q: c.Q })) } });
+      return new Map((out.real as Array<{ id: string; cssMl: RFitTiming; ml: RFitTiming }>).map((r) => [r.id, { cssMl: r.cssMl, ml: r.ml }]));
+    };
+    printRealTable(timeRealTable(gappy, cases, rVersion ? fitR : null), console.log, BENCH_MISSING_HOURS);
     return;
   }
   if (!args.includes('--no-real') && !args.includes('--pipeline-only')) {
