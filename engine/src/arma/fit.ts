@@ -494,6 +494,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   };
   let cssTried = false;
   let zeroTried = false;
+  let arRootTried = false;
   if (!st && (opts.secondStart ?? needsSecondStart(o))) {
     // With AR and MA orders of two or more, roots of the two polynomials can nearly cancel and
     // the likelihood has several maxima; the Hannan–Rissanen start then often lands on a lower
@@ -522,10 +523,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       // unconstrained AR value +0.5, partial autocorrelations 0.46) against an MA part leaning
       // the other way (−0.5). On real series with long cycles (sunspots, LakeHuron ARMA(3,3))
       // the Hannan–Rissanen and zero starts both reached lower maxima that this one avoids.
-      const opposed = new Float64Array(k);
-      for (let i = 0; i < o.p; i++) opposed[i] = 0.5;
-      for (let i = o.p; i < o.p + o.q; i++) opposed[i] = -0.5;
-      tryStart(opposed, 'opposed');
+      tryStart(opposedStart(o, k), 'opposed');
       // A start at an MA unit root: no AR part and θ₁ = 0.99 (a root near B = −1), the rest
       // zero. Where a series is differenced once too often the exact likelihood can rise to a
       // maximum with an MA root on the unit circle (Davis & Dunsmuir 1996) that the starts above,
@@ -540,6 +538,17 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
         maRoot[o.p] = Math.atanh(-0.99);
         tryStart(maRoot, 'ma-unit-root');
       }
+    } else if (!complete && o.p > 0 && o.P + o.Q === 0) {
+      // With missing values both starts come from the same holes handled crudely (the
+      // regression and the conditional sum of squares drop what a gap touches), so their
+      // agreement says less, and the start near an AR unit root (below) runs too, the one that
+      // begins where neither of them looks. On the weekly-differenced demand series with seven
+      // hours taken out, ARMA(3,3) from both ended 3.0 below R's maximum (AR roots near the
+      // circle, φ = (0.685, 0.990, −0.680)), which this start reaches and the zero, opposed and
+      // MA-unit-root starts do not (`npm run bench -- --gaps-only`). Not with a seasonal block:
+      // there a search costs 100 times as much, and the seasonal probe below looks elsewhere.
+      arRootTried = true;
+      tryStart(arUnitRootStart(k), 'ar-unit-root');
     }
   }
   if (!st && restarts && wantsFreeMaStart(o) && (x.length <= FREE_MA_START_MAX_LENGTH || nearWhiteNoise(x))) {
@@ -575,11 +584,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
     // φ₁ = 0.90, 0.97, 0.98 or 0.99 each left 6 below R, against 5. It shares the free-MA start's
     // gate: on the demand series and its windows nothing changes; on R's datasets no maximum
     // moved and the short ones cost more (log10(lynx) ARMA(3,3) 28 → 73 evaluations, 1.4 → 2.1 ms).
-    if (o.p > 0) {
-      const arRoot = new Float64Array(k);
-      arRoot[0] = Math.atanh(AR_UNIT_ROOT_START);
-      tryStart(arRoot, 'ar-unit-root');
-    }
+    if (o.p > 0 && !arRootTried) tryStart(arUnitRootStart(k), 'ar-unit-root');
     if (o.q + o.Q > 0 && k >= NATURAL_MA_START_MIN_COEFFICIENTS && (opts.naturalMaStart ?? true)) {
       // The exact likelihood searched from zero with the MA coefficients as they are, the AR
       // part through the transform: R's "ML" search. Free to cross the unit circle, the MA part
@@ -621,7 +626,9 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       if (fCss < opt.f) tryStart(css, 'css');
     }
   }
-  if (!st && restarts && o.Q > 0 && !onBoundary(opt.x)) {
+  let probed = false;
+  const seasonalProbe = (): void => {
+    probed = true;
     // A seasonal MA root at the unit circle, (1 − B^s) in the MA part, is where an over-
     // differenced series has its highest likelihood (the exact likelihood of an MA part piles up
     // at a unit root; Davis & Dunsmuir 1996), and a search from the other starts can stop at an
@@ -645,7 +652,8 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       return true;
     };
     tryStart(probe, 'seasonal-unit-root', (u) => (sliding?.(u) ?? false) || back(u));
-  }
+  };
+  if (!st && restarts && o.Q > 0 && !onBoundary(opt.x)) seasonalProbe();
   if (!st && restarts && !zeroTried && o.q >= 2 && nearUnitCircle(opt.x, o.p, o.q)) {
     // An MA part of order two or more with a root close to the unit circle (a partial
     // autocorrelation beyond ±0.95) is where the exact likelihood has several maxima close
@@ -670,6 +678,11 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       if (!from || !onBoundary(opt.x)) continue;
       tryStart(from, label);
     }
+    // A restart that left the boundary has an interior estimate, which the seasonal probe
+    // above (it starts from one) has not seen: on the daily-differenced demand series with seven hours
+    // taken out, ARMA(0,2)×(1,1)_24's first search slid onto the boundary, the zero restart
+    // ended at SMA +0.94, 191 below R's maximum at SMA −0.97, which the probe from there reaches.
+    if (!probed && !st && o.Q > 0 && !onBoundary(opt.x)) seasonalProbe();
   }
   if (opt.stopped) {
     // nothing found above the slide: the boundary it was sliding onto may be the maximum after
@@ -759,6 +772,21 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   };
   fit.fitMs = performance.now() - t0;
   return fit;
+}
+
+/** The start near an AR unit root: φ₁ = AR_UNIT_ROOT_START, everything else zero. */
+function arUnitRootStart(k: number): Float64Array {
+  const u = new Float64Array(k);
+  u[0] = Math.atanh(AR_UNIT_ROOT_START);
+  return u;
+}
+
+/** The start across the cancellation ridge: every unconstrained AR value +0.5, every MA value −0.5. */
+function opposedStart(o: Required<ArmaSpec>, k: number): Float64Array {
+  const u = new Float64Array(k);
+  for (let i = 0; i < o.p; i++) u[i] = 0.5;
+  for (let i = o.p; i < o.p + o.q; i++) u[i] = -0.5;
+  return u;
 }
 
 /** Whether a partial autocorrelation of the unconstrained values u[from, from + m) lies beyond ±0.95. */

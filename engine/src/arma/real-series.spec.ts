@@ -11,6 +11,7 @@
  */
 import fixture from '../fixtures/r-arima-real.json';
 import taylor from '../fixtures/taylor-hourly.json';
+import { withMissingHours } from '../cli/bench-real';
 import { difference } from '../differencing';
 import { fitArima } from '../forecast';
 import { cssStart } from './css';
@@ -206,4 +207,21 @@ describe('a search stopped on its slide onto the boundary, taken up again for p,
     // the kept search is the CSS start's slide, taken up again
     expect(fit.startedFrom).toBe('css');
   });
+});
+
+describe('the open demand series with hours missing, against R', () => {
+  // `npm run bench -- --gaps-only`: the demand series with BENCH_MISSING_HOURS taken out, the
+  // same differenced series given to R 4.2.2 stats::arima (no mean), run on 5 December 2026.
+  // R's log-likelihoods: daily-differenced ARMA(0,2)×(1,1)_24 −16252.991 ("CSS-ML" and "ML"
+  // alike); weekly-differenced ARMA(3,3) −12643.558 (both, optim code 1). The engine had ended
+  // 191.4 and 3.0 below: the seasonal probe did not run after a boundary restart, and the first
+  // two starts agreeing on a gappy series kept the AR-unit-root start from running.
+  const load = withMissingHours((taylor as { load: number[] }).load);
+  it.each([
+    ['(1 − B²⁴) ARMA(0,2)×(1,1)_24', [24], { p: 0, q: 2, P: 1, Q: 1, period: 24 }, -16252.991],
+    ['(1 − B¹⁶⁸) ARMA(3,3)', [168], { p: 3, q: 3 }, -12643.558],
+  ])('%s reaches R’s log-likelihood', (_name, diff, spec, rLoglik) => {
+    const fit = fitArma(difference(load, diff as number[]), { ...spec, includeMean: false }, { computeSe: false });
+    expect(fit.loglik).toBeGreaterThan((rLoglik as number) - 0.001);
+  }, 30_000);
 });
