@@ -65,9 +65,16 @@ describe('gapScore: the exact gradient of the likelihood through missing hours',
     for (let i = 0; i < 4; i++) expect(Math.abs(g[i] - expected[i])).toBeLessThan(1e-6 * Math.max(...expected.map(Math.abs)));
   });
 
-  it('declines a state beyond the size of Gardner’s system (the caller differences there)', () => {
-    const x = series(300, 3, isolated);
-    const o = { p: 1, q: 1, P: 0, Q: 1, period: 24 };
-    expect(gapScore(x, stateSpaceWithTangents(Float64Array.from([0.3, 0.2, -0.4]), o), 3)).toBeNull();
+  it.each([
+    ['ARMA(1,1)×(0,1)_24', { p: 1, q: 1, P: 0, Q: 1, period: 24 }, [0.3, 0.2, -0.6]],
+    ['ARMA(1,1)×(1,1)_24', { p: 1, q: 1, P: 1, Q: 1, period: 24 }, [0.3, 0.2, 1.1, -0.6]],
+  ])('gives it for %s (a state of 26, beyond Gardner’s system: the start’s adjoint by the doubling algorithm)', (_, o, uv) => {
+    const x = series(400, 3, [...isolated, ...range(60, 63)]);
+    const u = Float64Array.from(uv as number[]);
+    const g = gapScore(x, stateSpaceWithTangents(u, o as Orders), u.length);
+    expect(g).not.toBeNull();
+    const expected = centralDifferences(x, u, o as Orders);
+    const scale = Math.max(...expected.map(Math.abs));
+    for (let i = 0; i < u.length; i++) expect(Math.abs(g![i] - expected[i])).toBeLessThan(1e-6 * scale + 1e-9);
   });
 });

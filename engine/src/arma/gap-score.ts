@@ -23,11 +23,12 @@
  *              that read the held P, and reaches the hour that computed it).
  * The adjoint left on the first P meets the stationary covariance's derivatives along each
  * coefficient (state-space.ts, Gardner's system), and φ̄, R̄ meet φ's and R's
- * (state-space-tangents.ts), by the chain rule. O(r²) an hour where P moves, O(r) where it is
- * held, whatever the number of coefficients. States up to Gardner's size only (12); a
- * larger state (a seasonal block at 24) returns null and the caller differences.
+ * (state-space-tangents.ts), by the chain rule; beyond that system's size (a seasonal block at
+ * 24) the adjoint equation of the stationary covariance is solved instead (adjoint-lyapunov.ts).
+ * O(r²) an hour where P moves, O(r) where it is held, whatever the number of coefficients.
  */
-import { stationaryCovarianceFullTangents } from './state-space';
+import { adjointLyapunov } from './adjoint-lyapunov';
+import { stationaryCovariance, stationaryCovarianceFullTangents } from './state-space';
 import { StateSpaceTangents } from './state-space-tangents';
 import { backwardSmall, forwardSmall } from './gap-score-small';
 import { scratch, scratchAtLeast } from './scratch';
@@ -36,8 +37,11 @@ export function gapScore(x: Float64Array, model: StateSpaceTangents, k: number, 
   const { ss, dPhi, dR } = model;
   const { r, phi, R } = ss;
   const n = x.length;
+  if (n === 0) return null;
+  // the stationary start with its derivatives (Gardner's system), or beyond its size the start
+  // alone, its adjoint then carried to φ and R by adjointLyapunov
   const start = stationaryCovarianceFullTangents(ss, dPhi, dR, k);
-  if (!start || n === 0) return null;
+  const P1 = start ? start.P : stationaryCovariance(ss);
   const small = r <= 4;
   const C = scratchAtLeast('gaps.c', n * (small ? 4 : r));
   const Fs = scratchAtLeast('gaps.f', n);
@@ -50,27 +54,44 @@ export function gapScore(x: Float64Array, model: StateSpaceTangents, k: number, 
   if (small) {
     // a state of at most 4 in scalars (gap-score-small.ts)
     const sums = scratch('gaps.sums', 2);
-    if (!forwardSmall(x, phi, R, r, start.P, tol, C, Fs, V, A0, Held, sums)) return null;
+    if (!forwardSmall(x, phi, R, r, P1, tol, C, Fs, V, A0, Held, sums)) return null;
     const [S, N] = sums;
     if (!(S > 0) || N === 0) return null;
     Pb = scratch('gaps.Pb1', r * r);
     backwardSmall(n, phi, R, r, S, N, C, Fs, V, A0, Held, phib, PbR, Pb);
   } else {
-    const sums = forwardPass(x, phi, R, r, start.P, tol, C, Fs, V, A0, Held);
+    const sums = forwardPass(x, phi, R, r, P1, tol, C, Fs, V, A0, Held);
     if (!sums) return null;
     const { S, N } = sums;
     if (!(S > 0) || N === 0) return null;
     Pb = backwardPass(n, phi, R, r, S, N, C, Fs, V, A0, Held, phib, PbR);
   }
+  if (!start) {
+    // ⟨P̄₁, dP₁⟩ = ⟨X, dT P₁ T' + T P₁ dT' + dR R' + R dR'⟩ = 2 (X q)·dφ + 2 (X R)·dR, q = T P₁ e₀
+    const X = adjointLyapunov(r, phi, Pb);
+    if (!X) return null;
+    for (let i = 0; i < r; i++) {
+      let xq = 0;
+      let xr = 0;
+      for (let j = 0; j < r; j++) {
+        const qj = phi[j] * P1[0] + (j + 1 < r ? P1[(j + 1) * r] : 0);
+        xq += X[i * r + j] * qj;
+        xr += X[i * r + j] * R[j];
+      }
+      phib[i] += 2 * xq;
+      PbR[i] += xr;
+    }
+  }
   const grad = new Float64Array(k);
-  const { dP } = start;
   for (let h = 0; h < k; h++) {
     const o = h * r;
     let g = 0;
     // R̄ = 2 Σ P̄ R
     for (let i = 0; i < r; i++) g += phib[i] * dPhi[o + i] + 2 * PbR[i] * dR[o + i];
-    const od = h * r * r;
-    for (let i = 0; i < r * r; i++) g += Pb[i] * dP[od + i];
+    if (start) {
+      const od = h * r * r;
+      for (let i = 0; i < r * r; i++) g += Pb[i] * start.dP[od + i];
+    }
     grad[h] = g;
   }
   return grad.every(Number.isFinite) ? grad : null;
