@@ -1,6 +1,7 @@
 import { simulateArma21 } from '../cli/bench-series';
 import { concentratedLogLik, kalmanFilter, steadyCovarianceFromRow } from './kalman';
 import { expandAr, expandMa } from './polynomials';
+import { denseFilter } from './dense-filter.testing';
 import { armaStateSpace } from './state-space';
 
 /**
@@ -197,5 +198,23 @@ describe('kalmanFilter: the final pass in the steady state', () => {
       for (let i = 0; i < ss.r; i++) expect(Math.abs(steady.f.aPred![i] - full.f.aPred![i])).toBeLessThan(1e-6);
       expect(Math.abs(concentratedLogLik(steady.f) - concentratedLogLik(full.f))).toBeLessThan(1e-6);
     }
+  });
+});
+
+describe('kalmanFilter through missing hours with a small state (riccatiStepSmall), against the dense textbook filter', () => {
+  // every state size the scalar step serves, an MA part near the unit circle (the covariance
+  // moves for the rest of the series after each gap) and one that settles
+  const y = Float64Array.from(simulateArma21(600, 23));
+  for (const t of [0, 40, 41, 42, 250, 599]) y[t] = NaN;
+  it.each([
+    ['AR(1)', [0.7], []],
+    ['MA(1) near the unit circle', [], [-0.97]],
+    ['ARMA(1,2)', [0.5], [0.4, -0.3]],
+    ['ARMA(3,3) with an MA root near the circle', [0.5, -0.2, 0.1], [-0.9, 0.1, 0.05]],
+    ['ARMA(2,3)', [1.2, -0.5], [0.3, 0.2, 0.1]],
+  ])('%s: the same log-likelihood', (_name, ar, ma) => {
+    const ss = armaStateSpace(ar as number[], ma as number[]);
+    const f = kalmanFilter(y, ss, { tol: 1e-10 });
+    expect(Math.abs(concentratedLogLik(f) - denseFilter(y, ss, 0).logLik)).toBeLessThan(1e-6);
   });
 });

@@ -1057,7 +1057,7 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
       wn = tmpW;
     } else {
       chandra = false;
-      change = riccatiStep(P, Pn, RR, phi, g, r, p00, ginv);
+      change = r <= 4 ? riccatiStepSmall(P, Pn, RR, phi, r, p00, ginv) : riccatiStep(P, Pn, RR, phi, g, r, p00, ginv);
       const tmp = P;
       P = Pn;
       Pn = tmp;
@@ -1123,6 +1123,69 @@ export function concentratedLogLik(f: FilterResult): number {
   const n = f.nUsed;
   const s2 = f.ssq / n;
   return -0.5 * (n * Math.log(2 * Math.PI * s2) + f.sumLogF + n);
+}
+
+/**
+ * riccatiStep for a state of at most 4 (the orders p, q ≤ 3 without a seasonal block), its ten
+ * elements in scalars, zero beyond r: after a missing hour with an MA part near the unit circle
+ * the covariance moves for the rest of the series, and the loops over arrays were most of such a
+ * pass. (T P T')ᵢⱼ − gᵢgⱼ/F + RᵢRⱼ with gᵢ = φᵢP₀₀ + P₀,ᵢ₊₁, as there.
+ */
+function riccatiStepSmall(P: Float64Array, Pn: Float64Array, RR: Float64Array, phi: Float64Array, r: number, p00: number, ginv: number): number {
+  const s = r + 1;
+  const f0 = phi[0];
+  const f1 = r > 1 ? phi[1] : 0;
+  const f2 = r > 2 ? phi[2] : 0;
+  const f3 = r > 3 ? phi[3] : 0;
+  // P's elements beyond r are zero (its padding row and column are, the rest is not read)
+  const p01 = r > 1 ? P[1] : 0;
+  const p02 = r > 2 ? P[2] : 0;
+  const p03 = r > 3 ? P[3] : 0;
+  const p11 = r > 1 ? P[s + 1] : 0;
+  const p12 = r > 2 ? P[s + 2] : 0;
+  const p13 = r > 3 ? P[s + 3] : 0;
+  const p22 = r > 2 ? P[2 * s + 2] : 0;
+  const p23 = r > 3 ? P[2 * s + 3] : 0;
+  const p33 = r > 3 ? P[3 * s + 3] : 0;
+  const g0 = f0 * p00 + p01;
+  const g1 = f1 * p00 + p02;
+  const g2 = f2 * p00 + p03;
+  const g3 = f3 * p00;
+  const h0 = g0 * ginv;
+  const h1 = g1 * ginv;
+  const h2 = g2 * ginv;
+  const h3 = g3 * ginv;
+  const n00 = f0 * g0 + f0 * p01 + p11 + RR[0] - h0 * g0;
+  Pn[0] = n00;
+  let change = Math.abs(n00 - p00);
+  if (r > 1) {
+    const n01 = f0 * g1 + f1 * p01 + p12 + RR[1] - h0 * g1;
+    const n11 = f1 * g1 + f1 * p02 + p22 + RR[s + 1] - h1 * g1;
+    Pn[1] = n01;
+    Pn[s + 1] = n11;
+    change = Math.max(change, Math.abs(n01 - p01), Math.abs(n11 - p11));
+  }
+  if (r > 2) {
+    const n02 = f0 * g2 + f2 * p01 + p13 + RR[2] - h0 * g2;
+    const n12 = f1 * g2 + f2 * p02 + p23 + RR[s + 2] - h1 * g2;
+    const n22 = f2 * g2 + f2 * p03 + p33 + RR[2 * s + 2] - h2 * g2;
+    Pn[2] = n02;
+    Pn[s + 2] = n12;
+    Pn[2 * s + 2] = n22;
+    change = Math.max(change, Math.abs(n02 - p02), Math.abs(n12 - p12), Math.abs(n22 - p22));
+  }
+  if (r > 3) {
+    const n03 = f0 * g3 + f3 * p01 + RR[3] - h0 * g3;
+    const n13 = f1 * g3 + f3 * p02 + RR[s + 3] - h1 * g3;
+    const n23 = f2 * g3 + f3 * p03 + RR[2 * s + 3] - h2 * g3;
+    const n33 = f3 * g3 + RR[3 * s + 3] - h3 * g3;
+    Pn[3] = n03;
+    Pn[s + 3] = n13;
+    Pn[2 * s + 3] = n23;
+    Pn[3 * s + 3] = n33;
+    change = Math.max(change, Math.abs(n03 - p03), Math.abs(n13 - p13), Math.abs(n23 - p23), Math.abs(n33 - p33));
+  }
+  return change;
 }
 
 /**
