@@ -1,3 +1,5 @@
+import { multiplyInto } from './doubling-covariance';
+
 /**
  * X = Σ_k (T')^k B T^k, the solution of X − T' X T = B, for T the ARMA state's transition (φ in
  * the first column, ones on the superdiagonal) and B symmetric, by the doubling algorithm
@@ -41,15 +43,4 @@ export function adjointLyapunov(r: number, phi: Float64Array, B: Float64Array, m
     [A, XA] = [XA, A];
   }
   return null;
-}
-
-/** out = a b, r×r row-major (out distinct from a and b). */
-function multiplyInto(a: Float64Array, b: Float64Array, out: Float64Array, r: number): void {
-  for (let i = 0; i < r; i++) {
-    for (let j = 0; j < r; j++) {
-      let s = 0;
-      for (let k = 0; k < r; k++) s += a[i * r + k] * b[k * r + j];
-      out[i * r + j] = s;
-    }
-  }
 }

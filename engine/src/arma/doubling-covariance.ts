@@ -46,7 +46,8 @@ export function doublingCovariance(r: number, phi: Float64Array, R: Float64Array
   return P;
 }
 
-function multiplyInto(a: Float64Array, b: Float64Array, out: Float64Array, r: number): void {
+/** out = a b, r×r row-major (out distinct from a and b), skipping a's zeros (T is mostly zeros). */
+export function multiplyInto(a: Float64Array, b: Float64Array, out: Float64Array, r: number): void {
   out.fill(0);
   for (let i = 0; i < r; i++) {
     const ri = i * r;
