@@ -156,12 +156,19 @@ const CHANDRASEKHAR_SCORE_MIN_K = 4;
 const GAP_SCORE_MIN_K = 4;
 const GAP_SCORE_MIN_Q = 3;
 /**
- * A larger state (a seasonal block at 24: 25–28) from this many coefficients: the gradient
- * costs four to six passes there, and with seven hours out of the demand series fits with six
- * to eight coefficients took 0.52–0.94 of the time (5–9 times fewer likelihood evaluations),
- * ARMA(1,1)×(1,1)_24 0.98–1.22.
+ * A larger state (a seasonal block at 4 or 12: 5–12) from this many coefficients: the gradient
+ * costs four to six passes there. (Presidents' (3,0,2)(0,0,1)_4, six coefficients, reaches R's
+ * maximum on the unit circle only with it: fit-r-sweep.spec.ts.)
  */
 const GAP_SCORE_MIN_K_LARGE = 5;
+/**
+ * A state beyond 12 (a seasonal block at 24: 25–28) from this many coefficients. The gradient
+ * costs about as much there as seven to ten likelihood passes since those passes carry the
+ * deviation at its numerical rank (deviation-rank.ts); with seven hours out of the demand series,
+ * measured fit by fit in one process against differences (the same maxima): five coefficients
+ * 1.02–1.28 of the time, six 0.94–1.37, seven 0.93–1.22 (1.01 in all), eight 0.71–0.81.
+ */
+const GAP_SCORE_MIN_K_HOURLY = 7;
 const GAP_SCORE_MAX_STATE = 32;
 
 /** Orders whose likelihood commonly has several maxima (near-cancelling AR and MA roots). */
@@ -346,7 +353,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   // With missing values the gradient comes from the filter through them run backwards
   // (gap-score.ts) where that pays (GAP_SCORE_MIN_K and the constants beside it).
   const stateSize = Math.max(o.p + o.P * s, o.q + o.Q * s + 1);
-  const gapScored = !complete && stateSize <= GAP_SCORE_MAX_STATE && (stateSize > 4 ? k >= GAP_SCORE_MIN_K_LARGE : k >= GAP_SCORE_MIN_K || o.q >= GAP_SCORE_MIN_Q);
+  const gapScored = !complete && stateSize <= GAP_SCORE_MAX_STATE && (stateSize > 12 ? k >= GAP_SCORE_MIN_K_HOURLY : stateSize > 4 ? k >= GAP_SCORE_MIN_K_LARGE : k >= GAP_SCORE_MIN_K || o.q >= GAP_SCORE_MIN_Q);
   const scoreInput = (complete && k >= 3) || gapScored ? { x: withMean ? new Float64Array(x.length) : x, model: (u: Float64Array) => stateSpaceWithTangents(u, o, naturalMa) } : null;
   // the last evaluation's point and what its filter left for the steady-state score there
   const lastU = new Float64Array(k);

@@ -626,11 +626,10 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
   // likelihood only, small state: the steady-state stretches take the scalar loop below
   const fast = r <= 4 && !profile && !wantRes && !wantPred;
   // A large state through missing hours: the deviation from the gapless filter's covariance
-  // grows by a rank with each missing hour (steady-gap.ts), here up to half the state's size.
-  // Up to the whole size, the 5-hour gaps of the weekly-differenced demand series with a
-  // seasonal block cost more than the full recursion (an hour of the deviation at rank g costs
-  // about 5 r g, the full step 4 r²), and more of them still ran out of rank in the end. Not
-  // with the traced or stopped passes of the steady-state score (complete series only).
+  // grows by a rank with each missing hour and is brought down to its numerical rank on the way
+  // (steady-gap.ts, deviation-rank.ts), here up to half the state's size: an hour of the
+  // deviation at rank g costs about 5 r g, the full step 4 r². Not with the traced or stopped
+  // passes of the steady-state score (complete series only).
   const lowRankGaps = r > 4 && !complete && !wantTrace && stopAt < 0;
   const gapRank = r >> 1;
   let tStart = 0;
@@ -706,12 +705,10 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
     const sums = ws.sums;
     const last = quickStartUp(x.subarray(0, first), mu0, r, phi, P, a, w, wn, mw, tol, sums);
     let ended = GAP_RESTART;
-    // With more missing hours left than the deviation's rank may reach, it would run out of rank
-    // unless the filter settled between them, which a seasonal MA part near the unit circle does
-    // not do within weeks: the work done until then would be lost (on the doubly differenced
-    // demand series with three 5-hour gaps, a tenth more time per fit), so such a series starts
-    // again with P tracked at once.
-    if (sums[2] !== 1 && missingCount(x, first, gapRank + 1) <= gapRank) {
+    // Where the deviation grows past its rank the filter hands over to the full recursion with
+    // the whole covariance rebuilt (steady-gap.ts); only within r hours of the first missing
+    // hour, the gapless covariance not yet rebuildable, does it start again with P tracked.
+    if (sums[2] !== 1) {
       const gs = ws.gapSums;
       gs[0] = sums[0];
       gs[1] = sums[1];
@@ -1219,13 +1216,6 @@ function riccatiStep(P: Float64Array, Pn: Float64Array, RR: Float64Array, phi: F
 function nextMissing(x: Float64Array, from: number): number {
   for (let t = from; t < x.length; t++) if (!(x[t] === x[t])) return t;
   return x.length;
-}
-
-/** How many values from `from` on are missing, counted up to `limit`. */
-function missingCount(x: Float64Array, from: number, limit: number): number {
-  let count = 0;
-  for (let t = from; t < x.length && count < limit; t++) if (!(x[t] === x[t])) count++;
-  return count;
 }
 
 function hasMissing(x: Float64Array): boolean {
