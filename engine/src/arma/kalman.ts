@@ -12,7 +12,7 @@
  * column of ones alongside the data with the same gains (the augmented filter of de Jong 1991).
  */
 import { ArmaStateSpace, stationaryCovariance, stationaryCovarianceFirstRow } from './state-space';
-import { filterThroughGaps, GAP_RESTART, GAP_STEADY, GAP_SUMS, steadyCovarianceFromRow } from './steady-gap';
+import { filterThroughGaps, GAP_RANK_SLACK, GAP_RESTART, GAP_STEADY, GAP_SUMS, steadyCovarianceFromRow } from './steady-gap';
 
 export { steadyCovarianceFromRow };
 
@@ -707,8 +707,10 @@ export function kalmanFilter(series: ArrayLike<number>, ss: ArmaStateSpace, opts
     let ended = GAP_RESTART;
     // Where the deviation grows past its rank the filter hands over to the full recursion with
     // the whole covariance rebuilt (steady-gap.ts); only within r hours of the first missing
-    // hour, the gapless covariance not yet rebuildable, does it start again with P tracked.
-    if (sums[2] !== 1) {
+    // hour, the gapless covariance not yet rebuildable, does it start again with P tracked. The
+    // hours of one day add independent directions, so with nearly half a state's worth of them
+    // missing within those r hours (a feed down for half a day) it starts again at once.
+    if (sums[2] !== 1 && missingWithin(x, first, first + r) + GAP_RANK_SLACK <= gapRank) {
       const gs = ws.gapSums;
       gs[0] = sums[0];
       gs[1] = sums[1];
@@ -1216,6 +1218,13 @@ function riccatiStep(P: Float64Array, Pn: Float64Array, RR: Float64Array, phi: F
 function nextMissing(x: Float64Array, from: number): number {
   for (let t = from; t < x.length; t++) if (!(x[t] === x[t])) return t;
   return x.length;
+}
+
+/** How many values of x[from, to) are missing. */
+function missingWithin(x: Float64Array, from: number, to: number): number {
+  let count = 0;
+  for (let t = from; t < Math.min(to, x.length); t++) if (!(x[t] === x[t])) count++;
+  return count;
 }
 
 function hasMissing(x: Float64Array): boolean {

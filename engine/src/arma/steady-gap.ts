@@ -40,7 +40,7 @@ const RANK_DROP = 1e-3;
  * only at r/2 does, and about half of the time of the filter before any reduction.
  */
 const RANK_FIRST = 4;
-const RANK_SLACK = 2;
+export const GAP_RANK_SLACK = 2;
 /**
  * Whether the deviation has died away is checked every this many hours (a power of two), not
  * every hour: the check costs as much as the hour itself (O(r g)), and going on a few hours past
@@ -142,9 +142,9 @@ export function filterThroughGaps(
       // handed over where that leaves it too close to its limit to be worth going on
       if (g === limit) {
         g = reduceDeviationRank(W, M, r, s, g, maxRank, tol * RANK_DROP);
-        limit = Math.min(maxRank, g + RANK_SLACK);
+        limit = Math.min(maxRank, g + GAP_RANK_SLACK);
       }
-      if (g + RANK_SLACK > maxRank) {
+      if (g + GAP_RANK_SLACK > maxRank) {
         ended = moving && t - from < r ? GAP_RESTART : GAP_FULL;
         reachedEnd = false;
         break;
