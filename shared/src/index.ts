@@ -23,3 +23,4 @@ export * from './committed';
 export * from './weather';
 export * from './special-days';
 export * from './demo-weather';
+export * from './words';

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatSignedPercent } from './format';
+import { formatArmaOrders, formatSignedPercent } from './format';
 
 describe('formatSignedPercent', () => {
   it('puts a plus before a rise, keeps the minus of a fall, and shows no sign for zero', () => {
@@ -12,5 +12,14 @@ describe('formatSignedPercent', () => {
   it('says "—" when there is no figure', () => {
     expect(formatSignedPercent(null)).toBe('—');
     expect(formatSignedPercent(Number.NaN)).toBe('—');
+  });
+});
+
+describe('formatArmaOrders', () => {
+  it('writes the orders, with the seasonal block and its period when there is one', () => {
+    expect(formatArmaOrders(2, 1)).toBe('ARMA(2,1)');
+    expect(formatArmaOrders(2, 1, null)).toBe('ARMA(2,1)');
+    expect(formatArmaOrders(0, 3, { P: 1, Q: 1 })).toBe('ARMA(0,3)×(1,1)_24');
+    expect(formatArmaOrders(3, 0, { P: 0, Q: 1, period: 168 })).toBe('ARMA(3,0)×(0,1)_168');
   });
 });

@@ -27,3 +27,11 @@ export function formatSignedPercent(value: number | null | undefined, fractionDi
   const text = formatPercent(value, fractionDigits);
   return value != null && value > 0 ? `+${text}` : text;
 }
+
+/**
+ * A model's orders as the desk writes them everywhere: "ARMA(2,1)", with its seasonal block
+ * "ARMA(2,1)×(1,1)_24" (the block's period in hours, 24 when the row does not say).
+ */
+export function formatArmaOrders(p: number, q: number, seasonal?: { P: number; Q: number; period?: number } | null): string {
+  return `ARMA(${p},${q})${seasonal ? `×(${seasonal.P},${seasonal.Q})_${seasonal.period ?? 24}` : ''}`;
+}

@@ -4,7 +4,7 @@
  * the same four weeks of rolling day-ahead origins, fewer only when the history is short),
  * reshaped for the wire, with the residual checks in plain words.
  */
-import type { ModelCandidateDto, ModelFitDto, ModelReportDto } from '@morrowline/shared';
+import { countInWords, type ModelCandidateDto, type ModelFitDto, type ModelReportDto } from '@morrowline/shared';
 import { describeModel, runPipeline } from '@morrowline/engine';
 import { DESK_DAY_AHEAD_CHOICE, DESK_PIPELINE_OPTIONS } from '../../models/analysis/refit';
 import { num, toWire } from './stationarity-analysis';
@@ -67,7 +67,7 @@ export function analyseModel(input: ModelInput): ModelOutput {
     const orders = describeModel({ label: '', p: model.p, q: model.q, P: model.P, Q: model.Q, period: model.period }).trim();
     // each differencing stands with the best day-ahead forecaster of its DESK_DAY_AHEAD_CHOICE
     // orders with the lowest AICc (the criterion alone when that is one)
-    const kept = DESK_DAY_AHEAD_CHOICE > 1 ? `of the ${DESK_DAY_AHEAD_CHOICE} orders with the lowest AICc on each differencing, it` : 'it';
+    const kept = DESK_DAY_AHEAD_CHOICE > 1 ? `of the ${countInWords(DESK_DAY_AHEAD_CHOICE)} orders with the lowest AICc on each differencing, it` : 'it';
     summary = `The desk would forecast with ${orders} on ${model.label}: ${kept} had the smallest day-ahead error over the last ${r.selectionDays} days${
       chosen?.mape != null ? ` (MAPE ${chosen.mape.toFixed(2)} %` + (baselineMape !== null ? ` against ${baselineMape.toFixed(2)} % for the same hour last week)` : ')') : ''
     }${DESK_DAY_AHEAD_CHOICE > 1 ? '.' : ', and its orders have the lowest AICc.'}`;

@@ -1,4 +1,5 @@
 import type { ModelCompareDto, ModelVersionDto } from '@morrowline/shared';
+import { formatArmaOrders } from '../../../lib/format';
 
 /** Which side of a comparison row is the better one; null when it cannot be said. */
 export type Better = 'candidate' | 'in-service' | null;
@@ -41,8 +42,7 @@ function lower(a: number | null | undefined, b: number | null | undefined): Bett
 }
 
 export function ordersOf(v: ModelVersionDto): string {
-  const s = v.seasonal ? `×(${v.seasonal.P},${v.seasonal.Q})_${v.seasonal.period}` : '';
-  return `ARMA(${v.p},${v.q})${s} on ${v.differencingLabel}`;
+  return `${formatArmaOrders(v.p, v.q, v.seasonal)} on ${v.differencingLabel}`;
 }
 
 /** The smallest Ljung–Box p-value: the lag where leftover pattern is most likely. */

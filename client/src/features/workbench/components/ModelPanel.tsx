@@ -1,6 +1,7 @@
 import { ATTENTION_TEXT } from '../../../lib/text-colors';
 import { Alert, Badge, Group, Paper, SimpleGrid, Stack, Table, Text, Title } from '@mantine/core';
 import type { ModelReportDto } from '@morrowline/shared';
+import { formatArmaOrders } from '../../../lib/format';
 import { fmtNum, fmtP } from '../chart-data';
 import { CorrelogramChart } from './CorrelogramChart';
 
@@ -136,7 +137,7 @@ export function ModelPanel({ report }: { report: ModelReportDto }) {
               {report.candidates.map((c) => (
                 <Table.Tr key={c.label}>
                   <Table.Td ff="monospace">{c.label}</Table.Td>
-                  <Table.Td ff="monospace">{c.p === null ? (c.error ?? '—') : `ARMA(${c.p},${c.q})${c.seasonal ? `×(${c.seasonal.P},${c.seasonal.Q})_24` : ''}`}</Table.Td>
+                  <Table.Td ff="monospace">{c.p === null ? (c.error ?? '—') : formatArmaOrders(c.p, c.q ?? 0, c.seasonal)}</Table.Td>
                   <Table.Td ta="right" ff="monospace">{fmtNum(c.aicc, 1)}</Table.Td>
                   <Table.Td ta="right" ff="monospace">{c.mape === null ? '—' : `${fmtNum(c.mape, 2)} %`}</Table.Td>
                   <Table.Td>{c.chosen && <Badge color="tide">chosen</Badge>}</Table.Td>
