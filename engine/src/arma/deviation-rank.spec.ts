@@ -88,6 +88,16 @@ describe('reduceDeviationRank', () => {
     expect(eig[1]).toBeCloseTo(2, 12);
   });
 
+  it('leaves a deviation that is no longer finite as it is', () => {
+    const g = 2;
+    const W = new Float64Array(s * g);
+    W[0] = 1;
+    W[s + 1] = NaN;
+    const M = new Float64Array([1, 0, 0, 1]);
+    expect(reduceDeviationRank(W, M, r, s, g, g, 1e-12)).toBe(2);
+    expect(W[s + 1]).toBeNaN();
+  });
+
   it('returns zero for an empty deviation', () => {
     expect(reduceDeviationRank(new Float64Array(s), new Float64Array(1), r, s, 0, 1, 1e-12)).toBe(0);
   });

@@ -29,6 +29,12 @@ const MAX_SWEEPS = 40;
  */
 export function reduceDeviationRank(W: Float64Array, M: Float64Array, r: number, s: number, g: number, ms: number, drop: number): number {
   if (g === 0) return 0;
+  // a deviation that is no longer finite is left as it is, so that the likelihood it feeds is not
+  // finite either and the search rejects the point (dropping its directions would hide it)
+  for (let j = 0; j < g; j++) {
+    for (let i = 0; i < r; i++) if (!Number.isFinite(W[j * s + i])) return g;
+    for (let l = 0; l < g; l++) if (!Number.isFinite(M[j * ms + l])) return g;
+  }
   // W's columns into A (column-major, stride r), then Householder QR in place: the reflector of
   // column j is A[j..r−1, j] with beta[j], U's diagonal in d, its upper part above A's diagonal
   const A = scratchAtLeast('rank.A', r * g);
