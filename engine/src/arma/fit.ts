@@ -182,7 +182,11 @@ export function needsSecondStart(o: Required<ArmaSpec>): boolean {
  */
 export const BOUNDARY_MARGIN = 1e-3;
 
-/** The longest series searched from the free-MA CSS start as well unless close to white noise (see fitArma). */
+/**
+ * The longest series searched from the free-MA CSS start as well unless close to white noise,
+ * and from the CSS estimate and zero whatever the order (see fitArma): a short series, where one
+ * more search costs little beside R's fit (the demand series and their windows are longer).
+ */
 const FREE_MA_START_MAX_LENGTH = 1000;
 /**
  * Close to white noise: the first ten autocorrelations' squares sum to less than this. The four
@@ -214,9 +218,28 @@ const AR_UNIT_ROOT_START = 0.95;
 const NATURAL_MA_START_MIN_COEFFICIENTS = 6;
 /** The natural-MA start's iterations: a start, refined in the region afterwards (see fitArma). */
 const NATURAL_MA_START_ITERATIONS = 20;
+/**
+ * The same for an order without a seasonal block: from four coefficients, with 40 iterations.
+ * On series outside the sweeps the start was tuned on (fixtures/r-arima-further.R), nottem
+ * (1 − B¹²) ARMA(2,2) ended 4.2 below R's "ML", which has an MA pair on the circle at the
+ * six-month period (one of the roots the seasonal difference brings); from here it reaches it,
+ * with 25 iterations or more. (UKDriverDeaths (1 − B¹²) ARMA(3,1), 6.0 below with its MA root at
+ * −1, is reached from here and from zero.) Over the three sweeps of fixtures/r-arima-sweep.R no
+ * maximum moved, for 6 % more evaluations.
+ */
+const NATURAL_MA_START_MIN_COEFFICIENTS_PLAIN = 4;
+const NATURAL_MA_START_ITERATIONS_PLAIN = 40;
 
 /** See `maxima` in fitArma: the half-width of the box around a known maximum that a later search stops in. */
 export const KNOWN_BASIN_RADIUS = 0.2;
+/**
+ * Iterations in a row a search stays in that box before it is taken to have joined the maximum.
+ * One step can pass through the box on its way elsewhere: on co2 (1 − B¹²) with a mean,
+ * (0,0,0)(1,0,1)_12's search from zero landed 0.1 from the Hannan–Rissanen maximum at its first
+ * iteration and was stopped there, where it goes on to a maximum 6.5 higher (R's "CSS-ML"
+ * reaches it). Over the demand orders of `npm run bench` it costs 0–3 evaluations a fit.
+ */
+const KNOWN_BASIN_STAY = 2;
 
 /** Whether every value of u lies within r of the same value of c. */
 function withinBox(u: ArrayLike<number>, c: ArrayLike<number>, r: number): boolean {
@@ -440,7 +463,8 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   // that maximum (`joined`). On the demand series and R's datasets the second, third and fourth
   // starts mostly end at a maximum an earlier one found, and the last third to half of their
   // evaluations were that climb (weekly-differenced ARMA(3,3): the opposed start entered the
-  // zero start's basin at its 55th of 70 iterations).
+  // zero start's basin at its 55th of 70 iterations). It must stay there for KNOWN_BASIN_STAY
+  // iterations in a row.
   const maxima: BfgsResult[] = [];
   // searches stopped on their slide onto the boundary, with the start each began from
   const slideStops: Array<{ r: BfgsResult; from: ArmaFit['startedFrom'] }> = [];
@@ -448,9 +472,15 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   const basinRadius = opts.knownBasinRadius ?? KNOWN_BASIN_RADIUS;
   const search = (from: Float64Array, stopWhen?: (u: Float64Array) => boolean): BfgsResult => {
     let joined: BfgsResult | null = null;
+    let inBox = 0;
+    let near: BfgsResult | null = null;
     const stop = (u: Float64Array, fu: number): boolean => {
       if (stopWhen?.(u)) return true;
-      joined = maxima.find((m) => fu >= m.f && withinBox(u, m.x, basinRadius)) ?? null;
+      const m = maxima.find((m) => fu >= m.f && withinBox(u, m.x, basinRadius)) ?? null;
+      if (m && m === near) inBox++;
+      else inBox = m ? 1 : 0;
+      near = m;
+      if (inBox >= KNOWN_BASIN_STAY) joined = m;
       return joined !== null;
     };
     const r = minimizeBfgs(objective, from, {
@@ -600,7 +630,9 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
     // gate: on the demand series and its windows nothing changes; on R's datasets no maximum
     // moved and the short ones cost more (log10(lynx) ARMA(3,3) 28 → 73 evaluations, 1.4 → 2.1 ms).
     if (o.p > 0 && !arRootTried) tryStart(arUnitRootStart(k), 'ar-unit-root');
-    if (o.q + o.Q > 0 && k >= NATURAL_MA_START_MIN_COEFFICIENTS && (opts.naturalMaStart ?? true)) {
+    // (without a seasonal block from fewer coefficients: NATURAL_MA_START_MIN_COEFFICIENTS_PLAIN)
+    const plain = o.P + o.Q === 0;
+    if (o.q + o.Q > 0 && k >= (plain ? NATURAL_MA_START_MIN_COEFFICIENTS_PLAIN : NATURAL_MA_START_MIN_COEFFICIENTS) && (opts.naturalMaStart ?? true)) {
       // The exact likelihood searched from zero with the MA coefficients as they are, the AR
       // part through the transform: R's "ML" search. Free to cross the unit circle, the MA part
       // can walk to a maximum on it (an MA root at modulus 1, or an AR and an MA root nearly
@@ -617,7 +649,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       // 80 (which move a few others' maxima either way, all above R), with 10 only two.
       naturalMa = true;
       lastValid = false;
-      const nat = minimizeBfgs(objective, new Float64Array(k), { maxIter: NATURAL_MA_START_ITERATIONS, gradTol: 1e-7, fTol: opts.fTol ?? 1e-13, step, gradient });
+      const nat = minimizeBfgs(objective, new Float64Array(k), { maxIter: plain ? NATURAL_MA_START_ITERATIONS_PLAIN : NATURAL_MA_START_ITERATIONS, gradTol: 1e-7, fTol: opts.fTol ?? 1e-13, step, gradient });
       naturalMa = false;
       lastValid = false;
       evaluations += nat.evaluations;
@@ -625,14 +657,19 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       if (from) tryStart(from, 'natural-ma');
     }
   }
-  if (!st && !cssTried && o.P + o.Q > 0 && restarts) {
+  const short = x.length <= FREE_MA_START_MAX_LENGTH;
+  if (!st && !cssTried && (o.P + o.Q > 0 || short) && restarts) {
     // A search that ends below a point we already know is at a lower local maximum: with a
     // seasonal block the conditional-sum-of-squares estimate costs little beside the fit (one
     // CSS search and one likelihood pass) to look at. On the daily-differenced demand series
     // ARMA(0,3)×(1,1)_24 from Hannan–Rissanen ended 240 below R's maximum, inside the region;
     // the CSS estimate was above that end, and the search from it reaches R's maximum. (Without
-    // a seasonal block the CSS search costs more than the fit of a small order, and orders with
-    // p, q ≥ 2 search from the CSS estimate anyway.)
+    // a seasonal block the CSS search costs more than the fit of a small order on the demand
+    // series, 1.4–3.8 times its time, and orders with p, q ≥ 2 search from the CSS estimate
+    // anyway; on a short series it is looked at for every order: co2 (1 − B) MA(3) with a mean
+    // ended 90 below R's maximum, and 64 below its own MA(2), from a Hannan–Rissanen start that
+    // truncates the series' slowly decaying ψ weights; the search from the CSS estimate
+    // reaches R's.)
     const css = cssStart(centred, { p: o.p, q: o.q, P: o.P, Q: o.Q, period: s || 1 });
     if (css) {
       cssTried = true;
@@ -640,6 +677,19 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       evaluations++;
       if (fCss < opt.f) tryStart(css, 'css');
     }
+  }
+  if (!st && restarts && !zeroTried && k > 0 && short) {
+    // On a short series every order is searched from all-zero coefficients as well (R's own
+    // start), where that has not been done yet. AirPassengers (1 − B¹²) ARMA(2,3) with a mean
+    // ended 1.3 below R's "CSS-ML" although the Hannan–Rissanen and CSS starts agreed, and the
+    // zero start reaches it; so does co2 (1 − B¹²)'s (0,0,0)(1,0,1)_12, 6.5 below. Over the three
+    // sweeps of fixtures/r-arima-sweep.R and those of fixtures/r-arima-further.R (2,120 fits),
+    // with the CSS look above and KNOWN_BASIN_STAY, 29 maxima rose (by up to 90) and one fell by
+    // 0.27 (Seatbelts drivers (1 − B)(1 − B¹²) ARMA(1,2), still above R's), for 21 % more
+    // evaluations; on R's short datasets of `npm run bench` up to twice as many (log10(lynx)
+    // ARMA(3,3) 111 → 212).
+    zeroTried = true;
+    tryStart(new Float64Array(k), 'zero');
   }
   let probed = false;
   const seasonalProbe = (): void => {
