@@ -97,18 +97,23 @@ describe('wider orders on the same 14 seasonal series against R’s best', () =>
     }
   }, 30_000);
 
+  // Since every slide stopped apart from the others is taken up again where all starts slid
+  // (fitArma), ldeaths' is reached without the natural-MA start as well: the free-MA CSS start's
+  // slide, taken up, ends there.
   it.each([
-    ['mdeaths (1-B12)', 3, 3, 1, 0, -1],
-    ['ldeaths (1-B12)', 3, 3, 0, 1, -1],
-  ])('reaches R’s maximum with an MA root on the unit circle on %s (%i,0,%i)(%i,0,%i) from the natural-MA start, and not without it', (name, p, q, P, Q, sign) => {
+    ['mdeaths (1-B12)', 3, 3, 1, 0, true],
+    ['ldeaths (1-B12)', 3, 3, 0, 1, false],
+  ])('reaches R’s maximum with an MA root on the unit circle on %s (%i,0,%i)(%i,0,%i) (only from the natural-MA start: %s)', (name, p, q, P, Q, only) => {
     const c = cases.find((k) => k.s.name === name)!;
     const f = c.fits.find((k) => k.p === p && k.q === q && (k.P ?? 0) === P && (k.Q ?? 0) === Q)!;
     const fit = fitLike(c.s, f);
     expect(fit.loglik).toBeGreaterThan(rBest(f) - 0.001);
-    expect(fit.startedFrom).toBe('natural-ma');
-    // the last MA coefficient at ±1 to two digits: a root on the unit circle
-    expect(sign * fit.ma[q - 1]).toBeGreaterThan(0.99);
-    expect(fitLike(c.s, f, { naturalMaStart: false }).loglik).toBeLessThan(rBest(f) - 0.05);
+    if (only) expect(fit.startedFrom).toBe('natural-ma');
+    // the last MA coefficient at −1 to two digits: a root on the unit circle
+    expect(fit.ma[q - 1]).toBeLessThan(-0.99);
+    const without = fitLike(c.s, f, { naturalMaStart: false }).loglik;
+    if (only) expect(without).toBeLessThan(rBest(f) - 0.05);
+    else expect(without).toBeGreaterThan(rBest(f) - 0.001);
   }, 30_000);
 
   // R 4.2.2 arima(method = "ML") on these (run on 4 December 2026) ends with an AR root on the
