@@ -761,7 +761,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
     // lead to the highest boundary. On the first 2,000 values of treering differenced once,
     // ARMA(2,2) and ARMA(3,2) each ended on the slide of the Hannan–Rissanen start, 2.9 and 7.3
     // below R's "ML" (an MA root at +1, θ = (−1.85, 0.85): the series differenced once too
-    // often), while the slide of the zero start, stopped lower, goes on to 6.4 and 0.01 above
+    // often), while the slide of the zero start, stopped lower, goes on to 6.4 above R's and to
     // R's; so did ldeaths (1 − B) (2,0,2)(0,0,1)_12's AR-unit-root slide, 1.1 below before. On
     // the demand orders of `npm run bench` no maximum moved and the seasonal fits of
     // (1−B)(1−B¹⁶⁸) cost up to a quarter more evaluations; on R's short seasonal series up to
