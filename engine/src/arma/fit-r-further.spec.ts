@@ -39,6 +39,14 @@ function gapsOver(series: SweepSeries[]): Map<string, number> {
 }
 const belowR = (gaps: Map<string, number>) => [...gaps].filter(([, d]) => d < -0.001).map(([k]) => k).sort();
 
+/** Every fit of the series at or above R's best (within 0.001) but the ones named, each below by less than its bound. */
+function expectOnlyKnownBelow(series: SweepSeries[], fits: number, known: Array<[string, number]>): void {
+  const gaps = gapsOver(series);
+  expect(gaps.size).toBe(fits);
+  expect(belowR(gaps)).toEqual(known.map(([k]) => k).sort());
+  for (const [k, bound] of known) expect(gaps.get(k)).toBeGreaterThan(-bound);
+}
+
 function findFit(series: SweepSeries[], name: string, p: number, q: number, P = 0, Q = 0): { s: SweepSeries; f: SweepFit } {
   const s = series.find((c) => c.name === name)!;
   return { s, f: s.fits.find((f) => f.p === p && f.q === q && (f.P ?? 0) === P && (f.Q ?? 0) === Q)! };
@@ -59,10 +67,7 @@ describe('every ARMA(p, q), p, q ≤ 3, on 87 further series against R’s best'
     ['sunspot.month (1-B) first 2000 (3,3)(0,0)', 1.5],
   ];
   it('ends below R’s best log-likelihood (by more than 0.001) only in the four fits named, each by less than its bound', () => {
-    const gaps = gapsOver(furtherArmaSweep);
-    expect(gaps.size).toBe(ARMA_FITS);
-    expect(belowR(gaps)).toEqual(known.map(([k]) => k).sort());
-    for (const [k, bound] of known) expect(gaps.get(k)).toBeGreaterThan(-bound);
+    expectOnlyKnownBelow(furtherArmaSweep, ARMA_FITS, known);
   }, 180_000);
 
   // R 4.2.2 "ML" ends UKDriverDeaths (1 − B¹²) ARMA(3,1) at θ = 0.9999991 (an MA root at −1,
@@ -112,10 +117,7 @@ describe('every (p, 0, q)(P, 0, Q)_s, p, q ≤ 2, P, Q ≤ 1, on 23 further seas
     ['USAccDeaths (1-B) (2,1)(1,1)', 1.3],
   ];
   it('ends at or above R’s best log-likelihood (within 0.001) in every fit but the two named', () => {
-    const gaps = gapsOver(furtherSeasonalSweep);
-    expect(gaps.size).toBe(SEASONAL_FITS);
-    expect(belowR(gaps)).toEqual(known.map(([k]) => k).sort());
-    for (const [k, bound] of known) expect(gaps.get(k)).toBeGreaterThan(-bound);
+    expectOnlyKnownBelow(furtherSeasonalSweep, SEASONAL_FITS, known);
   }, 180_000);
 
   // co2 (1 − B¹²) (0,0,0)(1,0,1)_12 with a mean: R's "CSS-ML" Φ = 0.926, Θ = −0.834, −422.252
