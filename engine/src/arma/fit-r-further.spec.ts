@@ -56,17 +56,20 @@ describe('every ARMA(p, q), p, q ≤ 3, on 87 further series against R’s best'
   // Fitted as hold-outs in three rounds, each after the changes the rounds before it led to: 5
   // of the first round's 675 ARMA fits (and 1 of 189 seasonal ones) ended 0.17–90 below R's
   // best, 3 of the second's 330 (and 1 of 215), 3 of the third's 300 (and 2 of 215) by
-  // 0.04–2.4. After the changes below, these are left (the third round's were not looked into).
-  // USAccDeaths' ARMA(3,2) with a mean, by 0.17: its maximum lies at the edge of both regions
-  // (R: θ₂ = 0.99995, an MA pair of modulus 1.00002 nearly cancelled by an AR pair of modulus
-  // 1.0023), and the search crawls along that edge for its 200 iterations.
+  // 0.04–2.4. After the changes below, these are left. USAccDeaths' ARMA(3,2) with a mean, by
+  // 0.17: its maximum lies at the edge of both regions (R: θ₂ = 0.99995, an MA pair of modulus
+  // 1.00002 nearly cancelled by an AR pair of modulus 1.0023), and the search crawls along that
+  // edge for its 200 iterations. austres' MA(2) with a mean, by 0.04: along the circle (θ₂ = 1)
+  // the likelihood has several maxima in the pair's frequency; at θ₂ = 0.99998 (R 4.2.2 agrees to
+  // 1e-5 at these points) −654.219 at θ₁ = 1.947, where the engine ends, −654.302 at 1.955,
+  // −654.396 at 1.965, −654.184 at R's 1.978. sunspot.month's first 2,000 values differenced once,
+  // ARMA(3,3), by 1.4: the starts a series this long is searched from agree on a lower maximum.
   const known: Array<[string, number]> = [
     ['USAccDeaths (3,2)(0,0)', 0.2],
     ['austres (0,2)(0,0)', 0.05],
-    ['beaver1 temp (1-B) (2,2)(0,0)', 0.06],
     ['sunspot.month (1-B) first 2000 (3,3)(0,0)', 1.5],
   ];
-  it('ends below R’s best log-likelihood (by more than 0.001) only in the four fits named, each by less than its bound', () => {
+  it('ends below R’s best log-likelihood (by more than 0.001) only in the three fits named, each by less than its bound', () => {
     expectOnlyKnownBelow(furtherArmaSweep, ARMA_FITS, known);
   }, 180_000);
 
@@ -86,6 +89,20 @@ describe('every ARMA(p, q), p, q ≤ 3, on 87 further series against R’s best'
     const without = fitLike(s, f, { naturalMaStart: false }).loglik;
     if (only) expect(without).toBeLessThan(rBest(f) - 1);
     else expect(without).toBeGreaterThan(rBest(f) - 0.001);
+  }, 30_000);
+
+  // beaver1's temperatures differenced once, ARMA(2,2): R's "CSS-ML" 103.849 at φ = (−1.061,
+  // −0.999), θ = (1.055, 0.988), an AR pair at modulus 0.9996 nearly cancelled by an MA pair;
+  // "ML" 103.801. Every start ended at "ML"'s maximum or slid onto the edge; the CSS start's slide,
+  // stopped lower than the opposed start's, goes on past R's "CSS-ML" now that every slide
+  // apart from the others is taken up again.
+  it('reaches R’s "CSS-ML" maximum on beaver1 temp (1 − B) ARMA(2,2) from the CSS start’s slide', () => {
+    const { s, f } = findFit(furtherArmaSweep, 'beaver1 temp (1-B)', 2, 2);
+    const fit = fitLike(s, f);
+    expect(fit.loglik).toBeGreaterThan((f.cssMl as number) - 0.001);
+    expect(fit.loglik).toBeGreaterThan((f.ml as number) + 0.04);
+    expect(fit.ar[1]).toBeLessThan(-0.99);
+    expect(fit.startedFrom).toBe('css');
   }, 30_000);
 
   // co2 (1 − B) MA(3) with a mean: R reaches θ = (0.980, 0.830, 0.420), −520.768; from the
