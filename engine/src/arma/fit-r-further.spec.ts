@@ -8,48 +8,24 @@
  * where it still ends below are named.
  */
 import { furtherArmaSweep, furtherSeasonalSweep, rBestExact as rBest, SweepFit, SweepSeries, sweepValues } from '../fixtures/r-arima-sweep.testing';
-import { ArmaFit, fitArma, FitOptions } from './fit';
 import { concentratedLogLik, kalmanFilter } from './kalman';
 import { expandAr, expandMa } from './polynomials';
+import { belowR, findFit, fitId as id, fitLike, gapsOver } from './r-sweep-fits.testing';
 import { armaStateSpace } from './state-space';
-
-function fitLike(s: SweepSeries, f: SweepFit, opts: FitOptions = {}): ArmaFit {
-  const P = f.P ?? 0;
-  const Q = f.Q ?? 0;
-  const spec = P + Q > 0 ? { p: f.p, q: f.q, P, Q, period: s.period, includeMean: s.includeMean } : { p: f.p, q: f.q, includeMean: s.includeMean };
-  return fitArma(sweepValues(s), spec, { computeSe: false, ...opts });
-}
 
 /** Fits R reached by one method at least (R 4.2.2 fails a few with an error). */
 const ARMA_FITS = 1305;
 const SEASONAL_FITS = 619;
 
-const id = (s: SweepSeries, f: SweepFit) => `${s.name} (${f.p},${f.q})(${f.P ?? 0},${f.Q ?? 0})`;
-
-/** The engine's log-likelihood minus R's best, by fit, over every fit R reached by one method at least. */
-function gapsOver(series: SweepSeries[]): Map<string, number> {
-  const gaps = new Map<string, number>();
-  for (const s of series) {
-    for (const f of s.fits) {
-      const best = rBest(f);
-      if (Number.isFinite(best)) gaps.set(id(s, f), fitLike(s, f).loglik - best);
-    }
-  }
-  return gaps;
-}
-const belowR = (gaps: Map<string, number>) => [...gaps].filter(([, d]) => d < -0.001).map(([k]) => k).sort();
-
 /** Every fit of the series at or above R's best (within 0.001) but the ones named, each below by less than its bound. */
 function expectOnlyKnownBelow(series: SweepSeries[], fits: number, known: Array<[string, number]>): void {
-  const gaps = gapsOver(series);
+  const gaps = gapsOver(
+    series.map((s) => ({ s, fits: s.fits })),
+    rBest,
+  );
   expect(gaps.size).toBe(fits);
   expect(belowR(gaps)).toEqual(known.map(([k]) => k).sort());
   for (const [k, bound] of known) expect(gaps.get(k)).toBeGreaterThan(-bound);
-}
-
-function findFit(series: SweepSeries[], name: string, p: number, q: number, P = 0, Q = 0): { s: SweepSeries; f: SweepFit } {
-  const s = series.find((c) => c.name === name)!;
-  return { s, f: s.fits.find((f) => f.p === p && f.q === q && (f.P ?? 0) === P && (f.Q ?? 0) === Q)! };
 }
 
 describe('every ARMA(p, q), p, q ≤ 3, on 87 further series against R’s best', () => {
