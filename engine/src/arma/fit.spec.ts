@@ -5,7 +5,7 @@
  * AirPassengers). The last block uses values typed from engine.md §8 (also R 4.2.2).
  */
 import { simulateArma21 } from '../cli/bench-series';
-import { fitArma } from './fit';
+import { fitArma, hasMaRootNearOne } from './fit';
 import fixture from '../fixtures/r-arima.json';
 import { fitArima, forecastArima } from '../forecast';
 
@@ -209,5 +209,20 @@ describe('a search that reaches the edge of the stationary region', () => {
     const f = fitArma(x, { p: 3, q: 3, includeMean: false }, { computeSe: false, start });
     expect(Number.isFinite(f.loglik)).toBe(true);
     expect([...f.ar, ...f.ma].every(Number.isFinite)).toBe(true);
+  });
+});
+
+describe('hasMaRootNearOne: a real MA root in (0, 1.02], a factor close to (1 − B)', () => {
+  // roots worked by hand from the factored polynomials
+  it.each([
+    ['(1 − B)(1 − 0.866B): a root at 1', [-1.866, 0.866], true],
+    ['1 − 0.99B: a root at 1.0101', [-0.99], true],
+    ['1 − 0.198B − 0.786B²: roots 1.009 and −1.261', [-0.198, -0.786], true],
+    ['1 − 0.98B: a root at 1.0204', [-0.98], false],
+    ['1 + 0.99B: a root at −1.0101', [0.99], false],
+    ['1 − 1.9B + 0.99B²: a complex pair of modulus 1.005', [-1.9, 0.99], false],
+    ['no MA part', [], false],
+  ])('%s', (_name, theta, expected) => {
+    expect(hasMaRootNearOne(theta as number[])).toBe(expected);
   });
 });

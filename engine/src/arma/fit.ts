@@ -28,7 +28,7 @@
  * AIC = −2 log L + 2k (Akaike 1974), AICc = AIC + 2k(k+1)/(n−k−1) (Hurvich & Tsai 1989),
  * BIC = −2 log L + k log n (Schwarz 1978).
  */
-import { Matrix, inverse } from 'ml-matrix';
+import { EigenvalueDecomposition, Matrix, inverse } from 'ml-matrix';
 import { BfgsResult, minimizeBfgs } from './bfgs';
 import { chandrasekharScore } from './chandrasekhar-score';
 import { gapScore } from './gap-score';
@@ -552,6 +552,7 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
   let cssTried = false;
   let zeroTried = false;
   let arRootTried = false;
+  let maRootTried = false;
   if (!st && (opts.secondStart ?? needsSecondStart(o))) {
     // With AR and MA orders of two or more, roots of the two polynomials can nearly cancel and
     // the likelihood has several maxima; the Hannan–Rissanen start then often lands on a lower
@@ -591,9 +592,8 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       // search below covers the over-differenced case, and another search there costs a
       // seasonal fit's worth (ARMA(3,3)×(1,1)_24 on (1−B)(1−B¹⁶⁸): 335 ms became 509 ms).
       if (o.P + o.Q === 0) {
-        const maRoot = new Float64Array(k);
-        maRoot[o.p] = Math.atanh(-0.99);
-        tryStart(maRoot, 'ma-unit-root');
+        maRootTried = true;
+        tryStart(maUnitRootStart(o, k), 'ma-unit-root');
       }
     } else if (!complete && o.p > 0 && o.P + o.Q === 0) {
       // With missing values both starts come from the same holes handled crudely (the
@@ -607,6 +607,19 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
       arRootTried = true;
       tryStart(arUnitRootStart(k), 'ar-unit-root');
     }
+  }
+  if (!st && restarts && !maRootTried && needsSecondStart(o) && o.P + o.Q === 0 && hasMaRootNearOne(fromUnconstrained(opt.x, o).ma)) {
+    // The Hannan–Rissanen and CSS starts agreed on a maximum whose MA part has a real root close
+    // to +1, a factor near (1 − B): the mark of a series differenced once too often (Plosser &
+    // Schwert 1977), where the exact likelihood's highest value can lie with that root on the
+    // unit circle (Davis & Dunsmuir 1996), a maximum a search inside the region need not reach.
+    // So the MA-unit-root start runs here as well. Values 4,001–6,000 of treering differenced
+    // once, ARMA(2,2): both starts ended at θ = (−0.198, −0.786), a root at 1.009, 5.4 below R's
+    // "ML" (a root at 1.000); from this start the search ends 2.6 above it (a fourth round of
+    // series the starts were not tuned on). It ran for none of the demand orders of `npm run
+    // bench`, complete or with missing hours, nor for their eight-week windows; on the sweeps of
+    // fixtures/r-arima-sweep.R and fixtures/r-arima-further.R it ran twice and moved no maximum.
+    tryStart(maUnitRootStart(o, k), 'ma-unit-root');
   }
   if (!st && restarts && wantsFreeMaStart(o) && (x.length <= FREE_MA_START_MAX_LENGTH || nearWhiteNoise(x))) {
     // The CSS estimate searched as R's arima searches it (MA part unconstrained, the mean a
@@ -897,6 +910,36 @@ function opposedStart(o: Required<ArmaSpec>, k: number): Float64Array {
 }
 
 /** Whether a partial autocorrelation of the unconstrained values u[from, from + m) lies beyond ±0.95. */
+/**
+ * The MA-unit-root start: no AR part and θ₁ = 0.99 (a root near B = −1), the rest zero, in the
+ * transform's values (see fitArma).
+ */
+function maUnitRootStart(o: Required<ArmaSpec>, k: number): Float64Array {
+  const u = new Float64Array(k);
+  u[o.p] = Math.atanh(-0.99);
+  return u;
+}
+
+/** A real MA root in (1, MA_ROOT_NEAR_ONE]: a factor close to (1 − B) (see fitArma). */
+export const MA_ROOT_NEAR_ONE = 1.02;
+
+/**
+ * Whether 1 + θ₁B + … + θ_qB^q has a real root in (0, MA_ROOT_NEAR_ONE]: the roots are the
+ * reciprocals of the eigenvalues of the companion matrix of its reversed polynomial.
+ */
+export function hasMaRootNearOne(theta: ArrayLike<number>): boolean {
+  const q = theta.length;
+  if (q === 0) return false;
+  const c = Matrix.zeros(q, q);
+  for (let j = 0; j < q; j++) c.set(0, j, -theta[j]);
+  for (let i = 1; i < q; i++) c.set(i, i - 1, 1);
+  const evd = new EigenvalueDecomposition(c, { assumeSymmetric: false });
+  for (let r = 0; r < q; r++) {
+    if (evd.imaginaryEigenvalues[r] === 0 && evd.realEigenvalues[r] >= 1 / MA_ROOT_NEAR_ONE) return true;
+  }
+  return false;
+}
+
 function nearUnitCircle(u: ArrayLike<number>, from: number, m: number): boolean {
   for (let i = from; i < from + m; i++) if (Math.abs(Math.tanh(u[i])) > 0.95) return true;
   return false;
