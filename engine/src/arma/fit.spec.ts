@@ -5,7 +5,7 @@
  * AirPassengers). The last block uses values typed from engine.md §8 (also R 4.2.2).
  */
 import { simulateArma21 } from '../cli/bench-series';
-import { fitArma, hasMaRootNearOne } from './fit';
+import { fitArma, hasArRootNearCircle, hasMaRootNearOne } from './fit';
 import fixture from '../fixtures/r-arima.json';
 import { fitArima, forecastArima } from '../forecast';
 
@@ -224,5 +224,20 @@ describe('hasMaRootNearOne: a real MA root in (0, 1.02], a factor close to (1 �
     ['no MA part', [], false],
   ])('%s', (_name, theta, expected) => {
     expect(hasMaRootNearOne(theta as number[])).toBe(expected);
+  });
+});
+
+describe('hasArRootNearCircle: an AR root of modulus up to 1.01', () => {
+  // roots worked by hand from the factored polynomials
+  it.each([
+    ['1 − 0.995B: a root at 1.005', [0.995], true],
+    ['1 + 0.995B: a root at −1.005', [-0.995], true],
+    ['1 − 0.98B: a root at 1.0204', [0.98], false],
+    ['1 − 0.99B²: roots ±1.005', [0, 0.99], true],
+    ['1 − 1.9B + 0.95B²: a complex pair of modulus 1.026', [1.9, -0.95], false],
+    ['(1 − 0.5B)(1 − 0.995B): roots 2 and 1.005', [1.495, -0.4975], true],
+    ['no AR part', [], false],
+  ])('%s', (_name, phi, expected) => {
+    expect(hasArRootNearCircle(phi as number[])).toBe(expected);
   });
 });
