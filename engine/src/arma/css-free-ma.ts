@@ -18,10 +18,9 @@
  * starts, and 9 of them reach it from this one (engine/src/fixtures/r-arima-sweep.R; when it is
  * tried, fitArma).
  */
-import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
 import { minimizeBfgs } from './bfgs';
 import { CssOrders, usableTerms } from './css-problem';
-import { expansionAdjoint, filledLags } from './polynomials';
+import { expansionAdjoint, filledLags, reciprocalRoots } from './polynomials';
 import { fromInvertible, fromStationary, toStationaryInto, toStationaryJacobian } from './transform';
 
 /** How close to the unit circle a reflected MA root may stay (a start needs a finite transform). */
@@ -261,26 +260,20 @@ function adjoint(
 
 /**
  * The MA polynomial 1 + Σ b_j B^j with every root inside the unit circle (or on it) moved to
- * modulus ≥ MIN_ROOT_MODULUS by reflection z → 1/z̄; the roots are the eigenvalues of the
- * companion matrix. The constant term stays 1 (the innovation variance absorbs the rest).
+ * modulus ≥ MIN_ROOT_MODULUS by reflection z → 1/z̄; the roots are the reciprocals of the
+ * eigenvalues of a companion matrix (reciprocalRoots). The constant term stays 1 (the innovation
+ * variance absorbs the rest).
  */
 export function invertibleMa(b: ArrayLike<number>): Float64Array {
   const q = b.length;
   if (q === 0) return new Float64Array(0);
-  // roots of 1 + b₁z + … + b_q z^q are the reciprocals of the eigenvalues of the companion
-  // matrix of z^q + b₁z^{q−1} + … + b_q (its reversed polynomial)
   if (b[q - 1] === 0) {
     const lower = invertibleMa(Array.from(b).slice(0, q - 1));
     const out = new Float64Array(q);
     out.set(lower);
     return out;
   }
-  const companion = Matrix.zeros(q, q);
-  for (let j = 0; j < q; j++) companion.set(0, j, -b[j]);
-  for (let i = 1; i < q; i++) companion.set(i, i - 1, 1);
-  const evd = new EigenvalueDecomposition(companion, { assumeSymmetric: false });
-  const re = evd.realEigenvalues;
-  const im = evd.imaginaryEigenvalues;
+  const { re, im } = reciprocalRoots(b);
   // each factor (1 − λ z), λ = 1/root: |root| ≥ m means |λ| ≤ 1/m; reflecting the root is λ → 1/λ̄
   let polyRe = [1];
   let polyIm = [0];

@@ -28,7 +28,7 @@
  * AIC = −2 log L + 2k (Akaike 1974), AICc = AIC + 2k(k+1)/(n−k−1) (Hurvich & Tsai 1989),
  * BIC = −2 log L + k log n (Schwarz 1978).
  */
-import { EigenvalueDecomposition, Matrix, inverse } from 'ml-matrix';
+import { Matrix, inverse } from 'ml-matrix';
 import { BfgsResult, minimizeBfgs } from './bfgs';
 import { chandrasekharScore } from './chandrasekhar-score';
 import { gapScore } from './gap-score';
@@ -38,7 +38,7 @@ import { hannanRissanen } from './hannan-rissanen';
 import { hasMomentStart, momentStart } from './moment-start';
 import { armaInformation, inverseSpd } from './information';
 import { concentratedLogLik, FilterResult, kalmanFilter } from './kalman';
-import { expandAr, expandMa } from './polynomials';
+import { expandAr, expandMa, reciprocalRoots } from './polynomials';
 import { armaStateSpace, ArmaStateSpace } from './state-space';
 import { SteadyPass, steadyStateScore } from './steady-score';
 import { stateSpaceWithTangents } from './state-space-tangents';
@@ -926,7 +926,6 @@ function opposedStart(o: Required<ArmaSpec>, k: number): Float64Array {
   return u;
 }
 
-/** Whether a partial autocorrelation of the unconstrained values u[from, from + m) lies beyond ±0.95. */
 /**
  * The MA-unit-root start: no AR part and θ₁ = 0.99 (a root near B = −1), the rest zero, in the
  * transform's values (see fitArma).
@@ -942,20 +941,6 @@ export const MA_ROOT_NEAR_ONE = 1.02;
 /** An AR root of modulus up to this: on the ridge by the unit circle (see fitArma). */
 export const AR_ROOT_NEAR_CIRCLE = 1.01;
 
-/**
- * The reciprocals of the roots of 1 + c₁z + … + c_m z^m (real and imaginary parts): the
- * eigenvalues of the companion matrix of its reversed polynomial.
- */
-function reciprocalRoots(c: ArrayLike<number>): { re: number[]; im: number[] } {
-  const m = c.length;
-  if (m === 0) return { re: [], im: [] };
-  const companion = Matrix.zeros(m, m);
-  for (let j = 0; j < m; j++) companion.set(0, j, -c[j]);
-  for (let i = 1; i < m; i++) companion.set(i, i - 1, 1);
-  const evd = new EigenvalueDecomposition(companion, { assumeSymmetric: false });
-  return { re: evd.realEigenvalues, im: evd.imaginaryEigenvalues };
-}
-
 /** Whether 1 + θ₁B + … + θ_qB^q has a real root in (0, MA_ROOT_NEAR_ONE]. */
 export function hasMaRootNearOne(theta: ArrayLike<number>): boolean {
   const { re, im } = reciprocalRoots(theta);
@@ -968,6 +953,7 @@ export function hasArRootNearCircle(phi: ArrayLike<number>): boolean {
   return re.some((r, i) => Math.hypot(r, im[i]) >= 1 / AR_ROOT_NEAR_CIRCLE);
 }
 
+/** Whether a partial autocorrelation of the unconstrained values u[from, from + m) lies beyond ±0.95. */
 function nearUnitCircle(u: ArrayLike<number>, from: number, m: number): boolean {
   for (let i = from; i < from + m; i++) if (Math.abs(Math.tanh(u[i])) > 0.95) return true;
   return false;

@@ -4,6 +4,8 @@
  * polynomial 1 + Σ b_k B^k, and ψ-weights of the MA(∞) form are computed from them.
  */
 
+import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
+
 /** Expand φ(B)Φ(B^s) with AR sign convention (1 − Σφ_i B^i)(1 − ΣΦ_j B^{js}); returns a_1..a_K. */
 export function expandAr(phi: ArrayLike<number>, sphi: ArrayLike<number>, s: number): Float64Array {
   const p = phi.length;
@@ -103,4 +105,19 @@ export function filledLags(m: number, M: number, s: number): Int32Array {
     for (let i = 1; i <= m; i++) set.add(j * s + i);
   }
   return Int32Array.from([...set].sort((a, b) => a - b));
+}
+
+/**
+ * The reciprocals of the roots of 1 + c₁z + … + c_m z^m (real and imaginary parts): the
+ * eigenvalues of the companion matrix of z^m + c₁z^{m−1} + … + c_m, its reversed polynomial.
+ * A root at infinity (c_m = 0) gives a reciprocal of 0.
+ */
+export function reciprocalRoots(c: ArrayLike<number>): { re: number[]; im: number[] } {
+  const m = c.length;
+  if (m === 0) return { re: [], im: [] };
+  const companion = Matrix.zeros(m, m);
+  for (let j = 0; j < m; j++) companion.set(0, j, -c[j]);
+  for (let i = 1; i < m; i++) companion.set(i, i - 1, 1);
+  const evd = new EigenvalueDecomposition(companion, { assumeSymmetric: false });
+  return { re: evd.realEigenvalues, im: evd.imaginaryEigenvalues };
 }
