@@ -5,7 +5,8 @@
  * AirPassengers). The last block uses values typed from engine.md §8 (also R 4.2.2).
  */
 import { simulateArma21 } from '../cli/bench-series';
-import { fitArma, hasArRootNearCircle, hasMaRootNearOne } from './fit';
+import { fitArma, hasArRootNearCircle, hasMaRootNearCircle, hasMaRootNearOne, MA_CIRCLE_ANGLES, maCircleStart, normalizeSpec } from './fit';
+import { toInvertible, toStationary } from './transform';
 import fixture from '../fixtures/r-arima.json';
 import { fitArima, forecastArima } from '../forecast';
 
@@ -239,5 +240,46 @@ describe('hasArRootNearCircle: an AR root of modulus up to 1.01', () => {
     ['no AR part', [], false],
   ])('%s', (_name, phi, expected) => {
     expect(hasArRootNearCircle(phi as number[])).toBe(expected);
+  });
+});
+
+describe('hasMaRootNearCircle: an MA root of modulus up to 1.05', () => {
+  // roots worked by hand from the factored polynomials
+  it.each([
+    ['1 + 0.99B: a root at −1.0101', [0.99], true],
+    ['1 − 0.96B: a root at 1.0417', [-0.96], true],
+    ['1 − 0.94B: a root at 1.0638', [-0.94], false],
+    ['1 − B + B²: a pair on the circle at a sixth of a cycle', [-1, 1], true],
+    ['1 + 0.9B²: a pair of modulus 1.054', [0, 0.9], false],
+    ['(1 − 0.5B)(1 + 0.97B): roots 2 and −1.031', [0.47, -0.485], true],
+    ['no MA part', [], false],
+  ])('%s', (_name, theta, expected) => {
+    expect(hasMaRootNearCircle(theta as number[])).toBe(expected);
+  });
+});
+
+describe('maCircleStart: MA roots of modulus 1/0.99 at four points of the circle, nothing else', () => {
+  // (1 − 0.99e^{iω}B)(1 − 0.99e^{−iω}B) = 1 − 1.98 cos ω B + 0.9801 B², worked by hand
+  it.each([
+    [0, [-0.99, 0, 0]],
+    [Math.PI / 3, [-0.99, 0.9801, 0]],
+    [(2 * Math.PI) / 3, [0.99, 0.9801, 0]],
+    [Math.PI, [0.99, 0, 0]],
+  ])('at %f: θ = %j, no AR part, the seasonal part zero', (angle, theta) => {
+    const o = normalizeSpec({ p: 2, q: 3, P: 1, Q: 1, period: 12 });
+    const u = maCircleStart(o, angle) as Float64Array;
+    expect(u).toHaveLength(7);
+    for (const v of toStationary(u.subarray(0, 2))) expect(Math.abs(v)).toBe(0);
+    const ma = toInvertible(u.subarray(2, 5));
+    theta.forEach((v, i) => expect(ma[i]).toBeCloseTo(v, 10));
+    for (const v of u.subarray(5)) expect(Math.abs(v)).toBe(0);
+  });
+
+  it('has the four angles 0, π/3, 2π/3 and π, and gives an MA(1) only the two real roots', () => {
+    expect(MA_CIRCLE_ANGLES).toEqual([0, Math.PI / 3, (2 * Math.PI) / 3, Math.PI]);
+    const o = normalizeSpec({ p: 1, q: 1 });
+    expect(maCircleStart(o, Math.PI / 3)).toBeNull();
+    expect(toInvertible((maCircleStart(o, 0) as Float64Array).subarray(1))[0]).toBeCloseTo(-0.99, 12);
+    expect(toInvertible((maCircleStart(o, Math.PI) as Float64Array).subarray(1))[0]).toBeCloseTo(0.99, 12);
   });
 });

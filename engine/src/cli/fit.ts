@@ -29,6 +29,7 @@ const START_LABELS: Record<ArimaFit['arma']['startedFrom'], string> = {
   zero: 'all-zero',
   opposed: 'opposed AR/MA',
   'ma-unit-root': 'MA near its unit root',
+  'ma-circle': 'MA roots near the unit circle',
   'ar-unit-root': 'AR near its unit root',
   'seasonal-unit-root': 'seasonal MA near its unit root',
   css: 'conditional-sum-of-squares',
