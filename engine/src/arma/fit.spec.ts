@@ -258,28 +258,30 @@ describe('hasMaRootNearCircle: an MA root of modulus up to 1.05', () => {
   });
 });
 
-describe('maCircleStart: MA roots of modulus 1/0.99 at four points of the circle, nothing else', () => {
+describe('maCircleStart: MA roots of modulus 1/0.99 at four points of the circle, no AR part, the seasonal part given', () => {
   // (1 − 0.99e^{iω}B)(1 − 0.99e^{−iω}B) = 1 − 1.98 cos ω B + 0.9801 B², worked by hand
   it.each([
     [0, [-0.99, 0, 0]],
     [Math.PI / 3, [-0.99, 0.9801, 0]],
     [(2 * Math.PI) / 3, [0.99, 0.9801, 0]],
     [Math.PI, [0.99, 0, 0]],
-  ])('at %f: θ = %j, no AR part, the seasonal part zero', (angle, theta) => {
+  ])('at %f: θ = %j, no AR part, the seasonal part as given', (angle, theta) => {
     const o = normalizeSpec({ p: 2, q: 3, P: 1, Q: 1, period: 12 });
-    const u = maCircleStart(o, angle) as Float64Array;
+    const u = maCircleStart(o, angle, { sar: [0.9], sma: [-0.6] }) as Float64Array;
     expect(u).toHaveLength(7);
     for (const v of toStationary(u.subarray(0, 2))) expect(Math.abs(v)).toBe(0);
     const ma = toInvertible(u.subarray(2, 5));
     theta.forEach((v, i) => expect(ma[i]).toBeCloseTo(v, 10));
-    for (const v of u.subarray(5)) expect(Math.abs(v)).toBe(0);
+    expect(toStationary(u.subarray(5, 6))[0]).toBeCloseTo(0.9, 12);
+    expect(toInvertible(u.subarray(6))[0]).toBeCloseTo(-0.6, 12);
   });
 
   it('has the four angles 0, π/3, 2π/3 and π, and gives an MA(1) only the two real roots', () => {
     expect(MA_CIRCLE_ANGLES).toEqual([0, Math.PI / 3, (2 * Math.PI) / 3, Math.PI]);
     const o = normalizeSpec({ p: 1, q: 1 });
-    expect(maCircleStart(o, Math.PI / 3)).toBeNull();
-    expect(toInvertible((maCircleStart(o, 0) as Float64Array).subarray(1))[0]).toBeCloseTo(-0.99, 12);
-    expect(toInvertible((maCircleStart(o, Math.PI) as Float64Array).subarray(1))[0]).toBeCloseTo(0.99, 12);
+    const none = { sar: [], sma: [] };
+    expect(maCircleStart(o, Math.PI / 3, none)).toBeNull();
+    expect(toInvertible((maCircleStart(o, 0, none) as Float64Array).subarray(1))[0]).toBeCloseTo(-0.99, 12);
+    expect(toInvertible((maCircleStart(o, Math.PI, none) as Float64Array).subarray(1))[0]).toBeCloseTo(0.99, 12);
   });
 });
