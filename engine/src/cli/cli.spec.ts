@@ -24,16 +24,20 @@ describe('command line', () => {
     const b = runFit(['--input', taylor, '--diff', 'none', '--order', '1,0', '--no-mean', '--json']).json;
     expect((b.coefficients as Array<{ name: string }>).map((c) => c.name)).toEqual(['ar1']);
   });
-  it('fit --repeat N refits N times in one process and reports the first and the median of the rest', () => {
+  it('fit --repeat N refits N times in one process, warmed up, and reports the first and the median of the rest', () => {
     const one = runFit(['--input', taylor, '--diff', '24,168', '--order', '2,1', '--json']).json;
     const r = runFit(['--input', taylor, '--diff', '24,168', '--order', '2,1', '--repeat', '3', '--json']).json;
     expect(r.fits).toBe(3);
     expect(one.fits).toBe(1);
     expect(one.fitMs).toBe(one.firstFitMs);
+    expect(one.warmUpFits).toBe(0);
+    // the timed fits come after the benchmarks' warm-up: at least 20 untimed fits unless a
+    // second passed first (warm-timing.ts), never none
+    expect(r.warmUpFits as number).toBeGreaterThan(0);
     for (const k of ['fitMs', 'firstFitMs']) expect(r[k] as number).toBeGreaterThan(0);
     // the same model every time
     expect(r.loglik).toBe(one.loglik);
-    expect(runFit(['--input', taylor, '--diff', '24,168', '--order', '2,1', '--repeat', '3']).text).toMatch(/median of 2 warm fits; first /);
+    expect(runFit(['--input', taylor, '--diff', '24,168', '--order', '2,1', '--repeat', '3']).text).toMatch(/median of 2 warm fits after \d+ untimed warm-up fits; first /);
   });
   it.each(['0', '-2', '2.5', 'x', '10000'])('fit --repeat=%s is refused', (v) => {
     expect(() => runFit(['--input', taylor, '--diff', '24', '--order', '1,0', `--repeat=${v}`])).toThrow(`--repeat expects a whole number from 1 to 9999, got "${v}"`);

@@ -6,9 +6,10 @@
  * The orders are given, not chosen: the order search of the plain fit knows no regressors.
  */
 import { readFileSync } from 'node:fs';
-import { describeDifferencing, differenceOrder, fitRegression, ljungBox, median, RegressionFit } from '@morrowline/engine';
+import { describeDifferencing, differenceOrder, fitRegression, ljungBox, RegressionFit } from '@morrowline/engine';
 import { HourlySeries } from './csv-series';
 import { parseRegressorCsv } from './csv-xreg';
+import { repeatedTime, timeRepeated } from './warm-timing';
 
 export interface XregFitArgs {
   input: string;
@@ -27,15 +28,12 @@ export function runXregFit(a: XregFitArgs): { text: string; json: Record<string,
   const y = a.series.values;
   const regressors = regs.names.map((name, j) => ({ name, values: regs.columns[j] }));
   const spec = { diff: a.diff, p: a.order[0], q: a.order[1], P: a.seasonal?.[0], Q: a.seasonal?.[1], period: a.seasonal?.[2], includeMean: a.includeMean };
-  const times: number[] = [];
   let fit: RegressionFit | undefined;
-  for (let i = 0; i < a.repeat; i++) {
-    const t = performance.now();
+  const timing = timeRepeated(() => {
     fit = fitRegression(y, regressors, spec);
-    times.push(performance.now() - t);
-  }
+  }, a.repeat);
   const m = fit as RegressionFit;
-  const fitMs = a.repeat > 1 ? median(times.slice(1)) : times[0];
+  const fitMs = timing.warmMs;
   const fitdf = m.spec.p + m.spec.q + m.spec.P + m.spec.Q;
   const lb = [24, 48].map((lag) => ljungBox(m.residuals.subarray(differenceOrder(a.diff)), lag, fitdf));
   const seasonal = m.spec.P + m.spec.Q > 0 ? { P: m.spec.P, Q: m.spec.Q, period: m.spec.period } : null;
@@ -61,8 +59,9 @@ export function runXregFit(a: XregFitArgs): { text: string; json: Record<string,
     likelihood: m.likelihood,
     converged: m.converged,
     fitMs,
-    firstFitMs: times[0],
+    firstFitMs: timing.firstMs,
     fits: a.repeat,
+    warmUpFits: timing.warmUp,
   };
   const f = (v: number, d = 4) => (Number.isFinite(v) ? v.toFixed(d) : 'n/a');
   const row = (kind: string) => (c: { name: string; value: number; se: number }) => `${kind.padEnd(11)} ${c.name.padEnd(16)} ${f(c.value).padStart(14)}   ${f(c.se).padStart(12)}`;
@@ -76,7 +75,7 @@ export function runXregFit(a: XregFitArgs): { text: string; json: Record<string,
     '',
     `sigma2 ${f(m.sigma2)}   loglik ${f(m.loglik, 2)}   AIC ${f(m.aic, 2)}   AICc ${f(m.aicc, 2)}   BIC ${f(m.bic, 2)}`,
     ...lb.map((l) => `Ljung–Box lag ${l.lag}: Q ${f(l.statistic, 2)} on ${l.df} df, p ${f(l.pValue, 4)}`),
-    `n ${m.nUsed}   likelihood ${m.likelihood === 'diffuse' ? 'in the diffuse state space (gaps under a differencing, as R)' : 'of the differenced series'}   estimation ${a.repeat > 1 ? `${f(fitMs, 1)} ms (median of ${a.repeat - 1} warm fits; first ${f(times[0], 1)} ms)` : `${f(fitMs, 1)} ms`}${m.converged ? '' : '   (optimiser did not fully converge)'}`,
+    `n ${m.nUsed}   likelihood ${m.likelihood === 'diffuse' ? 'in the diffuse state space (gaps under a differencing, as R)' : 'of the differenced series'}   estimation ${repeatedTime(timing, a.repeat)}${m.converged ? '' : '   (optimiser did not fully converge)'}`,
   ];
   return { text: lines.join('\n'), json };
 }

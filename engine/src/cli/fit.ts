@@ -8,15 +8,17 @@
  * Without --order the orders are chosen by AICc (p, q ≤ 3); without --diff and --order the
  * whole automatic pipeline chooses the differencing too. `--diff none` fits without differencing.
  * `--repeat N` fits the chosen model N times in this one process: `firstFitMs` is the first
- * (cold: the JIT has not compiled the engine yet), `fitMs` the median of the other N − 1 (warm,
- * as in a long-running server); with N = 1 both are the one fit.
+ * (cold: the JIT has not compiled the engine yet), `fitMs` the median of the other N − 1, timed
+ * after an untimed warm-up (`warmUpFits` of them, as the benchmarks warm up: warm-timing.ts), so
+ * that they are warm as in a long-running server; with N = 1 both are the one fit.
  */
 import { readFileSync } from 'node:fs';
 import { parseArgs } from 'node:util';
 import { parseLoadCsv } from './csv-series';
 import { runXregFit } from './fit-xreg';
-import { difference, describeDifferencing, fitArima, ljungBox, median, runPipeline, selectOrder, ArimaFit } from '@morrowline/engine';
+import { difference, describeDifferencing, fitArima, ljungBox, runPipeline, selectOrder, ArimaFit } from '@morrowline/engine';
 import { readWeatherInputs, WEATHER_OPTIONS } from './weather-inputs';
+import { repeatedTime, timeRepeated } from './warm-timing';
 import { weatherFitReport } from './weather-fit-command';
 
 const USAGE =
@@ -106,16 +108,12 @@ export function runFit(argv: string[]): { text: string; json: Record<string, unk
     chosenBy = 'AICc over p, q ≤ 3';
   }
   const spec = { diff, p: order[0], q: order[1], P: seasonal?.[0], Q: seasonal?.[1], period: seasonal?.[2], includeMean };
-  const times: number[] = [];
   let fit: ArimaFit | undefined;
-  for (let i = 0; i < repeat; i++) {
-    const t = performance.now();
+  const timing = timeRepeated(() => {
     fit = fitArima(y, spec);
-    times.push(performance.now() - t);
-  }
+  }, repeat);
   const m = (fit as ArimaFit).arma;
-  const firstFitMs = times[0];
-  const fitMs = repeat > 1 ? median(times.slice(1)) : firstFitMs;
+  const { firstMs: firstFitMs, warmMs: fitMs } = timing;
   const fitdf = m.spec.p + m.spec.q + m.spec.P + m.spec.Q;
   const lb = [24, 48].map((lag) => ljungBox(m.residuals, lag, fitdf));
   const json = {
@@ -141,6 +139,7 @@ export function runFit(argv: string[]): { text: string; json: Record<string, unk
     fitMs,
     firstFitMs,
     fits: repeat,
+    warmUpFits: timing.warmUp,
     ...(pipelineMs !== undefined ? { selectionMs: pipelineMs } : {}),
   };
   const f = (v: number, d = 4) => (Number.isFinite(v) ? v.toFixed(d) : 'n/a');
@@ -153,7 +152,7 @@ export function runFit(argv: string[]): { text: string; json: Record<string, unk
     '',
     `sigma2 ${f(m.sigma2)}   loglik ${f(m.loglik, 2)}   AIC ${f(m.aic, 2)}   AICc ${f(m.aicc, 2)}   BIC ${f(m.bic, 2)}`,
     ...lb.map((l) => `Ljung–Box lag ${l.lag}: Q ${f(l.statistic, 2)} on ${l.df} df, p ${f(l.pValue, 4)}`),
-    `n ${m.nUsed}   estimation ${repeat > 1 ? `${f(fitMs, 1)} ms (median of ${repeat - 1} warm fits; first ${f(firstFitMs, 1)} ms)` : `${f(fitMs, 1)} ms`}, search kept: from the ${START_LABELS[m.startedFrom]} start${m.converged ? '' : '   (optimiser did not fully converge)'}`,
+    `n ${m.nUsed}   estimation ${repeatedTime(timing, repeat)}, search kept: from the ${START_LABELS[m.startedFrom]} start${m.converged ? '' : '   (optimiser did not fully converge)'}`,
   ];
   return { text: lines.join('\n'), json };
 }

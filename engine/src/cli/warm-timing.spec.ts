@@ -1,4 +1,4 @@
-import { timeWarm } from './warm-timing';
+import { repeatedTime, timeRepeated, timeWarm } from './warm-timing';
 
 /**
  * A call that takes the given milliseconds on a clock of its own, which only the calls move: the
@@ -51,5 +51,36 @@ describe('timeWarm: a warm figure, the cold one apart', () => {
     const t = timeWarm(c.call, { warmUpMs: 0, warmUpCalls: 0, budgetMs: 11, minCalls: 3, maxCalls: 100, now: c.now });
     // calls start at 0, 2, …, 10 (each before the budget's end at 11): six
     expect(t.timed).toBe(6);
+  });
+});
+
+describe('timeRepeated: --repeat N of the fit commands', () => {
+  it('times exactly N − 1 calls after the first and the warm-up, however long they take', () => {
+    // first call 40 ms, the next 50 still compiling (10 ms), then 1 ms
+    const c = taking((i) => (i === 0 ? 40 : i <= 50 ? 10 : 1));
+    const t = timeRepeated(c.call, 5, { now: c.now });
+    expect(t.firstMs).toBe(40);
+    expect(t.timed).toBe(4);
+    // the warm-up: 500 ms and 50 calls, whichever is last
+    expect(t.warmUp).toBe(50);
+    expect(t.warmMs).toBe(1);
+    expect(c.calls()).toBe(1 + 50 + 4);
+    expect(repeatedTime(t, 5)).toBe('1.0 ms (median of 4 warm fits after 50 untimed warm-up fits; first 40.0 ms)');
+  });
+
+  it('warms a slow fit for two seconds at most', () => {
+    const c = taking(() => 300);
+    const t = timeRepeated(c.call, 3, { now: c.now });
+    // the cut at 2,000 ms passes during the seventh warm-up call
+    expect(t.warmUp).toBe(7);
+    expect(t.timed).toBe(2);
+  });
+
+  it('with N = 1 makes the one call and reports it as both figures', () => {
+    const c = taking(() => 7);
+    const t = timeRepeated(c.call, 1, { now: c.now });
+    expect(c.calls()).toBe(1);
+    expect(t).toEqual({ firstMs: 7, warmMs: 7, timed: 1, warmUp: 0 });
+    expect(repeatedTime(t, 1)).toBe('7.0 ms');
   });
 });
