@@ -5,7 +5,7 @@
  * AirPassengers). The last block uses values typed from engine.md §8 (also R 4.2.2).
  */
 import { simulateArma21 } from '../cli/bench-series';
-import { fitArma, hasArRootNearCircle, hasMaRootNearCircle, hasMaRootNearOne, MA_CIRCLE_ANGLES, maCircleStart, normalizeSpec } from './fit';
+import { fitArma, hasArRootNearCircle, hasMaRootNearCircle, hasMaRootNearOne, MA_CIRCLE_ANGLES, MA_ROOT_NEAR_CIRCLE_SEASONAL, maCircleStart, normalizeSpec } from './fit';
 import { toInvertible, toStationary } from './transform';
 import fixture from '../fixtures/r-arima.json';
 import { fitArima, forecastArima } from '../forecast';
@@ -255,6 +255,16 @@ describe('hasMaRootNearCircle: an MA root of modulus up to 1.05', () => {
     ['no MA part', [], false],
   ])('%s', (_name, theta, expected) => {
     expect(hasMaRootNearCircle(theta as number[])).toBe(expected);
+  });
+
+  // the wider gate of a fit with a seasonal part, 1.18
+  it.each([
+    ['1 + 0.9B²: a pair of modulus 1.054', [0, 0.9], true],
+    ['1 − 0.86B: a root at 1.1628', [-0.86], true],
+    ['1 − 0.84B: a root at 1.1905', [-0.84], false],
+  ])('with a seasonal part, %s', (_name, theta, expected) => {
+    expect(MA_ROOT_NEAR_CIRCLE_SEASONAL).toBe(1.18);
+    expect(hasMaRootNearCircle(theta as number[], MA_ROOT_NEAR_CIRCLE_SEASONAL)).toBe(expected);
   });
 });
 

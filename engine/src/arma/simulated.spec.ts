@@ -31,7 +31,7 @@ function simulate(n: number, ar: number[], ma: number[], mean: number, seed: num
 }
 
 describe('ARMA recovery on simulated series', () => {
-  it('recovers ARMA(1,1) parameters within 4 standard errors', () => {
+  it('recovers ARMA(1,1) parameters within 5 standard errors', () => {
     fc.assert(
       fc.property(
         fc.double({ min: -0.85, max: 0.85, noNaN: true }),
@@ -42,10 +42,13 @@ describe('ARMA recovery on simulated series', () => {
           const x = simulate(4000, [phi], [theta], 10, seed);
           const f = fitArma(x, { p: 1, q: 1, includeMean: true });
           const [a, b, m] = f.coefficients;
-          expect(Math.abs(a.value - phi)).toBeLessThan(4 * a.se);
-          expect(Math.abs(b.value - theta)).toBeLessThan(4 * b.se);
-          expect(Math.abs(m.value - 10)).toBeLessThan(4 * m.se);
-          expect(Math.abs(f.sigma2 - 1)).toBeLessThan(0.1);
+          // 5 standard errors: the property draws new series on every run (36 comparisons of
+          // this kind a run; at 4 one in about 400 runs failed by chance alone)
+          expect(Math.abs(a.value - phi)).toBeLessThan(5 * a.se);
+          expect(Math.abs(b.value - theta)).toBeLessThan(5 * b.se);
+          expect(Math.abs(m.value - 10)).toBeLessThan(5 * m.se);
+          // σ̂² of 4,000 unit-variance innovations has s.d. √(2/4000) = 0.022: 0.12 is 5.4 of them
+          expect(Math.abs(f.sigma2 - 1)).toBeLessThan(0.12);
         },
       ),
       { numRuns: 12 },
