@@ -10,25 +10,18 @@
  * or above the higher of R's two log-likelihoods (each the exact likelihood at R's estimate where
  * R's own figure differs); the fits where it ends below are named with how far.
  */
-import { packagesArmaSweep, packagesSeasonalSweep, rBestExact as rBest, SweepSeries } from '../fixtures/r-arima-sweep.testing';
+import { packagesArmaSweep, packagesSeasonalSweep, rBestExact as rBest } from '../fixtures/r-arima-sweep.testing';
 import { hasMaRootNearCircle } from './fit';
-import { belowR, findFit, fitLike, gapsOver } from './r-sweep-fits.testing';
+import { belowR, findFit, fitLike, gapsOfSeries } from './r-sweep-fits.testing';
 
 /** Fits R reached by one method at least (R 4.2.2 fails a few with an error). */
 const ARMA_FITS = 525;
 const SEASONAL_FITS = 480;
 
-function gapsOf(series: SweepSeries[]): Map<string, number> {
-  return gapsOver(
-    series.map((s) => ({ s, fits: s.fits })),
-    rBest,
-  );
-}
-
 describe('every ARMA(p, q), p, q ≤ 3, on 35 series of tseries, urca and forecast against R’s best', () => {
   let gaps = new Map<string, number>();
   beforeAll(() => {
-    gaps = gapsOf(packagesArmaSweep);
+    gaps = gapsOfSeries(packagesArmaSweep);
   }, 120_000);
 
   it('has a fit for every order R reached', () => {
@@ -72,7 +65,7 @@ describe('every ARMA(p, q), p, q ≤ 3, on 35 series of tseries, urca and foreca
 describe('every (p, 0, q)(P, 0, Q)_s, p, q ≤ 3, P, Q ≤ 1, on 10 seasonal series of the same packages against R’s best', () => {
   let gaps = new Map<string, number>();
   beforeAll(() => {
-    gaps = gapsOf(packagesSeasonalSweep);
+    gaps = gapsOfSeries(packagesSeasonalSweep);
   }, 120_000);
 
   it('has a fit for every order R reached', () => {

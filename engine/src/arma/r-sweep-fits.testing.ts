@@ -1,9 +1,10 @@
 /**
  * The engine's fit of each fit of the R sweep fixtures (fixtures/r-arima-sweep.testing.ts), and
- * how far it ends from R's best, for fit-r-sweep.spec.ts and fit-r-further.spec.ts. Test-only:
+ * how far it ends from R's best, for fit-r-sweep.spec.ts, fit-r-further.spec.ts and the hold-out
+ * rounds' specs. Test-only:
  * left out of the build (tsconfig.build.json).
  */
-import { rBest, SweepFit, SweepSeries, sweepValues } from '../fixtures/r-arima-sweep.testing';
+import { rBest, rBestExact, SweepFit, SweepSeries, sweepValues } from '../fixtures/r-arima-sweep.testing';
 import { ArmaFit, fitArma, FitOptions } from './fit';
 
 /** fitArma with the fixture's order, period and mean, without standard errors. */
@@ -31,6 +32,13 @@ export function gapsOver(cases: Array<{ s: SweepSeries; fits: SweepFit[] }>, bes
   }
   return gaps;
 }
+
+/** gapsOver for series that carry their fits (the hold-out rounds' fixtures), against R's exact best (rBestExact). */
+export const gapsOfSeries = (series: SweepSeries[]): Map<string, number> =>
+  gapsOver(
+    series.map((s) => ({ s, fits: s.fits })),
+    rBestExact,
+  );
 
 /** The fits that end below R's best by more than 0.001, sorted. */
 export const belowR = (gaps: Map<string, number>): string[] =>
