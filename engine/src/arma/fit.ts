@@ -816,7 +816,8 @@ export function fitArma(series: ArrayLike<number>, specIn: ArmaSpec, opts: FitOp
     // fit). With a seasonal part the gate is wider, MA_ROOT_NEAR_CIRCLE_SEASONAL: over the sweeps
     // and the five rounds (4,824 fits) that frees woolyrnq (3,0,3)(1,0,1)_4 (0.85 below R's best
     // before, now at it) and takes 20 more seasonal fits higher, by up to 1.5 (each at or above
-    // R's best already), lowering none, for 3–8 % more evaluations on the seasonal sweeps; gates of 1.10, 1.15 and 1.25 raised 10, 17 and 28 fits for 1.5, 2.2 and 3.4 % more
+    // R's best already), lowering none, for 3–8 % more evaluations on the seasonal sweeps;
+    // gates of 1.10, 1.15 and 1.25 raised 10, 17 and 28 fits for 1.5, 2.2 and 3.4 % more
     // evaluations over all the sweeps (1.18: 2.6 %). The same gate without a seasonal part would
     // run for R's long-cycle levels (lynx, LakeHuron, Nile, sunspot.year), doubling their fits;
     // R's seasonal datasets of `npm run bench` do not reach it.
