@@ -52,7 +52,7 @@ describe('model workbench', () => {
     expect(await page.getByRole('table', { name: 'Ljung–Box' }).innerText()).toMatch(/24 h[\s\S]*48 h/);
     await page.getByTestId('chart-residual-acf').locator('canvas').first().waitFor({ state: 'attached' });
     // the differencing is chosen on four weeks of day-ahead origins, as the desk's refits choose it
-    expect(await page.getByTestId('model-panel').innerText()).toMatch(/Differencings tried \(day-ahead error over the last 28 days\)/);
+    expect(await page.getByTestId('model-panel').innerText()).toMatch(/Differencings tried \(day-ahead error over the last 28 days; the choice weighs recent days more\)/);
     await page.getByTestId('model-panel').screenshot({ path: path.join(SCREENSHOTS, 'workbench-model.png') });
 
     await page.getByTestId('backtest-panel').getByText('7 days', { exact: true }).click();

@@ -161,7 +161,7 @@ describe('workbench: stationarity, model and backtest of a zone (real MariaDB)',
     if (body.method === 'seasonal-naive') expect(body.fallbackReason).toEqual(expect.any(String));
     else {
       expect(body.fallbackReason).toBeNull();
-      expect(body.summary).toMatch(/of the three orders with the lowest AICc on each differencing, it had the smallest day-ahead error over the last 28 days/);
+      expect(body.summary).toMatch(/of the three orders with the lowest AICc on each differencing, it had the smallest day-ahead error over the last 28 days, recent days weighted more \(\d+\.\d\d % with weights halving every 14 days back; mean MAPE \d+\.\d\d %/);
     }
   });
 

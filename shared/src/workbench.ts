@@ -146,6 +146,9 @@ export interface ModelCandidateDto {
   aicc: number | null;
   /** Mean day-ahead MAPE (%) on the selection days. */
   mape: number | null;
+  /** The same with recent days weighted more (weights halving every `halfLifeDays` back): what
+   *  the candidates are ranked by. */
+  recentMape: number | null;
   error?: string;
   chosen: boolean;
 }
@@ -188,6 +191,8 @@ export interface ModelReportDto {
   /** Weekly seasonal-naive MAPE (%) on the selection days. */
   baselineMape: number | null;
   selectionDays: number;
+  /** Half-life (days) of the weights of the candidates' `recentMape`. */
+  halfLifeDays: number;
   warnings: string[];
   /** One sentence: what was chosen and why. */
   summary: string;

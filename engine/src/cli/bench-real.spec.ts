@@ -1,5 +1,5 @@
 import { difference } from '@morrowline/engine';
-import { BENCH_MISSING_HOURS, withMissingHours } from './bench-real';
+import { BENCH_MISSING_HOURS, printRealTable, TAYLOR_SOURCE, withMissingHours } from './bench-real';
 
 describe('the bench’s demand series with hours missing (--gaps-only)', () => {
   const load = Array.from({ length: 2016 }, (_, t) => 30000 + 5000 * Math.sin((2 * Math.PI * t) / 24));
@@ -21,5 +21,22 @@ describe('the bench’s demand series with hours missing (--gaps-only)', () => {
       if (h + 168 < load.length) expected.add(h);
     }
     expect(missing).toEqual([...expected].sort((a, b) => a - b));
+  });
+});
+
+describe('the real-series table’s heading (--input)', () => {
+  const heading = (source?: string, missing: number[] = []) => {
+    const lines: string[] = [];
+    printRealTable([], (l) => lines.push(l), missing, source);
+    return lines[0];
+  };
+
+  it('names the open demand fixture by default, and the caller’s file with --input', () => {
+    expect(heading()).toContain(`real demand (${TAYLOR_SOURCE}),`);
+    expect(heading('vic-elec-2014q1.csv, 2016 h')).toMatch(/^real demand \(vic-elec-2014q1\.csv, 2016 h\), each differencing/);
+  });
+
+  it('still lists the hours taken out (--gaps-only)', () => {
+    expect(heading(undefined, [300, 700])).toContain('; hours 300, 700 taken out, missing on both sides)');
   });
 });

@@ -132,10 +132,11 @@ function rNote(r: { cssMl: RFitTiming; ml: RFitTiming }): string {
   return notes.join('; ');
 }
 
-export function printRealTable(rows: RealRow[], log: (s: string) => void = console.log, missing: number[] = []): void {
-  log(
-    `real demand (England & Wales, R forecast::taylor, hourly means, 2,016 h${missing.length ? `; hours ${missing.join(', ')} taken out, missing on both sides` : ''}), each differencing the pipeline considers,`,
-  );
+/** The demand series the table is drawn from by default. */
+export const TAYLOR_SOURCE = 'England & Wales, R forecast::taylor, hourly means, 2,016 h';
+
+export function printRealTable(rows: RealRow[], log: (s: string) => void = console.log, missing: number[] = [], source = TAYLOR_SOURCE): void {
+  log(`real demand (${source}${missing.length ? `; hours ${missing.join(', ')} taken out, missing on both sides` : ''}), each differencing the pipeline considers,`);
   log('ARMA(p,q) p, q <= 3 without and with a seasonal block (1,1) at 24; exact ML with standard errors, compiled engine warm in one');
   log('process (median of 3-100 fits over about a second, after a first one and a warm-up of at least 100 ms and 20 fits, cut at 1 s) against R stats::arima on the same differenced series,');
   log('no mean, in the same run, each group of 16 orders timed on both sides in turn; R fits under 100 ms timed as the mean of a loop of at least 200 ms');

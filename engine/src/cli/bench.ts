@@ -22,15 +22,19 @@
  *     series against R, the fits where the engine ends below R's best (bench-windows.ts);
  *  7. `--gaps-only`: the real-series table with a few hours of the demand series missing on both
  *     sides (bench-real.ts, BENCH_MISSING_HOURS), as real meter data has them.
+ *  8. `--input FILE.csv` (an hourly load file as `npm run backtest` reads it): the real-series table
+ *     alone on that series instead of the open demand fixture, the way a series nobody tuned the
+ *     engine on is checked (missing hours stay missing on both sides).
  * Prints a table and the machine (CPU model, cores, Node and R versions).
  */
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { cpus, tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { basename, join } from 'node:path';
 import { accuracy, backtest, describeModel, fitArma, median, runPipeline, type BacktestResult } from '@morrowline/engine';
 import { simulateArma21 as simulate } from './bench-series';
 import { BENCH_MISSING_HOURS, printRealTable, RealCase, realCases, RFitTiming, timeEngine, timeRealTable, withMissingHours } from './bench-real';
+import { parseLoadCsv } from './csv-series';
 import { runWeatherBench } from './bench-weather';
 import { datasetCases, printDatasetTable, timeDatasets } from './bench-datasets';
 import { fitWindows, printWindows, windowCases } from './bench-windows';
@@ -116,6 +120,20 @@ function printSimulatedFits(rVersion: string | null): void {
 
 const fmt = (v: number, d = 2) => (Number.isFinite(v) ? v.toFixed(d) : 'n/a');
 
+/** The real-series table on a load file of the caller's (`--input`), R in the same run. */
+function runRealTableOn(file: string, rVersion: string | null): void {
+  const series = parseLoadCsv(readFileSync(file, 'utf8'));
+  const load = Array.from(series.values);
+  const cases = realCases();
+  timeEngine(load, cases.filter((c) => c.P === 0).slice(0, 16));
+  const fitR = (group: RealCase[]) => {
+    const out = runR({ real: { load, cases: group.map((c) => ({ id: c.id, diff: [c.diff], p: c.p, q: c.q, P: c.P, Q: c.Q })) } });
+    return new Map((out.real as Array<{ id: string; cssMl: RFitTiming; ml: RFitTiming }>).map((r) => [r.id, { cssMl: r.cssMl, ml: r.ml }]));
+  };
+  const missing = series.missing ? `, ${series.missing} missing` : '';
+  printRealTable(timeRealTable(load, cases, rVersion ? fitR : null), console.log, [], `${basename(file)}, ${load.length} h${missing}`);
+}
+
 function main(): void {
   const cpu = (() => {
     try {
@@ -130,11 +148,18 @@ function main(): void {
   const known = ['--real-only', '--no-real', '--pipeline-only', '--weather-only', '--windows-only', '--gaps-only'];
   const weatherSeeds = valueOf(args, '--seeds') ?? '1,2';
   const weatherData = valueOf(args, '--data') ?? join(tmpdir(), 'morrowline-bench-weather');
-  const unknown = args.filter((a, i) => !known.includes(a) && !['--seeds', '--data'].includes(a) && !['--seeds', '--data'].includes(args[i - 1]));
+  const withValue = ['--seeds', '--data', '--input'];
+  const unknown = args.filter((a, i) => !known.includes(a) && !withValue.includes(a) && !withValue.includes(args[i - 1]));
   if (unknown.length) throw new Error(`bench: unknown argument ${unknown[0]} (known: ${known.join(', ')})`);
   if (args.includes('--weather-only')) {
     if (!/^\d+(,\d+)*$/.test(weatherSeeds)) throw new Error(`bench: --seeds expects whole numbers separated by commas, got "${weatherSeeds}"`);
     runWeatherBench(weatherSeeds.split(',').map(Number), weatherData);
+    return;
+  }
+  const input = valueOf(args, '--input');
+  if (args.includes('--input')) {
+    if (!input || input.startsWith('--')) throw new Error('bench: --input expects an hourly load file (timestamp,load_mw)');
+    runRealTableOn(input, rVersion);
     return;
   }
   const taylorLoad = JSON.parse(readFileSync(join(FIX, 'taylor-hourly.json'), 'utf8')).load as number[];

@@ -5,7 +5,7 @@
  * reshaped for the wire, with the residual checks in plain words.
  */
 import { countInWords, type ModelCandidateDto, type ModelFitDto, type ModelReportDto } from '@morrowline/shared';
-import { describeModel, runPipeline } from '@morrowline/engine';
+import { describeModel, runPipeline, SELECTION_HALF_LIFE_DAYS } from '@morrowline/engine';
 import { DESK_DAY_AHEAD_CHOICE, DESK_PIPELINE_OPTIONS } from '../../models/analysis/refit';
 import { num, toWire } from './stationarity-analysis';
 import { differencingLabel, residualVerdict } from './verdict';
@@ -16,7 +16,7 @@ export interface ModelInput {
 }
 
 /** The part of the wire's model report this analysis fills; the service adds the window and timing. */
-export type ModelOutput = Pick<ModelReportDto, 'method' | 'fallbackReason' | 'model' | 'candidates' | 'baselineMape' | 'selectionDays' | 'warnings' | 'summary'>;
+export type ModelOutput = Pick<ModelReportDto, 'method' | 'fallbackReason' | 'model' | 'candidates' | 'baselineMape' | 'selectionDays' | 'halfLifeDays' | 'warnings' | 'summary'>;
 
 const sameLags = (a: readonly number[], b: readonly number[]) => a.length === b.length && a.every((v, i) => v === b[i]);
 
@@ -57,6 +57,7 @@ export function analyseModel(input: ModelInput): ModelOutput {
     ...((c.P ?? 0) + (c.Q ?? 0) > 0 ? { seasonal: { P: c.P ?? 0, Q: c.Q ?? 0 } } : {}),
     aicc: num(c.aicc),
     mape: num(c.mape),
+    recentMape: num(c.recentMape),
     ...(c.error ? { error: c.error } : {}),
     chosen: !!m && sameLags(c.diff, m.diff),
   }));
@@ -68,8 +69,12 @@ export function analyseModel(input: ModelInput): ModelOutput {
     // each differencing stands with the best day-ahead forecaster of its DESK_DAY_AHEAD_CHOICE
     // orders with the lowest AICc (the criterion alone when that is one)
     const kept = DESK_DAY_AHEAD_CHOICE > 1 ? `of the ${countInWords(DESK_DAY_AHEAD_CHOICE)} orders with the lowest AICc on each differencing, it` : 'it';
-    summary = `The desk would forecast with ${orders} on ${model.label}: ${kept} had the smallest day-ahead error over the last ${r.selectionDays} days${
-      chosen?.mape != null ? ` (MAPE ${chosen.mape.toFixed(2)} %` + (baselineMape !== null ? ` against ${baselineMape.toFixed(2)} % for the same hour last week)` : ')') : ''
+    const figures = [
+      chosen?.recentMape != null ? `${chosen.recentMape.toFixed(2)} % with weights halving every ${SELECTION_HALF_LIFE_DAYS} days back` : null,
+      chosen?.mape != null ? `mean MAPE ${chosen.mape.toFixed(2)} %${baselineMape !== null ? ` against ${baselineMape.toFixed(2)} % for the same hour last week` : ''}` : null,
+    ].filter((f): f is string => f !== null);
+    summary = `The desk would forecast with ${orders} on ${model.label}: ${kept} had the smallest day-ahead error over the last ${r.selectionDays} days, recent days weighted more${
+      figures.length ? ` (${figures.join('; ')})` : ''
     }${DESK_DAY_AHEAD_CHOICE > 1 ? '.' : ', and its orders have the lowest AICc.'}`;
   } else {
     summary = `The desk would fall back to the same hour last week (seasonal naive): ${r.fallbackReason ?? 'the model could not be used'}.`;
@@ -81,6 +86,7 @@ export function analyseModel(input: ModelInput): ModelOutput {
     candidates,
     baselineMape,
     selectionDays: r.selectionDays,
+    halfLifeDays: SELECTION_HALF_LIFE_DAYS,
     warnings: r.warnings,
     summary,
   };

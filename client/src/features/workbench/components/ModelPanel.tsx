@@ -121,7 +121,7 @@ export function ModelPanel({ report }: { report: ModelReportDto }) {
         )}
         <Stack gap="xs">
           <Text size="sm" fw={600}>
-            Differencings tried (day-ahead error over the last {report.selectionDays} days)
+            Differencings tried (day-ahead error over the last {report.selectionDays} days; the choice weighs recent days more)
           </Text>
           <Table aria-label="Candidates" fz="sm" withTableBorder>
             <Table.Thead>
@@ -129,6 +129,9 @@ export function ModelPanel({ report }: { report: ModelReportDto }) {
                 <Table.Th>Differencing</Table.Th>
                 <Table.Th>Orders kept (lowest AICc, then day-ahead error)</Table.Th>
                 <Table.Th ta="right">AICc</Table.Th>
+                <Table.Th ta="right" title={`Each day's MAPE weighted by its age, the weights halving every ${report.halfLifeDays} days back: what the choice goes by`}>
+                  Recent MAPE
+                </Table.Th>
                 <Table.Th ta="right">MAPE</Table.Th>
                 <Table.Th />
               </Table.Tr>
@@ -139,6 +142,7 @@ export function ModelPanel({ report }: { report: ModelReportDto }) {
                   <Table.Td ff="monospace">{c.label}</Table.Td>
                   <Table.Td ff="monospace">{c.p === null ? (c.error ?? '—') : formatArmaOrders(c.p, c.q ?? 0, c.seasonal)}</Table.Td>
                   <Table.Td ta="right" ff="monospace">{fmtNum(c.aicc, 1)}</Table.Td>
+                  <Table.Td ta="right" ff="monospace">{c.recentMape == null ? '—' : `${fmtNum(c.recentMape, 2)} %`}</Table.Td>
                   <Table.Td ta="right" ff="monospace">{c.mape === null ? '—' : `${fmtNum(c.mape, 2)} %`}</Table.Td>
                   <Table.Td>{c.chosen && <Badge color="tide">chosen</Badge>}</Table.Td>
                 </Table.Tr>
@@ -146,6 +150,7 @@ export function ModelPanel({ report }: { report: ModelReportDto }) {
               <Table.Tr>
                 <Table.Td>same hour last week</Table.Td>
                 <Table.Td c="dimmed">baseline</Table.Td>
+                <Table.Td />
                 <Table.Td />
                 <Table.Td ta="right" ff="monospace">{report.baselineMape === null ? '—' : `${fmtNum(report.baselineMape, 2)} %`}</Table.Td>
                 <Table.Td />

@@ -1,0 +1,59 @@
+/**
+ * A second real demand series, held out from the engine's tuning: Victoria's operational demand
+ * in 2014 (fixtures/vic-elec-hourly.R: `vic_elec` of the R package tsibbledata, Australian Energy
+ * Market Operator, hourly means, four 12-week windows ending on the last Sunday of each quarter).
+ * Its summer has heatwaves and holidays the open England & Wales series (taylor) does not.
+ */
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { parseLoadCsv } from './cli/csv-series';
+import { runPipeline } from './pipeline';
+
+const QUARTERS = [1, 2, 3, 4];
+const read = (q: number) => parseLoadCsv(readFileSync(join(__dirname, 'fixtures', `vic-elec-2014q${q}.csv`), 'utf8'));
+
+describe('the Victoria 2014 fixtures', () => {
+  it.each(QUARTERS)('quarter %i: 2,016 complete hours, 84 operating days at +10:00 from a Monday', (q) => {
+    const s = read(q);
+    expect(s.values.length).toBe(2016);
+    expect(s.missing).toBe(0);
+    expect(s.dayStarts.slice(0, 84)).toEqual(Array.from({ length: 84 }, (_, d) => 24 * d));
+    expect(Array.from(s.offsets).every((o) => o === 600)).toBe(true);
+    // local midnight +10:00 is 14:00 UTC the day before; the windows start on a Monday
+    expect(new Date(s.startMs + 10 * 3_600_000).getUTCDay()).toBe(1);
+    // operational demand of the state, MW: between about 3 and 11 GW (AEMO's published range for
+    // Victoria, from memory)
+    expect(Math.min(...s.values)).toBeGreaterThan(2500);
+    expect(Math.max(...s.values)).toBeLessThan(11000);
+  });
+});
+
+describe('choosing the model on recent evidence (Victoria, summer 2014)', () => {
+  // The first origin of the summer quarter's 28-day backtest: Monday 3 March 2014, midnight, from
+  // the eight weeks before it (6 January – 2 March, with the heatwaves of mid-January and early
+  // February). Over those four weeks of evidence the daily-differenced model has the lowest plain
+  // mean MAPE (9.6 % against 10.7–13.9 % for the others and 11.9 % for the same hour last week),
+  // won on the hot days, while it forecasts every Monday from the Sunday before it.
+  const s = read(1);
+  const origin = 8 * 168;
+  const history = Array.from(s.values.subarray(0, origin));
+  const monday = Array.from(s.values.subarray(origin, origin + 24));
+  const mapeOf = (mean: number[]) => (100 / 24) * monday.reduce((a, v, i) => a + Math.abs(mean[i] - v) / v, 0);
+
+  it('ranked by the plain mean, the daily-differenced model is chosen and misses the Monday by more than 15 %', () => {
+    const r = runPipeline({ history, horizon: 24, options: { computeSe: false, rankBy: 'equal' } });
+    expect(r.model?.diff).toEqual([24]);
+    expect(mapeOf(r.forecast.mean)).toBeGreaterThan(15); // measured 18.7 %
+  });
+
+  it('ranked with recent days weighted more, a model with the weekly difference is chosen and forecasts the Monday within 5 %', () => {
+    const r = runPipeline({ history, horizon: 24, options: { computeSe: false } });
+    expect(r.model?.diff).toContain(168);
+    const daily = r.candidates.find((c) => c.diff.join() === '24')!;
+    const chosen = r.candidates.find((c) => c.diff.join() === r.model!.diff.join())!;
+    // the plain mean still favours the daily difference; the weighted one does not
+    expect(daily.mape).toBeLessThan(chosen.mape);
+    expect(chosen.recentMape).toBeLessThan(daily.recentMape);
+    expect(mapeOf(r.forecast.mean)).toBeLessThan(5);
+  });
+});
