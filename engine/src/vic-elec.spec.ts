@@ -7,6 +7,8 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { parseLoadCsv } from './cli/csv-series';
+import { fitArma } from './arma/fit';
+import { difference } from './differencing';
 import { runPipeline } from './pipeline';
 
 const QUARTERS = [1, 2, 3, 4];
@@ -55,5 +57,24 @@ describe('choosing the model on recent evidence (Victoria, summer 2014)', () => 
     expect(daily.mape).toBeLessThan(chosen.mape);
     expect(chosen.recentMape).toBeLessThan(daily.recentMape);
     expect(mapeOf(r.forecast.mean)).toBeLessThan(5);
+  });
+});
+
+describe('an AR(1) near a unit root (Victoria, summer 2014)', () => {
+  // Each differencing of the summer quarter leaves a lag-one autocorrelation near 0.98. R 4.2.2's
+  // arima on the same differenced series, no mean (`npm run bench -- --input
+  // engine/src/fixtures/vic-elec-2014q1.csv`, 5 December 2026): log-likelihoods −12805.971,
+  // −12063.602 and −12118.424 ("CSS-ML" and "ML" agree to 0.001).
+  const y = read(1).values;
+  it.each([
+    [[24], -12805.971],
+    [[168], -12063.602],
+    [[24, 168], -12118.424],
+  ])('differenced by %j: R’s maximum in a few dozen evaluations, not a crawl', (diff, rLoglik) => {
+    const f = fitArma(difference(y, diff), { p: 1, q: 0 }, { computeSe: false });
+    expect(f.loglik).toBeGreaterThan(rLoglik - 0.001);
+    expect(f.ar[0]).toBeGreaterThan(0.97);
+    // the search took 112–120 evaluations before the one-coefficient step growth (arma/bfgs.ts), 20–21 after
+    expect(f.evaluations).toBeLessThan(40);
   });
 });
