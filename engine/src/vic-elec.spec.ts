@@ -4,12 +4,13 @@
  * Market Operator, hourly means, four 12-week windows ending on the last Sunday of each quarter).
  * Its summer has heatwaves and holidays the open England & Wales series (taylor) does not.
  */
-import { readFileSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { parseLoadCsv } from './cli/csv-series';
 import { fitArma } from './arma/fit';
 import { difference } from './differencing';
 import { runPipeline } from './pipeline';
+import { backtest } from './backtest';
 
 const QUARTERS = [1, 2, 3, 4];
 const read = (q: number) => parseLoadCsv(readFileSync(join(__dirname, 'fixtures', `vic-elec-2014q${q}.csv`), 'utf8'));
@@ -76,5 +77,23 @@ describe('an AR(1) near a unit root (Victoria, summer 2014)', () => {
     expect(f.ar[0]).toBeGreaterThan(0.97);
     // the search took 112–120 evaluations before the one-coefficient step growth (arma/bfgs.ts), 20–21 after
     expect(f.evaluations).toBeLessThan(40);
+  });
+});
+
+describe('rolling day-ahead backtests against R’s auto.arima (Victoria 2014)', () => {
+  // R's side: fixtures/r-auto-arima-backtest.R on each quarter's file (forecast::auto.arima on the
+  // (1−B¹⁶⁸)-differenced 8 weeks before each of the last 28 days, issued at the day's midnight),
+  // written to fixtures/r-auto-arima-vic-elec-2014qN.json; the quarters whose R run finished.
+  const rOf = (q: number) => {
+    const f = join(__dirname, 'fixtures', `r-auto-arima-vic-elec-2014q${q}.json`);
+    return existsSync(f) ? (JSON.parse(readFileSync(f, 'utf8')) as { windows: Array<{ days: number; mape: number }> }) : null;
+  };
+  const withR = QUARTERS.filter((q) => rOf(q) !== null);
+
+  it.each(withR)('quarter %i: the pipeline’s MAPE over the last 7, 14 and 28 days below auto.arima’s', (q) => {
+    const r = backtest(read(q).values, { days: 28 });
+    expect(r.days).toHaveLength(28);
+    const mape = (n: number) => r.days.slice(-n).reduce((s, d) => s + d.accuracy.mape, 0) / n;
+    for (const w of rOf(q)!.windows) expect(mape(w.days)).toBeLessThan(w.mape);
   });
 });

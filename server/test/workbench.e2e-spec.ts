@@ -51,7 +51,12 @@ describe('workbench: stationarity, model and backtest of a zone (real MariaDB)',
     operator = await tokenFor(app, 'operator');
     viewer = await tokenFor(app, 'viewer');
     [zone, shortZone, emptyZone] = await Promise.all([createZone(app, admin), createZone(app, admin), createZone(app, admin)]);
-    const last = Math.floor(Date.now() / HOUR) * HOUR - HOUR;
+    // The series ends at the last Sunday 23:00 UTC, so that the model chosen does not depend on the
+    // hour the test runs: at 2 of the week's 168 phases the pipeline's final fit of these data ends
+    // with an MA root on the circle and no standard errors (measured 5 December 2026)
+    const today = new Date();
+    const midnight = Date.UTC(today.getUTCFullYear(), today.getUTCMonth(), today.getUTCDate());
+    const last = midnight - ((today.getUTCDay() + 6) % 7) * 24 * HOUR - HOUR;
     const readings = app.get(ReadingsService);
     const full = await readings.ingest(synthesise(8 * 168 + 5 * 24, last).map((r) => ({ zone, ...r })), { source: 'test:workbench' });
     expect(full.rejected).toEqual([]);
