@@ -30,7 +30,7 @@
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { cpus, tmpdir } from 'node:os';
-import { basename, join } from 'node:path';
+import { basename, join, resolve } from 'node:path';
 import { accuracy, backtest, describeModel, fitArma, median, runPipeline, type BacktestResult } from '@morrowline/engine';
 import { simulateArma21 as simulate } from './bench-series';
 import { BENCH_MISSING_HOURS, printRealTable, RealCase, realCases, RFitTiming, timeEngine, timeRealTable, withMissingHours } from './bench-real';
@@ -122,7 +122,8 @@ const fmt = (v: number, d = 2) => (Number.isFinite(v) ? v.toFixed(d) : 'n/a');
 
 /** The real-series table on a load file of the caller's (`--input`), R in the same run. */
 function runRealTableOn(file: string, rVersion: string | null): void {
-  const series = parseLoadCsv(readFileSync(file, 'utf8'));
+  // npm runs the bench in engine/ (scripts/bench.sh): a relative path is the caller's, from where npm was invoked
+  const series = parseLoadCsv(readFileSync(resolve(process.env.INIT_CWD ?? process.cwd(), file), 'utf8'));
   const load = Array.from(series.values);
   const cases = realCases();
   timeEngine(load, cases.filter((c) => c.P === 0).slice(0, 16));
